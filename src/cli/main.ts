@@ -1,0 +1,47 @@
+#!/usr/bin/env node
+import { readFileSync } from 'node:fs';
+import { Command, CommanderError } from 'commander';
+import { registerInspect } from './inspect.js';
+import { registerModes } from './modes.js';
+import { registerCheck } from './check.js';
+import { registerRules } from './rules.js';
+import { registerInit } from './init.js';
+import { registerDemo } from './demo.js';
+import { EXIT_BAD_INPUT } from './run-action.js';
+
+function packageVersion(): string {
+  const url = new URL('../../../package.json', import.meta.url);
+  return (JSON.parse(readFileSync(url, 'utf8')) as { version: string }).version;
+}
+
+const program = new Command();
+program
+  .name('modalgate')
+  .description(
+    'Gate finite-element model changes in CI: read K and M (Matrix Market), solve the lowest modes\n' +
+      'with a verified sparse eigensolver, apply pass/fail rules, write JUnit XML and reports.\n' +
+      'Exit codes: 0 pass, 1 a rule failed, 2 bad input or internal error.\n' +
+      'Results support, never replace, review by a qualified engineer under the applicable codes.',
+  )
+  .version(packageVersion(), '-V, --version')
+  .showHelpAfterError()
+  .exitOverride();
+
+registerInspect(program);
+registerModes(program);
+registerCheck(program);
+registerRules(program);
+registerInit(program);
+registerDemo(program);
+
+try {
+  await program.parseAsync(process.argv);
+} catch (e) {
+  if (e instanceof CommanderError) {
+    // commander already printed its message; help and version exit 0
+    process.exitCode = e.exitCode === 0 ? 0 : EXIT_BAD_INPUT;
+  } else {
+    process.stderr.write(`modalgate: internal error: ${e instanceof Error ? e.message : String(e)}\n`);
+    process.exitCode = EXIT_BAD_INPUT;
+  }
+}

@@ -1,0 +1,26 @@
+import { oneLineMessage } from '../io/errors.js';
+
+/** Exit codes of every command: 0 pass, 1 a rule failed, 2 bad input or internal error. */
+export const EXIT_PASS = 0;
+export const EXIT_RULE_FAILED = 1;
+export const EXIT_BAD_INPUT = 2;
+
+/**
+ * Wrap a command's action: whatever it throws becomes one stderr line and exit code 2,
+ * never a stack trace (set MODALGATE_DEBUG=1 to see the trace).
+ */
+export function runAction<A extends unknown[]>(
+  action: (...args: A) => Promise<number> | number,
+): (...args: A) => Promise<void> {
+  return async (...args: A) => {
+    let code: number;
+    try {
+      code = await action(...args);
+    } catch (e) {
+      if (process.env.MODALGATE_DEBUG && e instanceof Error) process.stderr.write(`${e.stack}\n`);
+      process.stderr.write(`modalgate: ${oneLineMessage(e)}\n`);
+      code = EXIT_BAD_INPUT;
+    }
+    process.exitCode = code;
+  };
+}

@@ -1,0 +1,63 @@
+import type { FactorDiagnostics } from '../sparse/factor-types.js';
+
+/** What to solve for: the lowest `count` modes, or every mode below `maxHz`. */
+export interface ModesRequest {
+  count?: number;
+  maxHz?: number;
+  method?: 'lanczos' | 'subspace';
+  /** Relative tolerance on residuals at convergence (default 1e-12, our choice). */
+  tolerance?: number;
+  /** Node coordinates per DOF, interleaved x,y,z (3n), used by the ordering. */
+  coordinates?: Float64Array;
+  /** Called now and then during long solves (the CLI prints it on a TTY). */
+  onProgress?: (message: string) => void;
+}
+
+/** Sturm-sequence proof that no mode was missed. */
+export interface SturmCheck {
+  /** The shift σ at which K − σM was factored for the count. */
+  shift: number;
+  /** Negative pivots of LDLᵀ(K − σM) = eigenvalues below σ. */
+  countBelow: number;
+  modesReturned: number;
+  ok: boolean;
+}
+
+export interface OrthogonalityCheck {
+  /** max |ΦᵀMΦ − I| over all entries. */
+  massMaxDeviation: number;
+  /** max |ΦᵀKΦ − Λ| over all entries, divided by max(|λ_max|, tiny). */
+  stiffnessMaxDeviation: number;
+}
+
+export interface ModesResult {
+  n: number;
+  /** λ = ω² in (rad/s)², ascending. */
+  eigenvalues: Float64Array;
+  /** f = √λ / 2π; negative λ reported honestly as −√|λ| / 2π. */
+  frequenciesHz: Float64Array;
+  /** Mass-normalized mode shapes, column-major n × modes (φᵢᵀMφᵢ = 1). */
+  shapes: Float64Array;
+  /** ‖Kφ − λMφ‖ / ‖Kφ‖ per mode (with a floor for rigid-body modes, see the solver). */
+  residuals: Float64Array;
+  sturm: SturmCheck;
+  orthogonality: OrthogonalityCheck;
+  method: 'lanczos' | 'subspace';
+  /** Every shift factored during the solve. */
+  shifts: number[];
+  iterations: number;
+  timings: { totalMs: number; factorMs: number; iterateMs: number; verifyMs: number };
+  factor: FactorDiagnostics;
+  /** Problems the solver noticed but could work past (a shift moved, a slow convergence). */
+  warnings: string[];
+}
+
+export function frequencyHzFromEigenvalue(lambda: number): number {
+  const w = Math.sqrt(Math.abs(lambda)) / (2 * Math.PI);
+  return lambda < 0 ? -w : w;
+}
+
+export function eigenvalueFromFrequencyHz(hz: number): number {
+  const w = 2 * Math.PI * hz;
+  return w * w;
+}

@@ -1,0 +1,51 @@
+import type { SymmetricCsc } from '../sparse/csc.js';
+import type { DofMap } from '../io/dof-map.js';
+import type { ModesResult } from '../eigen/modes-types.js';
+import type { MatrixSummary } from '../model/matrix-summary.js';
+import type { GeometryFacts } from '../model/geometry-facts.js';
+import type { ComparisonFacts } from '../model/comparison-facts.js';
+
+/** `error` fails the gate, `warning` reports without failing, `off` does not run. */
+export type Severity = 'error' | 'warning' | 'off';
+
+/** pass / fail (rule evaluated and violated) / skip (cannot apply, say why) / error (could not evaluate). */
+export type RuleStatus = 'pass' | 'fail' | 'skip' | 'error';
+
+export interface RuleOutcome {
+  status: RuleStatus;
+  /** One plain sentence, built from the rule's message template. */
+  message: string;
+  measured?: number | string | null;
+  limit?: number | string | null;
+  /** Structured extras for JSON/HTML (lists of DOFs, per-mode values...). */
+  details?: Record<string, unknown>;
+}
+
+/** Everything known about one model when its rules run. Rules read it; they never print. */
+export interface RuleContext {
+  modelName: string;
+  stiffness: SymmetricCsc;
+  mass: SymmetricCsc;
+  stiffnessSummary: MatrixSummary;
+  massSummary: MatrixSummary;
+  dofMap?: DofMap;
+  modes?: ModesResult;
+  geometry?: GeometryFacts;
+  comparison?: ComparisonFacts;
+}
+
+export type RuleNeed = 'modes' | 'dofMap' | 'baseline';
+
+export interface RuleDefinition<O extends object = Record<string, unknown>> {
+  id: string;
+  /** One line, shown by `modalgate rules`. */
+  description: string;
+  /** JSON Schema (draft 2020-12 subset ajv understands) of the options object. */
+  optionsSchema: Record<string, unknown>;
+  defaults: O;
+  /** Message templates with {{placeholders}}. */
+  messages: Record<string, string>;
+  /** Inputs the rule needs; when absent the engine records `skip` with the reason. */
+  needs: RuleNeed[];
+  evaluate(context: RuleContext, options: O): RuleOutcome;
+}

@@ -1,0 +1,103 @@
+/**
+ * Symmetric sparse matrices in compressed sparse column (CSC) form, lower triangle stored.
+ *
+ * Column j holds rows rowIdx[colPtr[j] .. colPtr[j+1]-1], all >= j, sorted ascending, no
+ * duplicates; when present the diagonal is the first entry of its column. The full matrix is
+ * A = L + Lᵀ − diag(A), where L is what is stored.
+ */
+export interface SymmetricCsc {
+  readonly n: number;
+  readonly colPtr: Int32Array; // length n + 1
+  readonly rowIdx: Int32Array; // length nnz (stored)
+  readonly values: Float64Array; // length nnz (stored)
+}
+
+/** Stored entries (lower triangle including the diagonal). */
+export function storedNonzeros(a: SymmetricCsc): number {
+  return a.colPtr[a.n];
+}
+
+/** Entries of the full symmetric matrix: 2·stored − diagonal entries. */
+export function fullNonzeros(a: SymmetricCsc): number {
+  let diag = 0;
+  for (let j = 0; j < a.n; j++) {
+    const p = a.colPtr[j];
+    if (p < a.colPtr[j + 1] && a.rowIdx[p] === j) diag++;
+  }
+  return 2 * a.colPtr[a.n] - diag;
+}
+
+/** The diagonal of A (zero where no entry is stored). */
+export function diagonalOf(a: SymmetricCsc): Float64Array {
+  const d = new Float64Array(a.n);
+  for (let j = 0; j < a.n; j++) {
+    const p = a.colPtr[j];
+    if (p < a.colPtr[j + 1] && a.rowIdx[p] === j) d[j] = a.values[p];
+  }
+  return d;
+}
+
+/** y = A x for symmetric A stored as its lower triangle. y is overwritten. */
+export function symMultiply(a: SymmetricCsc, x: Float64Array, y: Float64Array = new Float64Array(a.n)): Float64Array {
+  const { n, colPtr, rowIdx, values } = a;
+  y.fill(0);
+  for (let j = 0; j < n; j++) {
+    const xj = x[j];
+    let sum = 0;
+    for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+      const i = rowIdx[p];
+      const v = values[p];
+      if (i === j) {
+        sum += v * xj; // diagonal counted once
+      } else {
+        y[i] += v * xj; // lower part:  y_i += a_ij x_j
+        sum += v * x[i]; // mirrored upper part: y_j += a_ij x_i
+      }
+    }
+    y[j] += sum;
+  }
+  return y;
+}
+
+/**
+ * Y = A X for a column-major n×k block X. One pass over A serves all k columns,
+ * so the matrix is streamed once per block rather than once per vector.
+ */
+export function symMultiplyBlock(
+  a: SymmetricCsc,
+  x: Float64Array,
+  k: number,
+  y: Float64Array = new Float64Array(a.n * k),
+): Float64Array {
+  const { n, colPtr, rowIdx, values } = a;
+  if (k === 1) return symMultiply(a, x, y);
+  y.fill(0);
+  const sum = new Float64Array(k);
+  for (let j = 0; j < n; j++) {
+    sum.fill(0);
+    for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+      const i = rowIdx[p];
+      const v = values[p];
+      if (i === j) {
+        for (let c = 0, o = j; c < k; c++, o += n) sum[c] += v * x[o];
+      } else {
+        for (let c = 0, o = 0; c < k; c++, o += n) {
+          y[o + i] += v * x[o + j];
+          sum[c] += v * x[o + i];
+        }
+      }
+    }
+    for (let c = 0, o = j; c < k; c++, o += n) y[o] += sum[c];
+  }
+  return y;
+}
+
+/** Largest |a_ij| over the stored entries (the max-norm of the full matrix). */
+export function maxAbsEntry(a: SymmetricCsc): number {
+  let m = 0;
+  for (let p = 0; p < a.colPtr[a.n]; p++) {
+    const v = Math.abs(a.values[p]);
+    if (v > m) m = v;
+  }
+  return m;
+}

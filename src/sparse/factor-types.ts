@@ -1,0 +1,82 @@
+/**
+ * Contracts of the sparse LDLᵀ layer, shared by the factorization code (src/sparse) and its
+ * users (src/eigen, src/rules). A = K − σM is factored as P A Pᵀ = L D Lᵀ with unit lower L
+ * and diagonal D (no pivoting); the ordering P and the symbolic structure are computed once
+ * and reused for every shift σ.
+ */
+
+export type OrderingName = 'natural' | 'amd' | 'nested-dissection' | 'coordinate-bisection';
+
+/**
+ * Counts of D's entries by sign. By Sylvester's law of inertia, with M positive
+ * (semi)definite, `negative` equals the number of eigenvalues of (K, M) below σ.
+ */
+export interface Inertia {
+  negative: number;
+  zero: number;
+  positive: number;
+  /** |d_j| ≤ zeroTolerance · |a_jj| counted as zero (relative to A's own diagonal). */
+  zeroTolerance: number;
+}
+
+/** A pivot tiny relative to A's diagonal: the shift may sit on an eigenvalue, or a mechanism. */
+export interface TinyPivot {
+  /** 0-based DOF in the original (unpermuted) numbering. */
+  dof: number;
+  pivot: number;
+  diagonal: number;
+}
+
+export interface PhaseTimings {
+  orderingMs: number;
+  symbolicMs: number;
+  numericMs: number;
+}
+
+export interface FactorDiagnostics {
+  ordering: OrderingName;
+  n: number;
+  /** Nonzeros of L including its unit diagonal. */
+  nnzL: number;
+  /** Floating-point operations of the numeric factorization (multiply-adds counted as 2). */
+  flops: number;
+  supernodes: number;
+  timings: PhaseTimings;
+  /** Bytes held by the factor's arrays (L values, indices, D). */
+  factorBytes: number;
+  /** max_j |a_jj / d_j| — a conditioning indicator (common practice), and where it occurs. */
+  maxDiagonalToPivotRatio: number;
+  maxRatioDof: number;
+  tinyPivots: TinyPivot[];
+}
+
+/** The numeric factor of one shifted matrix. Vectors are in the original DOF numbering. */
+export interface ShiftedFactor {
+  readonly n: number;
+  readonly shift: number;
+  readonly inertia: Inertia;
+  readonly diagnostics: FactorDiagnostics;
+  /** x = A⁻¹ b. `x` may be `b` (in place). */
+  solve(b: Float64Array, x?: Float64Array): Float64Array;
+  /** X = A⁻¹ B for a column-major n×k block. `x` may be `b`. */
+  solveBlock(b: Float64Array, k: number, x?: Float64Array): Float64Array;
+}
+
+export interface ShiftedSolverOptions {
+  ordering?: 'auto' | OrderingName;
+  /** Node coordinates per DOF (x, y, z interleaved, length 3n) for coordinate bisection. */
+  coordinates?: Float64Array;
+  /** Relative zero-pivot tolerance for inertia, default 1e-13 (our choice). */
+  zeroPivotTolerance?: number;
+}
+
+/**
+ * Ordering + symbolic analysis of the pattern of K + M, done once; `factor(σ)` then computes
+ * the numeric LDLᵀ of K − σM on that structure.
+ */
+export interface ShiftedSolver {
+  readonly n: number;
+  readonly ordering: OrderingName;
+  readonly predictedNnzL: number;
+  factor(shift: number): ShiftedFactor;
+}
