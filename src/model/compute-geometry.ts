@@ -1,0 +1,72 @@
+/**
+ * Builds GeometryFacts for one model from K, M, the DOF map and (optionally) the solved modes:
+ * rigid-body vectors about the centre of mass → mass properties → rigid-body energy →
+ * participation and mechanism location when modes are known. All DOF numbers in the facts are
+ * original DOF numbers when constraint sets reduced the model (`originalDofs`).
+ */
+import type { SymmetricCsc } from '../sparse/csc.js';
+import type { DofMap } from '../io/dof-map.js';
+import type { ModesResult } from '../eigen/modes-types.js';
+import type { GeometryFacts, ConstraintFacts } from './geometry-facts.js';
+import { RIGID_BODY_DIRECTIONS, representedDirections, type Point3, type RigidBodyDirection } from './rigid-body-vectors.js';
+import { rigidBodyVectorsAboutCenterOfMass } from './mass-properties.js';
+import { rigidBodyEnergy, stiffnessMassScale } from './rigid-body-energy.js';
+import { modalParticipation } from './participation.js';
+import { countNearZeroModes, localizeMechanisms } from './mechanism-localization.js';
+
+export interface GeometryInput {
+  stiffness: SymmetricCsc;
+  mass: SymmetricCsc;
+  dofMap: DofMap;
+  modes?: ModesResult;
+  /** Reduced DOF r is original DOF originalDofs[r] (from constraints.ts), when reduced. */
+  originalDofs?: Int32Array;
+  constraints?: ConstraintFacts;
+  /** Rotation point instead of the centre of mass. */
+  referencePoint?: Point3;
+  /** Number of leading near-zero modes when the caller already knows it. */
+  nearZeroModes?: number;
+  /** How many nodes the "where" lists carry (default 10). */
+  top?: number;
+}
+
+export function computeGeometry(input: GeometryInput): GeometryFacts {
+  const { stiffness, mass, dofMap, modes } = input;
+  const top = input.top ?? 10;
+  const { rigid, massProperties, massTimesR } = rigidBodyVectorsAboutCenterOfMass(dofMap, mass, input.referencePoint);
+  const g = massProperties.rigidBodyMass;
+  const gDiagonal = [0, 1, 2, 3, 4, 5].map((k) => g[k * 6 + k]);
+  const scale = stiffnessMassScale(stiffness, mass, dofMap);
+  const nearZero = modes ? (input.nearZeroModes ?? countNearZeroModes(modes.eigenvalues, scale)) : null;
+  const firstElastic = modes && nearZero !== null && nearZero < modes.eigenvalues.length ? modes.eigenvalues[nearZero] : null;
+  const energy = rigidBodyEnergy(stiffness, rigid, gDiagonal, dofMap, {
+    referenceEigenvalue: firstElastic !== null && firstElastic > 0 ? firstElastic : scale,
+    referenceSource: firstElastic !== null && firstElastic > 0 ? 'first-elastic-mode' : 'stiffness-mass-scale',
+    originalDofs: input.originalDofs,
+    top,
+  });
+  const has = representedDirections(dofMap);
+  const represented = Object.fromEntries(RIGID_BODY_DIRECTIONS.map((d, k) => [d, has[k]])) as Record<RigidBodyDirection, boolean>;
+  return {
+    referencePoint: rigid.referencePoint,
+    representedDirections: represented,
+    massProperties,
+    rigidBodyEnergy: energy,
+    nearZeroModes: nearZero,
+    supported: supportedReason(input.constraints, nearZero),
+    constraints: input.constraints ?? null,
+    participation: modes ? modalParticipation(modes, massTimesR, gDiagonal) : null,
+    mechanisms:
+      modes && nearZero !== null
+        ? localizeMechanisms(mass, modes, massTimesR, g, dofMap, { nearZeroModes: nearZero, originalDofs: input.originalDofs, top })
+        : null,
+  };
+}
+
+function supportedReason(constraints: ConstraintFacts | undefined, nearZero: number | null): { reason: string } | null {
+  if (constraints && constraints.removedDofs > 0) {
+    return { reason: `the model is supported by constraint sets (${constraints.sets.join(', ')}; ${constraints.removedDofs} DOFs held)` };
+  }
+  if (nearZero === 0) return { reason: 'the solved modes include no near-zero mode, so the model is supported' };
+  return null;
+}

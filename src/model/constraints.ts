@@ -1,0 +1,197 @@
+/**
+ * Constraint sets: DOFs removed from K and M before solving (a support through the config,
+ * so one exported free-free model can also be checked supported).
+ *
+ * Removing DOF set C (held at zero) leaves the kept block K_FF, M_FF, F = complement of C.
+ * The map `keptDofs[r] = original DOF` lets reports name original DOFs; it is increasing,
+ * so rows stay sorted and the diagonal stays first in every kept column.
+ */
+import type { SymmetricCsc } from '../sparse/csc.js';
+import { COMPONENTS, type DofMap } from '../io/dof-map.js';
+import { InputError } from '../io/errors.js';
+
+/** Component selectors accepted in a constraint set. */
+export type ComponentSelector = (typeof COMPONENTS)[number] | 'all' | 'translations' | 'rotations';
+
+export interface ConstraintSet {
+  /** Name shown in reports (e.g. "base clamp"). */
+  name?: string;
+  /** Node ids to hold. */
+  nodes?: number[];
+  /** Inclusive node id range [first, last]. */
+  nodeRange?: [number, number];
+  /** Components held at those nodes (default `all`). */
+  components?: ComponentSelector[];
+  /** 1-based DOF numbers (rows of K) to hold, e.g. read from a file. */
+  dofs?: number[];
+}
+
+export interface ReducedModel {
+  stiffness: SymmetricCsc;
+  mass: SymmetricCsc;
+  dofMap?: DofMap;
+  /** Reduced DOF r is original DOF keptDofs[r] (0-based). */
+  keptDofs: Int32Array;
+  /** Original DOF i is reduced DOF reducedIndex[i], or −1 when removed. */
+  reducedIndex: Int32Array;
+  /** Removed original DOFs (0-based, ascending). */
+  removedDofs: Int32Array;
+}
+
+/** Component codes a selector list stands for. */
+export function componentCodes(selectors: readonly ComponentSelector[] | undefined, where = 'components'): number[] {
+  const codes = new Set<number>();
+  // expand each selector to its component codes
+  for (const s of selectors ?? ['all']) {
+    if (s === 'all') [0, 1, 2, 3, 4, 5].forEach((c) => codes.add(c));
+    else if (s === 'translations') [0, 1, 2].forEach((c) => codes.add(c));
+    else if (s === 'rotations') [3, 4, 5].forEach((c) => codes.add(c));
+    else {
+      const c = COMPONENTS.indexOf(s);
+      if (c < 0) throw new InputError('config', `unknown component "${String(s)}" (use ux uy uz rx ry rz, all, translations or rotations)`, { where });
+      codes.add(c);
+    }
+  }
+  return [...codes].sort();
+}
+
+/**
+ * Mask (1 = removed) of the DOFs the constraint sets hold. Node selections need the DOF map;
+ * a selection that matches no DOF is an input error (a typo in a node id must not pass silently).
+ */
+export function constrainedDofMask(n: number, dofMap: DofMap | undefined, sets: readonly ConstraintSet[], source = 'config'): Uint8Array {
+  const mask = new Uint8Array(n);
+  sets.forEach((set, k) => {
+    const where = `constraints[${k}]${set.name ? ` (${set.name})` : ''}`;
+    let matched = 0;
+    // DOF numbers given directly
+    for (const d of set.dofs ?? []) {
+      if (!Number.isInteger(d) || d < 1 || d > n) throw new InputError(source, `DOF number ${d} is outside 1..${n}`, { where });
+      if (!mask[d - 1]) matched++;
+      mask[d - 1] = 1;
+    }
+    if (set.nodes === undefined && set.nodeRange === undefined) {
+      if (!set.dofs?.length) throw new InputError(source, 'a constraint set needs nodes, nodeRange or dofs', { where });
+      return;
+    }
+    if (!dofMap) throw new InputError(source, 'constraints by node need a DOF map (dof,node,component,x,y,z)', { where });
+    const codes = new Set(componentCodes(set.components, `${where}.components`));
+    const nodes = new Set(set.nodes ?? []);
+    const [lo, hi] = set.nodeRange ?? [1, 0];
+    let nodeHits = 0;
+    // every DOF at a selected node with a selected component
+    for (let i = 0; i < n; i++) {
+      const node = dofMap.node[i];
+      if (!nodes.has(node) && !(node >= lo && node <= hi)) continue;
+      nodeHits++;
+      if (!codes.has(dofMap.component[i])) continue;
+      mask[i] = 1;
+      matched++;
+    }
+    if (nodeHits === 0) throw new InputError(source, 'no DOF of the DOF map belongs to the listed nodes', { where });
+    if (matched === 0) throw new InputError(source, 'the listed nodes carry none of the listed components', { where });
+  });
+  return mask;
+}
+
+/** Lower-triangle sub-matrix A(F, F) with F = kept DOFs (increasing), renumbered by `reducedIndex`. */
+export function symmetricSubmatrix(a: SymmetricCsc, keptDofs: Int32Array, reducedIndex: Int32Array): SymmetricCsc {
+  const m = keptDofs.length;
+  const colPtr = new Int32Array(m + 1);
+  // count kept rows in each kept column
+  for (let r = 0; r < m; r++) {
+    const j = keptDofs[r];
+    let c = 0;
+    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) if (reducedIndex[a.rowIdx[p]] >= 0) c++;
+    colPtr[r + 1] = colPtr[r] + c;
+  }
+  const rowIdx = new Int32Array(colPtr[m]);
+  const values = new Float64Array(colPtr[m]);
+  // copy the kept entries, renumbering rows (order is preserved because the map is increasing)
+  for (let r = 0, q = 0; r < m; r++) {
+    const j = keptDofs[r];
+    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) {
+      const ri = reducedIndex[a.rowIdx[p]];
+      if (ri < 0) continue;
+      rowIdx[q] = ri;
+      values[q++] = a.values[p];
+    }
+  }
+  return { n: m, colPtr, rowIdx, values };
+}
+
+/** The DOF map restricted to the kept DOFs. */
+export function reduceDofMap(map: DofMap, keptDofs: Int32Array): DofMap {
+  const m = keptDofs.length;
+  const node = new Int32Array(m);
+  const component = new Uint8Array(m);
+  const x = new Float64Array(m);
+  const y = new Float64Array(m);
+  const z = new Float64Array(m);
+  // gather each kept DOF's row of the map
+  for (let r = 0; r < m; r++) {
+    const i = keptDofs[r];
+    node[r] = map.node[i];
+    component[r] = map.component[i];
+    x[r] = map.x[i];
+    y[r] = map.y[i];
+    z[r] = map.z[i];
+  }
+  return { n: m, node, component, x, y, z };
+}
+
+/** Remove the DOFs flagged in `removed` (1 = remove) from K, M and the DOF map. */
+export function removeDofs(stiffness: SymmetricCsc, mass: SymmetricCsc, dofMap: DofMap | undefined, removed: Uint8Array): ReducedModel {
+  const n = stiffness.n;
+  const reducedIndex = new Int32Array(n);
+  let kept = 0;
+  // number the kept DOFs in original order
+  for (let i = 0; i < n; i++) reducedIndex[i] = removed[i] ? -1 : kept++;
+  const keptDofs = new Int32Array(kept);
+  const removedDofs = new Int32Array(n - kept);
+  for (let i = 0, k = 0, r = 0; i < n; i++) {
+    if (reducedIndex[i] >= 0) keptDofs[k++] = i;
+    else removedDofs[r++] = i;
+  }
+  return {
+    stiffness: symmetricSubmatrix(stiffness, keptDofs, reducedIndex),
+    mass: symmetricSubmatrix(mass, keptDofs, reducedIndex),
+    dofMap: dofMap ? reduceDofMap(dofMap, keptDofs) : undefined,
+    keptDofs,
+    reducedIndex,
+    removedDofs,
+  };
+}
+
+/** Constraint sets → reduced model in one call. */
+export function applyConstraints(
+  stiffness: SymmetricCsc,
+  mass: SymmetricCsc,
+  dofMap: DofMap | undefined,
+  sets: readonly ConstraintSet[],
+  source = 'config',
+): ReducedModel {
+  return removeDofs(stiffness, mass, dofMap, constrainedDofMask(stiffness.n, dofMap, sets, source));
+}
+
+/**
+ * A file of DOF numbers: 1-based integers separated by whitespace, commas or newlines;
+ * `#` or `%` starts a comment. Bad tokens are input errors naming the line.
+ */
+export function parseDofNumbers(text: string, file: string): number[] {
+  const dofs: number[] = [];
+  const lines = text.split(/\r?\n/);
+  // each line: strip the comment, split into tokens, each a positive integer
+  lines.forEach((raw, k) => {
+    const line = raw.replace(/[#%].*$/, '').trim();
+    if (!line) return;
+    for (const token of line.split(/[\s,;]+/)) {
+      if (!token) continue;
+      if (!/^\d+$/.test(token) || Number(token) < 1) {
+        throw new InputError(file, `"${token}" is not a DOF number (a positive integer, 1-based)`, { line: k + 1 });
+      }
+      dofs.push(Number(token));
+    }
+  });
+  return dofs;
+}

@@ -1,0 +1,212 @@
+/**
+ * Where is a mechanism? Near-zero modes beyond the rigid-body motions, located by their
+ * kinetic energy.
+ *
+ * Near-zero space. Z = the solved modes with λ ≈ 0 (see `countNearZeroModes`), M-orthonormal.
+ * Rigid part of Z. B = Zᵀ M R (k × 6), G = Rᵀ M R. The k × k matrix A = B G⁺ Bᵀ is Zᵀ M P_R Z,
+ * P_R the M-orthogonal projector onto span(R); its eigenvalues are cos² of the principal angles
+ * between Z and span(R). Eigenvectors u with cos² ≥ ½ are rigid motions the model is free to
+ * make (six for a free-free solid); the others span the mechanisms ψ = Z u, which are then
+ * M-orthogonal to the rigid part (the rigid component has been removed). For a free-free model
+ * this is the M-orthogonal projection onto the complement of span(R); for a supported model no
+ * rigid motion is free and every near-zero mode is a mechanism.
+ * Where. For M-orthonormal ψ_j the kinetic-energy share of DOF i is e_i = Σ_j ψ_ji (M ψ_j)_i
+ * (Σ_i e_i = number of mechanisms; invariant to how the solver mixed degenerate modes);
+ * nodes are ranked by the sum of their DOFs' shares.
+ */
+import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
+import { COMPONENTS, type DofMap } from '../io/dof-map.js';
+import type { ModesResult } from '../eigen/modes-types.js';
+import { smallSymmetricEigen } from './small-symmetric-eigen.js';
+
+/** Eigenvalues at most this times the stiffness/mass scale are round-off zeros (our choice). */
+export const ROUND_OFF_ZERO_RATIO = 1e-10;
+/** A jump λ_{i+1}/λ_i at least this large (frequency ratio 1000) separates near-zero modes (our choice). */
+export const NEAR_ZERO_GAP_RATIO = 1e6;
+
+/**
+ * Number of leading solved modes that are near zero: every |λ| ≤ 1e-10 · scale, then, among
+ * the rest, up to the largest jump λ_{i+1}/λ_i when it is ≥ 1e6 (a weak, not exactly zero,
+ * mechanism or grounding stays on the zero side of a clear gap).
+ */
+export function countNearZeroModes(eigenvalues: Float64Array, stiffnessMassScale: number): number {
+  const count = eigenvalues.length;
+  const zero = ROUND_OFF_ZERO_RATIO * stiffnessMassScale;
+  let z = 0;
+  // leading round-off zeros
+  while (z < count && Math.abs(eigenvalues[z]) <= zero) z++;
+  let bestRatio = NEAR_ZERO_GAP_RATIO;
+  let split = z;
+  // the largest clear gap among the remaining positive eigenvalues
+  for (let i = z; i + 1 < count; i++) {
+    if (!(eigenvalues[i] > 0)) continue;
+    const ratio = eigenvalues[i + 1] / eigenvalues[i];
+    if (ratio >= bestRatio) {
+      bestRatio = ratio;
+      split = i + 1;
+    }
+  }
+  return split;
+}
+
+export interface NodeShare {
+  node: number;
+  /** Fraction of the mechanisms' kinetic energy at this node (0..1). */
+  energyFraction: number;
+  /** The node's component with the largest share. */
+  component: string;
+  /** Original 1-based DOF number of that component. */
+  dof: number;
+}
+
+export interface MechanismReport {
+  /** Near-zero modes examined (the first k solved modes). */
+  nearZeroModes: number;
+  /** Of those, how many are free rigid-body motions (cos² ≥ ½ with span(R)). */
+  freeRigidBodyMotions: number;
+  /** Near-zero motions that are not rigid: mechanisms. */
+  mechanisms: number;
+  /** cos² of the principal angles between the near-zero space and span(R), descending. */
+  rigidAlignment: number[];
+  /** Nodes carrying most of the mechanisms' kinetic energy, largest first. */
+  nodes: NodeShare[];
+  /** Per mechanism, its top nodes (basis chosen by the projection; degenerate ones may mix). */
+  perMechanism: NodeShare[][];
+}
+
+export interface MechanismOptions {
+  nearZeroModes: number;
+  originalDofs?: Int32Array;
+  top?: number;
+}
+
+export function localizeMechanisms(
+  mass: SymmetricCsc,
+  modes: ModesResult,
+  massTimesR: Float64Array,
+  rigidBodyMass: readonly number[],
+  dofMap: DofMap,
+  options: MechanismOptions,
+): MechanismReport {
+  const n = modes.n;
+  const k = Math.min(options.nearZeroModes, modes.eigenvalues.length);
+  const top = options.top ?? 10;
+  const z = modes.shapes.subarray(0, n * k);
+  const a = rigidProjectionGram(z, massTimesR, rigidBodyMass, n, k);
+  const eig = smallSymmetricEigen(a, k);
+  const mechanismColumns: number[] = [];
+  const alignment: number[] = [];
+  // eigenvalues of A ascending: small cos² = mechanism directions
+  for (let j = 0; j < k; j++) {
+    alignment.push(Math.min(1, Math.max(0, eig.values[j])));
+    if (eig.values[j] < 0.5) mechanismColumns.push(j);
+  }
+  alignment.reverse();
+  const psi = combine(z, eig.vectors, mechanismColumns, n, k);
+  const mPsi = symMultiplyBlock(mass, psi, mechanismColumns.length);
+  const all = mechanismColumns.map((_, j) => j);
+  return {
+    nearZeroModes: k,
+    freeRigidBodyMotions: k - mechanismColumns.length,
+    mechanisms: mechanismColumns.length,
+    rigidAlignment: alignment,
+    nodes: mechanismColumns.length ? nodeShares(psi, mPsi, all, dofMap, options.originalDofs, top) : [],
+    perMechanism: all.map((j) => nodeShares(psi, mPsi, [j], dofMap, options.originalDofs, Math.min(top, 3))),
+  };
+}
+
+/** A = B G⁺ Bᵀ with B = Zᵀ (M R); G⁺ from the eigen-decomposition of the diagonal-scaled G. */
+function rigidProjectionGram(z: Float64Array, mr: Float64Array, g: readonly number[], n: number, k: number): Float64Array {
+  const b = new Float64Array(k * 6);
+  // B_jl = z_jᵀ (M r_l)
+  for (let j = 0; j < k; j++) {
+    for (let l = 0; l < 6; l++) {
+      let s = 0;
+      for (let i = 0, oj = j * n, ol = l * n; i < n; i++) s += z[oj + i] * mr[ol + i];
+      b[j * 6 + l] = s;
+    }
+  }
+  const gInverse = pseudoInverse6(g);
+  const a = new Float64Array(k * k);
+  // A_pq = Σ_lm B_pl G⁺_lm B_qm
+  for (let p = 0; p < k; p++) {
+    for (let q = 0; q < k; q++) {
+      let s = 0;
+      for (let l = 0; l < 6; l++) for (let m = 0; m < 6; m++) s += b[p * 6 + l] * gInverse[l * 6 + m] * b[q * 6 + m];
+      a[q * k + p] = s;
+    }
+  }
+  return a;
+}
+
+/** G⁺ for the 6 × 6 rigid-body mass matrix (row-major), ignoring directions without mass. */
+function pseudoInverse6(g: readonly number[]): Float64Array {
+  const d = g.filter((_, i) => i % 7 === 0).map((v) => (v > 0 ? 1 / Math.sqrt(v) : 0));
+  const s = new Float64Array(36);
+  // D G D with D = diag(1/√g_kk): unit diagonal, well scaled
+  for (let r = 0; r < 6; r++) for (let c = 0; c < 6; c++) s[c * 6 + r] = d[r] * g[r * 6 + c] * d[c];
+  const eig = smallSymmetricEigen(s, 6);
+  const out = new Float64Array(36);
+  const cut = 1e-10 * Math.max(...eig.values);
+  // (D G D)⁺ = Σ v vᵀ / μ over μ above the cut, then G⁺ = D (D G D)⁺ D
+  for (let e = 0; e < 6; e++) {
+    const mu = eig.values[e];
+    if (!(mu > cut)) continue;
+    for (let r = 0; r < 6; r++) {
+      for (let c = 0; c < 6; c++) out[r * 6 + c] += (d[r] * eig.vectors[e * 6 + r] * eig.vectors[e * 6 + c] * d[c]) / mu;
+    }
+  }
+  return out;
+}
+
+/** Ψ = Z U(:, cols), column-major n × |cols|. */
+function combine(z: Float64Array, u: Float64Array, cols: number[], n: number, k: number): Float64Array {
+  const psi = new Float64Array(n * cols.length);
+  // ψ_c = Σ_j z_j u_jc
+  cols.forEach((col, c) => {
+    for (let j = 0; j < k; j++) {
+      const w = u[col * k + j];
+      if (w === 0) continue;
+      for (let i = 0, oz = j * n, op = c * n; i < n; i++) psi[op + i] += w * z[oz + i];
+    }
+  });
+  return psi;
+}
+
+/** Node shares of Σ_{j ∈ cols} ψ_ji (M ψ_j)_i, normalized to sum 1, largest `top`. */
+function nodeShares(
+  psi: Float64Array,
+  mPsi: Float64Array,
+  cols: number[],
+  dofMap: DofMap,
+  originalDofs: Int32Array | undefined,
+  top: number,
+): NodeShare[] {
+  const n = dofMap.n;
+  const perNode = new Map<number, { energy: number; best: number; bestDof: number }>();
+  let total = 0;
+  // kinetic-energy share of each DOF, summed per node
+  for (let i = 0; i < n; i++) {
+    let e = 0;
+    for (const c of cols) e += psi[c * n + i] * mPsi[c * n + i];
+    total += e;
+    const node = dofMap.node[i];
+    const entry = perNode.get(node) ?? { energy: 0, best: -Infinity, bestDof: i };
+    entry.energy += e;
+    if (e > entry.best) {
+      entry.best = e;
+      entry.bestDof = i;
+    }
+    perNode.set(node, entry);
+  }
+  const norm = total > 0 ? total : 1;
+  return [...perNode.entries()]
+    .map(([node, v]) => ({
+      node,
+      energyFraction: v.energy / norm,
+      component: COMPONENTS[dofMap.component[v.bestDof]],
+      dof: (originalDofs ? originalDofs[v.bestDof] : v.bestDof) + 1,
+    }))
+    .sort((p, q) => q.energyFraction - p.energyFraction)
+    .slice(0, top);
+}
