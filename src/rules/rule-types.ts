@@ -47,5 +47,11 @@ export interface RuleDefinition<O extends object = Record<string, unknown>> {
   messages: Record<string, string>;
   /** Inputs the rule needs; when absent the engine records `skip` with the reason. */
   needs: RuleNeed[];
+  /**
+   * Groups of options that exclude each other (e.g. `[['expected'], ['min', 'max']]`). When a
+   * config layer sets a key of one group, keys of the other groups from lower layers (defaults,
+   * rule sets) are dropped before validation, so an override can switch forms.
+   */
+  exclusiveOptions?: string[][];
   evaluate(context: RuleContext, options: O): RuleOutcome;
 }

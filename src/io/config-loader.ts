@@ -1,0 +1,292 @@
+/**
+ * Load and check a modalgate config: find it, parse YAML or JSON, validate against
+ * rules/schema/config.schema.json, resolve paths relative to the config file, load the rule sets,
+ * and merge each rule's options (rule defaults ← rule sets in order ← `defaults.rules` ← the
+ * model's `rules`), validating every layer against the rule's own options schema.
+ * Every defect is an InputError naming the file and the path inside it.
+ */
+import { existsSync, readFileSync, statSync } from 'node:fs';
+import { dirname, isAbsolute, join, resolve } from 'node:path';
+import { parseDocument } from 'yaml';
+import { Ajv2020, type ValidateFunction } from 'ajv/dist/2020.js';
+import { InputError } from './errors.js';
+import { packageRoot } from './package-root.js';
+import { describeSchemaError, pickError } from './config-errors.js';
+import { CONFIG_FILE_NAMES, DEFAULT_MODE_COUNT, type LoadedConfig, type ModelJob, type RawConfig, type RawModelConfig, type RawRuleEntry, type RawRuleSet } from './config-types.js';
+import { builtInRules, findRule, ruleIds, type AnyRule } from '../rules/registry.js';
+import type { ResolvedRule } from '../rules/engine.js';
+import type { Severity } from '../rules/rule-types.js';
+
+const SEVERITIES: Severity[] = ['error', 'warning', 'off'];
+
+const ajv = new Ajv2020({ allErrors: true, strict: false, verbose: true });
+const schemaCache = new Map<string, ValidateFunction>();
+
+function schemaValidator(file: string): ValidateFunction {
+  let v = schemaCache.get(file);
+  if (!v) {
+    v = ajv.compile(JSON.parse(readFileSync(join(packageRoot(), 'rules', 'schema', file), 'utf8')) as object);
+    schemaCache.set(file, v);
+  }
+  return v;
+}
+
+/** The config path: `explicit` if given (must exist), else the first of modalgate.yaml/.yml/.json in `cwd`. */
+export function findConfig(explicit: string | undefined, cwd: string = process.cwd()): string {
+  if (explicit !== undefined) {
+    const p = resolve(cwd, explicit);
+    if (!existsSync(p)) throw new InputError(p, 'config file not found');
+    if (statSync(p).isDirectory()) throw new InputError(p, 'is a directory, not a config file');
+    return p;
+  }
+  for (const name of CONFIG_FILE_NAMES) {
+    const p = join(cwd, name);
+    if (existsSync(p)) return p;
+  }
+  throw new InputError(join(cwd, CONFIG_FILE_NAMES[0]), `no config found in ${cwd} (looked for ${CONFIG_FILE_NAMES.join(', ')}); run \`modalgate init\` to write one, or pass --config`);
+}
+
+/** Parse a YAML or JSON file into a plain value (JSON is YAML, but JSON files get JSON's errors). */
+export function readStructuredFile(path: string): unknown {
+  let text: string;
+  try {
+    text = readFileSync(path, 'utf8');
+  } catch (e) {
+    throw new InputError(path, `cannot be read (${(e as NodeJS.ErrnoException).code ?? 'I/O error'})`);
+  }
+  if (path.endsWith('.json')) {
+    try {
+      return JSON.parse(text) as unknown;
+    } catch (e) {
+      throw new InputError(path, `is not valid JSON: ${(e as Error).message}`);
+    }
+  }
+  const doc = parseDocument(text, { prettyErrors: false, uniqueKeys: true });
+  if (doc.errors.length > 0) {
+    const err = doc.errors[0];
+    const line = err.linePos?.[0]?.line;
+    const first = err.message.split('\n')[0].replace(/ at line \d+, column \d+:?$/, '');
+    throw new InputError(path, `is not valid YAML: ${first}`, { line });
+  }
+  return doc.toJS() as unknown;
+}
+
+/** Load, validate and resolve the config at `path`. */
+export function loadConfig(path: string): LoadedConfig {
+  const raw = readStructuredFile(path);
+  validateAgainst('config.schema.json', raw, path, '');
+  const config = raw as RawConfig;
+  const dir = dirname(path);
+  const reports = {
+    junit: reportPath(config.reports?.junit, dir, path, 'reports.junit'),
+    json: reportPath(config.reports?.json, dir, path, 'reports.json'),
+  };
+  checkUniqueNames(config.models, path);
+  const models = config.models.map((m, i) => resolveModel(config, m, i, path, dir));
+  return { path, dir, reports, models };
+}
+
+function validateAgainst(schemaFile: string, value: unknown, file: string, base: string): void {
+  const validate = schemaValidator(schemaFile);
+  if (value === null || value === undefined) throw new InputError(file, 'is empty: expected a mapping of keys to values');
+  if (validate(value)) return;
+  const errors = validate.errors ?? [];
+  const e = pickError(errors);
+  const { where, reason } = describeSchemaError(e, base, errors);
+  throw new InputError(file, reason, { where });
+}
+
+function checkUniqueNames(models: RawModelConfig[], file: string): void {
+  const seen = new Map<string, number>();
+  models.forEach((m, i) => {
+    const j = seen.get(m.name);
+    if (j !== undefined) throw new InputError(file, `duplicate model name "${m.name}" (also models[${j}].name); names must be unique`, { where: `models[${i}].name` });
+    seen.set(m.name, i);
+  });
+}
+
+function reportPath(value: string | undefined, dir: string, file: string, where: string): string | undefined {
+  if (value === undefined) return undefined;
+  const p = resolve(dir, value);
+  checkWritableTarget(p, file, where);
+  return p;
+}
+
+/** A report target must not be a directory, and its nearest existing ancestor must be a directory. */
+export function checkWritableTarget(p: string, file: string, where?: string): void {
+  if (existsSync(p) && statSync(p).isDirectory()) throw new InputError(file, `report path ${p} is a directory; give a file name`, { where });
+  let up = dirname(p);
+  // climb to the first existing ancestor
+  while (!existsSync(up) && dirname(up) !== up) up = dirname(up);
+  if (!statSync(up).isDirectory()) throw new InputError(file, `report path ${p} is inside ${up}, which is a file, not a folder`, { where });
+}
+
+function resolveModel(config: RawConfig, m: RawModelConfig, i: number, file: string, dir: string): ModelJob {
+  const where = `models[${i}]`;
+  const d = config.defaults ?? {};
+  if (m.count !== undefined && m.maxHz !== undefined) throw new InputError(file, 'give either count or maxHz, not both', { where: `${where}.maxHz` });
+  if (d.count !== undefined && d.maxHz !== undefined) throw new InputError(file, 'give either count or maxHz, not both', { where: 'defaults.maxHz' });
+  const ownsForm = m.count !== undefined || m.maxHz !== undefined;
+  const count = ownsForm ? m.count : d.count;
+  const maxHz = ownsForm ? m.maxHz : d.maxHz;
+  const ruleSets = m.ruleSets ?? d.ruleSets ?? [];
+  const ruleSetWhere = m.ruleSets ? `${where}.ruleSets` : 'defaults.ruleSets';
+  const layers: RuleLayer[] = [];
+  ruleSets.forEach((name, k) => layers.push(...loadRuleSetLayers(name, dir, file, `${ruleSetWhere}[${k}]`)));
+  if (d.rules) layers.push(...overrideLayers(d.rules, file, 'defaults.rules'));
+  if (m.rules) layers.push(...overrideLayers(m.rules, file, `${where}.rules`));
+  return {
+    name: m.name,
+    stiffnessPath: existingFile(m.stiffness, dir, file, `${where}.stiffness`),
+    massPath: existingFile(m.mass, dir, file, `${where}.mass`),
+    dofsPath: m.dofs !== undefined ? existingFile(m.dofs, dir, file, `${where}.dofs`) : undefined,
+    solve: {
+      count: count ?? (maxHz === undefined ? DEFAULT_MODE_COUNT : undefined),
+      maxHz,
+      method: m.method ?? d.method,
+      tolerance: m.tolerance ?? d.tolerance,
+    },
+    rules: resolveRules(layers, file, `${where}.rules`),
+    ruleSets,
+    configPath: file,
+    where,
+    raw: m,
+  };
+}
+
+function existingFile(value: string, dir: string, file: string, where: string): string {
+  const p = isAbsolute(value) ? value : resolve(dir, value);
+  if (!existsSync(p)) throw new InputError(file, `file not found: ${p}`, { where });
+  if (statSync(p).isDirectory()) throw new InputError(file, `${p} is a directory, not a file`, { where });
+  return p;
+}
+
+/** One source of rule settings: where it was written and what it says. */
+interface RuleLayer {
+  ruleId: string;
+  severity?: Severity;
+  options: Record<string, unknown>;
+  file: string;
+  where: string;
+}
+
+/** A built-in name (rules/<name>.yaml) or a path relative to the config. */
+export function resolveRuleSetPath(name: string, dir: string): string | null {
+  if (/[\\/]/.test(name) || /\.(ya?ml|json)$/.test(name)) {
+    const p = resolve(dir, name);
+    return existsSync(p) ? p : null;
+  }
+  const p = join(packageRoot(), 'rules', `${name}.yaml`);
+  return existsSync(p) ? p : null;
+}
+
+export function builtInRuleSetNames(): string[] {
+  return ['free-free', 'supported', 'handoff-audit'];
+}
+
+function loadRuleSetLayers(name: string, dir: string, file: string, where: string): RuleLayer[] {
+  const p = resolveRuleSetPath(name, dir);
+  if (p === null) {
+    const builtIn = /[\\/]/.test(name) || /\.(ya?ml|json)$/.test(name) ? `file not found: ${resolve(dir, name)}` : `unknown rule set "${name}" (built-in rule sets: ${builtInRuleSetNames().join(', ')}; or give a path to your own file)`;
+    throw new InputError(file, builtIn, { where });
+  }
+  const raw = readStructuredFile(p);
+  validateAgainst('rule-set.schema.json', raw, p, '');
+  return overrideLayers((raw as RawRuleSet).rules, p, 'rules');
+}
+
+function overrideLayers(rules: Record<string, RawRuleEntry>, file: string, base: string): RuleLayer[] {
+  return Object.entries(rules).map(([ruleId, entry]) => {
+    const where = `${base}.${ruleId}`;
+    const rule = findRule(ruleId);
+    if (!rule) throw new InputError(file, `unknown rule "${ruleId}"${suggest(ruleId)} (run \`modalgate rules\` for the list)`, { where });
+    if (typeof entry === 'string') {
+      if (!SEVERITIES.includes(entry)) throw new InputError(file, `must be one of: ${SEVERITIES.join(', ')} (or a mapping of options)`, { where });
+      return { ruleId, severity: entry, options: {}, file, where };
+    }
+    if (entry === null || typeof entry !== 'object' || Array.isArray(entry)) throw new InputError(file, `must be a severity (${SEVERITIES.join(', ')}) or a mapping of options`, { where });
+    const { severity, ...options } = entry;
+    if (severity !== undefined && !SEVERITIES.includes(severity)) throw new InputError(file, `must be one of: ${SEVERITIES.join(', ')}`, { where: `${where}.severity` });
+    checkOptions(rule, options, false, file, where);
+    return { ruleId, severity, options, file, where };
+  });
+}
+
+/** Merge the layers of every mentioned rule, drop rules that end up `off`, validate the result. */
+function resolveRules(layers: RuleLayer[], configFile: string, modelRulesWhere: string): ResolvedRule[] {
+  const out: ResolvedRule[] = [];
+  for (const rule of builtInRules) {
+    const mine = layers.filter((l) => l.ruleId === rule.id);
+    if (mine.length === 0) continue;
+    let severity: Severity = 'error';
+    let options: Record<string, unknown> = structuredClone(rule.defaults) as Record<string, unknown>;
+    for (const l of mine) {
+      if (l.severity !== undefined) severity = l.severity;
+      options = mergeOptions(rule, options, l.options);
+    }
+    if (severity === 'off') continue;
+    checkOptions(rule, options, true, configFile, `${modelRulesWhere}.${rule.id}`);
+    out.push({ rule, severity, options });
+  }
+  return out;
+}
+
+/** upper wins; keys of an exclusive group that `upper` does not use are dropped when it uses another. */
+export function mergeOptions(rule: AnyRule, lower: Record<string, unknown>, upper: Record<string, unknown>): Record<string, unknown> {
+  const merged = { ...lower };
+  for (const group of rule.exclusiveOptions ?? []) {
+    if (!group.some((k) => k in upper)) continue;
+    for (const other of rule.exclusiveOptions ?? []) {
+      if (other !== group) for (const k of other) delete merged[k];
+    }
+  }
+  return { ...merged, ...upper };
+}
+
+const optionValidators = new Map<string, ValidateFunction>();
+
+/** Validate options with the rule's schema; `complete` false checks one layer (no required keys). */
+function checkOptions(rule: AnyRule, options: Record<string, unknown>, complete: boolean, file: string, where: string): void {
+  const key = `${rule.id}:${complete}`;
+  let validate = optionValidators.get(key);
+  if (!validate) {
+    const schema = { ...rule.optionsSchema };
+    if (!complete) {
+      delete schema.required;
+      delete schema.anyOf;
+      delete schema.oneOf;
+    }
+    validate = ajv.compile(schema);
+    optionValidators.set(key, validate);
+  }
+  if (validate(options)) return;
+  const errors = validate.errors ?? [];
+  const { where: at, reason } = describeSchemaError(pickError(errors), where, errors);
+  const hint = complete && errors.some((e) => e.keyword === 'required') ? ': set it in the config for this model (the rule set leaves it to you)' : '';
+  throw new InputError(file, reason + hint, { where: at });
+}
+
+function suggest(id: string): string {
+  let best = '';
+  let bestDistance = Infinity;
+  for (const known of ruleIds()) {
+    const d = editDistance(id, known);
+    if (d < bestDistance) {
+      bestDistance = d;
+      best = known;
+    }
+  }
+  return bestDistance <= 3 ? ` (did you mean "${best}"?)` : '';
+}
+
+/** Levenshtein distance by the usual two-row dynamic programme. */
+function editDistance(a: string, b: string): number {
+  let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
+  // row i holds distances from a[0..i) to every prefix of b
+  for (let i = 1; i <= a.length; i++) {
+    const row = [i];
+    for (let j = 1; j <= b.length; j++) row[j] = Math.min(prev[j] + 1, row[j - 1] + 1, prev[j - 1] + (a[i - 1] === b[j - 1] ? 0 : 1));
+    prev = row;
+  }
+  return prev[b.length];
+}

@@ -1,0 +1,113 @@
+/**
+ * The result of one `modalgate check` run, as the reporters receive it. Everything here is
+ * already computed (by src/model and src/rules); reporters only format it.
+ */
+import type { RuleResult } from '../rules/engine.js';
+import type { SturmCheck } from '../eigen/modes-types.js';
+
+export const CAUTION =
+  'modalgate screens models and does not certify structures: its results support, never replace, review by a qualified engineer under the applicable codes.';
+
+export type Verdict = 'pass' | 'fail' | 'error';
+
+/** A defect that stopped a model (or the whole run) before its rules could run. */
+export interface ProblemReport {
+  /** 'input' for bad files/config (InputError), 'internal' for anything else. */
+  kind: 'input' | 'internal';
+  message: string;
+  file?: string;
+  line?: number;
+  where?: string;
+}
+
+export interface ModelStats {
+  dofs: number;
+  stiffnessNonzeros: number;
+  massNonzeros: number;
+  stiffnessFile: string;
+  massFile: string;
+  dofsFile?: string;
+  /** Nodes in the DOF map, when one was given. */
+  nodes?: number;
+}
+
+export interface SolveReport {
+  method: string;
+  ordering: string;
+  requested: { count?: number; maxHz?: number };
+  modesReturned: number;
+  shifts: number[];
+  iterations: number;
+  sturm: SturmCheck;
+  factorNonzeros: number;
+  maxDiagonalToPivotRatio: number;
+  timings: { totalMs: number; factorMs: number; iterateMs: number; verifyMs: number };
+  massOrthogonality: number;
+  stiffnessOrthogonality: number;
+  warnings: string[];
+}
+
+export interface ModeRow {
+  /** 1-based, counting rigid-body modes. */
+  mode: number;
+  eigenvalue: number;
+  frequencyHz: number;
+  residual: number;
+}
+
+export interface ModelReport {
+  name: string;
+  verdict: Verdict;
+  /** Local time the model's check started, `YYYY-MM-DDThh:mm:ss` (JUnit form, no zone). */
+  timestamp: string;
+  timeMs: number;
+  ruleSets: string[];
+  stats?: ModelStats;
+  solve?: SolveReport;
+  modes?: ModeRow[];
+  rules: RuleResult[];
+  problem?: ProblemReport;
+  /** Geometry facts (issue "geometry-aware checks") as plain JSON, when computed. */
+  geometry?: unknown;
+  /** Baseline comparison (issue "regression against a baseline") as plain JSON, when computed. */
+  comparison?: unknown;
+}
+
+export interface CheckReport {
+  tool: { name: 'modalgate'; version: string };
+  configPath?: string;
+  timestamp: string;
+  timeMs: number;
+  hostname: string;
+  verdict: Verdict;
+  caution: string;
+  models: ModelReport[];
+  /** A defect of the run itself (bad config): no model could be checked. */
+  problem?: ProblemReport;
+}
+
+/** The run's verdict from its models: any error → error, any failure → fail. */
+export function runVerdict(models: ModelReport[], problem?: ProblemReport): Verdict {
+  if (problem || models.some((m) => m.verdict === 'error')) return 'error';
+  if (models.some((m) => m.verdict === 'fail')) return 'fail';
+  return 'pass';
+}
+
+/** `YYYY-MM-DDThh:mm:ss` in local time, as JUnit consumers expect (no zone). */
+export function junitTimestamp(d: Date): string {
+  const p = (x: number) => String(x).padStart(2, '0');
+  return `${d.getFullYear()}-${p(d.getMonth() + 1)}-${p(d.getDate())}T${p(d.getHours())}:${p(d.getMinutes())}:${p(d.getSeconds())}`;
+}
+
+/** Counts a reporter shows for one model. Warnings are rules that failed at severity `warning`. */
+export function ruleCounts(rules: RuleResult[]): { total: number; passed: number; failed: number; warnings: number; errors: number; skipped: number } {
+  const c = { total: rules.length, passed: 0, failed: 0, warnings: 0, errors: 0, skipped: 0 };
+  for (const r of rules) {
+    if (r.status === 'skip') c.skipped++;
+    else if (r.severity === 'warning' && (r.status === 'fail' || r.status === 'error')) c.warnings++;
+    else if (r.status === 'fail') c.failed++;
+    else if (r.status === 'error') c.errors++;
+    else c.passed++;
+  }
+  return c;
+}

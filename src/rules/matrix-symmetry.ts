@@ -1,0 +1,42 @@
+/**
+ * matrix-symmetry: K and M are symmetric, max|a_ij − a_ji| ≤ tolerance · max|a| (1e-12 relative,
+ * common practice [CP] CRITERIA.md §6). Files declared `symmetric` store one triangle and pass by
+ * construction; `general` files are measured when read (MatrixSummary.maxRelativeAsymmetry).
+ */
+import type { RuleDefinition } from './rule-types.js';
+import type { MatrixSummary } from '../model/matrix-summary.js';
+import { outcome } from './outcome.js';
+import type { ToleranceOptions } from './mass-normalization.js';
+
+const messages = {
+  pass: 'K and M are symmetric (largest relative asymmetry {{measured}}, limit {{tolerance}}).',
+  fail: '{{which}} is not symmetric: |a_ij − a_ji| / max|a| = {{measured}} at row {{row}}, column {{col}} exceeds {{tolerance}}.',
+};
+
+export const matrixSymmetry: RuleDefinition<ToleranceOptions> = {
+  id: 'matrix-symmetry',
+  description: 'K and M are symmetric: max |a_ij − a_ji| / max |a| ≤ tolerance.',
+  optionsSchema: {
+    type: 'object',
+    properties: { tolerance: { type: 'number', minimum: 0 } },
+    additionalProperties: false,
+  },
+  defaults: { tolerance: 1e-12 },
+  messages,
+  needs: [],
+  evaluate(context, o) {
+    const pairs: [string, MatrixSummary][] = [
+      ['K', context.stiffnessSummary],
+      ['M', context.massSummary],
+    ];
+    const worst = pairs.reduce((a, b) => (b[1].maxRelativeAsymmetry > a[1].maxRelativeAsymmetry ? b : a));
+    const [which, s] = worst;
+    const measured = s.maxRelativeAsymmetry;
+    const details = { stiffness: context.stiffnessSummary.maxRelativeAsymmetry, mass: context.massSummary.maxRelativeAsymmetry };
+    if (measured > o.tolerance) {
+      const values = { which: `${which} (${s.file})`, measured, row: s.asymmetryAt?.row ?? '?', col: s.asymmetryAt?.col ?? '?', tolerance: o.tolerance };
+      return outcome('fail', messages.fail, values, measured, o.tolerance, details);
+    }
+    return outcome('pass', messages.pass, { measured, tolerance: o.tolerance }, measured, o.tolerance, details);
+  },
+};
