@@ -12,7 +12,7 @@ import { RIGID_BODY_DIRECTIONS, representedDirections, type Point3, type RigidBo
 import { rigidBodyVectorsAboutCenterOfMass } from './mass-properties.js';
 import { rigidBodyEnergy, stiffnessMassScale } from './rigid-body-energy.js';
 import { modalParticipation } from './participation.js';
-import { countNearZeroModes, localizeMechanisms } from './mechanism-localization.js';
+import { countNearZeroModes, freeRigidBodyDirections, localizeMechanisms } from './mechanism-localization.js';
 
 export interface GeometryInput {
   stiffness: SymmetricCsc;
@@ -26,6 +26,12 @@ export interface GeometryInput {
   referencePoint?: Point3;
   /** Number of leading near-zero modes when the caller already knows it. */
   nearZeroModes?: number;
+  /**
+   * Rigid-body modes the model should have (e.g. 6 free-free), when configured. The reference
+   * eigenvalue of the energy check is then mode max(nearZero, expected) + 1, so a weakly grounded
+   * model is measured against its first truly elastic mode, not against the grounding mode.
+   */
+  expectedRigidBodyModes?: number;
   /** How many nodes the "where" lists carry (default 10). */
   top?: number;
 }
@@ -38,13 +44,15 @@ export function computeGeometry(input: GeometryInput): GeometryFacts {
   const gDiagonal = [0, 1, 2, 3, 4, 5].map((k) => g[k * 6 + k]);
   const scale = stiffnessMassScale(stiffness, mass, dofMap);
   const nearZero = modes ? (input.nearZeroModes ?? countNearZeroModes(modes.eigenvalues, scale)) : null;
-  const firstElastic = modes && nearZero !== null && nearZero < modes.eigenvalues.length ? modes.eigenvalues[nearZero] : null;
+  const elasticIndex = nearZero === null ? null : Math.max(nearZero, input.expectedRigidBodyModes ?? 0);
+  const firstElastic = modes && elasticIndex !== null && elasticIndex < modes.eigenvalues.length ? modes.eigenvalues[elasticIndex] : null;
   const energy = rigidBodyEnergy(stiffness, rigid, gDiagonal, dofMap, {
     referenceEigenvalue: firstElastic !== null && firstElastic > 0 ? firstElastic : scale,
     referenceSource: firstElastic !== null && firstElastic > 0 ? 'first-elastic-mode' : 'stiffness-mass-scale',
     originalDofs: input.originalDofs,
     top,
   });
+  const free = freeRigidBodyDirections(energy.rigidBodyStiffness, g, energy.referenceEigenvalue);
   const has = representedDirections(dofMap);
   const represented = Object.fromEntries(RIGID_BODY_DIRECTIONS.map((d, k) => [d, has[k]])) as Record<RigidBodyDirection, boolean>;
   return {
@@ -52,13 +60,20 @@ export function computeGeometry(input: GeometryInput): GeometryFacts {
     representedDirections: represented,
     massProperties,
     rigidBodyEnergy: energy,
+    freeRigidBodyMotions: free.free,
     nearZeroModes: nearZero,
     supported: supportedReason(input.constraints, nearZero),
     constraints: input.constraints ?? null,
     participation: modes ? modalParticipation(modes, massTimesR, gDiagonal) : null,
     mechanisms:
       modes && nearZero !== null
-        ? localizeMechanisms(mass, modes, massTimesR, g, dofMap, { nearZeroModes: nearZero, originalDofs: input.originalDofs, top })
+        ? localizeMechanisms(mass, modes, massTimesR, dofMap, {
+            nearZeroModes: nearZero,
+            freeDirections: free.w,
+            freeCount: free.free,
+            originalDofs: input.originalDofs,
+            top,
+          })
         : null,
   };
 }

@@ -27,6 +27,11 @@ export interface GeometryFacts {
   massProperties: MassProperties;
   rigidBodyEnergy: RigidBodyEnergy;
   /**
+   * Rigid motions the stiffness does not resist: eigen-directions of (RᵀKR) v = μ (RᵀMR) v with
+   * μ ≤ λ_ref / 1e6. Six for a free-free 3-D model, fewer when grounded or supported.
+   */
+  freeRigidBodyMotions: number;
+  /**
    * Leading solved modes with λ ≈ 0 (round-off zeros plus any below a clear gap), or null
    * when no modes were solved.
    */

@@ -3,13 +3,16 @@
  * kinetic energy.
  *
  * Near-zero space. Z = the solved modes with λ ≈ 0 (see `countNearZeroModes`), M-orthonormal.
- * Rigid part of Z. B = Zᵀ M R (k × 6), G = Rᵀ M R. The k × k matrix A = B G⁺ Bᵀ is Zᵀ M P_R Z,
- * P_R the M-orthogonal projector onto span(R); its eigenvalues are cos² of the principal angles
- * between Z and span(R). Eigenvectors u with cos² ≥ ½ are rigid motions the model is free to
- * make (six for a free-free solid); the others span the mechanisms ψ = Z u, which are then
- * M-orthogonal to the rigid part (the rigid component has been removed). For a free-free model
- * this is the M-orthogonal projection onto the complement of span(R); for a supported model no
- * rigid motion is free and every near-zero mode is a mechanism.
+ * Free rigid motions. The rigid motions R the model can actually make without strain: the
+ * 6 × 6 pencil (RᵀKR) v = μ (RᵀMR) v, directions with μ ≤ 1e-6 · λ_ref (λ_ref the first elastic
+ * eigenvalue) — six for a free-free 3-D model, none for a supported one. With W those
+ * directions (WᵀGW = I, G = RᵀMR), R_F = R W is M-orthonormal.
+ * Rigid part of Z. B = Zᵀ M R_F (k × f); A = B Bᵀ = Zᵀ M P_F Z, P_F the M-orthogonal projector
+ * onto span(R_F); its eigenvalues are cos² of the principal angles between Z and span(R_F).
+ * Eigenvectors u with cos² ≥ ½ are the free rigid motions; the others span the mechanisms
+ * ψ = Z u, M-orthogonal to them: the rigid component has been removed. For a free-free model
+ * this is the M-orthogonal projection onto the complement of span(R); for a supported model
+ * every near-zero mode is a mechanism.
  * Where. For M-orthonormal ψ_j the kinetic-energy share of DOF i is e_i = Σ_j ψ_ji (M ψ_j)_i
  * (Σ_i e_i = number of mechanisms; invariant to how the solver mixed degenerate modes);
  * nodes are ranked by the sum of their DOFs' shares.
@@ -23,6 +26,55 @@ import { smallSymmetricEigen } from './small-symmetric-eigen.js';
 export const ROUND_OFF_ZERO_RATIO = 1e-10;
 /** A jump λ_{i+1}/λ_i at least this large (frequency ratio 1000) separates near-zero modes (our choice). */
 export const NEAR_ZERO_GAP_RATIO = 1e6;
+
+/**
+ * Directions of span(R) the model is free to move in: (RᵀKR) v = μ G v with μ ≤ λ_ref / 1e6.
+ * Returns W (column-major 6 × f, WᵀGW = I) and the μ of every represented direction, ascending.
+ */
+export function freeRigidBodyDirections(
+  rigidBodyStiffness: readonly number[],
+  rigidBodyMass: readonly number[],
+  referenceEigenvalue: number,
+): { w: Float64Array; free: number; ratios: number[] } {
+  const d = [0, 1, 2, 3, 4, 5].map((k) => (rigidBodyMass[k * 7] > 0 ? 1 / Math.sqrt(rigidBodyMass[k * 7]) : 0));
+  const s = new Float64Array(36);
+  // D G D, unit diagonal where a direction has mass
+  for (let r = 0; r < 6; r++) for (let c = 0; c < 6; c++) s[c * 6 + r] = d[r] * rigidBodyMass[r * 6 + c] * d[c];
+  const gEig = smallSymmetricEigen(s, 6);
+  const cut = 1e-10 * Math.max(...gEig.values);
+  const keep: number[] = [];
+  for (let e = 0; e < 6; e++) if (gEig.values[e] > cut) keep.push(e);
+  const q = keep.length;
+  const x = new Float64Array(6 * q);
+  // X = D U Σ^(−1/2): XᵀGX = I on the represented directions
+  keep.forEach((e, c) => {
+    for (let r = 0; r < 6; r++) x[c * 6 + r] = (d[r] * gEig.vectors[e * 6 + r]) / Math.sqrt(gEig.values[e]);
+  });
+  const h = new Float64Array(q * q);
+  // H = Xᵀ (RᵀKR) X
+  for (let a = 0; a < q; a++) {
+    for (let b = 0; b < q; b++) {
+      let sum = 0;
+      for (let r = 0; r < 6; r++) for (let c = 0; c < 6; c++) sum += x[a * 6 + r] * rigidBodyStiffness[r * 6 + c] * x[b * 6 + c];
+      h[b * q + a] = sum;
+    }
+  }
+  const hEig = smallSymmetricEigen(h, q);
+  const limit = referenceEigenvalue / NEAR_ZERO_GAP_RATIO;
+  const freeColumns: number[] = [];
+  for (let e = 0; e < q; e++) if (hEig.values[e] <= limit) freeColumns.push(e);
+  const w = new Float64Array(6 * freeColumns.length);
+  // W = X Y_free
+  freeColumns.forEach((e, c) => {
+    for (let r = 0; r < 6; r++) {
+      let sum = 0;
+      for (let a = 0; a < q; a++) sum += x[a * 6 + r] * hEig.vectors[e * q + a];
+      w[c * 6 + r] = sum;
+    }
+  });
+  const ratios = Array.from(hEig.values, (mu) => (referenceEigenvalue > 0 ? mu / referenceEigenvalue : mu));
+  return { w, free: freeColumns.length, ratios };
+}
 
 /**
  * Number of leading solved modes that are near zero: every |λ| ≤ 1e-10 · scale, then, among
@@ -76,6 +128,9 @@ export interface MechanismReport {
 
 export interface MechanismOptions {
   nearZeroModes: number;
+  /** Free rigid directions from `freeRigidBodyDirections` (column-major 6 × free). */
+  freeDirections: Float64Array;
+  freeCount: number;
   originalDofs?: Int32Array;
   top?: number;
 }
@@ -84,7 +139,6 @@ export function localizeMechanisms(
   mass: SymmetricCsc,
   modes: ModesResult,
   massTimesR: Float64Array,
-  rigidBodyMass: readonly number[],
   dofMap: DofMap,
   options: MechanismOptions,
 ): MechanismReport {
@@ -92,7 +146,7 @@ export function localizeMechanisms(
   const k = Math.min(options.nearZeroModes, modes.eigenvalues.length);
   const top = options.top ?? 10;
   const z = modes.shapes.subarray(0, n * k);
-  const a = rigidProjectionGram(z, massTimesR, rigidBodyMass, n, k);
+  const a = rigidProjectionGram(z, massTimesR, options.freeDirections, options.freeCount, n, k);
   const eig = smallSymmetricEigen(a, k);
   const mechanismColumns: number[] = [];
   const alignment: number[] = [];
@@ -115,48 +169,32 @@ export function localizeMechanisms(
   };
 }
 
-/** A = B G⁺ Bᵀ with B = Zᵀ (M R); G⁺ from the eigen-decomposition of the diagonal-scaled G. */
-function rigidProjectionGram(z: Float64Array, mr: Float64Array, g: readonly number[], n: number, k: number): Float64Array {
-  const b = new Float64Array(k * 6);
-  // B_jl = z_jᵀ (M r_l)
+/** A = B Bᵀ with B = Zᵀ (M R) W (k × f), W the free rigid directions. */
+function rigidProjectionGram(z: Float64Array, mr: Float64Array, w: Float64Array, f: number, n: number, k: number): Float64Array {
+  const zmr = new Float64Array(k * 6);
+  // (Zᵀ M R)_jl = z_jᵀ (M r_l)
   for (let j = 0; j < k; j++) {
     for (let l = 0; l < 6; l++) {
       let s = 0;
       for (let i = 0, oj = j * n, ol = l * n; i < n; i++) s += z[oj + i] * mr[ol + i];
-      b[j * 6 + l] = s;
+      zmr[j * 6 + l] = s;
     }
   }
-  const gInverse = pseudoInverse6(g);
+  const b = new Float64Array(k * f);
+  // B = (Zᵀ M R) W
+  for (let j = 0; j < k; j++) for (let c = 0; c < f; c++) {
+    let s = 0;
+    for (let l = 0; l < 6; l++) s += zmr[j * 6 + l] * w[c * 6 + l];
+    b[j * f + c] = s;
+  }
   const a = new Float64Array(k * k);
-  // A_pq = Σ_lm B_pl G⁺_lm B_qm
-  for (let p = 0; p < k; p++) {
-    for (let q = 0; q < k; q++) {
-      let s = 0;
-      for (let l = 0; l < 6; l++) for (let m = 0; m < 6; m++) s += b[p * 6 + l] * gInverse[l * 6 + m] * b[q * 6 + m];
-      a[q * k + p] = s;
-    }
+  // A_pq = Σ_c B_pc B_qc
+  for (let p = 0; p < k; p++) for (let q = 0; q < k; q++) {
+    let s = 0;
+    for (let c = 0; c < f; c++) s += b[p * f + c] * b[q * f + c];
+    a[q * k + p] = s;
   }
   return a;
-}
-
-/** G⁺ for the 6 × 6 rigid-body mass matrix (row-major), ignoring directions without mass. */
-function pseudoInverse6(g: readonly number[]): Float64Array {
-  const d = g.filter((_, i) => i % 7 === 0).map((v) => (v > 0 ? 1 / Math.sqrt(v) : 0));
-  const s = new Float64Array(36);
-  // D G D with D = diag(1/√g_kk): unit diagonal, well scaled
-  for (let r = 0; r < 6; r++) for (let c = 0; c < 6; c++) s[c * 6 + r] = d[r] * g[r * 6 + c] * d[c];
-  const eig = smallSymmetricEigen(s, 6);
-  const out = new Float64Array(36);
-  const cut = 1e-10 * Math.max(...eig.values);
-  // (D G D)⁺ = Σ v vᵀ / μ over μ above the cut, then G⁺ = D (D G D)⁺ D
-  for (let e = 0; e < 6; e++) {
-    const mu = eig.values[e];
-    if (!(mu > cut)) continue;
-    for (let r = 0; r < 6; r++) {
-      for (let c = 0; c < 6; c++) out[r * 6 + c] += (d[r] * eig.vectors[e * 6 + r] * eig.vectors[e * 6 + c] * d[c]) / mu;
-    }
-  }
-  return out;
 }
 
 /** Ψ = Z U(:, cols), column-major n × |cols|. */

@@ -49,6 +49,8 @@ export interface RigidBodyEnergy {
   directions: DirectionEnergy[];
   maxRelativeEnergy: number;
   worstDirection: RigidBodyDirection | null;
+  /** Rᵀ K R, row-major 6 × 6 (twice the strain energies of the rigid motions and their couplings). */
+  rigidBodyStiffness: number[];
   /** Nodes with the largest residuals, largest first (at most `top`). */
   largestResiduals: ResidualAtNode[];
 }
@@ -110,12 +112,26 @@ export function rigidBodyEnergy(
     }
   }
   if (worstDirection === null) maxRelativeEnergy = 0;
+  const rigidBodyStiffness = new Array<number>(36).fill(0);
+  // (RᵀKR)_kl = r_kᵀ (K r_l), symmetrized
+  for (let k = 0; k < 6; k++) {
+    for (let l = 0; l <= k; l++) {
+      let s = 0;
+      let t = 0;
+      for (let i = 0, ok = k * n, ol = l * n; i < n; i++) {
+        s += rigid.vectors[ok + i] * kr[ol + i];
+        t += rigid.vectors[ol + i] * kr[ok + i];
+      }
+      rigidBodyStiffness[k * 6 + l] = rigidBodyStiffness[l * 6 + k] = 0.5 * (s + t);
+    }
+  }
   return {
     referenceEigenvalue: lambda,
     referenceSource: options.referenceSource,
     directions,
     maxRelativeEnergy,
     worstDirection,
+    rigidBodyStiffness,
     largestResiduals: largestResiduals(kr, rigidBodyMassDiagonal, dofMap, options.originalDofs, options.top ?? 10),
   };
 }

@@ -1,0 +1,165 @@
+/**
+ * The per-model pipeline of `modalgate check`:
+ *
+ *   read K, M (Matrix Market) and the DOF map  →  screening (can the pencil be solved at all?)
+ *   →  [constraint sets]  →  solveModes  →  [geometry facts]  →  [baseline comparison]  →  rules
+ *
+ * Steps in brackets are hook points for the geometry-aware checks and the baseline regression
+ * (marked HOOK below). Bad input ends the model with a `problem` (exit 2, JUnit <error>); a solver
+ * failure leaves the matrix rules running and turns every rule that needs modes into `error`.
+ */
+import { hostname } from 'node:os';
+import type { ModelJob } from '../io/config-types.js';
+import { InputError, oneLineMessage } from '../io/errors.js';
+import type { DofMap } from '../io/dof-map.js';
+import { readStiffnessAndMass } from '../io/matrix-market-reader.js';
+import { readDofMap } from '../io/dof-map-reader.js';
+import { solveModes } from '../eigen/solve-modes.js';
+import type { ModesRequest, ModesResult } from '../eigen/modes-types.js';
+import { fullNonzeros, type SymmetricCsc } from '../sparse/csc.js';
+import type { MatrixSummary } from './matrix-summary.js';
+import type { RuleContext } from '../rules/rule-types.js';
+import { runRules, verdictOf, type RuleResult, type UnavailableInputs } from '../rules/engine.js';
+import type { ModelReport, ModeRow, ProblemReport, SolveReport } from '../report/report-types.js';
+import { junitTimestamp } from '../report/report-types.js';
+
+export interface AnalyzeOptions {
+  onProgress?: (message: string) => void;
+}
+
+export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}): Promise<ModelReport> {
+  const started = new Date();
+  const t0 = performance.now();
+  const report: ModelReport = { name: job.name, verdict: 'pass', timestamp: junitTimestamp(started), timeMs: 0, ruleSets: job.ruleSets, rules: [] };
+  try {
+    const input = await readModelInput(job);
+    report.stats = {
+      dofs: input.stiffness.n,
+      stiffnessNonzeros: fullNonzeros(input.stiffness),
+      massNonzeros: fullNonzeros(input.mass),
+      stiffnessFile: job.stiffnessPath,
+      massFile: job.massPath,
+      dofsFile: job.dofsPath,
+      nodes: input.dofMap ? new Set(input.dofMap.node).size : undefined,
+    };
+    // HOOK(geometry): constraint sets from job.raw (issue "geometry-aware checks") reduce
+    // input.stiffness, input.mass and input.dofMap here, before the solve.
+    const context: RuleContext = {
+      modelName: job.name,
+      stiffness: input.stiffness,
+      mass: input.mass,
+      stiffnessSummary: input.stiffnessSummary,
+      massSummary: input.massSummary,
+      dofMap: input.dofMap,
+    };
+    const unavailable: UnavailableInputs = {};
+    const blocker = screeningBlocker(input.stiffnessSummary, input.massSummary);
+    if (blocker) unavailable.modes = { status: 'error', reason: `not evaluated: the modes were not solved because ${blocker}.` };
+    else solveInto(context, job, input.dofMap, unavailable, report, options);
+    // HOOK(geometry): context.geometry = computeGeometry({ stiffness, mass, dofMap, modes, ... })
+    // when context.dofMap is present; report.geometry = a JSON-ready copy of it.
+    // HOOK(baseline): context.comparison = compare(context.modes, baseline from job.raw or the CLI);
+    // report.comparison = its JSON form (MAC matrix, pairing).
+    report.rules = runRules(context, job.rules, unavailable);
+  } catch (e) {
+    report.problem = problemOf(e);
+    report.rules = job.rules.map((r) => notEvaluated(r.rule.id, r.rule.description, r.severity, r.options));
+  }
+  report.timeMs = performance.now() - t0;
+  report.verdict = report.problem ? 'error' : verdictOf(report.rules);
+  return report;
+}
+
+interface ModelInput {
+  stiffness: SymmetricCsc;
+  mass: SymmetricCsc;
+  stiffnessSummary: MatrixSummary;
+  massSummary: MatrixSummary;
+  dofMap?: DofMap;
+}
+
+async function readModelInput(job: ModelJob): Promise<ModelInput> {
+  const pair = await readStiffnessAndMass(job.stiffnessPath, job.massPath);
+  const input: ModelInput = {
+    stiffness: pair.stiffness.matrix,
+    mass: pair.mass.matrix,
+    stiffnessSummary: pair.stiffness.summary,
+    massSummary: pair.mass.summary,
+  };
+  if (job.dofsPath) input.dofMap = await readDofMap(job.dofsPath, input.stiffness.n);
+  return input;
+}
+
+/** Why solving would be meaningless, or null. Matrix rules still run and say what is wrong. */
+function screeningBlocker(k: MatrixSummary, m: MatrixSummary): string | null {
+  if (k.nonFiniteCount > 0 || m.nonFiniteCount > 0) return 'K or M has non-finite entries';
+  if (m.negativeDiagonalCount > 0) return 'M has negative diagonal entries (it cannot be positive semi-definite)';
+  if (m.zeroDiagonalCount === m.n) return 'M is zero on every diagonal';
+  return null;
+}
+
+function solveInto(context: RuleContext, job: ModelJob, dofMap: DofMap | undefined, unavailable: UnavailableInputs, report: ModelReport, options: AnalyzeOptions): void {
+  const request: ModesRequest = { ...job.solve, onProgress: options.onProgress };
+  if (dofMap) request.coordinates = interleavedCoordinates(dofMap);
+  let modes: ModesResult;
+  try {
+    modes = solveModes(context.stiffness, context.mass, request);
+  } catch (e) {
+    const why = e instanceof InputError ? e.reason : oneLineMessage(e);
+    unavailable.modes = { status: 'error', reason: `not evaluated: the eigensolver stopped: ${why}` };
+    return;
+  }
+  context.modes = modes;
+  report.solve = solveReport(modes, job);
+  report.modes = modeRows(modes);
+}
+
+function interleavedCoordinates(map: DofMap): Float64Array {
+  const c = new Float64Array(3 * map.n);
+  // c = (x_0, y_0, z_0, x_1, ...) per DOF
+  for (let i = 0; i < map.n; i++) {
+    c[3 * i] = map.x[i];
+    c[3 * i + 1] = map.y[i];
+    c[3 * i + 2] = map.z[i];
+  }
+  return c;
+}
+
+function solveReport(modes: ModesResult, job: ModelJob): SolveReport {
+  return {
+    method: modes.method,
+    ordering: modes.factor.ordering,
+    requested: { count: job.solve.count, maxHz: job.solve.maxHz },
+    modesReturned: modes.eigenvalues.length,
+    shifts: modes.shifts,
+    iterations: modes.iterations,
+    sturm: modes.sturm,
+    factorNonzeros: modes.factor.nnzL,
+    maxDiagonalToPivotRatio: modes.factor.maxDiagonalToPivotRatio,
+    timings: modes.timings,
+    massOrthogonality: modes.orthogonality.massMaxDeviation,
+    stiffnessOrthogonality: modes.orthogonality.stiffnessMaxDeviation,
+    warnings: modes.warnings,
+  };
+}
+
+function modeRows(modes: ModesResult): ModeRow[] {
+  return Array.from(modes.eigenvalues, (lambda, i) => ({ mode: i + 1, eigenvalue: lambda, frequencyHz: modes.frequenciesHz[i], residual: modes.residuals[i] }));
+}
+
+export function problemOf(e: unknown): ProblemReport {
+  if (e instanceof InputError) return { kind: 'input', message: oneLineMessage(e), file: e.file, line: e.line, where: e.where };
+  return { kind: 'internal', message: oneLineMessage(e) };
+}
+
+function notEvaluated(ruleId: string, description: string, severity: RuleResult['severity'], options: Record<string, unknown>): RuleResult {
+  return { ruleId, description, severity, options, status: 'skip', message: "not evaluated: the model's input could not be read.", timeMs: 0 };
+}
+
+export function currentHostname(): string {
+  try {
+    return hostname() || 'localhost';
+  } catch {
+    return 'localhost';
+  }
+}
