@@ -1,0 +1,426 @@
+/**
+ * Approximate minimum degree ordering on a (weighted) quotient graph.
+ *
+ * Method (Amestoy, Davis & Duff, "An approximate minimum degree ordering algorithm",
+ * SIAM J. Matrix Anal. Appl. 17(4), 1996): eliminating a variable k turns it and its
+ * neighbourhood into an element (a clique stored only as its member list Lk). Every object
+ * lives in one Int32Array `iw`: a variable's list holds its adjacent elements (first elen
+ * entries) then its adjacent variables; an element's list holds its variables. Elements met
+ * while forming Lk are absorbed into k, so storage never exceeds that of the original graph.
+ *
+ * The exact external degree is replaced by the bound
+ *   d̄ᵢ = min( n − eliminated − |i|,  d̄ᵢ(old) + |Lk \ i|,  |Aᵢ \ i| + |Lk \ i| + Σ_{e∈Eᵢ\k} |Le \ Lk| ),
+ * where |Le \ Lk| for all elements e near Lk comes from one scan over Lk.
+ * Variables whose lists become identical (indistinguishable) merge into one supervariable;
+ * a variable whose external degree drops to zero is eliminated with k (mass elimination);
+ * an element e with Le ⊆ Lk is absorbed into k (aggressive absorption).
+ *
+ * Vertex weights let the caller pass a graph already compressed into supervariables: a vertex
+ * of weight w counts w in every degree. Vertices of very high degree (dense rows) are set
+ * aside and ordered last.
+ *
+ * Result: perm[k] = vertex eliminated k-th.
+ */
+import type { AdjacencyGraph } from './adjacency-graph.js';
+
+export interface MinimumDegreeOptions {
+  /** Weight (number of original unknowns) of each vertex; default 1. */
+  weights?: Int32Array;
+  /** Absorb elements whose variables all lie in the new element (default true). */
+  aggressiveAbsorption?: boolean;
+  /** Vertices with more neighbours than this are ordered last (default max(16, 10·√n)). */
+  denseThreshold?: number;
+}
+
+/** Encodes "absorbed into parent p" in pe[] as a value ≤ −2 (−1 means "no parent"). */
+const flip = (p: number): number => -p - 2;
+
+interface QuotientGraph {
+  n: number;
+  iw: Int32Array;
+  spare: Int32Array; // second buffer for compaction
+  cnz: number; // first free slot of iw
+  pe: Int32Array; // list start of a live object, or flip(parent) once absorbed, or −1
+  len: Int32Array; // list length
+  elen: Int32Array; // variables: # elements in list; −2 element; −1 dead variable
+  nv: Int32Array; // supervariable weight (negated while in Lk; 0 when absorbed)
+  degree: Int32Array; // variables: approximate external degree; elements: |Le|
+  w: Int32Array; // element marks: w[e] − mark = |Le \ Lk|; 0 = dead element
+  head: Int32Array; // degree lists
+  next: Int32Array;
+  last: Int32Array;
+  hashHead: Int32Array; // buckets of the indistinguishable-variable test
+  chainNext: Int32Array; // vertices eliminated together with a representative, in order
+  chainTail: Int32Array;
+  mark: number;
+  maxElement: number; // largest |Lk| so far (bounds how far marks move per step)
+  mindeg: number;
+  eliminated: number; // total weight eliminated
+}
+
+/** Approximate minimum degree permutation of the graph's vertices (perm[k] = k-th pivot). */
+export function approximateMinimumDegree(graph: AdjacencyGraph, options: MinimumDegreeOptions = {}): Int32Array {
+  const n = graph.n;
+  const perm = new Int32Array(n);
+  if (n === 0) return perm;
+  const aggressive = options.aggressiveAbsorption ?? true;
+  const dense = options.denseThreshold ?? Math.max(16, Math.floor(10 * Math.sqrt(n)));
+  const q = initialQuotientGraph(graph, options.weights);
+  let out = 0;
+  const denseList: number[] = [];
+  let live = 0;
+  // classify vertices: isolated ones are eliminated at once, dense ones set aside, others listed
+  for (let i = 0; i < n; i++) {
+    if (q.len[i] > dense && n > 2) {
+      denseList.push(i);
+      q.nv[i] = 0;
+      q.elen[i] = -1;
+      q.pe[i] = -1;
+    }
+  }
+  if (denseList.length > 0) recomputeDegrees(q);
+  for (let i = 0; i < n; i++) {
+    if (q.elen[i] === -1) continue;
+    if (q.degree[i] === 0) {
+      perm[out++] = i;
+      q.elen[i] = -2;
+      q.pe[i] = -1;
+      q.w[i] = 0;
+      q.nv[i] = 0;
+    } else {
+      live += q.nv[i];
+      insertDegreeList(q, i, q.degree[i]);
+    }
+  }
+  // eliminate supervariables of least approximate degree until every weight is used
+  while (q.eliminated < live) {
+    const k = selectPivot(q);
+    eliminate(q, k, live, aggressive);
+    // k and everything merged or mass-eliminated with it take the next pivot positions
+    for (let v = k; v !== -1; v = q.chainNext[v]) perm[out++] = v;
+  }
+  for (const i of denseList) perm[out++] = i;
+  return perm;
+}
+
+function initialQuotientGraph(graph: AdjacencyGraph, weights: Int32Array | undefined): QuotientGraph {
+  const { n, ptr, adj } = graph;
+  const nnz = ptr[n];
+  const size = nnz + Math.floor(nnz / 5) + 2 * n + 16;
+  const iw = new Int32Array(size);
+  iw.set(adj);
+  const nv = new Int32Array(n);
+  let total = 0;
+  // weights: one per vertex unless given
+  for (let i = 0; i < n; i++) total += nv[i] = weights ? weights[i] : 1;
+  const q: QuotientGraph = {
+    n,
+    iw,
+    spare: new Int32Array(size),
+    cnz: nnz,
+    pe: ptr.slice(0, n),
+    len: new Int32Array(n),
+    elen: new Int32Array(n),
+    nv,
+    degree: new Int32Array(n),
+    w: new Int32Array(n).fill(1),
+    head: new Int32Array(total + 1).fill(-1),
+    next: new Int32Array(n).fill(-1),
+    last: new Int32Array(n).fill(-1),
+    hashHead: new Int32Array(n).fill(-1),
+    chainNext: new Int32Array(n).fill(-1),
+    chainTail: new Int32Array(n),
+    mark: 2,
+    maxElement: 0,
+    mindeg: 0,
+    eliminated: 0,
+  };
+  // list lengths and the (weighted) degree of each vertex
+  for (let i = 0; i < n; i++) {
+    q.len[i] = ptr[i + 1] - ptr[i];
+    q.chainTail[i] = i;
+  }
+  recomputeDegrees(q);
+  return q;
+}
+
+/** degree[i] = Σ weights of i's live neighbours (before any elimination). */
+function recomputeDegrees(q: QuotientGraph): void {
+  const { n, iw, pe, len, nv, degree } = q;
+  for (let i = 0; i < n; i++) {
+    let d = 0;
+    for (let p = pe[i], end = pe[i] + len[i]; p < end; p++) d += nv[iw[p]];
+    degree[i] = d;
+  }
+}
+
+function insertDegreeList(q: QuotientGraph, i: number, d: number): void {
+  const { head, next, last } = q;
+  if (head[d] !== -1) last[head[d]] = i;
+  next[i] = head[d];
+  last[i] = -1;
+  head[d] = i;
+}
+
+function removeDegreeList(q: QuotientGraph, i: number): void {
+  const { head, next, last, degree } = q;
+  if (next[i] !== -1) last[next[i]] = last[i];
+  if (last[i] !== -1) next[last[i]] = next[i];
+  else head[degree[i]] = next[i];
+}
+
+function selectPivot(q: QuotientGraph): number {
+  const { head } = q;
+  // the first non-empty degree list from the current minimum up
+  while (head[q.mindeg] === -1) q.mindeg++;
+  const k = head[q.mindeg];
+  removeDegreeList(q, k);
+  return k;
+}
+
+/** Appends vertex j's chain after vertex i's chain. */
+function appendChain(q: QuotientGraph, i: number, j: number): void {
+  q.chainNext[q.chainTail[i]] = j;
+  q.chainTail[i] = q.chainTail[j];
+}
+
+/** Restarts the marks when they approach the Int32 range. */
+function clearMarksIfNeeded(q: QuotientGraph): void {
+  if (q.mark + q.maxElement < 0x3fffffff) return;
+  const { w } = q;
+  for (let i = 0; i < q.n; i++) if (w[i] !== 0) w[i] = 1;
+  q.mark = 2;
+}
+
+/** Copies every live object to the front of a fresh buffer (garbage collection of iw). */
+function compact(q: QuotientGraph): void {
+  const { n, pe, len } = q;
+  const from = q.iw;
+  const to = q.spare;
+  let t = 0;
+  // live objects are exactly those whose pe points into iw
+  for (let j = 0; j < n; j++) {
+    const p = pe[j];
+    if (p < 0) continue;
+    pe[j] = t;
+    to.set(from.subarray(p, p + len[j]), t);
+    t += len[j];
+  }
+  q.iw = to;
+  q.spare = from;
+  q.cnz = t;
+}
+
+/** One pivot step: form element k, update its variables' degrees, merge twins, relist them. */
+function eliminate(q: QuotientGraph, k: number, live: number, aggressive: boolean): void {
+  q.eliminated += q.nv[k];
+  ensureRoom(q, k);
+  const { pk1, pk2 } = formElement(q, k);
+  clearMarksIfNeeded(q);
+  measureSetDifferences(q, pk1, pk2);
+  updateDegrees(q, k, pk1, pk2, aggressive);
+  q.maxElement = Math.max(q.maxElement, q.degree[k]);
+  q.mark += q.maxElement;
+  clearMarksIfNeeded(q);
+  mergeIndistinguishable(q, pk1, pk2);
+  finalizeElement(q, k, pk1, pk2, live);
+}
+
+/** Makes sure the new element (at most Σ|Le| + |Ak| entries) fits at the end of iw. */
+function ensureRoom(q: QuotientGraph, k: number): void {
+  const { iw, pe, len, elen } = q;
+  if (elen[k] === 0) return; // formed in place
+  let need = len[k] - elen[k];
+  // add the list sizes of the elements adjacent to k
+  for (let p = pe[k]; p < pe[k] + elen[k]; p++) need += len[iw[p]];
+  if (q.cnz + need < q.iw.length) return;
+  compact(q);
+  if (q.cnz + need >= q.iw.length) {
+    // storage theorem says this cannot happen; grow rather than fail
+    const bigger = new Int32Array(2 * (q.cnz + need));
+    bigger.set(q.iw.subarray(0, q.cnz));
+    q.iw = bigger;
+    q.spare = new Int32Array(bigger.length);
+  }
+}
+
+/** Lk = (Ak ∪ ⋃_{e∈Ek} Le) \ k; absorbs every e ∈ Ek into k; returns where Lk sits in iw. */
+function formElement(q: QuotientGraph, k: number): { pk1: number; pk2: number } {
+  const { iw, pe, len, elen, nv, w } = q;
+  const elenk = elen[k];
+  const pk = pe[k];
+  const pk1 = elenk === 0 ? pk : q.cnz;
+  let pk2 = pk1;
+  let dk = 0;
+  nv[k] = -nv[k]; // k is "in Lk" so it is skipped below
+  // gather the live variables of each adjacent element, then of k's own variable list
+  for (let t = 0; t <= elenk; t++) {
+    const e = t < elenk ? iw[pk + t] : k;
+    let p = t < elenk ? pe[e] : pk + elenk;
+    const end = t < elenk ? pe[e] + len[e] : pk + len[k];
+    for (; p < end; p++) {
+      const i = iw[p];
+      const nvi = nv[i];
+      if (nvi <= 0) continue; // dead, or already in Lk
+      dk += nvi;
+      nv[i] = -nvi;
+      iw[pk2++] = i;
+      removeDegreeList(q, i);
+    }
+    if (e !== k) {
+      pe[e] = flip(k); // element e absorbed into k
+      w[e] = 0;
+    }
+  }
+  if (elenk !== 0) q.cnz = pk2;
+  q.degree[k] = dk;
+  pe[k] = pk1;
+  len[k] = pk2 - pk1;
+  elen[k] = -2;
+  return { pk1, pk2 };
+}
+
+/** For every element e adjacent to a variable of Lk: w[e] − mark = |Le \ Lk| (weighted). */
+function measureSetDifferences(q: QuotientGraph, pk1: number, pk2: number): void {
+  const { iw, pe, elen, nv, w, degree } = q;
+  const mark = q.mark;
+  for (let pk = pk1; pk < pk2; pk++) {
+    const i = iw[pk];
+    const eln = elen[i];
+    if (eln <= 0) continue;
+    const nvi = -nv[i];
+    // subtract |i| from each adjacent element's outside size, starting from |Le| the first time
+    for (let p = pe[i], end = pe[i] + eln; p < end; p++) {
+      const e = iw[p];
+      if (w[e] >= mark) w[e] -= nvi;
+      else if (w[e] !== 0) w[e] = degree[e] + mark - nvi;
+    }
+  }
+}
+
+/** Prunes each i ∈ Lk's lists, bounds its degree, mass-eliminates it if nothing is left outside. */
+function updateDegrees(q: QuotientGraph, k: number, pk1: number, pk2: number, aggressive: boolean): void {
+  const { iw, pe, len, elen, nv, w, degree, next, last, hashHead } = q;
+  const n = q.n;
+  const mark = q.mark;
+  let dk = degree[k];
+  for (let pk = pk1; pk < pk2; pk++) {
+    const i = iw[pk];
+    const p1 = pe[i];
+    const p2 = p1 + elen[i];
+    let pn = p1;
+    let d = 0;
+    let h = 0;
+    // elements: Σ |Le \ Lk|, keeping only those with something outside Lk
+    for (let p = p1; p < p2; p++) {
+      const e = iw[p];
+      if (w[e] === 0) continue;
+      const dext = w[e] - mark;
+      if (dext > 0 || !aggressive) {
+        if (dext > 0) d += dext;
+        iw[pn++] = e;
+        h += e;
+      } else {
+        pe[e] = flip(k); // Le ⊆ Lk: aggressive absorption
+        w[e] = 0;
+      }
+    }
+    elen[i] = pn - p1 + 1; // + k, inserted below
+    const p3 = pn;
+    // variables: keep those alive and outside Lk
+    for (let p = p2, end = p1 + len[i]; p < end; p++) {
+      const j = iw[p];
+      const nvj = nv[j];
+      if (nvj <= 0) continue;
+      d += nvj;
+      iw[pn++] = j;
+      h += j;
+    }
+    if (d === 0) {
+      // nothing outside Lk: i is eliminated together with k
+      pe[i] = flip(k);
+      const nvi = -nv[i];
+      dk -= nvi;
+      nv[k] -= nvi; // nv[k] is negative while k is being eliminated
+      q.eliminated += nvi;
+      nv[i] = 0;
+      elen[i] = -1;
+      appendChain(q, k, i);
+      continue;
+    }
+    degree[i] = Math.min(degree[i], d);
+    // put k first in i's element list: the displaced entries move to the ends of their parts
+    iw[pn] = iw[p3];
+    iw[p3] = iw[p1];
+    iw[p1] = k;
+    len[i] = pn - p1 + 1;
+    const bucket = h % n;
+    next[i] = hashHead[bucket];
+    hashHead[bucket] = i;
+    last[i] = bucket;
+  }
+  degree[k] = dk;
+}
+
+/** Merges variables of Lk whose element and variable lists are identical (same hash bucket first). */
+function mergeIndistinguishable(q: QuotientGraph, pk1: number, pk2: number): void {
+  const { pe, len, elen, nv, w, next, last, hashHead } = q;
+  for (let pk = pk1; pk < pk2; pk++) {
+    const iw = q.iw;
+    const start = iw[pk];
+    if (nv[start] >= 0) continue; // dead or already merged
+    const bucket = last[start];
+    let i = hashHead[bucket];
+    hashHead[bucket] = -1;
+    // compare every pair in the bucket; j identical to i is absorbed into i
+    for (; i !== -1 && next[i] !== -1; i = next[i], q.mark++) {
+      const mark = q.mark;
+      const ln = len[i];
+      const eln = elen[i];
+      for (let p = pe[i] + 1; p < pe[i] + ln; p++) w[iw[p]] = mark;
+      let jPrev = i;
+      for (let j = next[i]; j !== -1; ) {
+        let same = len[j] === ln && elen[j] === eln;
+        for (let p = pe[j] + 1; same && p < pe[j] + ln; p++) same = w[iw[p]] === mark;
+        if (same) {
+          pe[j] = flip(i);
+          nv[i] += nv[j]; // both negative while in Lk
+          nv[j] = 0;
+          elen[j] = -1;
+          appendChain(q, i, j);
+          j = next[j];
+          next[jPrev] = j;
+        } else {
+          jPrev = j;
+          j = next[j];
+        }
+      }
+    }
+  }
+}
+
+/** Restores the weights of Lk's survivors, relists them by degree, and stores Lk compactly. */
+function finalizeElement(q: QuotientGraph, k: number, pk1: number, pk2: number, live: number): void {
+  const { iw, pe, len, nv, w, degree } = q;
+  const dk = degree[k];
+  let p = pk1;
+  for (let pk = pk1; pk < pk2; pk++) {
+    const i = iw[pk];
+    const nvi = -nv[i];
+    if (nvi <= 0) continue; // merged away or mass-eliminated
+    nv[i] = nvi;
+    // external degree bound: previous bound + |Lk \ i|, capped by what is left
+    const d = Math.min(degree[i] + dk - nvi, live - q.eliminated - nvi);
+    degree[i] = d;
+    insertDegreeList(q, i, d);
+    if (d < q.mindeg) q.mindeg = d;
+    iw[p++] = i;
+  }
+  nv[k] = -nv[k];
+  len[k] = p - pk1;
+  if (len[k] === 0) {
+    pe[k] = -1; // a root of the assembly tree
+    w[k] = 0;
+  }
+  if (q.cnz === pk2) q.cnz = p; // give back the unused tail of Lk
+}
