@@ -20,28 +20,51 @@ export function denseOf(a: SymmetricCsc): Matrix {
   return m;
 }
 
-/** Solve L X = B for lower-triangular L (row-major dense), in place on B's columns. */
-function forwardSolve(L: Matrix, B: Matrix): Matrix {
-  const n = L.rows;
-  const X = B.clone();
-  for (let c = 0; c < B.columns; c++) {
-    for (let i = 0; i < n; i++) {
-      let s = X.get(i, c);
-      for (let k = 0; k < i; k++) s -= L.get(i, k) * X.get(k, c);
-      X.set(i, c, s / L.get(i, i));
+/**
+ * L⁻¹ B for lower-triangular L (forward substitution on every column of B), on flat
+ * row-major copies for speed; returns row-major n×n.
+ */
+function forwardSolve(L: Float64Array, B: Float64Array, n: number): Float64Array {
+  const X = B.slice();
+  // row i of X: (b_i − Σ_{k<i} l_ik x_k) / l_ii, all columns at once
+  for (let i = 0; i < n; i++) {
+    const xi = i * n;
+    for (let k = 0; k < i; k++) {
+      const l = L[i * n + k];
+      if (l === 0) continue;
+      const xk = k * n;
+      for (let c = 0; c < n; c++) X[xi + c] -= l * X[xk + c];
     }
+    const d = L[i * n + i];
+    for (let c = 0; c < n; c++) X[xi + c] /= d;
   }
   return X;
+}
+
+function flat(m: Matrix): Float64Array {
+  const n = m.rows;
+  const out = new Float64Array(n * m.columns);
+  for (let i = 0; i < n; i++) out.set(m.getRow(i), i * m.columns);
+  return out;
+}
+
+function transposed(a: Float64Array, n: number): Float64Array {
+  const t = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) t[j * n + i] = a[i * n + j];
+  return t;
 }
 
 /** Ascending generalized eigenvalues of (K, M); M must be positive definite. */
 export function generalizedEigenvalues(stiffness: SymmetricCsc, mass: SymmetricCsc): number[] {
   const chol = new CholeskyDecomposition(denseOf(mass));
   if (!chol.isPositiveDefinite()) throw new Error('mass matrix is not positive definite');
-  const L = chol.lowerTriangularMatrix;
-  const A = forwardSolve(L, denseOf(stiffness)); // L⁻¹ K
-  const C = forwardSolve(L, A.transpose()); // L⁻¹ (L⁻¹ K)ᵀ = L⁻¹ K L⁻ᵀ
-  const sym = C.add(C.transpose()).mul(0.5);
+  const n = stiffness.n;
+  const L = flat(chol.lowerTriangularMatrix);
+  const A = forwardSolve(L, flat(denseOf(stiffness)), n); // L⁻¹ K
+  const C = forwardSolve(L, transposed(A, n), n); // L⁻¹ (L⁻¹ K)ᵀ = L⁻¹ K L⁻ᵀ
+  const sym = new Matrix(n, n);
+  // symmetrize the rounding: (C + Cᵀ)/2
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) sym.set(i, j, 0.5 * (C[i * n + j] + C[j * n + i]));
   const evd = new EigenvalueDecomposition(sym, { assumeSymmetric: true });
   return [...evd.realEigenvalues].sort((x, y) => x - y);
 }
