@@ -1,0 +1,120 @@
+/**
+ * Dense kernels for the supernodal LDLᵀ, over column-major Float64Array blocks.
+ *
+ * A supernode's block holds nr rows × nc columns, column-major with leading dimension nr; its
+ * top nc×nc part is the diagonal block (lower triangle used), the rest the rows below.
+ *
+ * The work is in `updateLowerProduct`: C −= A Wᵀ with A (m×k, column-major) and W (n×k, stored
+ * k-major: W[t·n + j]), only for the blocks of C on or below the diagonal. It is register
+ * blocked 4 rows × 4 columns: per step over t, 4 loads of A's column t and 4 of W's row t feed
+ * 16 multiply-adds into local accumulators, so the inner loop is arithmetic, not memory traffic.
+ */
+
+/**
+ * C[i, j] −= Σ_t A[i, t] · W[j, t] for 0 ≤ j < n, j − 3 ≤ i < m (the lower part in 4×4 tiles;
+ * a few entries just above the diagonal of C are also written — callers never read them).
+ * A[i, t] = a[aOff + i + t·lda]; W[j, t] = w[t·n + j]; C[i, j] = c[cOff + i + j·ldc].
+ */
+export function updateLowerProduct(
+  m: number,
+  n: number,
+  k: number,
+  a: Float64Array,
+  aOff: number,
+  lda: number,
+  w: Float64Array,
+  c: Float64Array,
+  cOff: number,
+  ldc: number,
+): void {
+  let j = 0;
+  // column tiles of width 4
+  for (; j + 4 <= n; j += 4) {
+    const c0 = cOff + j * ldc;
+    let i = j;
+    // row tiles of height 4 from the diagonal down
+    for (; i + 4 <= m; i += 4) {
+      let s00 = 0, s10 = 0, s20 = 0, s30 = 0;
+      let s01 = 0, s11 = 0, s21 = 0, s31 = 0;
+      let s02 = 0, s12 = 0, s22 = 0, s32 = 0;
+      let s03 = 0, s13 = 0, s23 = 0, s33 = 0;
+      let pa = aOff + i;
+      let pw = j;
+      // Σ over the inner dimension
+      for (let t = 0; t < k; t++, pa += lda, pw += n) {
+        const a0 = a[pa], a1 = a[pa + 1], a2 = a[pa + 2], a3 = a[pa + 3];
+        const w0 = w[pw], w1 = w[pw + 1], w2 = w[pw + 2], w3 = w[pw + 3];
+        s00 += a0 * w0; s10 += a1 * w0; s20 += a2 * w0; s30 += a3 * w0;
+        s01 += a0 * w1; s11 += a1 * w1; s21 += a2 * w1; s31 += a3 * w1;
+        s02 += a0 * w2; s12 += a1 * w2; s22 += a2 * w2; s32 += a3 * w2;
+        s03 += a0 * w3; s13 += a1 * w3; s23 += a2 * w3; s33 += a3 * w3;
+      }
+      let q = c0 + i;
+      c[q] -= s00; c[q + 1] -= s10; c[q + 2] -= s20; c[q + 3] -= s30;
+      q += ldc;
+      c[q] -= s01; c[q + 1] -= s11; c[q + 2] -= s21; c[q + 3] -= s31;
+      q += ldc;
+      c[q] -= s02; c[q + 1] -= s12; c[q + 2] -= s22; c[q + 3] -= s32;
+      q += ldc;
+      c[q] -= s03; c[q + 1] -= s13; c[q + 2] -= s23; c[q + 3] -= s33;
+    }
+    // leftover rows (fewer than 4) of this column tile
+    for (; i < m; i++) {
+      let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+      let pa = aOff + i;
+      let pw = j;
+      for (let t = 0; t < k; t++, pa += lda, pw += n) {
+        const a0 = a[pa];
+        s0 += a0 * w[pw]; s1 += a0 * w[pw + 1]; s2 += a0 * w[pw + 2]; s3 += a0 * w[pw + 3];
+      }
+      const q = c0 + i;
+      c[q] -= s0; c[q + ldc] -= s1; c[q + 2 * ldc] -= s2; c[q + 3 * ldc] -= s3;
+    }
+  }
+  // leftover columns (fewer than 4): one column at a time, rows from its diagonal
+  for (; j < n; j++) {
+    const c0 = cOff + j * ldc;
+    let i = j;
+    for (; i + 4 <= m; i += 4) {
+      let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+      let pa = aOff + i;
+      let pw = j;
+      for (let t = 0; t < k; t++, pa += lda, pw += n) {
+        const wv = w[pw];
+        s0 += a[pa] * wv; s1 += a[pa + 1] * wv; s2 += a[pa + 2] * wv; s3 += a[pa + 3] * wv;
+      }
+      const q = c0 + i;
+      c[q] -= s0; c[q + 1] -= s1; c[q + 2] -= s2; c[q + 3] -= s3;
+    }
+    for (; i < m; i++) {
+      let s = 0;
+      let pa = aOff + i;
+      let pw = j;
+      for (let t = 0; t < k; t++, pa += lda, pw += n) s += a[pa] * w[pw];
+      c[c0 + i] -= s;
+    }
+  }
+}
+
+/**
+ * W = (rows r0..r0+n−1 of the block's columns) · D, stored k-major: w[t·n + j] = A[r0 + j, t]·d_t.
+ * A[i, t] = a[aOff + i + t·lda]; d_t = d[dOff + t].
+ */
+export function scaledRowsKMajor(
+  n: number,
+  k: number,
+  a: Float64Array,
+  aOff: number,
+  lda: number,
+  d: Float64Array,
+  dOff: number,
+  w: Float64Array,
+): void {
+  // each column t of the block, scaled by its pivot
+  for (let t = 0; t < k; t++) {
+    const dt = d[dOff + t];
+    const src = aOff + t * lda;
+    const dst = t * n;
+    for (let j = 0; j < n; j++) w[dst + j] = a[src + j] * dt;
+  }
+}

@@ -1,0 +1,166 @@
+/**
+ * Symbolic analysis of the shifted pair: from a fill-reducing order of K + M to the supernodal
+ * structure of L, computed once and reused for every shift σ.
+ *
+ * 1. elimination tree of P(K + M)Pᵀ, its postorder folded into P (same fill, contiguous chains);
+ * 2. exact column counts → nnz(L) and the flop count before any numeric work;
+ * 3. fundamental supernodes, relaxed amalgamation (see supernodes.ts);
+ * 4. row structure of each supernode: its own columns, then the union of the rows below them in
+ *    A(:, cols) and in its children's structures (Liu: struct L(:,j) = A(j:,j) ∪ children);
+ * 5. value offsets of the dense blocks and the workspace sizes the numeric phase needs.
+ */
+import type { SymmetricCsc } from './csc.js';
+import { columnCounts } from './column-counts.js';
+import { eliminationTree } from './etree.js';
+import { permutePair, transposePattern, type PermutedPair } from './permute.js';
+import { postorderTree, relabelTree } from './postorder.js';
+import { fundamentalSupernodes, relaxSupernodes } from './supernodes.js';
+
+export interface SupernodalStructure {
+  n: number;
+  /** perm[k] = original DOF of pivot k (fill-reducing order followed by the tree postorder). */
+  perm: Int32Array;
+  /** K and M in pivot order on the union pattern. */
+  pair: PermutedPair;
+  /** Exact nnz(L) incl. diagonal (no amalgamation zeros). */
+  nnzL: number;
+  /** Entries stored in the supernode blocks (nnzL plus amalgamation zeros). */
+  storedEntries: number;
+  /** Flops of the numeric phase on the stored (amalgamated) structure. */
+  flops: number;
+  supernodes: number;
+  /** superStart[s] .. superStart[s+1] − 1 are the columns of supernode s. */
+  superStart: Int32Array;
+  superOf: Int32Array;
+  /** rows[rowPtr[s] .. rowPtr[s+1] − 1]: row structure of s, its own columns first, ascending. */
+  rowPtr: Int32Array;
+  rows: Int32Array;
+  /** Offset of supernode s's block (nr × nc, column-major) in the factor's value array. */
+  valuePtr: Float64Array;
+  /** Largest update block (rows × columns) one supernode sends to another. */
+  maxUpdateEntries: number;
+  /** Largest nr · nc over supernodes and largest nr. */
+  maxBlockEntries: number;
+  maxRows: number;
+}
+
+/** Etree, postorder, counts of the permuted pattern (rows of `pair` need not carry values). */
+function treeAndCounts(pair: PermutedPair) {
+  const { lower: upper } = transposePattern(pair);
+  const parent = eliminationTree(upper);
+  const post = postorderTree(parent);
+  const counts = columnCounts(pair, parent, post);
+  return { parent, post, counts };
+}
+
+export function analyzeShiftedPair(stiffness: SymmetricCsc, mass: SymmetricCsc, order: Int32Array): SupernodalStructure {
+  const n = stiffness.n;
+  const first = treeAndCounts(permutePair(stiffness, mass, order));
+  const perm = new Int32Array(n);
+  const counts = new Int32Array(n);
+  let nnzL = 0;
+  // fold the postorder into the ordering; relabel counts
+  for (let k = 0; k < n; k++) {
+    perm[k] = order[first.post[k]];
+    counts[k] = first.counts[first.post[k]];
+    nnzL += counts[k];
+  }
+  const parent = relabelTree(first.parent, first.post);
+  const pair = permutePair(stiffness, mass, perm);
+  const superStart = relaxSupernodes(fundamentalSupernodes(parent, counts), parent, counts);
+  const ns = superStart.length - 1;
+  const superOf = new Int32Array(n);
+  // supernode of each column
+  for (let s = 0; s < ns; s++) superOf.fill(s, superStart[s], superStart[s + 1]);
+  const { rowPtr, rows } = supernodeRows(pair, superStart, superOf, parent);
+  return { n, perm, pair, nnzL, supernodes: ns, superStart, superOf, rowPtr, rows, ...blockSizes(superStart, superOf, rowPtr, rows) };
+}
+
+/** Row structures of all supernodes, children before parents (postorder). */
+function supernodeRows(pair: PermutedPair, superStart: Int32Array, superOf: Int32Array, parent: Int32Array) {
+  const ns = superStart.length - 1;
+  const n = pair.n;
+  const childHead = new Int32Array(ns).fill(-1);
+  const childNext = new Int32Array(ns).fill(-1);
+  // child lists of the supernodal tree
+  for (let s = ns - 1; s >= 0; s--) {
+    const p = parent[superStart[s + 1] - 1];
+    if (p === -1) continue;
+    const ps = superOf[p];
+    childNext[s] = childHead[ps];
+    childHead[ps] = s;
+  }
+  const mark = new Int32Array(n).fill(-1);
+  let rowPtr = new Int32Array(ns + 1);
+  let rows = new Int32Array(Math.max(16, 2 * pair.colPtr[n]));
+  let top = 0;
+  const below = new Int32Array(n);
+  // structure of s = own columns ∪ rows ≥ l of A(:, f..l−1) ∪ rows ≥ l of each child
+  for (let s = 0; s < ns; s++) {
+    const f = superStart[s];
+    const l = superStart[s + 1];
+    let cnt = 0;
+    for (let j = f; j < l; j++) {
+      for (let p = pair.colPtr[j]; p < pair.colPtr[j + 1]; p++) {
+        const i = pair.rowIdx[p];
+        if (i >= l && mark[i] !== s) {
+          mark[i] = s;
+          below[cnt++] = i;
+        }
+      }
+    }
+    for (let c = childHead[s]; c !== -1; c = childNext[c]) {
+      for (let p = rowPtr[c]; p < rowPtr[c + 1]; p++) {
+        const i = rows[p];
+        if (i >= l && mark[i] !== s) {
+          mark[i] = s;
+          below[cnt++] = i;
+        }
+      }
+    }
+    const need = top + (l - f) + cnt;
+    if (need > rows.length) {
+      const grown = new Int32Array(Math.max(need, 2 * rows.length));
+      grown.set(rows.subarray(0, top));
+      rows = grown;
+    }
+    for (let j = f; j < l; j++) rows[top++] = j;
+    rows.set(below.subarray(0, cnt), top);
+    rows.subarray(top, top + cnt).sort();
+    top += cnt;
+    rowPtr[s + 1] = top;
+  }
+  return { rowPtr, rows: rows.slice(0, top) };
+}
+
+/** Value offsets, stored entries, flops and workspace bounds. */
+function blockSizes(superStart: Int32Array, superOf: Int32Array, rowPtr: Int32Array, rows: Int32Array) {
+  const ns = superStart.length - 1;
+  const valuePtr = new Float64Array(ns + 1);
+  let flops = 0;
+  let maxUpdateEntries = 0;
+  let maxBlockEntries = 0;
+  let maxRows = 0;
+  // each supernode: block size, flops of its columns, sizes of the updates it sends
+  for (let s = 0; s < ns; s++) {
+    const nc = superStart[s + 1] - superStart[s];
+    const nr = rowPtr[s + 1] - rowPtr[s];
+    valuePtr[s + 1] = valuePtr[s] + nr * nc;
+    maxBlockEntries = Math.max(maxBlockEntries, nr * nc);
+    maxRows = Math.max(maxRows, nr);
+    // column c has r = nr − c − 1 rows below its diagonal: r divisions, r(r+1)/2 multiply-adds
+    for (let c = 0; c < nc; c++) {
+      const r = nr - c - 1;
+      flops += r + r * (r + 1);
+    }
+    // runs of rows falling in one target supernode: ndrow1 (in the run) × ndrow2 (run and below)
+    for (let p = rowPtr[s] + nc; p < rowPtr[s + 1]; ) {
+      const target = superOf[rows[p]];
+      let q = p;
+      while (q < rowPtr[s + 1] && superOf[rows[q]] === target) q++;
+      maxUpdateEntries = Math.max(maxUpdateEntries, (q - p) * (rowPtr[s + 1] - p));
+      p = q;
+    }
+  }
+  return { valuePtr, storedEntries: valuePtr[ns], flops, maxUpdateEntries, maxBlockEntries, maxRows };
+}
