@@ -1,0 +1,45 @@
+/**
+ * center-of-mass: the centre of mass (from the rigid-body mass matrix RᵀMR) lies within
+ * maxDistance of the expected point (model length unit). Both numbers come from the project's
+ * mass budget; there is no default distance.
+ */
+import type { RuleDefinition } from './rule-types.js';
+import { outcome } from './outcome.js';
+import { geometryOrSkip, isOutcome } from './geometry-common.js';
+
+export interface CenterOfMassOptions {
+  expected: [number, number, number];
+  maxDistance: number;
+}
+
+const messages = {
+  pass: 'centre of mass ({{x}}, {{y}}, {{z}}) is {{distance}} from the expected point (allowed {{maxDistance}}).',
+  fail: 'centre of mass ({{x}}, {{y}}, {{z}}) is {{distance}} from the expected ({{ex}}, {{ey}}, {{ez}}); allowed {{maxDistance}}.',
+};
+
+export const centerOfMass: RuleDefinition<CenterOfMassOptions> = {
+  id: 'center-of-mass',
+  description: 'The centre of mass lies within maxDistance of the expected point (model length unit).',
+  optionsSchema: {
+    type: 'object',
+    properties: {
+      expected: { type: 'array', items: { type: 'number' }, minItems: 3, maxItems: 3 },
+      maxDistance: { type: 'number', minimum: 0 },
+    },
+    required: ['expected', 'maxDistance'],
+    additionalProperties: false,
+  },
+  defaults: {} as CenterOfMassOptions,
+  messages,
+  needs: ['dofMap'],
+  evaluate(context, o) {
+    const g = geometryOrSkip(context);
+    if (isOutcome(g)) return g;
+    const c = g.massProperties.centerOfMass;
+    const distance = Math.hypot(c[0] - o.expected[0], c[1] - o.expected[1], c[2] - o.expected[2]);
+    const values = { x: c[0], y: c[1], z: c[2], ex: o.expected[0], ey: o.expected[1], ez: o.expected[2], distance, maxDistance: o.maxDistance };
+    const details = { centerOfMass: c, expected: o.expected, distance };
+    const status = distance <= o.maxDistance ? 'pass' : 'fail';
+    return outcome(status, status === 'pass' ? messages.pass : messages.fail, values, distance, o.maxDistance, details);
+  },
+};

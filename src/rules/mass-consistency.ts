@@ -1,0 +1,48 @@
+/**
+ * mass-consistency: the mass moving with a unit translation is the same along x, y and z
+ * (rᵀMr for the three translations). Any FE mass matrix, lumped or consistent, gives equal
+ * values; a difference means some DOFs lack mass in one direction (a lumped mass entered on
+ * ux only, a missing component). Measured: (max − min) / max over the directions the DOF map
+ * represents. Default 1e-6 relative — our choice, far above round-off, far below a real omission.
+ */
+import type { RuleDefinition } from './rule-types.js';
+import { outcome } from './outcome.js';
+import { geometryOrSkip, isOutcome } from './geometry-common.js';
+
+export interface MassConsistencyOptions {
+  maxRelativeSpread: number;
+}
+
+const messages = {
+  pass: 'translational masses agree: {{masses}} (spread {{spread}}, limit {{limit}}).',
+  fail: 'translational masses differ: {{masses}} (spread {{spread}}, limit {{limit}}): {{low}} lacks mass on some DOFs.',
+  none: 'not evaluated: the DOF map has fewer than two translational directions.',
+};
+
+export const massConsistency: RuleDefinition<MassConsistencyOptions> = {
+  id: 'mass-consistency',
+  description: 'The masses moving with unit x, y and z translations agree (no DOFs missing mass in one direction).',
+  optionsSchema: {
+    type: 'object',
+    properties: { maxRelativeSpread: { type: 'number', minimum: 0 } },
+    additionalProperties: false,
+  },
+  defaults: { maxRelativeSpread: 1e-6 },
+  messages,
+  needs: ['dofMap'],
+  evaluate(context, o) {
+    const g = geometryOrSkip(context);
+    if (isOutcome(g)) return g;
+    const names = ['ux', 'uy', 'uz'] as const;
+    const present = names.map((d, k) => ({ d, m: g.massProperties.translationalMass[k] })).filter((e) => g.representedDirections[e.d]);
+    if (present.length < 2) return outcome('skip', messages.none, {});
+    const max = Math.max(...present.map((e) => e.m));
+    const low = present.reduce((a, b) => (b.m < a.m ? b : a));
+    const spread = max > 0 ? (max - low.m) / max : 0;
+    const masses = present.map((e) => `${e.d} ${e.m.toPrecision(6)}`).join(', ');
+    const values = { masses, spread, limit: o.maxRelativeSpread, low: low.d };
+    const details = { translationalMass: g.massProperties.translationalMass, relativeSpread: spread };
+    const status = spread <= o.maxRelativeSpread ? 'pass' : 'fail';
+    return outcome(status, status === 'pass' ? messages.pass : messages.fail, values, spread, o.maxRelativeSpread, details);
+  },
+};

@@ -1,0 +1,77 @@
+/**
+ * mass-participation: the solved modes (or those up to maxHz) carry at least minFraction of the
+ * mass in each listed direction: Σ_j Γ_jk² / rₖᵀMrₖ ≥ minFraction with Γ = ΦᵀMR (mass-normalized
+ * Φ). Default 0.9 in the horizontal directions ux, uy: ASCE 7-16 §12.9.1.1 permits a modal
+ * response spectrum analysis to use the modes reaching 90 % of the actual mass in each
+ * orthogonal horizontal direction ([S]: quoted in a software vendor's help page on ASCE 7-16
+ * §12.9.1, not read in the standard itself). Directions are global axes; list the ones that are
+ * horizontal in your model.
+ * The fraction is relative to the mass on the model's free DOFs; on a free-free model the
+ * rigid-body modes carry all of it, so the rule skips models with free rigid motions.
+ */
+import type { RuleDefinition } from './rule-types.js';
+import { outcome } from './outcome.js';
+import { formatList } from './message.js';
+import { geometryOrSkip, isOutcome } from './geometry-common.js';
+import { RIGID_BODY_DIRECTIONS, type RigidBodyDirection } from '../model/rigid-body-vectors.js';
+
+export interface MassParticipationOptions {
+  directions: RigidBodyDirection[];
+  minFraction: number;
+  maxHz?: number;
+}
+
+const messages = {
+  pass: 'effective mass reaches {{reached}} within {{span}} (required {{minFraction}}).',
+  fail: 'effective mass within {{span}} is short of {{minFraction}}: {{short}}; solve more modes or check where the mass is.',
+  free: 'not evaluated: the model has {{free}} free rigid-body motion(s), whose modes carry all the mass; participation is for supported models.',
+  noMass: 'not evaluated: the listed directions carry no mass in this model ({{directions}}).',
+};
+
+export const massParticipation: RuleDefinition<MassParticipationOptions> = {
+  id: 'mass-participation',
+  description: 'The solved modes (or those up to maxHz) carry at least minFraction of the mass in each listed direction.',
+  optionsSchema: {
+    type: 'object',
+    properties: {
+      directions: { type: 'array', items: { enum: [...RIGID_BODY_DIRECTIONS] }, minItems: 1, uniqueItems: true },
+      minFraction: { type: 'number', exclusiveMinimum: 0, maximum: 1 },
+      maxHz: { type: 'number', exclusiveMinimum: 0 },
+    },
+    additionalProperties: false,
+  },
+  defaults: { directions: ['ux', 'uy'], minFraction: 0.9 },
+  messages,
+  needs: ['modes', 'dofMap'],
+  evaluate(context, o) {
+    const g = geometryOrSkip(context);
+    if (isOutcome(g)) return g;
+    const p = g.participation;
+    if (!p) return outcome('skip', 'not evaluated: no modes were solved for this model.', {});
+    if (g.freeRigidBodyMotions > 0 && !g.supported) return outcome('skip', messages.free, { free: g.freeRigidBodyMotions });
+    const f = context.modes!.frequenciesHz;
+    let last = p.modes - 1;
+    if (o.maxHz !== undefined) while (last >= 0 && f[last] > o.maxHz) last--;
+    const span = o.maxHz !== undefined ? `the ${last + 1} modes up to ${o.maxHz} Hz` : `the ${p.modes} solved modes`;
+    const rows = o.directions
+      .map((d) => {
+        const k = RIGID_BODY_DIRECTIONS.indexOf(d);
+        const fraction = last >= 0 ? p.cumulativeFraction[last][k] : 0;
+        const reachedAt = p.cumulativeFraction.findIndex((row, j) => j <= last && row[k] !== null && row[k]! >= o.minFraction);
+        return { direction: d, fraction, modesNeeded: reachedAt >= 0 ? reachedAt + 1 : null };
+      })
+      .filter((r) => r.fraction !== null) as { direction: RigidBodyDirection; fraction: number; modesNeeded: number | null }[];
+    if (rows.length === 0) return outcome('skip', messages.noMass, { directions: o.directions.join(', ') });
+    const short = rows.filter((r) => r.fraction < o.minFraction);
+    const worst = rows.reduce((a, b) => (b.fraction < a.fraction ? b : a));
+    const details = { modesConsidered: last + 1, directions: rows, rigidBodyMass: p.rigidBodyMass };
+    const values = {
+      span,
+      minFraction: o.minFraction,
+      reached: formatList(rows.map((r) => `${r.direction} ${r.fraction.toFixed(3)}`)),
+      short: formatList(short.map((r) => `${r.direction} ${r.fraction.toFixed(3)}`)),
+    };
+    const status = short.length === 0 ? 'pass' : 'fail';
+    return outcome(status, status === 'pass' ? messages.pass : messages.fail, values, worst.fraction, o.minFraction, details);
+  },
+};

@@ -1,0 +1,63 @@
+/**
+ * rigid-body-energy: a free-free model must not resist rigid motion (unintended grounding).
+ * Measured: max over the six rigid-body vectors r of  rᵀKr / (λ_ref rᵀMr)  (= E / E_ref with
+ * E = ½ rᵀKr, E_ref = ½ λ_ref rᵀMr; see src/model/rigid-body-energy.ts for λ_ref).
+ * Default limit 1e-8 — our choice, derived from the ECSS-E-ST-32-03C separation criterion
+ * f_rigid / f_first-elastic < 1e-4 ([S] CRITERIA.md §1a): the ratio is (f_r / f_ref)², so 1e-8
+ * asks the same of the geometric rigid vectors. The standard has its own energy check, whose
+ * numbers were not recovered ([M] CRITERIA.md §1a); none is claimed here.
+ * On failure the message names the nodes with the largest residual forces K r (where the model
+ * is grounded), top 10 in details.
+ */
+import type { RuleDefinition } from './rule-types.js';
+import { outcome } from './outcome.js';
+import { geometryOrSkip, isOutcome, nodeList } from './geometry-common.js';
+
+export interface RigidBodyEnergyOptions {
+  maxRelativeEnergy: number;
+  /** Skip supported models (constraint sets applied, or no near-zero mode): the check is for free-free models. */
+  onlyFreeFree: boolean;
+}
+
+const messages = {
+  pass: 'rigid motions store at most {{measured}} of the reference energy (limit {{limit}}, reference: {{reference}}).',
+  fail: 'rigid motion {{direction}} stores {{measured}} of the reference energy (limit {{limit}}): the model is grounded near {{where}}.',
+  skipped: 'not evaluated: {{reason}}; rigid-body energy applies to free-free models (set onlyFreeFree: false to force it).',
+};
+
+export const rigidBodyEnergy: RuleDefinition<RigidBodyEnergyOptions> = {
+  id: 'rigid-body-energy',
+  description: 'Rigid-body motions of a free-free model store (almost) no strain energy: no unintended grounding.',
+  optionsSchema: {
+    type: 'object',
+    properties: {
+      maxRelativeEnergy: { type: 'number', exclusiveMinimum: 0 },
+      onlyFreeFree: { type: 'boolean' },
+    },
+    additionalProperties: false,
+  },
+  defaults: { maxRelativeEnergy: 1e-8, onlyFreeFree: true },
+  messages,
+  needs: ['dofMap'],
+  evaluate(context, o) {
+    const g = geometryOrSkip(context);
+    if (isOutcome(g)) return g;
+    if (o.onlyFreeFree && g.supported) return outcome('skip', messages.skipped, { reason: g.supported.reason });
+    const e = g.rigidBodyEnergy;
+    const measured = Math.abs(e.maxRelativeEnergy);
+    const reference =
+      e.referenceSource === 'first-elastic-mode'
+        ? `½ λ rᵀMr with λ = ${e.referenceEigenvalue.toExponential(3)} (first elastic mode)`
+        : `½ λ rᵀMr with λ = tr K / tr M = ${e.referenceEigenvalue.toExponential(3)} (no modes: a loose check)`;
+    const details = {
+      referenceEigenvalue: e.referenceEigenvalue,
+      referenceSource: e.referenceSource,
+      directions: e.directions,
+      freeRigidBodyMotions: g.freeRigidBodyMotions,
+      largestResiduals: e.largestResiduals,
+    };
+    const values = { measured, limit: o.maxRelativeEnergy, reference, direction: e.worstDirection ?? '-', where: nodeList(e.largestResiduals) };
+    const status = measured <= o.maxRelativeEnergy ? 'pass' : 'fail';
+    return outcome(status, status === 'pass' ? messages.pass : messages.fail, values, measured, o.maxRelativeEnergy, details);
+  },
+};
