@@ -1,0 +1,265 @@
+/**
+ * Line-by-line parser of a Matrix Market file (see ./matrix-market-header.ts for the header
+ * rules). It takes lines from ./byte-lines.ts and keeps only typed arrays:
+ *
+ * - `triplets` mode (stiffness/mass): coordinate entries `i j a`, or the values of an array
+ *   file, go to preallocated (row, col, value) arrays, 0-based; zeros of array files are skipped.
+ * - `dense` mode (mode shapes): the values of an `array` file in column-major order.
+ *
+ * Every defect throws InputError(file, reason, { line }). Blank lines are allowed anywhere;
+ * `%` comments only before the size line.
+ */
+import { InputError } from './errors.js';
+import {
+  checkForStructuralMatrix, parseBanner, parseSizeLine, quoteText,
+  type MatrixMarketBanner, type MatrixMarketSize,
+} from './matrix-market-header.js';
+import {
+  scan, scanReal, scanUnsigned, skipBlanks, tokenText,
+  SCAN_NOT_INTEGER, SCAN_OK, SCAN_TOO_LARGE,
+} from './number-scan.js';
+import type { ByteSourceInfo } from './byte-lines.js';
+
+/** Deflate cannot expand data by more than about 1032:1 (RFC 1951 stored/length limits). */
+const GZIP_MAX_RATIO = 1032;
+/** Fewest bytes a coordinate entry line can take: "1 1 1\n". */
+const MIN_ENTRY_BYTES = 6;
+/** Fewest bytes of an array value line: "1\n". */
+const MIN_VALUE_BYTES = 2;
+/** Keys 2·row + flag must fit in an Int32. */
+const MAX_ORDER = 2 ** 30 - 1;
+const MAX_ENTRIES = 2 ** 31 - 1;
+
+export type ParseMode = 'triplets' | 'dense';
+
+/** Where in the file the parser is. */
+const State = { Banner: 0, Header: 1, Entries: 2 } as const;
+
+export class MatrixMarketLines {
+  banner: MatrixMarketBanner | undefined;
+  size: MatrixMarketSize | undefined;
+  /** Data lines read (coordinate entries or array values). */
+  count = 0;
+  /** Triplets (mode `triplets`), 0-based. */
+  rows = new Int32Array(0);
+  cols = new Int32Array(0);
+  vals = new Float64Array(0);
+  /** Triplets stored (array zeros are not stored). */
+  stored = 0;
+  /** Dense values, column-major (mode `dense`). */
+  dense = new Float64Array(0);
+  private state: number = State.Banner;
+  private n = 0;
+  private declared = 0;
+  private symmetric = false;
+  private integer = false;
+  /** Array files: position of the next value. */
+  private nextRow = 0;
+  private nextCol = 0;
+
+  constructor(
+    readonly file: string,
+    readonly mode: ParseMode,
+    readonly source: ByteSourceInfo,
+  ) {}
+
+  /** The LineCallback. */
+  readonly onLine = (buf: Buffer, start: number, end: number, line: number): void => {
+    if (this.state === State.Entries) {
+      if (this.banner!.format === 'coordinate') this.coordinateLine(buf, start, end, line);
+      else this.arrayLine(buf, start, end, line);
+    } else if (this.state === State.Banner) {
+      this.banner = parseBanner(this.file, buf.toString('latin1', start, end));
+      if (this.mode === 'triplets') checkForStructuralMatrix(this.file, this.banner);
+      else checkForDenseArray(this.file, this.banner);
+      this.symmetric = this.banner.symmetry === 'symmetric';
+      this.integer = this.banner.field === 'integer';
+      this.state = State.Header;
+    } else {
+      const p = skipBlanks(buf, start, end);
+      if (p === end || buf[p] === 37) return; // blank line or '%' comment
+      this.startEntries(buf.toString('latin1', start, end), line);
+    }
+  };
+
+  /** After the last line: the file must have held a header and every declared entry. */
+  finish(lastLine: number): void {
+    if (this.state === State.Banner) throw new InputError(this.file, 'the file is empty', { line: 1 });
+    if (this.state === State.Header) {
+      throw new InputError(this.file, 'the file ends before the size line', { line: Math.max(1, lastLine) });
+    }
+    if (this.count < this.declared) {
+      const what = this.banner!.format === 'coordinate' ? 'entries' : 'values';
+      throw new InputError(
+        this.file,
+        `the file ends after ${this.count} of the ${this.declared} ${what} declared on line ${this.size!.line}`,
+        { line: Math.max(1, lastLine) },
+      );
+    }
+  }
+
+  private startEntries(text: string, line: number): void {
+    const b = this.banner!;
+    const size = parseSizeLine(this.file, text, line, b.format);
+    if (this.mode === 'triplets' && size.rows !== size.cols) {
+      throw new InputError(this.file, `the matrix is ${size.rows} × ${size.cols}; a stiffness or mass matrix must be square`, { line });
+    }
+    if (size.rows === 0 || size.cols === 0) throw new InputError(this.file, `the matrix has no rows or no columns (${size.rows} × ${size.cols})`, { line });
+    if (b.symmetry === 'symmetric' && size.rows !== size.cols) {
+      throw new InputError(this.file, `a symmetric matrix must be square, but the size line says ${size.rows} × ${size.cols}`, { line });
+    }
+    if (size.rows > MAX_ORDER) throw new InputError(this.file, `${size.rows} rows is beyond what this tool handles (${MAX_ORDER})`, { line });
+    if (b.format === 'array' && b.symmetry === 'symmetric') size.entries = (size.rows * (size.rows + 1)) / 2;
+    this.checkPlausible(size, line);
+    this.size = size;
+    this.n = size.rows;
+    this.declared = size.entries;
+    this.allocate(size);
+    this.state = State.Entries;
+  }
+
+  /** A declared size must fit in the file: reject it before allocating anything. */
+  private checkPlausible(size: MatrixMarketSize, line: number): void {
+    const perEntry = this.banner!.format === 'coordinate' ? MIN_ENTRY_BYTES : MIN_VALUE_BYTES;
+    const maxText = this.source.gzip ? this.source.fileBytes * GZIP_MAX_RATIO : this.source.fileBytes;
+    const what = this.banner!.format === 'coordinate' ? 'entries' : 'values';
+    if (size.entries > MAX_ENTRIES) {
+      throw new InputError(this.file, `declares ${size.entries} ${what}, more than this tool handles (${MAX_ENTRIES})`, { line });
+    }
+    if (size.entries * perEntry > maxText) {
+      const held = this.source.gzip ? `even decompressed (at most ${GZIP_MAX_RATIO}:1) ` : '';
+      throw new InputError(
+        this.file,
+        `declares ${size.entries} ${what}, but a file of ${this.source.fileBytes} bytes ${held}can hold at most ` +
+          `${Math.floor(maxText / perEntry)} (each needs at least ${perEntry} bytes); the size line is wrong or the file is cut short`,
+        { line },
+      );
+    }
+  }
+
+  private allocate(size: MatrixMarketSize): void {
+    if (this.mode === 'dense') {
+      this.dense = new Float64Array(size.entries);
+      return;
+    }
+    // plain files: exactly the declared count; gzip: a generous guess, grown when needed
+    const cap = this.source.gzip ? Math.min(size.entries, Math.max(1 << 16, this.source.fileBytes)) : size.entries;
+    this.rows = new Int32Array(cap);
+    this.cols = new Int32Array(cap);
+    this.vals = new Float64Array(cap);
+  }
+
+  private grow(): void {
+    const cap = Math.min(this.declared, Math.max(16, this.rows.length * 2));
+    const r = new Int32Array(cap);
+    r.set(this.rows);
+    this.rows = r;
+    const c = new Int32Array(cap);
+    c.set(this.cols);
+    this.cols = c;
+    const v = new Float64Array(cap);
+    v.set(this.vals);
+    this.vals = v;
+  }
+
+  /** `i j a`: 1-based row and column, then the value. */
+  private coordinateLine(buf: Buffer, start: number, end: number, line: number): void {
+    let p = skipBlanks(buf, start, end);
+    if (p === end) return; // blank line
+    if (this.count === this.declared) {
+      throw new InputError(this.file, `more entries than the ${this.declared} declared on line ${this.size!.line}`, { line });
+    }
+    const i = this.index(buf, p, end, line, 'row');
+    p = skipBlanks(buf, scan.end, end);
+    if (p === end) throw new InputError(this.file, `the entry has only a row index; expected 'row column value'`, { line });
+    const j = this.index(buf, p, end, line, 'column');
+    p = skipBlanks(buf, scan.end, end);
+    if (p === end) throw new InputError(this.file, `the entry (${i}, ${j}) has no value; expected 'row column value'`, { line });
+    const v = this.value(buf, p, end, line);
+    if (this.symmetric && j > i) {
+      throw new InputError(
+        this.file,
+        `entry (${i}, ${j}) lies above the diagonal; a symmetric file stores only the lower triangle (row ≥ column)`,
+        { line },
+      );
+    }
+    if (this.stored === this.rows.length) this.grow();
+    const k = this.stored++;
+    this.rows[k] = i - 1;
+    this.cols[k] = j - 1;
+    this.vals[k] = v;
+    this.count++;
+  }
+
+  /** One value of an array file; its position follows from the count (column-major). */
+  private arrayLine(buf: Buffer, start: number, end: number, line: number): void {
+    const p = skipBlanks(buf, start, end);
+    if (p === end) return;
+    if (this.count === this.declared) {
+      throw new InputError(this.file, `more values than the ${this.declared} an array of this size holds`, { line });
+    }
+    const v = this.value(buf, p, end, line);
+    const i = this.nextRow;
+    const j = this.nextCol;
+    // advance down the column (symmetric arrays hold rows j..n−1 of column j)
+    if (++this.nextRow === this.size!.rows) {
+      this.nextCol++;
+      this.nextRow = this.symmetric ? this.nextCol : 0;
+    }
+    this.count++;
+    if (this.mode === 'dense') {
+      this.dense[i + j * this.size!.rows] = v;
+    } else if (v !== 0) {
+      const k = this.stored++;
+      this.rows[k] = i;
+      this.cols[k] = j;
+      this.vals[k] = v;
+    }
+  }
+
+  private index(buf: Buffer, p: number, end: number, line: number, which: string): number {
+    const v = scanUnsigned(buf, p, end);
+    if (scan.status === SCAN_OK && v >= 1 && v <= this.n) return v;
+    const text = tokenText(buf, p, end);
+    let why: string;
+    if (buf[p] === 45) why = `${which} index ${text} is negative; indices are 1-based`;
+    else if (scan.status === SCAN_OK && v === 0) why = `${which} index 0 is not allowed; indices are 1-based`;
+    else if (scan.status === SCAN_OK || scan.status === SCAN_TOO_LARGE) why = `${which} index ${text} is outside 1..${this.n}`;
+    else if (scan.status === SCAN_NOT_INTEGER) why = `${which} index '${text}' is not a whole number`;
+    else why = `expected 'row column value' but the ${which} index is '${text}'`;
+    throw new InputError(this.file, why, { line });
+  }
+
+  private value(buf: Buffer, p: number, end: number, line: number): number {
+    const v = scanReal(buf, p, end);
+    if (scan.status !== SCAN_OK) {
+      const text = tokenText(buf, p, end);
+      const why = /^[+-]?(inf|infinity|nan)$/i.test(text)
+        ? `value '${text}' is not a finite number`
+        : `value '${text}' is not a number`;
+      throw new InputError(this.file, why, { line });
+    }
+    if (v - v !== 0) {
+      throw new InputError(this.file, `value '${tokenText(buf, p, end)}' is too large for double precision (not finite)`, { line });
+    }
+    if (this.integer && scan.hadFraction) {
+      throw new InputError(this.file, `the banner says 'integer' but value '${tokenText(buf, p, end)}' is not a whole number`, { line });
+    }
+    const q = skipBlanks(buf, scan.end, end);
+    if (q !== end) {
+      throw new InputError(this.file, `unexpected text ${quoteText(buf.toString('latin1', q, end), 30)} after the value`, { line });
+    }
+    return v;
+  }
+}
+
+/** Mode shapes are dense real arrays. */
+function checkForDenseArray(file: string, b: MatrixMarketBanner): void {
+  if (b.format !== 'array' || (b.field !== 'real' && b.field !== 'integer') || b.symmetry !== 'general') {
+    throw new InputError(
+      file,
+      `a dense array file must be 'array real general'; this one is '${b.format} ${b.field} ${b.symmetry}'`,
+      { line: 1 },
+    );
+  }
+}

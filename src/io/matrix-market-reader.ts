@@ -1,0 +1,173 @@
+/**
+ * Read stiffness and mass matrices (and dense mode-shape arrays) from Matrix Market files,
+ * `.mtx` or gzip-compressed (detected by magic bytes), streaming: the text is never held
+ * whole, numbers are parsed straight from the bytes (bit-exact, see ./number-scan.ts).
+ *
+ * Policy for K and M (our choices, after the NIST format rules):
+ * - `coordinate` or `array`; `real` or `integer`; `general` or `symmetric`. `complex`,
+ *   `pattern`, `hermitian` and `skew-symmetric` are refused with the reason.
+ * - Duplicate entries are summed (the FE-assembly convention) and counted.
+ * - A `symmetric` file must hold only the lower triangle (row ≥ column).
+ * - A `general` file is accepted when numerically symmetric: max |a_ij − a_ji| / max|a| ≤
+ *   `asymmetryTolerance` (default 1e-10, our choice: far above round-off of exported
+ *   symmetric data ≈ 1e-16, far below any physical asymmetry); the stored entry is the mean.
+ * - Non-finite values are refused; so are declared sizes the file cannot possibly hold.
+ */
+import { InputError } from './errors.js';
+import { forEachLine, probeFile, type ByteSourceInfo } from './byte-lines.js';
+import { MatrixMarketLines } from './matrix-market-lines.js';
+import { scan, scanUnsigned, skipBlanks } from './number-scan.js';
+import { assembleSymmetricInPlace } from '../sparse/assemble.js';
+import type { SymmetricCsc } from '../sparse/csc.js';
+import { summarizeMatrix } from '../model/matrix-checks.js';
+import type { MatrixSummary } from '../model/matrix-summary.js';
+
+export const DEFAULT_ASYMMETRY_TOLERANCE = 1e-10;
+
+export interface MatrixReadOptions {
+  /** Largest accepted max |a_ij − a_ji| / max|a| for `general` files (default 1e-10). */
+  asymmetryTolerance?: number;
+  /** Cap of the DOF lists in the summary (default 20). */
+  listCap?: number;
+}
+
+export interface MatrixFile {
+  matrix: SymmetricCsc;
+  summary: MatrixSummary;
+  /** Line number of the size line (for messages about the whole matrix). */
+  sizeLine: number;
+}
+
+/** A stiffness or mass matrix as its lower-triangle CSC, with its screening summary. */
+export async function readMatrixMarket(path: string, options: MatrixReadOptions = {}): Promise<MatrixFile> {
+  const info = await probeFile(path);
+  const parser = new MatrixMarketLines(path, 'triplets', info);
+  const scanned = await forEachLine(path, parser.onLine, { info });
+  parser.finish(scanned.lines);
+  const banner = parser.banner!;
+  const size = parser.size!;
+  const general = banner.symmetry === 'general';
+  const { rows, cols, vals, stored } = parser;
+  parser.rows = parser.cols = new Int32Array(0);
+  parser.vals = new Float64Array(0);
+  const assembled = assembleSymmetricInPlace(size.rows, rows, cols, vals, stored, { compareMirrors: general });
+  let relative = 0;
+  const mirrors = assembled.mirrors;
+  if (mirrors && mirrors.maxAbsEntry > 0) relative = mirrors.maxAbsoluteAsymmetry / mirrors.maxAbsEntry;
+  const tolerance = options.asymmetryTolerance ?? DEFAULT_ASYMMETRY_TOLERANCE;
+  if (mirrors && relative > tolerance) await rejectAsymmetric(path, info, banner.format, mirrors, relative, tolerance);
+  const summary = summarizeMatrix(assembled.matrix, {
+    file: path,
+    format: banner.format,
+    field: banner.field,
+    symmetry: banner.symmetry,
+    entriesInFile: parser.count,
+    duplicatesSummed: assembled.duplicatesSummed,
+    maxRelativeAsymmetry: relative,
+    asymmetryRow: mirrors && mirrors.maxAbsoluteAsymmetry > 0 ? mirrors.worstRow : undefined,
+    asymmetryCol: mirrors && mirrors.maxAbsoluteAsymmetry > 0 ? mirrors.worstCol : undefined,
+    listCap: options.listCap,
+  });
+  if (summary.nonFiniteCount > 0) await rejectNonFiniteSum(path, info, banner.format, assembled.matrix);
+  return { matrix: assembled.matrix, summary, sizeLine: size.line };
+}
+
+/** Stiffness and mass of one model: both read, and of the same size. */
+export async function readStiffnessAndMass(
+  stiffnessPath: string,
+  massPath: string,
+  options: MatrixReadOptions = {},
+): Promise<{ stiffness: MatrixFile; mass: MatrixFile }> {
+  const stiffness = await readMatrixMarket(stiffnessPath, options);
+  const mass = await readMatrixMarket(massPath, options);
+  const n = stiffness.matrix.n;
+  const m = mass.matrix.n;
+  if (n !== m) {
+    throw new InputError(
+      massPath,
+      `the mass matrix is ${m} × ${m} but the stiffness matrix ${stiffnessPath} is ${n} × ${n}; they must be the same size`,
+      { line: mass.sizeLine },
+    );
+  }
+  return { stiffness, mass };
+}
+
+export interface DenseArray {
+  rows: number;
+  cols: number;
+  /** Column-major: entry (i, j) at values[i + j·rows]. */
+  values: Float64Array;
+}
+
+/** A dense `array real general` file (e.g. mode shapes, one column per mode). */
+export async function readDenseArray(path: string): Promise<DenseArray> {
+  const info = await probeFile(path);
+  const parser = new MatrixMarketLines(path, 'dense', info);
+  const scanned = await forEachLine(path, parser.onLine, { info });
+  parser.finish(scanned.lines);
+  return { rows: parser.size!.rows, cols: parser.size!.cols, values: parser.dense };
+}
+
+async function rejectAsymmetric(
+  path: string,
+  info: ByteSourceInfo,
+  format: string,
+  m: NonNullable<ReturnType<typeof assembleSymmetricInPlace>['mirrors']>,
+  relative: number,
+  tolerance: number,
+): Promise<never> {
+  const i = m.worstRow + 1;
+  const j = m.worstCol + 1;
+  const line = format === 'coordinate' ? await findEntryLine(path, info, i, j) : undefined;
+  throw new InputError(
+    path,
+    `the matrix is not symmetric: a(${i}, ${j}) = ${m.lowerValue} but a(${j}, ${i}) = ${m.upperValue}; ` +
+      `|difference| / max|a| = ${relative.toExponential(2)} exceeds the tolerance ${tolerance}`,
+    { line },
+  );
+}
+
+async function rejectNonFiniteSum(path: string, info: ByteSourceInfo, format: string, a: SymmetricCsc): Promise<never> {
+  let i = 0, j = 0;
+  // first stored entry that is not finite
+  search: for (j = 0; j < a.n; j++) {
+    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) {
+      if (a.values[p] - a.values[p] !== 0) {
+        i = a.rowIdx[p];
+        break search;
+      }
+    }
+  }
+  const line = format === 'coordinate' ? await findEntryLine(path, info, i + 1, j + 1) : undefined;
+  throw new InputError(path, `duplicate entries at (${i + 1}, ${j + 1}) sum to a value that is not finite`, { line });
+}
+
+/**
+ * Line of the first coordinate entry at (i, j) or (j, i), 1-based; a second pass over the
+ * file, used only to point at the line of an error found after reading.
+ */
+export async function findEntryLine(path: string, info: ByteSourceInfo, i: number, j: number): Promise<number | undefined> {
+  let found: number | undefined;
+  let inData = false;
+  await forEachLine(
+    path,
+    (buf, start, end, line) => {
+      let p = skipBlanks(buf, start, end);
+      if (p === end || buf[p] === 37) return true;
+      if (!inData) {
+        inData = true; // the size line
+        return true;
+      }
+      const r = scanUnsigned(buf, p, end);
+      p = skipBlanks(buf, scan.end, end);
+      const c = scanUnsigned(buf, p, end);
+      if ((r === i && c === j) || (r === j && c === i)) {
+        found = line;
+        return false;
+      }
+      return true;
+    },
+    { info },
+  );
+  return found;
+}
