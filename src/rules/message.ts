@@ -17,7 +17,7 @@ export function formatMessage(template: string, values: Record<string, unknown>)
 export function formatNumber(x: number): string {
   if (!Number.isFinite(x)) return String(x);
   if (x === 0) return '0';
-  if (Number.isInteger(x) && Math.abs(x) < 1e15) return String(x);
+  if (Number.isInteger(x) && Math.abs(x) < 1e6) return String(x);
   const a = Math.abs(x);
   if (a < 1e-3 || a >= 1e6) return x.toExponential(2).replace('e+', 'e');
   return String(Number(x.toPrecision(4)));
