@@ -21,6 +21,8 @@ export interface SturmCheck {
   countBelow: number;
   modesReturned: number;
   ok: boolean;
+  /** Added by the eigen layer: e.g. that λ_N and λ_{N+1} coincide. */
+  note?: string;
 }
 
 export interface OrthogonalityCheck {
@@ -50,6 +52,10 @@ export interface ModesResult {
   factor: FactorDiagnostics;
   /** Problems the solver noticed but could work past (a shift moved, a slow convergence). */
   warnings: string[];
+  /** Added by the eigen layer: right-hand sides solved with a factor over the whole solve. */
+  solves?: number;
+  /** Added by the eigen layer: n minus the massless DOFs (an upper bound of rank(M)). */
+  rankMassBound?: number;
 }
 
 export function frequencyHzFromEigenvalue(lambda: number): number {

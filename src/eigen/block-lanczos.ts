@@ -1,0 +1,350 @@
+/**
+ * Shift-inverted block Lanczos in the M-inner product (Ericsson & Ruhe 1980; Grimes, Lewis &
+ * Simon 1994) with full reorthogonalization and thick restarts.
+ *
+ * With C = (K − σM)⁻¹M (self-adjoint in ⟨x, y⟩_M) and an M-orthonormal basis V = [Q₁ … Q_j],
+ *
+ *     C V = V T + Q_{j+1} R_j E_jᵀ,     T = Vᵀ M C V  (block tridiagonal in exact arithmetic),
+ *
+ * each step solves one block (b right-hand sides, one pass over the factor), projects the
+ * result against the whole basis and the locked vectors twice (m-orthonormalize.ts), and
+ * stores the projections as the new block column of T. A Ritz pair (θ, V s) of T has the
+ * residual estimate ‖C y − θ y‖_M = ‖R_j s_last‖ (Templates §5.5), and λ = σ + 1/θ.
+ *
+ * At the end of a cycle (basis full, or all wanted pairs' estimates small) the Ritz vectors
+ * nearest σ get a Rayleigh–Ritz pass with K itself (rayleigh-ritz.ts) — true residuals, and
+ * eigenvalues free of the 1/θ conditioning — and those that meet the tolerance are locked.
+ * The rest are kept: V ← V S_keep, T ← S_keepᵀ T S_keep, coupling R_j (S_keep)_last, and the
+ * iteration continues from Q_{j+1} (thick restart). The block size b ≥ 6 catches the six-fold
+ * rigid-body eigenvalue of a free-free model and repeated pairs in one block; the basis is
+ * capped by rank(M) because the M-inner-product Krylov space cannot be larger.
+ */
+import { symmetricEigen } from '../dense/symmetric-eigen.js';
+import { mOrthonormalize, type MassBasis } from './m-orthonormalize.js';
+import { rayleighRitz } from './rayleigh-ritz.js';
+import type { EigenSearch, EigenSearchResult } from './search-types.js';
+import { LockedSet } from './locked-set.js';
+import { currentEstimates, nearestFirst, relativeResiduals } from './subspace-iteration.js';
+import { blockTimes, columns, crossProduct, randomBlock } from './thin-block.js';
+
+/** Default block size: six rigid-body modes of a free-free model share one eigenvalue. */
+export const DEFAULT_BLOCK_SIZE = 6;
+
+interface Cycle {
+  /** Basis V (n×size) and MV, with room for `capacity` columns. */
+  v: Float64Array;
+  mv: Float64Array;
+  size: number;
+  capacity: number;
+  /** T = VᵀMCV, capacity×capacity column-major (only [0,size) is meaningful). */
+  t: Float64Array;
+  /** Current block Q_j (not yet in V) and its M-image, with its coupling to V. */
+  q: Float64Array;
+  mq: Float64Array;
+  qCount: number;
+  /** Coupling rows T[Q, V] = R (S_last), qCount×size. */
+  coupling: Float64Array;
+}
+
+export function blockLanczos(search: EigenSearch): EigenSearchResult {
+  const op = search.operator;
+  const n = op.n;
+  const sigma = op.shift;
+  const p = Math.min(search.count, search.maxBasis);
+  const b = Math.max(1, Math.min(search.blockSize ?? DEFAULT_BLOCK_SIZE, search.maxBasis));
+  const maxCycles = search.maxIterations ?? 60;
+  const locked = new LockedSet(n);
+  const warnings: string[] = [];
+  const capacityFor = () => Math.min(Math.max(3 * p, p + 4 * b, 6 * b), search.maxBasis - locked.count);
+  let cycle = newCycle(n, capacityFor(), op.massTimes, startVectors(search, b), op.apply, []);
+  let cycles = 0;
+  let stagnated = 0;
+  let abandoned = false;
+  let extraValues: number[] = [];
+  let extraVectors = new Float64Array(0);
+  while (locked.count < p && cycles < maxCycles) {
+    cycles++;
+    const lastBlock = extend(cycle, locked, op, p - locked.count, search.tolerance);
+    const wanted = p - locked.count;
+    const { theta, s } = ritzOfT(cycle);
+    const order = orderByMagnitude(theta);
+    const candidates = order.slice(0, Math.min(order.length, wanted + b));
+    const sc = pickColumns(s, cycle.size, candidates);
+    // K-based Rayleigh–Ritz on the candidate Ritz vectors Y = V S_c
+    const y = blockTimes(cycle.v, cycle.size, sc, candidates.length, n);
+    const my = blockTimes(cycle.mv, cycle.size, sc, candidates.length, n);
+    const ritz = rayleighRitz({ vectors: y, massVectors: my, count: candidates.length }, n, op.stiffnessTimes);
+    const residuals = relativeResiduals(ritz, search.stiffnessNorm, n);
+    const g = ritzRotation(y, ritz.vectors, my, candidates.length, n);
+    const sz = blockTimes(sc, candidates.length, g, candidates.length, cycle.size);
+    const estimates = residualEstimates(cycle, lastBlock, sz, candidates.length);
+    const zOrder = nearestFirst(ritz.values, sigma);
+    const lockedNow: number[] = [];
+    // lock, nearest σ first, every leading pair that converged (or stalled at rounding level)
+    for (const i of zOrder.slice(0, wanted)) {
+      const theta = 1 / (ritz.values[i] - sigma);
+      const estimate = estimates[i] / Math.abs(theta);
+      const ok = residuals[i] <= search.tolerance || (residuals[i] <= 1e-7 && estimate <= 1e-14);
+      if (!ok) break;
+      lockedNow.push(i);
+    }
+    if (lockedNow.length === 0) stagnated++;
+    else stagnated = 0;
+    for (const i of lockedNow) locked.add(ritz, i, residuals[i]);
+    const unlocked = zOrder.filter((i) => !lockedNow.includes(i));
+    extraValues = unlocked.map((i) => ritz.values[i]);
+    extraVectors = new Float64Array(n * unlocked.length);
+    unlocked.forEach((i, t) => extraVectors.set(ritz.vectors.subarray(i * n, (i + 1) * n), t * n));
+    if (search.checkpoint && !search.checkpoint(currentEstimates(locked, extraValues))) {
+      abandoned = true;
+      break;
+    }
+    search.onProgress?.(`block Lanczos cycle ${cycles}: ${locked.count} of ${p} modes converged`);
+    if (locked.count >= p) break;
+    const keepZ = zOrder.filter((i) => !lockedNow.includes(i));
+    const others = order.slice(candidates.length);
+    const restartCapacity = capacityFor();
+    const keepCount = Math.max(0, Math.min(keepZ.length + others.length, restartCapacity - 2 * b, wanted + b));
+    const sKeep = keepColumns(sz, keepZ, s, others, cycle.size, keepCount);
+    cycle = restart(cycle, sKeep, keepCount, lastBlock, restartCapacity, n, op, locked, search, cycles);
+    if (cycle.size === 0 && cycle.qCount === 0) break;
+  }
+  const converged = locked.count >= p;
+  if (!converged) warnings.push(`block Lanczos stopped after ${cycles} cycles with ${locked.count} of ${p} modes converged`);
+  if (stagnated > 0 && !converged) warnings.push('block Lanczos made no progress in its last cycles');
+  return { ...locked.result(p), iterations: cycles, converged, warnings, abandoned, ...locked.estimates(extraValues, extraVectors, extraValues.length) };
+}
+
+function startVectors(search: EigenSearch, b: number): Float64Array {
+  const n = search.operator.n;
+  const x = randomBlock(n, b, 0x1a2c5);
+  if (search.start && search.startCount) {
+    const k = Math.min(search.startCount, b);
+    x.set(columns(search.start, n, 0, k), 0);
+  }
+  return x;
+}
+
+/** A cycle whose first block is the M-orthonormal basis of C X (so it lies in range(C)). */
+function newCycle(
+  n: number,
+  capacity: number,
+  massTimes: (x: Float64Array, k: number) => Float64Array,
+  x: Float64Array,
+  apply: (x: Float64Array, k: number) => Float64Array,
+  against: MassBasis[],
+): Cycle {
+  const k = x.length / n;
+  const first = mOrthonormalize(apply(x, k), k, n, massTimes, { against });
+  const cap = Math.max(capacity, 1);
+  return {
+    v: new Float64Array(n * cap),
+    mv: new Float64Array(n * cap),
+    size: 0,
+    capacity: cap,
+    t: new Float64Array(cap * cap),
+    q: first.vectors,
+    mq: first.massVectors,
+    qCount: Math.min(first.count, cap),
+    coupling: new Float64Array(0),
+  };
+}
+
+interface LastBlock {
+  /** R (r×bLast) coupling the next block to the last block of V, and where that block sits. */
+  r: Float64Array;
+  rows: number;
+  from: number;
+  width: number;
+}
+
+/** Grow V block by block until full or until the wanted Ritz estimates are small. */
+function extend(cycle: Cycle, locked: LockedSet, op: EigenSearch['operator'], wanted: number, tolerance: number): LastBlock {
+  const n = op.n;
+  let last: LastBlock = { r: cycle.coupling, rows: cycle.qCount, from: 0, width: 0 };
+  while (cycle.qCount > 0 && cycle.size + cycle.qCount <= cycle.capacity) {
+    const from = cycle.size;
+    const width = cycle.qCount;
+    appendBlock(cycle, n);
+    // W = C Q_j, then its projections onto [locked, V] and the next block
+    const w = op.apply(cycle.q, width);
+    const basis: MassBasis = { vectors: cycle.v.subarray(0, cycle.size * n), massVectors: cycle.mv.subarray(0, cycle.size * n), count: cycle.size };
+    const against = locked.count > 0 ? [locked.basis(), basis] : [basis];
+    const next = mOrthonormalize(w, width, n, op.massTimes, { against });
+    const h = next.projections[against.length - 1];
+    // T[0:size, from:from+width] = H and its mirror
+    setBlock(cycle, h, 0, cycle.size, from, width);
+    cycle.q = next.vectors;
+    cycle.mq = next.massVectors;
+    cycle.qCount = next.count;
+    last = { r: next.coefficients, rows: next.count, from, width };
+    if (estimatesSmall(cycle, last, wanted, tolerance)) break;
+  }
+  return last;
+}
+
+/** Move the current block Q into V; its coupling rows become T entries. */
+function appendBlock(cycle: Cycle, n: number): void {
+  const from = cycle.size;
+  const k = cycle.qCount;
+  cycle.v.set(cycle.q.subarray(0, k * n), from * n);
+  cycle.mv.set(cycle.mq.subarray(0, k * n), from * n);
+  if (cycle.coupling.length > 0 && from > 0) {
+    // T[from:from+k, 0:from] = coupling, mirrored
+    const c = cycle.capacity;
+    for (let j = 0; j < from; j++) {
+      for (let i = 0; i < k; i++) {
+        const v = cycle.coupling[i + j * k];
+        cycle.t[from + i + j * c] = v;
+        cycle.t[j + (from + i) * c] = v;
+      }
+    }
+  }
+  cycle.size += k;
+  cycle.coupling = new Float64Array(0);
+}
+
+/** Write H (rows×width) into T at (row0, col0) and its transpose at (col0, row0). */
+function setBlock(cycle: Cycle, h: Float64Array, row0: number, rows: number, col0: number, width: number): void {
+  const c = cycle.capacity;
+  // T[row0+i, col0+j] = T[col0+j, row0+i] = h_ij
+  for (let j = 0; j < width; j++) {
+    for (let i = 0; i < rows; i++) {
+      const v = h[i + j * rows];
+      cycle.t[row0 + i + (col0 + j) * c] = v;
+      cycle.t[col0 + j + (row0 + i) * c] = v;
+    }
+  }
+}
+
+function packedT(cycle: Cycle): Float64Array {
+  const m = cycle.size;
+  const c = cycle.capacity;
+  const t = new Float64Array(m * m);
+  // leading m×m of T, symmetrized
+  for (let j = 0; j < m; j++) {
+    for (let i = 0; i < m; i++) t[i + j * m] = 0.5 * (cycle.t[i + j * c] + cycle.t[j + i * c]);
+  }
+  return t;
+}
+
+function ritzOfT(cycle: Cycle): { theta: Float64Array; s: Float64Array } {
+  const { values, vectors } = symmetricEigen(packedT(cycle), cycle.size);
+  return { theta: values, s: vectors };
+}
+
+/** Indices by descending |θ| (nearest σ first). */
+function orderByMagnitude(theta: Float64Array): number[] {
+  return Array.from(theta, (_v, i) => i).sort((a, b) => Math.abs(theta[b]) - Math.abs(theta[a]));
+}
+
+/** ‖R s_last‖ for each column s of S (size×k): the M-norm of C y − θ y. */
+function residualEstimates(cycle: Cycle, last: LastBlock, s: Float64Array, k: number): Float64Array {
+  const m = cycle.size;
+  const out = new Float64Array(k);
+  if (last.rows === 0 || last.width === 0) return out;
+  // e_i = ‖R · S[from:from+width, i]‖₂
+  for (let col = 0; col < k; col++) {
+    let sum = 0;
+    for (let r = 0; r < last.rows; r++) {
+      let v = 0;
+      for (let t = 0; t < last.width; t++) v += last.r[r + t * last.rows] * s[last.from + t + col * m];
+      sum += v * v;
+    }
+    out[col] = Math.sqrt(sum);
+  }
+  return out;
+}
+
+function estimatesSmall(cycle: Cycle, last: LastBlock, wanted: number, tolerance: number): boolean {
+  if (cycle.size < wanted) return false;
+  const { theta, s } = ritzOfT(cycle);
+  const order = orderByMagnitude(theta).slice(0, wanted);
+  const sw = pickColumns(s, cycle.size, order);
+  const est = residualEstimates(cycle, last, sw, order.length);
+  // every wanted pair's ‖Cy − θy‖_M / |θ| at tolerance
+  return order.every((i, t) => est[t] <= tolerance * 1e-2 * Math.abs(theta[i]));
+}
+
+function pickColumns(s: Float64Array, m: number, which: number[]): Float64Array {
+  const out = new Float64Array(m * which.length);
+  which.forEach((j, t) => out.set(s.subarray(j * m, (j + 1) * m), t * m));
+  return out;
+}
+
+/** G with Z = Y G: both M-orthonormal, so G = Yᵀ M Z = (MY)ᵀ Z. */
+function ritzRotation(y: Float64Array, z: Float64Array, my: Float64Array, k: number, n: number): Float64Array {
+  const g = new Float64Array(k * k);
+  // g_ij = (M y_i)ᵀ z_j
+  for (let j = 0; j < k; j++) {
+    for (let i = 0; i < k; i++) {
+      let sum = 0;
+      for (let r = 0; r < n; r++) sum += my[i * n + r] * z[j * n + r];
+      g[i + j * k] = sum;
+    }
+  }
+  return g;
+}
+
+/** [S_z(keepZ), S(others)] truncated to keepCount columns (orthonormal coefficient vectors). */
+function keepColumns(sz: Float64Array, keepZ: number[], s: Float64Array, others: number[], m: number, keepCount: number): Float64Array {
+  const out = new Float64Array(m * keepCount);
+  let t = 0;
+  for (const i of keepZ) if (t < keepCount) out.set(sz.subarray(i * m, (i + 1) * m), m * t++);
+  for (const i of others) if (t < keepCount) out.set(s.subarray(i * m, (i + 1) * m), m * t++);
+  return out;
+}
+
+/** Thick restart: V ← V S_keep, T ← S_keepᵀ T S_keep, coupling R (S_keep)_last; continue from Q. */
+function restart(
+  cycle: Cycle,
+  sKeep: Float64Array,
+  keep: number,
+  last: LastBlock,
+  capacity: number,
+  n: number,
+  op: EigenSearch['operator'],
+  locked: LockedSet,
+  search: EigenSearch,
+  cycles: number,
+): Cycle {
+  const m = cycle.size;
+  const cap = Math.max(capacity, keep + 1);
+  const v = new Float64Array(n * cap);
+  const mv = new Float64Array(n * cap);
+  v.set(blockTimes(cycle.v, m, sKeep, keep, n));
+  mv.set(blockTimes(cycle.mv, m, sKeep, keep, n));
+  const tm = packedT(cycle);
+  const tk = crossProduct(sKeep, keep, blockTimes(tm, m, sKeep, keep, m), keep, m);
+  const t = new Float64Array(cap * cap);
+  // T' = S_keepᵀ T S_keep in the leading keep×keep corner
+  for (let j = 0; j < keep; j++) for (let i = 0; i < keep; i++) t[i + j * cap] = tk[i + j * keep];
+  const next: Cycle = { v, mv, size: keep, capacity: cap, t, q: cycle.q, mq: cycle.mq, qCount: cycle.qCount, coupling: new Float64Array(0) };
+  if (cycle.qCount > 0 && last.width > 0) {
+    // coupling of the next block: R · S_keep[from:from+width, :]
+    const c = new Float64Array(cycle.qCount * keep);
+    for (let j = 0; j < keep; j++) {
+      for (let r = 0; r < cycle.qCount; r++) {
+        let sum = 0;
+        for (let s = 0; s < last.width; s++) sum += last.r[r + s * last.rows] * sKeep[last.from + s + j * m];
+        c[r + j * cycle.qCount] = sum;
+      }
+    }
+    next.coupling = c;
+  }
+  if (next.qCount === 0) refill(next, n, op, locked, search, cycles);
+  return next;
+}
+
+/** The Krylov space closed (invariant subspace): continue with fresh vectors M-orthogonal to all. */
+function refill(cycle: Cycle, n: number, op: EigenSearch['operator'], locked: LockedSet, search: EigenSearch, seed: number): void {
+  const b = Math.max(1, Math.min(search.blockSize ?? DEFAULT_BLOCK_SIZE, cycle.capacity - cycle.size));
+  if (cycle.capacity - cycle.size <= 0) return;
+  const basis: MassBasis = { vectors: cycle.v.subarray(0, cycle.size * n), massVectors: cycle.mv.subarray(0, cycle.size * n), count: cycle.size };
+  const against = [...(locked.count > 0 ? [locked.basis()] : []), ...(cycle.size > 0 ? [basis] : [])];
+  const fresh = mOrthonormalize(op.apply(randomBlock(n, b, 0x77 + seed), b), b, n, op.massTimes, { against });
+  cycle.q = fresh.vectors;
+  cycle.mq = fresh.massVectors;
+  cycle.qCount = fresh.count;
+  cycle.coupling = new Float64Array(0);
+}

@@ -1,0 +1,150 @@
+/**
+ * M-orthonormalization of a thin block: given X (n×k) and already M-orthonormal blocks L
+ * (locked vectors, an earlier Krylov basis), find Q with
+ *
+ *     QᵀMQ = I,   LᵀMQ = 0,   X = L P + Q R,
+ *
+ * dropping the directions of X that are (numerically) inside span(L) or in the null space of M.
+ *
+ * Each pass: project out L (X ← X − L (ML)ᵀX), then "SVQB" (Stathopoulos & Wu 2002): with
+ * G = XᵀMX and D = diag(G)^(−1/2), the scaled Gram matrix D G D = U Θ Uᵀ gives
+ * Q = X D U Θ^(−1/2) and R = Θ^(1/2) Uᵀ D⁻¹; eigenvalues θ below a tolerance mark dependent
+ * directions and are dropped. Two passes ("twice is enough", Kahan–Parlett) bring
+ * ‖QᵀMQ − I‖ and ‖LᵀMQ‖ to rounding level.
+ *
+ * The symmetric eigenproblem of G comes from src/dense (QR algorithm); M products come from
+ * the caller so the cost is counted where it belongs.
+ */
+import { symmetricEigen } from '../dense/symmetric-eigen.js';
+import { blockTimes, crossProduct, subtractBlockTimes } from './thin-block.js';
+
+/** An M-orthonormal block and its M-image MQ. */
+export interface MassBasis {
+  vectors: Float64Array;
+  massVectors: Float64Array;
+  count: number;
+}
+
+export interface MOrthonormalized extends MassBasis {
+  /** R (count×k, column-major): the input's coefficients in the new basis. */
+  coefficients: Float64Array;
+  /** Per `against` block B_i: Pᵢ = B_iᵀ M X (|B_i|×k), so X = Σ B_i P_i + Q R. */
+  projections: Float64Array[];
+}
+
+export interface MOrthonormalizeOptions {
+  /** Blocks to stay M-orthogonal to (each already M-orthonormal). */
+  against?: MassBasis[];
+  /** Relative eigenvalue of the scaled Gram matrix below which a direction is dropped (default 1e-12, our choice). */
+  dropTolerance?: number;
+  /** Relative M-norm² left after projecting out `against` below which a column is dead (default 1e-20, our choice). */
+  deadTolerance?: number;
+}
+
+interface PassResult {
+  q: Float64Array;
+  mq: Float64Array;
+  r: Float64Array;
+  count: number;
+  projections: Float64Array[];
+}
+
+/** Q with QᵀMQ = I spanning the part of X not in span(against), see the module comment. */
+export function mOrthonormalize(
+  x: Float64Array,
+  k: number,
+  n: number,
+  massTimes: (x: Float64Array, k: number) => Float64Array,
+  options: MOrthonormalizeOptions = {},
+): MOrthonormalized {
+  const against = options.against ?? [];
+  const first = onePass(x, massTimes(x, k), k, n, against, options);
+  if (first.count === 0) return finish(first, first, k, against);
+  const second = onePass(first.q, massTimes(first.q, first.count), first.count, n, against, options);
+  return finish(first, second, k, against);
+}
+
+/** Combine two passes: X = B P₁ + Q₁R₁ and Q₁ = B P₂ + Q₂R₂ give R = R₂R₁, P = P₁ + P₂R₁. */
+function finish(first: PassResult, second: PassResult, k: number, against: MassBasis[]): MOrthonormalized {
+  if (second === first) {
+    return { vectors: first.q, massVectors: first.mq, count: first.count, coefficients: first.r, projections: first.projections };
+  }
+  const r = blockTimes(second.r, first.count, first.r, k, second.count);
+  const projections = against.map((b, i) => {
+    const p = first.projections[i].slice();
+    const p2r1 = blockTimes(second.projections[i], first.count, first.r, k, b.count);
+    // P = P₁ + P₂ R₁
+    for (let t = 0; t < p.length; t++) p[t] += p2r1[t];
+    return p;
+  });
+  return { vectors: second.q, massVectors: second.mq, count: second.count, coefficients: r, projections };
+}
+
+function onePass(
+  x0: Float64Array,
+  mx0: Float64Array,
+  k: number,
+  n: number,
+  against: MassBasis[],
+  options: MOrthonormalizeOptions,
+): PassResult {
+  const dropTolerance = options.dropTolerance ?? 1e-12;
+  const deadTolerance = options.deadTolerance ?? 1e-20;
+  const x = x0.slice();
+  const mx = mx0.slice();
+  const before = new Float64Array(k);
+  // M-norm² of each column before projection
+  for (let j = 0; j < k; j++) before[j] = columnDot(x, mx, n, j);
+  const projections: Float64Array[] = [];
+  // X ← X − B (MB)ᵀX for every block B to stay orthogonal to; MX alike
+  for (const b of against) {
+    const p = crossProduct(b.massVectors, b.count, x, k, n);
+    subtractBlockTimes(x, b.vectors, b.count, p, k, n);
+    subtractBlockTimes(mx, b.massVectors, b.count, p, k, n);
+    projections.push(p);
+  }
+  const g = crossProduct(x, k, mx, k, n);
+  const scale = new Float64Array(k);
+  let maxBefore = 0;
+  for (let j = 0; j < k; j++) maxBefore = Math.max(maxBefore, before[j]);
+  // D = diag(G)^(−1/2), zero for dead columns (inside span(B), or M-null)
+  for (let j = 0; j < k; j++) {
+    const gjj = g[j + j * k];
+    const dead = !(gjj > deadTolerance * before[j]) || !(gjj > deadTolerance * maxBefore) || !(before[j] > 0);
+    scale[j] = dead ? 0 : 1 / Math.sqrt(gjj);
+  }
+  const scaled = new Float64Array(k * k);
+  // Ĝ = D G D, symmetrized
+  for (let j = 0; j < k; j++) {
+    for (let i = 0; i < k; i++) {
+      scaled[i + j * k] = 0.5 * (g[i + j * k] + g[j + i * k]) * scale[i] * scale[j];
+    }
+  }
+  const { values, vectors } = symmetricEigen(scaled, k);
+  let thetaMax = 0;
+  for (let j = 0; j < k; j++) thetaMax = Math.max(thetaMax, values[j]);
+  const keep: number[] = [];
+  // keep the eigen-directions of Ĝ that are well above rounding, largest first
+  for (let j = k - 1; j >= 0; j--) if (values[j] > dropTolerance * thetaMax && thetaMax > 0) keep.push(j);
+  const r = keep.length;
+  const s = new Float64Array(k * r);
+  const coefficients = new Float64Array(r * k);
+  // S = D U Θ^(−1/2) (k×r) and R = Θ^(1/2) Uᵀ D⁻¹ (r×k)
+  for (let c = 0; c < r; c++) {
+    const j = keep[c];
+    const sq = Math.sqrt(values[j]);
+    for (let i = 0; i < k; i++) {
+      const u = vectors[i + j * k];
+      s[i + c * k] = (scale[i] * u) / sq;
+      coefficients[c + i * r] = scale[i] > 0 ? (sq * u) / scale[i] : 0;
+    }
+  }
+  return { q: blockTimes(x, k, s, r, n), mq: blockTimes(mx, k, s, r, n), r: coefficients, count: r, projections };
+}
+
+function columnDot(x: Float64Array, y: Float64Array, n: number, j: number): number {
+  let s = 0;
+  // x_jᵀ y_j
+  for (let r = j * n; r < (j + 1) * n; r++) s += x[r] * y[r];
+  return s;
+}

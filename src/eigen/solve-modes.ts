@@ -1,0 +1,301 @@
+/**
+ * Front door of the eigen layer: the lowest N modes of K φ = λ M φ, or every mode below a
+ * frequency cutoff, with the verification of verification.ts attached.
+ *
+ *   1. count (cutoff mode): N = negative pivots of LDLᵀ(K − σ_c M), σ_c = (2π f_max)²;
+ *   2. shift: σ₁ from the diagonal (shift-placement.ts); a first pass that shows σ₁ badly
+ *      placed is abandoned and the solve restarts at σ₂ = −0.01 λ_e from its Ritz vectors;
+ *   3. solve with block Lanczos or subspace iteration on (K − σM)⁻¹M;
+ *   4. polish: with massless DOFs purify Φ ← (K − σM)⁻¹MΦ (removes null(M) components,
+ *      CRITERIA.md §8); then M-orthonormalize and a final Rayleigh–Ritz with K;
+ *   5. verify: Sturm count in the gap after λ_N (or at the cutoff), residuals, orthogonality.
+ *
+ * Whenever a shift meets a tiny pivot (it sits on an eigenvalue, or K − σM is singular) it is
+ * moved and a warning says so.
+ */
+import { createShiftedSolver } from '../sparse/shifted-solver.js';
+import type { SymmetricCsc } from '../sparse/csc.js';
+import type { ShiftedFactor, ShiftedSolver } from '../sparse/factor-types.js';
+import { frequencyHzFromEigenvalue, eigenvalueFromFrequencyHz, type ModesRequest, type ModesResult, type SturmCheck } from './modes-types.js';
+import { createShiftInvertOperator, massRankBound, type ShiftInvertOperator } from './shift-invert-operator.js';
+import { blockLanczos } from './block-lanczos.js';
+import { subspaceIteration } from './subspace-iteration.js';
+import { mOrthonormalize } from './m-orthonormalize.js';
+import { rayleighRitz } from './rayleigh-ritz.js';
+import { checkShapes, placeSturmShift } from './verification.js';
+import { diagonalScale, firstShiftGuess, judgeShift, type DiagonalScale } from './shift-placement.js';
+import type { EigenSearch, EigenSearchResult } from './search-types.js';
+
+/** The method used when the request names none (block Lanczos: fewer solves in test/bench/modes-bench.ts). */
+export const DEFAULT_METHOD: 'lanczos' | 'subspace' = 'lanczos';
+export const DEFAULT_TOLERANCE = 1e-12;
+
+interface Clock {
+  factorMs: number;
+  iterateMs: number;
+  verifyMs: number;
+}
+
+export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request: ModesRequest): ModesResult {
+  const start = performance.now();
+  const n = stiffness.n;
+  if (mass.n !== n) throw new RangeError(`stiffness is ${n}×${n} but mass is ${mass.n}×${mass.n}`);
+  if (request.count === undefined && request.maxHz === undefined) throw new RangeError('ask for a mode count or a cutoff frequency');
+  const method = request.method ?? DEFAULT_METHOD;
+  const warnings: string[] = [];
+  const clock: Clock = { factorMs: 0, iterateMs: 0, verifyMs: 0 };
+  const shifts: number[] = [];
+  const solver = createShiftedSolver(stiffness, mass, { coordinates: request.coordinates });
+  const scale = diagonalScale(stiffness, mass);
+  const stiffnessNorm = oneNorm(stiffness);
+  const rankM = massRankBound(mass);
+  const factorAt = (sigma: number) => factorWithMove(solver, sigma, scale, warnings, shifts, clock);
+
+  let cutoff: { factor: ShiftedFactor; count: number } | undefined;
+  let wanted = request.count ?? 0;
+  if (request.maxHz !== undefined) {
+    const f = factorAt(eigenvalueFromFrequencyHz(request.maxHz));
+    cutoff = { factor: f, count: f.inertia.negative };
+    wanted = f.inertia.negative;
+  }
+  if (wanted > rankM) {
+    warnings.push(`asked for ${wanted} modes but M has rank at most ${rankM} (massless DOFs): only ${rankM} finite eigenvalues exist`);
+    wanted = rankM;
+  }
+  if (wanted === 0) {
+    return emptyResult(n, method, cutoff, shifts, warnings, clock, start, solver);
+  }
+  const solved = solveAtGoodShift(stiffness, mass, solver, factorAt, scale, stiffnessNorm, rankM, wanted, method, request, warnings, clock);
+  const t0 = performance.now();
+  const factorBefore = clock.factorMs;
+  const checks = checkShapes(stiffness, mass, solved.values, solved.vectors, stiffnessNorm);
+  const sturm = cutoff
+    ? cutoffSturm(cutoff.factor, solved.values, warnings)
+    : gapSturm(solved, factorAt, warnings);
+  clock.verifyMs += performance.now() - t0 - (clock.factorMs - factorBefore);
+  if (!solved.converged) warnings.push(...solved.warnings);
+  else warnings.push(...solved.warnings.filter((w) => !w.includes('stopped')));
+  const worst = Math.max(0, ...Array.from(checks.residuals));
+  if (worst > 1e-8) warnings.push(`largest relative residual ${worst.toExponential(2)} is above 1e-8`);
+  return {
+    n,
+    eigenvalues: solved.values,
+    frequenciesHz: Float64Array.from(solved.values, frequencyHzFromEigenvalue),
+    shapes: solved.vectors,
+    residuals: checks.residuals,
+    sturm,
+    orthogonality: checks.orthogonality,
+    method,
+    shifts,
+    iterations: solved.iterations,
+    timings: { totalMs: performance.now() - start, factorMs: clock.factorMs, iterateMs: clock.iterateMs, verifyMs: Math.max(0, clock.verifyMs) },
+    factor: solved.factor.diagnostics,
+    warnings,
+    solves: solved.solves,
+    rankMassBound: rankM,
+  };
+}
+
+interface Solved {
+  values: Float64Array;
+  vectors: Float64Array;
+  beyond: number[];
+  iterations: number;
+  converged: boolean;
+  warnings: string[];
+  factor: ShiftedFactor;
+  solves: number;
+}
+
+function solveAtGoodShift(
+  stiffness: SymmetricCsc,
+  mass: SymmetricCsc,
+  solver: ShiftedSolver,
+  factorAt: (sigma: number) => ShiftedFactor,
+  scale: DiagonalScale,
+  stiffnessNorm: number,
+  rankM: number,
+  wanted: number,
+  method: 'lanczos' | 'subspace',
+  request: ModesRequest,
+  warnings: string[],
+  clock: Clock,
+): Solved {
+  let sigma = firstShiftGuess(scale);
+  let factor = belowEverything(factorAt, sigma, warnings);
+  sigma = factor.shift;
+  let op = createShiftInvertOperator(stiffness, mass, factor);
+  const maxBasis = Math.min(rankM, stiffness.n);
+  const base = (o: ShiftInvertOperator): EigenSearch => ({
+    operator: o,
+    count: wanted,
+    tolerance: request.tolerance ?? DEFAULT_TOLERANCE,
+    maxBasis,
+    stiffnessNorm,
+    onProgress: request.onProgress,
+  });
+  let better = sigma;
+  const first = run(method, {
+    ...base(op),
+    checkpoint: (estimates) => {
+      const verdict = judgeShift(op.shift, estimates, wanted, scale);
+      better = verdict.better;
+      return verdict.acceptable;
+    },
+  }, clock);
+  let result = first;
+  let solves = op.counts.solves;
+  if (first.abandoned) {
+    warnings.push(`shift ${sigma.toPrecision(3)} was badly placed for this spectrum; solved again at ${better.toPrecision(3)}`);
+    factor = belowEverything(factorAt, better, warnings);
+    op = createShiftInvertOperator(stiffness, mass, factor);
+    result = run(method, { ...base(op), start: first.estimateVectors, startCount: first.estimateCount }, clock);
+    solves += op.counts.solves;
+  }
+  const t0 = performance.now();
+  const polished = polish(op, result, rankM < stiffness.n);
+  clock.iterateMs += performance.now() - t0;
+  solves += polished.solves;
+  void solver;
+  const beyond = Array.from(result.estimates).slice(polished.values.length);
+  return { ...polished, beyond, iterations: first.iterations + (first.abandoned ? result.iterations : 0), converged: result.converged, warnings: result.warnings, factor, solves };
+}
+
+function run(method: 'lanczos' | 'subspace', search: EigenSearch, clock: Clock): EigenSearchResult {
+  const t0 = performance.now();
+  const r = method === 'lanczos' ? blockLanczos(search) : subspaceIteration(search);
+  clock.iterateMs += performance.now() - t0;
+  return r;
+}
+
+/** Move σ down until no eigenvalue lies below it (a non-zero count means K is indefinite). */
+function belowEverything(factorAt: (sigma: number) => ShiftedFactor, sigma: number, warnings: string[]): ShiftedFactor {
+  let f = factorAt(sigma);
+  let tries = 0;
+  // σ ← 100 σ while eigenvalues remain below it
+  while (f.inertia.negative > 0 && tries < 6) {
+    if (tries === 0) warnings.push(`${f.inertia.negative} eigenvalue(s) below ${sigma.toPrecision(3)}: K is not positive semidefinite`);
+    sigma = sigma * 100 - 1e-300;
+    f = factorAt(sigma);
+    tries++;
+  }
+  return f;
+}
+
+/** Optional purification, then M-orthonormalization and Rayleigh–Ritz with K on the found vectors. */
+function polish(op: ShiftInvertOperator, r: EigenSearchResult, purify: boolean): { values: Float64Array; vectors: Float64Array; solves: number } {
+  const n = op.n;
+  if (r.count === 0) return { values: new Float64Array(0), vectors: new Float64Array(0), solves: 0 };
+  const before = op.counts.solves;
+  const x = purify ? op.apply(r.vectors, r.count) : r.vectors;
+  const basis = mOrthonormalize(x, r.count, n, op.massTimes);
+  const ritz = rayleighRitz(basis, n, op.stiffnessTimes);
+  const vectors = ritz.vectors;
+  // sign convention: the largest component of each shape is positive
+  for (let j = 0; j < ritz.count; j++) {
+    let big = 0;
+    for (let i = j * n; i < (j + 1) * n; i++) if (Math.abs(vectors[i]) > Math.abs(big)) big = vectors[i];
+    if (big < 0) for (let i = j * n; i < (j + 1) * n; i++) vectors[i] = -vectors[i];
+  }
+  return { values: ritz.values, vectors, solves: op.counts.solves - before };
+}
+
+/** Factor at σ; on tiny pivots move σ down by 1e-3 of its scale (at most 3 times) and warn. */
+function factorWithMove(
+  solver: ShiftedSolver,
+  sigma: number,
+  scale: DiagonalScale,
+  warnings: string[],
+  shifts: number[],
+  clock: Clock,
+): ShiftedFactor {
+  const t0 = performance.now();
+  let f = solver.factor(sigma);
+  for (let tries = 0; f.diagnostics.tinyPivots.length > 0 && tries < 3; tries++) {
+    const moved = sigma - 1e-3 * Math.max(Math.abs(sigma), 1e-12 * scale.minRatio) * (tries + 1);
+    warnings.push(`shift ${sigma.toPrecision(6)} met ${f.diagnostics.tinyPivots.length} tiny pivot(s); moved to ${moved.toPrecision(6)}`);
+    sigma = moved;
+    f = solver.factor(sigma);
+  }
+  shifts.push(f.shift);
+  const ms = performance.now() - t0;
+  clock.factorMs += ms;
+  return f;
+}
+
+/** Sturm count in the gap after λ_N; if it comes out high, once more closer to λ_N. */
+function gapSturm(solved: Solved, factorAt: (sigma: number) => ShiftedFactor, warnings: string[]): SturmCheck & { note?: string } {
+  const count = solved.values.length;
+  const placement = placeSturmShift(solved.values, solved.beyond);
+  let f = factorAt(placement.shift);
+  const last = solved.values[count - 1];
+  if (f.inertia.negative > placement.expectedBelow) {
+    const closer = last + 0.01 * (placement.shift - last);
+    if (closer > last) f = factorAt(closer);
+  }
+  const ok = f.inertia.negative === placement.expectedBelow;
+  if (placement.note) warnings.push(placement.note);
+  if (!ok) {
+    warnings.push(
+      f.inertia.negative > placement.expectedBelow
+        ? `Sturm count ${f.inertia.negative} at ${f.shift.toPrecision(8)} exceeds the ${placement.expectedBelow} eigenvalues found below it: ${f.inertia.negative - placement.expectedBelow} mode(s) were missed`
+        : `Sturm count ${f.inertia.negative} at ${f.shift.toPrecision(8)} is below the ${placement.expectedBelow} eigenvalues found below it`,
+    );
+  }
+  return { shift: f.shift, countBelow: f.inertia.negative, modesReturned: count, ok, ...(placement.note ? { note: placement.note } : {}) };
+}
+
+/** Cutoff mode: the count at the cutoff must equal the modes returned, all of them below it. */
+function cutoffSturm(f: ShiftedFactor, values: Float64Array, warnings: string[]): SturmCheck {
+  const below = Array.from(values).filter((v) => v < f.shift).length;
+  const ok = below === values.length && f.inertia.negative === values.length;
+  if (!ok) warnings.push(`Sturm count ${f.inertia.negative} below the cutoff but ${below} of ${values.length} returned modes lie below it`);
+  return { shift: f.shift, countBelow: f.inertia.negative, modesReturned: values.length, ok };
+}
+
+function emptyResult(
+  n: number,
+  method: 'lanczos' | 'subspace',
+  cutoff: { factor: ShiftedFactor; count: number } | undefined,
+  shifts: number[],
+  warnings: string[],
+  clock: Clock,
+  start: number,
+  solver: ShiftedSolver,
+): ModesResult {
+  const factor = cutoff?.factor ?? solver.factor(0);
+  return {
+    n,
+    eigenvalues: new Float64Array(0),
+    frequenciesHz: new Float64Array(0),
+    shapes: new Float64Array(0),
+    residuals: new Float64Array(0),
+    sturm: { shift: factor.shift, countBelow: factor.inertia.negative, modesReturned: 0, ok: factor.inertia.negative === 0 },
+    orthogonality: { massMaxDeviation: 0, stiffnessMaxDeviation: 0 },
+    method,
+    shifts,
+    iterations: 0,
+    timings: { totalMs: performance.now() - start, factorMs: clock.factorMs, iterateMs: 0, verifyMs: 0 },
+    factor: factor.diagnostics,
+    warnings,
+    solves: 0,
+    rankMassBound: 0,
+  };
+}
+
+/** ‖A‖₁ = max column sum of |a_ij| of the full symmetric matrix (lower triangle stored). */
+export function oneNorm(a: SymmetricCsc): number {
+  const sums = new Float64Array(a.n);
+  // each stored a_ij (i > j) counts in columns j and i
+  for (let j = 0; j < a.n; j++) {
+    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) {
+      const i = a.rowIdx[p];
+      const v = Math.abs(a.values[p]);
+      sums[j] += v;
+      if (i !== j) sums[i] += v;
+    }
+  }
+  let m = 0;
+  for (let j = 0; j < a.n; j++) if (sums[j] > m) m = sums[j];
+  return m;
+}

@@ -1,0 +1,90 @@
+/**
+ * Checks run on every solution and returned as data (never thrown, never hidden):
+ *
+ *  - Sturm count: by Sylvester's law of inertia the negative pivots of LDLᵀ(K − σM) equal the
+ *    number of eigenvalues below σ (M positive semidefinite; infinite eigenvalues of massless
+ *    DOFs are not counted). With σ in the gap after λ_N the count must equal N — the proof that
+ *    no mode below λ_N was missed (Bathe §11.6; Templates ch. 4).
+ *  - relative residual per mode (residual-measure.ts),
+ *  - M-orthonormality  max |ΦᵀMΦ − I|,
+ *  - K-orthogonality   max |ΦᵀKΦ − Λ| / max(|λ_max|, tiny).
+ */
+import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
+import type { OrthogonalityCheck } from './modes-types.js';
+import { residualsOf } from './rayleigh-ritz.js';
+import { relativeResidual } from './residual-measure.js';
+import { crossProduct } from './thin-block.js';
+
+export interface ShapeChecks {
+  residuals: Float64Array;
+  orthogonality: OrthogonalityCheck;
+}
+
+/** Residuals and orthogonality of mass-normalized shapes Φ (n×count) with eigenvalues Λ. */
+export function checkShapes(
+  stiffness: SymmetricCsc,
+  mass: SymmetricCsc,
+  eigenvalues: Float64Array,
+  shapes: Float64Array,
+  stiffnessNorm: number,
+): ShapeChecks {
+  const n = stiffness.n;
+  const k = eigenvalues.length;
+  if (k === 0) return { residuals: new Float64Array(0), orthogonality: { massMaxDeviation: 0, stiffnessMaxDeviation: 0 } };
+  const kx = symMultiplyBlock(stiffness, shapes, k, new Float64Array(n * k));
+  const mx = symMultiplyBlock(mass, shapes, k, new Float64Array(n * k));
+  const norms = residualsOf(shapes, mx, kx, eigenvalues, k, n);
+  const residuals = new Float64Array(k);
+  // ρ_i per residual-measure.ts
+  for (let i = 0; i < k; i++) {
+    residuals[i] = relativeResidual(norms.residualNorms[i], norms.stiffnessNorms[i], norms.vectorNorms[i], stiffnessNorm);
+  }
+  const mm = crossProduct(shapes, k, mx, k, n);
+  const kk = crossProduct(shapes, k, kx, k, n);
+  let lambdaMax = 0;
+  for (let i = 0; i < k; i++) lambdaMax = Math.max(lambdaMax, Math.abs(eigenvalues[i]));
+  let massMaxDeviation = 0;
+  let stiffnessMaxDeviation = 0;
+  // max over all entries of |ΦᵀMΦ − I| and |ΦᵀKΦ − Λ|
+  for (let j = 0; j < k; j++) {
+    for (let i = 0; i < k; i++) {
+      const dm = Math.abs(mm[i + j * k] - (i === j ? 1 : 0));
+      const dk = Math.abs(kk[i + j * k] - (i === j ? eigenvalues[i] : 0));
+      if (dm > massMaxDeviation) massMaxDeviation = dm;
+      if (dk > stiffnessMaxDeviation) stiffnessMaxDeviation = dk;
+    }
+  }
+  const scale = Math.max(lambdaMax, Number.MIN_VALUE);
+  return { residuals, orthogonality: { massMaxDeviation, stiffnessMaxDeviation: stiffnessMaxDeviation / scale } };
+}
+
+export interface SturmPlacement {
+  shift: number;
+  /** Eigenvalues expected below the shift: N, plus the rest of a cluster that straddles N. */
+  expectedBelow: number;
+  note?: string;
+}
+
+/**
+ * A shift for the Sturm count after λ_N: a quarter of the way into the gap to the next
+ * estimate (Ritz values converge from above, so the true λ_{N+1} may sit lower than its
+ * estimate; a quarter keeps a margin). If the next values coincide with λ_N (relative 1e-8),
+ * the count is taken past the whole cluster and the note says so.
+ */
+export function placeSturmShift(eigenvalues: Float64Array, beyond: number[]): SturmPlacement {
+  const count = eigenvalues.length;
+  const last = eigenvalues[count - 1];
+  const scale = Math.max(Math.abs(last), ...Array.from(eigenvalues, Math.abs), Number.MIN_VALUE);
+  const sortedBeyond = beyond.filter((v) => v > last - 1e-8 * scale).sort((a, b) => a - b);
+  let top = last;
+  let extra = 0;
+  // values coinciding with λ_N belong to its cluster
+  while (extra < sortedBeyond.length && sortedBeyond[extra] - top <= 1e-8 * scale) top = sortedBeyond[extra++];
+  const next = sortedBeyond[extra];
+  const gap = next !== undefined ? next - top : Math.max(1e-3 * scale, Math.abs(top) * 1e-3);
+  const note =
+    extra > 0
+      ? `λ_${count} and λ_${count + 1} coincide (relative 1e-8): the cluster continues past the requested count; counted past ${extra} more value(s)`
+      : undefined;
+  return { shift: top + 0.25 * gap, expectedBelow: count + extra, note };
+}
