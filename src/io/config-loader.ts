@@ -61,7 +61,7 @@ export function readStructuredFile(path: string): unknown {
       throw new InputError(path, `is not valid JSON: ${(e as Error).message}`);
     }
   }
-  const doc = parseDocument(text, { prettyErrors: false, uniqueKeys: true });
+  const doc = parseDocument(text, { prettyErrors: true, uniqueKeys: true });
   if (doc.errors.length > 0) {
     const err = doc.errors[0];
     const line = err.linePos?.[0]?.line;
@@ -190,9 +190,15 @@ function loadRuleSetLayers(name: string, dir: string, file: string, where: strin
     const builtIn = /[\\/]/.test(name) || /\.(ya?ml|json)$/.test(name) ? `file not found: ${resolve(dir, name)}` : `unknown rule set "${name}" (built-in rule sets: ${builtInRuleSetNames().join(', ')}; or give a path to your own file)`;
     throw new InputError(file, builtIn, { where });
   }
-  const raw = readStructuredFile(p);
-  validateAgainst('rule-set.schema.json', raw, p, '');
-  return overrideLayers((raw as RawRuleSet).rules, p, 'rules');
+  try {
+    const raw = readStructuredFile(p);
+    validateAgainst('rule-set.schema.json', raw, p, '');
+    return overrideLayers((raw as RawRuleSet).rules, p, 'rules');
+  } catch (e) {
+    if (!(e instanceof InputError) || e.file === file) throw e;
+    // name the config that pulled the rule set in, too
+    throw new InputError(e.file, `${e.reason} (rule set listed at ${where} in ${file})`, { line: e.line, where: e.where });
+  }
 }
 
 function overrideLayers(rules: Record<string, RawRuleEntry>, file: string, base: string): RuleLayer[] {
