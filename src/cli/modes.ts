@@ -1,4 +1,157 @@
+/**
+ * `modalgate modes --stiffness K.mtx --mass M.mtx [--count N | --max-hz F] ...`: solve the
+ * lowest modes (src/eigen/solve-modes.ts) and print a table with the verification summary;
+ * `--json` writes the numbers, `--shapes` the mass-normalized shapes as a Matrix Market array.
+ * Exit 0 when the solution verifies, 1 when a verification check failed (Sturm count),
+ * 2 on bad input (through runAction).
+ */
 import type { Command } from 'commander';
+import { readStiffnessAndMass } from '../io/matrix-market-reader.js';
+import { writeDenseArray } from '../io/matrix-market-writer.js';
+import { readDofMap } from '../io/dof-map-reader.js';
+import { writeFileAtomic } from '../io/atomic-write.js';
+import { InputError } from '../io/errors.js';
+import type { ModesRequest, ModesResult } from '../eigen/modes-types.js';
+import { solveModes } from '../eigen/solve-modes.js';
+import { EXIT_PASS, EXIT_RULE_FAILED, runAction } from './run-action.js';
 
-/** Placeholder: the `modes` command is being written. */
-export function registerModes(_program: Command): void {}
+interface ModesOptions {
+  stiffness: string;
+  mass: string;
+  count?: string;
+  maxHz?: string;
+  method?: string;
+  dofs?: string;
+  json?: string;
+  shapes?: string;
+}
+
+export function registerModes(program: Command): void {
+  program
+    .command('modes')
+    .description('solve the lowest modes of K φ = λ M φ and prove with a Sturm count that none was missed')
+    .requiredOption('--stiffness <file>', 'stiffness matrix K (Matrix Market .mtx or .mtx.gz)')
+    .requiredOption('--mass <file>', 'mass matrix M (Matrix Market .mtx or .mtx.gz)')
+    .option('--count <n>', 'number of lowest modes (default 10 when --max-hz is not given)')
+    .option('--max-hz <f>', 'every mode below this frequency in Hz')
+    .option('--method <name>', 'lanczos or subspace (default lanczos)')
+    .option('--dofs <file>', 'DOF map CSV (dof,node,component,x,y,z); its coordinates guide the ordering')
+    .option('--json <file>', 'write eigenvalues, frequencies, residuals and checks as JSON')
+    .option('--shapes <file>', 'write the mass-normalized mode shapes as a Matrix Market array')
+    .action(runAction(modes));
+}
+
+function parseRequest(opts: ModesOptions): ModesRequest {
+  if (opts.count !== undefined && opts.maxHz !== undefined) {
+    throw new InputError('--count', 'give either --count or --max-hz, not both');
+  }
+  const request: ModesRequest = {};
+  if (opts.maxHz !== undefined) {
+    const f = Number(opts.maxHz);
+    if (!(f > 0) || !Number.isFinite(f)) throw new InputError('--max-hz', `must be a frequency above 0 Hz, got '${opts.maxHz}'`);
+    request.maxHz = f;
+  } else {
+    const text = opts.count ?? '10';
+    const n = Number(text);
+    if (!Number.isInteger(n) || n < 1) throw new InputError('--count', `must be a whole number of modes ≥ 1, got '${text}'`);
+    request.count = n;
+  }
+  if (opts.method !== undefined) {
+    if (opts.method !== 'lanczos' && opts.method !== 'subspace') {
+      throw new InputError('--method', `must be 'lanczos' or 'subspace', got '${opts.method}'`);
+    }
+    request.method = opts.method;
+  }
+  return request;
+}
+
+async function modes(opts: ModesOptions): Promise<number> {
+  const request = parseRequest(opts);
+  const { stiffness, mass } = await readStiffnessAndMass(opts.stiffness, opts.mass);
+  const n = stiffness.matrix.n;
+  if (request.count !== undefined && request.count > n) {
+    throw new InputError('--count', `asks for ${request.count} modes but the model has only ${n} DOFs`);
+  }
+  if (opts.dofs) {
+    const map = await readDofMap(opts.dofs, n);
+    const xyz = new Float64Array(3 * n);
+    // interleave x, y, z per DOF
+    for (let i = 0; i < n; i++) {
+      xyz[3 * i] = map.x[i];
+      xyz[3 * i + 1] = map.y[i];
+      xyz[3 * i + 2] = map.z[i];
+    }
+    request.coordinates = xyz;
+  }
+  request.onProgress = progressLine();
+  const result = solveModes(stiffness.matrix, mass.matrix, request);
+  if (process.stderr.isTTY) process.stderr.write('\r\x1b[K');
+  process.stdout.write(formatModesTable(result));
+  if (opts.json) await writeFileAtomic(opts.json, `${JSON.stringify(modesJson(result, opts), null, 2)}\n`);
+  if (opts.shapes) {
+    await writeDenseArray(opts.shapes, n, result.eigenvalues.length, result.shapes, {
+      comment: `mass-normalized mode shapes (phi^T M phi = 1), one column per mode, from ${opts.stiffness} and ${opts.mass}`,
+      gzip: opts.shapes.endsWith('.gz'),
+    });
+  }
+  return result.sturm.ok ? EXIT_PASS : EXIT_RULE_FAILED;
+}
+
+/** A throttled progress writer: only on a TTY, only after the solve has run about a second. */
+function progressLine(): ((message: string) => void) | undefined {
+  if (!process.stderr.isTTY) return undefined;
+  const start = Date.now();
+  let last = 0;
+  return (message: string) => {
+    const now = Date.now();
+    if (now - start < 1000 || now - last < 200) return;
+    last = now;
+    process.stderr.write(`\r\x1b[K${message}`);
+  };
+}
+
+function num(x: number, digits = 6): string {
+  if (x === 0) return '0';
+  const a = Math.abs(x);
+  return a >= 1e-3 && a < 1e7 ? String(Number(x.toPrecision(digits))) : x.toExponential(digits - 1);
+}
+
+/** The plain table: mode, frequency, eigenvalue, residual; then the verification summary. */
+export function formatModesTable(r: ModesResult): string {
+  const rows = Array.from(r.eigenvalues, (lam, i) => [String(i + 1), num(r.frequenciesHz[i]), num(lam, 10), r.residuals[i].toExponential(1)]);
+  const head = ['mode', 'frequency Hz', 'eigenvalue (rad/s)²', 'residual'];
+  const widths = head.map((h, c) => Math.max(h.length, ...rows.map((row) => row[c].length)));
+  const line = (cells: string[]) => cells.map((s, c) => (c === 0 ? s.padStart(widths[c]) : s.padStart(widths[c]))).join('  ') + '\n';
+  let out = line(head) + rows.map(line).join('');
+  const s = r.sturm;
+  out += '\nverification\n';
+  out += `  Sturm count at σ = ${num(s.shift, 10)}: ${s.countBelow} eigenvalue(s) below, ${s.modesReturned} mode(s) returned — ${s.ok ? 'complete' : 'NOT VERIFIED'}\n`;
+  if (s.note) out += `  note: ${s.note}\n`;
+  const worst = r.residuals.length ? Math.max(...Array.from(r.residuals)) : 0;
+  out += `  largest relative residual ${worst.toExponential(2)}\n`;
+  out += `  max |ΦᵀMΦ − I| ${r.orthogonality.massMaxDeviation.toExponential(2)},  max |ΦᵀKΦ − Λ| / |λ|max ${r.orthogonality.stiffnessMaxDeviation.toExponential(2)}\n`;
+  out += `  ${r.method}, ${r.iterations} iteration(s), ${r.solves ?? 0} solves, ${r.shifts.length} factorization(s), ${(r.timings.totalMs / 1000).toFixed(2)} s\n`;
+  for (const w of r.warnings) out += `  warning: ${w}\n`;
+  return out;
+}
+
+/** The JSON document of `--json`. */
+export function modesJson(r: ModesResult, opts: { stiffness: string; mass: string }): Record<string, unknown> {
+  return {
+    stiffness: opts.stiffness,
+    mass: opts.mass,
+    n: r.n,
+    method: r.method,
+    eigenvalues: Array.from(r.eigenvalues),
+    frequenciesHz: Array.from(r.frequenciesHz),
+    residuals: Array.from(r.residuals),
+    sturm: r.sturm,
+    orthogonality: r.orthogonality,
+    shifts: r.shifts,
+    iterations: r.iterations,
+    solves: r.solves ?? 0,
+    timings: r.timings,
+    factor: { ordering: r.factor.ordering, nnzL: r.factor.nnzL, factorBytes: r.factor.factorBytes },
+    warnings: r.warnings,
+  };
+}
