@@ -24,6 +24,12 @@ export interface GeometryInput {
   constraints?: ConstraintFacts;
   /** Rotation point instead of the centre of mass. */
   referencePoint?: Point3;
+  /**
+   * The model before constraint sets removed DOFs: mass properties (total mass, centre of mass,
+   * inertia) then describe the whole model, supports included, and the rotations are taken
+   * about its centre of mass.
+   */
+  unconstrained?: { mass: SymmetricCsc; dofMap: DofMap };
   /** Number of leading near-zero modes when the caller already knows it. */
   nearZeroModes?: number;
   /**
@@ -39,8 +45,12 @@ export interface GeometryInput {
 export function computeGeometry(input: GeometryInput): GeometryFacts {
   const { stiffness, mass, dofMap, modes } = input;
   const top = input.top ?? 10;
-  const { rigid, massProperties, massTimesR } = rigidBodyVectorsAboutCenterOfMass(dofMap, mass, input.referencePoint);
-  const g = massProperties.rigidBodyMass;
+  const whole = input.unconstrained ? rigidBodyVectorsAboutCenterOfMass(input.unconstrained.dofMap, input.unconstrained.mass, input.referencePoint) : null;
+  const point = whole ? whole.massProperties.referencePoint : input.referencePoint;
+  const { rigid, massProperties: own, massTimesR } = rigidBodyVectorsAboutCenterOfMass(dofMap, mass, point);
+  const massProperties = whole ? whole.massProperties : own;
+  // G of the solved (possibly reduced) model: energies, participation and mechanisms live on its DOFs
+  const g = own.rigidBodyMass;
   const gDiagonal = [0, 1, 2, 3, 4, 5].map((k) => g[k * 6 + k]);
   const scale = stiffnessMassScale(stiffness, mass, dofMap);
   const nearZero = modes ? (input.nearZeroModes ?? countNearZeroModes(modes.eigenvalues, scale)) : null;

@@ -173,25 +173,3 @@ export function applyConstraints(
 ): ReducedModel {
   return removeDofs(stiffness, mass, dofMap, constrainedDofMask(stiffness.n, dofMap, sets, source));
 }
-
-/**
- * A file of DOF numbers: 1-based integers separated by whitespace, commas or newlines;
- * `#` or `%` starts a comment. Bad tokens are input errors naming the line.
- */
-export function parseDofNumbers(text: string, file: string): number[] {
-  const dofs: number[] = [];
-  const lines = text.split(/\r?\n/);
-  // each line: strip the comment, split into tokens, each a positive integer
-  lines.forEach((raw, k) => {
-    const line = raw.replace(/[#%].*$/, '').trim();
-    if (!line) return;
-    for (const token of line.split(/[\s,;]+/)) {
-      if (!token) continue;
-      if (!/^\d+$/.test(token) || Number(token) < 1) {
-        throw new InputError(file, `"${token}" is not a DOF number (a positive integer, 1-based)`, { line: k + 1 });
-      }
-      dofs.push(Number(token));
-    }
-  });
-  return dofs;
-}

@@ -2,9 +2,11 @@ import { describe, expect, it } from 'vitest';
 import { buildMast, MAST_BASE_NODES } from '../../fixtures/generator/mast.js';
 import { buildCantilever } from '../../fixtures/generator/cantilever.js';
 import { solveModes } from '../../src/eigen/solve-modes.js';
-import { applyConstraints, constrainedDofMask, parseDofNumbers, removeDofs } from '../../src/model/constraints.js';
+import { applyConstraints, constrainedDofMask, removeDofs } from '../../src/model/constraints.js';
+import { parseDofNumbers } from '../../src/io/dof-number-file.js';
 import { InputError } from '../../src/io/errors.js';
 import { denseOf } from './helpers.js';
+import { computeGeometry } from '../../src/model/compute-geometry.js';
 
 describe('constraint sets', () => {
   const beam = buildCantilever({ lengthM: 1, elements: 4, clamped: false });
@@ -78,5 +80,26 @@ describe('free-free mast clamped through constraint sets = the clamped mast', ()
     const a = solveModes(reduced.stiffness, reduced.mass, { count: 8 });
     const b = solveModes(clamped.stiffness, clamped.mass, { count: 8 });
     for (let i = 0; i < 8; i++) expect(Math.abs(a.frequenciesHz[i] - b.frequenciesHz[i]) / b.frequenciesHz[i]).toBeLessThan(1e-9);
+  });
+});
+
+describe('geometry facts of a model reduced by constraint sets', () => {
+  it('mass properties describe the whole model; the model is marked supported; DOF numbers are original', () => {
+    const beam = buildCantilever({ lengthM: 1, elements: 4, clamped: false });
+    const reduced = applyConstraints(beam.stiffness, beam.mass, beam.dofMap, [{ name: 'root', nodes: [1] }]);
+    const facts = computeGeometry({
+      stiffness: reduced.stiffness,
+      mass: reduced.mass,
+      dofMap: reduced.dofMap!,
+      originalDofs: reduced.keptDofs,
+      constraints: { sets: ['root'], removedDofs: reduced.removedDofs.length, keptDofs: reduced.keptDofs.length },
+      unconstrained: { mass: beam.mass, dofMap: beam.dofMap },
+    });
+    // Source: the generator's Σ ρ·A·L (the held root node's mass is part of the model).
+    expect(Math.abs(facts.massProperties.totalMass - beam.structuralMassKg) / beam.structuralMassKg).toBeLessThan(1e-12);
+    expect(facts.supported!.reason).toMatch(/root/);
+    expect(facts.freeRigidBodyMotions).toBe(0);
+    // residual DOFs are named by their original numbers (node 1 held: original DOFs 1..6 are gone)
+    for (const r of facts.rigidBodyEnergy.largestResiduals) expect(r.dof).toBeGreaterThan(6);
   });
 });
