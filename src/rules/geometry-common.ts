@@ -19,3 +19,19 @@ export function isOutcome(x: GeometryFacts | RuleOutcome): x is RuleOutcome {
 export function nodeList(entries: readonly { node: number; component: string }[], cap = 3): string {
   return formatList(entries.slice(0, cap).map((e) => `node ${e.node} ${e.component}`), cap);
 }
+
+/**
+ * Where the mechanisms move, for rigid-body-modes' failure message: "largest mechanism motion
+ * at node 902 uy (100 % of the kinetic energy), …", top 3 in the sentence, top 10 in `nodes`.
+ * Null when there are no geometry facts or no mechanism.
+ */
+export function mechanismLocation(geometry: GeometryFacts | undefined): { sentence: string; nodes: unknown[]; mechanisms: number } | null {
+  const m = geometry?.mechanisms;
+  if (!m || m.mechanisms === 0 || m.nodes.length === 0) return null;
+  const shown = m.nodes.slice(0, 3).map((e) => `node ${e.node} ${e.component} (${(100 * e.energyFraction).toFixed(1)} %)`);
+  return {
+    sentence: `Largest mechanism motion (share of kinetic energy) at ${formatList(shown, 3)}.`,
+    nodes: m.nodes,
+    mechanisms: m.mechanisms,
+  };
+}
