@@ -1,6 +1,7 @@
 /**
  * Fill-reducing ordering of the pencil (K, M): build the adjacency graph of the union pattern,
- * compress DOFs of one node into supervariables, order the compressed graph, expand.
+ * compress DOFs of one node into supervariables (by node label, else by coordinates, else by
+ * pattern), order the compressed graph, expand.
  *
  * With `ordering: 'auto'` every applicable candidate (natural, approximate minimum degree,
  * graph nested dissection, and coordinate bisection when coordinates are given) is computed
@@ -23,6 +24,8 @@ export interface ChooseOrderingOptions {
   ordering?: 'auto' | OrderingName;
   /** Node coordinates per DOF, interleaved x, y, z (length 3n); enables coordinate bisection. */
   coordinates?: Float64Array;
+  /** Node of each DOF (DofMap.node): the DOFs of one node are ordered together. */
+  nodeOfDof?: Int32Array;
   /** nnz(L) of P A Pᵀ for a permutation; default: exact count on the union pattern of K and M. */
   predictNnzL?: (perm: Int32Array) => number;
   /** Parts of at most this many supervariables end the dissection (default 200). */
@@ -116,7 +119,7 @@ export function chooseOrdering(
   }
   const t0 = performance.now();
   const graph = adjacencyOfPencil(stiffness, mass);
-  const sv = findSupervariables(graph);
+  const sv = findSupervariables(graph, { nodeOfVertex: options.nodeOfDof, coordinates: options.coordinates });
   const graphMs = performance.now() - t0;
   let predict = options.predictNnzL;
   if (!predict) {

@@ -1,14 +1,17 @@
 /**
- * Supervariables: vertices with identical closed neighbourhoods N[v] = adj(v) ∪ {v}.
+ * Supervariables: groups of vertices (DOFs) ordered as one, normally the DOFs of one node.
  *
- * In an FE model the DOFs of one node couple to exactly the same DOFs, so the 3 (solid) or
- * 6 (beam, shell) DOFs of a node form one supervariable. Eliminating any member of a
- * supervariable makes the others its indistinguishable neighbours, so an ordering of the
- * compressed graph (one vertex per supervariable, weighted by its size) expanded member by
- * member loses nothing and costs 1/3 … 1/6 of the work on the graph, and 1/9 … 1/36 of the edges.
+ * In an FE model the DOFs of one node couple to the same DOFs, so the 3 (solid) or 6 (beam,
+ * shell) DOFs of a node can be ordered as one vertex of weight 3 or 6: the compressed graph has
+ * 1/3 … 1/6 of the vertices and 1/9 … 1/36 of the edges. When their closed neighbourhoods
+ * N[v] = adj(v) ∪ {v} are identical, eliminating one member makes the others indistinguishable,
+ * so nothing is lost; when they differ by a few dropped zeros, the node block is filled anyway
+ * as soon as the node's first DOF is eliminated, so little is lost.
  *
- * Detection: hash h(v) = Σ_{u∈N[v]} mix(u); vertices are bucketed by hash, and inside a bucket
- * candidates with equal degree are compared exactly by marking N[v].
+ * Groups come from, in order of preference: a node label per vertex (DOF map), equal
+ * coordinates, or the pattern alone — identical closed neighbourhoods (hash
+ * h(v) = Σ_{u∈N[v]} mix(u), buckets by hash, exact comparison by marking N[v]) joined with runs
+ * of consecutive, adjacent, nearly identical vertices.
  */
 import type { AdjacencyGraph } from './adjacency-graph.js';
 
@@ -83,10 +86,27 @@ function groupIdentical(graph: AdjacencyGraph): { count: number; ofVertex: Int32
   return { count, ofVertex };
 }
 
-/** Compresses the graph into supervariables of identical closed neighbourhood. */
-export function findSupervariables(graph: AdjacencyGraph): Supervariables {
-  const { n, ptr, adj } = graph;
-  const { count, ofVertex } = groupIdentical(graph);
+export interface SupervariableOptions {
+  /** Node of each vertex (e.g. DofMap.node): vertices of one node form one supervariable. */
+  nodeOfVertex?: Int32Array;
+  /** Interleaved x, y, z per vertex: vertices at one point form one supervariable. */
+  coordinates?: Float64Array;
+}
+
+/**
+ * Compresses the graph into supervariables. Without options: vertices of identical closed
+ * neighbourhood, plus runs of consecutive vertices that are adjacent and share nearly all
+ * neighbours (exported matrices often drop exact zeros inside a node's block, so the DOFs of
+ * one node differ by a few entries). With a node label or coordinates per vertex: the vertices
+ * of one node. Any grouping gives a valid ordering; the grouping only decides its quality.
+ */
+export function findSupervariables(graph: AdjacencyGraph, options: SupervariableOptions = {}): Supervariables {
+  const n = graph.n;
+  const { count, ofVertex } = options.nodeOfVertex
+    ? groupByLabel(options.nodeOfVertex)
+    : options.coordinates
+      ? groupByLabel(pointLabels(options.coordinates, n))
+      : mergeGroups(groupIdentical(graph).ofVertex, nearlyIdenticalRuns(graph));
   const memberPtr = new Int32Array(count + 1);
   // size of each supervariable
   for (let v = 0; v < n; v++) memberPtr[ofVertex[v] + 1]++;
@@ -100,6 +120,113 @@ export function findSupervariables(graph: AdjacencyGraph): Supervariables {
   return { count, ofVertex, memberPtr, members, weight, graph: compressedGraph(graph, count, ofVertex, memberPtr, members) };
 }
 
+/** Largest run merged by the near-identity test (6 DOFs make a beam or shell node). */
+const MAX_RUN = 6;
+/** Consecutive vertices merge when they share at least this fraction of the larger neighbourhood. */
+const MIN_SHARED = 0.8;
+
+/** Label per vertex: the first vertex of its run of nearly identical consecutive vertices. */
+function nearlyIdenticalRuns(graph: AdjacencyGraph): Int32Array {
+  const { n, ptr, adj } = graph;
+  const runOf = new Int32Array(n);
+  const mark = new Int32Array(n).fill(-1);
+  let runLength = 1;
+  // v joins v−1's run when adjacent to it and |N[v] ∩ N[v−1]| ≥ MIN_SHARED · max(|N[v]|, |N[v−1]|)
+  for (let v = 0; v < n; v++) {
+    runOf[v] = v;
+    if (v === 0 || runLength >= MAX_RUN) {
+      runLength = 1;
+      continue;
+    }
+    const u = v - 1;
+    mark[u] = v;
+    for (let p = ptr[u]; p < ptr[u + 1]; p++) mark[adj[p]] = v;
+    if (mark[v] !== v) {
+      runLength = 1;
+      continue;
+    }
+    let shared = 1; // v itself
+    for (let p = ptr[v]; p < ptr[v + 1]; p++) if (mark[adj[p]] === v) shared++;
+    const larger = 1 + Math.max(ptr[v + 1] - ptr[v], ptr[u + 1] - ptr[u]);
+    if (shared >= MIN_SHARED * larger) {
+      runOf[v] = runOf[u];
+      runLength++;
+    } else {
+      runLength = 1;
+    }
+  }
+  return runOf;
+}
+
+/** Connected classes of two labellings (a vertex's class joins both of its labels), numbered 0.. */
+function mergeGroups(a: Int32Array, b: Int32Array): { count: number; ofVertex: Int32Array } {
+  const n = a.length;
+  const parent = Int32Array.from({ length: n }, (_, v) => v);
+  const find = (v: number): number => {
+    while (parent[v] !== v) v = parent[v] = parent[parent[v]];
+    return v;
+  };
+  const firstOfA = new Int32Array(n).fill(-1);
+  // union each vertex with the first vertex of its class in a, and with its label in b
+  for (let v = 0; v < n; v++) {
+    if (firstOfA[a[v]] < 0) firstOfA[a[v]] = v;
+    parent[find(v)] = find(firstOfA[a[v]]);
+    const r1 = find(v);
+    const r2 = find(b[v]);
+    if (r1 !== r2) parent[Math.max(r1, r2)] = Math.min(r1, r2);
+  }
+  for (let v = 0; v < n; v++) a[v] = find(v);
+  return groupByLabel(a);
+}
+
+/** Groups of equal label, numbered in order of first appearance. */
+function groupByLabel(label: Int32Array): { count: number; ofVertex: Int32Array } {
+  const n = label.length;
+  let maxLabel = 0;
+  for (let v = 0; v < n; v++) maxLabel = Math.max(maxLabel, label[v]);
+  if (maxLabel >= 4 * n + 16) return groupByLabel(compactLabels(label));
+  const id = new Int32Array(maxLabel + 1).fill(-1);
+  const ofVertex = new Int32Array(n);
+  let count = 0;
+  // number each label when first met
+  for (let v = 0; v < n; v++) {
+    const l = label[v];
+    if (id[l] < 0) id[l] = count++;
+    ofVertex[v] = id[l];
+  }
+  return { count, ofVertex };
+}
+
+/** Replaces sparse labels (e.g. node ids) by the smallest vertex carrying each label. */
+function compactLabels(label: Int32Array): Int32Array {
+  const n = label.length;
+  const order = Int32Array.from({ length: n }, (_, v) => v);
+  order.sort((u, v) => label[u] - label[v] || u - v);
+  const out = new Int32Array(n);
+  // within a run of equal labels the first vertex is the smallest
+  for (let k = 0; k < n; k++) {
+    const v = order[k];
+    out[v] = k > 0 && label[order[k - 1]] === label[v] ? out[order[k - 1]] : v;
+  }
+  return out;
+}
+
+/** Label per vertex: the first vertex (in coordinate order) at the same point. */
+function pointLabels(coordinates: Float64Array, n: number): Int32Array {
+  const order = Int32Array.from({ length: n }, (_, v) => v);
+  const c = coordinates;
+  // sort by (x, y, z) so coincident vertices are neighbours in the order
+  order.sort((u, v) => c[3 * u] - c[3 * v] || c[3 * u + 1] - c[3 * v + 1] || c[3 * u + 2] - c[3 * v + 2]);
+  const label = new Int32Array(n);
+  for (let k = 0; k < n; k++) {
+    const v = order[k];
+    const u = k > 0 ? order[k - 1] : -1;
+    const same = u >= 0 && c[3 * u] === c[3 * v] && c[3 * u + 1] === c[3 * v + 1] && c[3 * u + 2] === c[3 * v + 2];
+    label[v] = same ? label[u] : v;
+  }
+  return label;
+}
+
 /** Graph between supervariables: s ~ t iff some member of s is adjacent to some member of t. */
 function compressedGraph(
   graph: AdjacencyGraph,
@@ -111,34 +238,32 @@ function compressedGraph(
   const { ptr, adj } = graph;
   const mark = new Int32Array(count).fill(-1);
   const cptr = new Int32Array(count + 1);
-  // all members share one neighbourhood, so the representative's list suffices; pass 1 counts
-  for (let s = 0; s < count; s++) {
-    const r = members[memberPtr[s]];
+  /** Calls visit(t) once per supervariable t ≠ s adjacent to some member of s. */
+  const forEachNeighbour = (s: number, visit: (t: number) => void): void => {
     mark[s] = s;
-    let c = 0;
-    for (let p = ptr[r]; p < ptr[r + 1]; p++) {
-      const t = ofVertex[adj[p]];
-      if (mark[t] !== s) {
-        mark[t] = s;
-        c++;
+    for (let q = memberPtr[s]; q < memberPtr[s + 1]; q++) {
+      const v = members[q];
+      for (let p = ptr[v]; p < ptr[v + 1]; p++) {
+        const t = ofVertex[adj[p]];
+        if (mark[t] !== s) {
+          mark[t] = s;
+          visit(t);
+        }
       }
     }
+  };
+  // pass 1 counts the distinct neighbouring supervariables
+  for (let s = 0; s < count; s++) {
+    let c = 0;
+    forEachNeighbour(s, () => c++);
     cptr[s + 1] = cptr[s] + c;
   }
   const cadj = new Int32Array(cptr[count]);
   mark.fill(-1);
-  // pass 2 writes the distinct neighbouring supervariables, in the order first met
+  // pass 2 writes them, in the order first met
   for (let s = 0; s < count; s++) {
-    const r = members[memberPtr[s]];
-    mark[s] = s;
     let t0 = cptr[s];
-    for (let p = ptr[r]; p < ptr[r + 1]; p++) {
-      const t = ofVertex[adj[p]];
-      if (mark[t] !== s) {
-        mark[t] = s;
-        cadj[t0++] = t;
-      }
-    }
+    forEachNeighbour(s, (t) => (cadj[t0++] = t));
   }
   return { n: count, ptr: cptr, adj: cadj };
 }
