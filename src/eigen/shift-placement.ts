@@ -5,10 +5,10 @@
  *  - not far below: convergence goes like (λ_N − σ)/(λ_{q+1} − σ), so |σ| ≤ 0.1 λ_N;
  *  - for free-free models (rigid-body eigenvalues ≈ 0) not too close to 0 either: the
  *    rigid-body θ = 1/|σ| would swamp the elastic 1/(λ_e − σ) and cost accuracy, so
- *    |σ| ≥ 1e-5 λ_e (first elastic eigenvalue).
+ *    |σ| ≥ 1e-3 λ_e (first elastic eigenvalue).
  *
  * The first guess comes from the diagonal: min_j K_jj/M_jj is a Rayleigh quotient, so it
- * bounds λ₁ from above; σ₁ = −1e-7 · that. If a first pass shows σ₁ outside the window,
+ * bounds λ₁ from above; σ₁ = −1e-6 · that. If a first pass shows σ₁ outside the window,
  * σ₂ = −0.01 λ_e (or −0.01 λ₁ when nothing is rigid).
  */
 import type { SymmetricCsc } from '../sparse/csc.js';
@@ -50,7 +50,7 @@ function diagonal(a: SymmetricCsc): Float64Array {
 }
 
 export function firstShiftGuess(scale: DiagonalScale): number {
-  return -1e-7 * scale.minRatio;
+  return -1e-6 * scale.minRatio;
 }
 
 export interface ShiftVerdict {
@@ -71,7 +71,7 @@ export function judgeShift(sigma: number, estimates: Float64Array, wanted: numbe
   const top = lowest[lowest.length - 1];
   if (elastic === undefined || top === undefined) return { acceptable: true, better: sigma, rigidBodyCount };
   const tooFar = Math.abs(sigma) > 0.1 * Math.max(Math.abs(top), elastic);
-  const tooClose = rigidBodyCount > 0 && Math.abs(sigma) < 1e-5 * elastic;
+  const tooClose = rigidBodyCount > 0 && Math.abs(sigma) < 1e-3 * elastic;
   const lowestValue = lowest[0];
   const base = rigidBodyCount > 0 ? elastic : Math.max(lowestValue, elastic * 1e-3);
   return { acceptable: !tooFar && !tooClose, better: Math.min(-0.01 * base, lowestValue - 0.01 * base), rigidBodyCount };

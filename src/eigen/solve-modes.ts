@@ -6,8 +6,8 @@
  *   2. shift: σ₁ from the diagonal (shift-placement.ts); a first pass that shows σ₁ badly
  *      placed is abandoned and the solve restarts at σ₂ = −0.01 λ_e from its Ritz vectors;
  *   3. solve with block Lanczos or subspace iteration on (K − σM)⁻¹M;
- *   4. polish: with massless DOFs purify Φ ← (K − σM)⁻¹MΦ (removes null(M) components,
- *      CRITERIA.md §8); then M-orthonormalize and a final Rayleigh–Ritz with K;
+ *   4. polish: one more step Φ ← (K − σM)⁻¹MΦ (purifies null(M) components of massless DOFs,
+ *      CRITERIA.md §8, and sharpens every residual); then M-orthonormalize and Rayleigh–Ritz with K;
  *   5. verify: Sturm count in the gap after λ_N (or at the cutoff), residuals, orthogonality.
  *
  * Whenever a shift meets a tiny pivot (it sits on an eigenvalue, or K − σM is singular) it is
@@ -153,7 +153,7 @@ function solveAtGoodShift(
     solves += op.counts.solves;
   }
   const t0 = performance.now();
-  const polished = polish(op, result, rankM < stiffness.n);
+  const polished = polish(op, result, true);
   clock.iterateMs += performance.now() - t0;
   solves += polished.solves;
   void solver;

@@ -107,8 +107,9 @@ export function relativeResiduals(ritz: RitzPairs, stiffnessNorm: number, _n: nu
 
 /**
  * Converged: residual at tolerance and eigenvalue settled (relative change ≤ √tolerance), or
- * the residual has stagnated at rounding level (no longer falling, ≤ 1e-7) with the
- * eigenvalue settled to 1e-13 — what ill-conditioned pencils allow.
+ * the residual has stagnated at rounding level (no longer halving, ≤ 1e-8) with the
+ * eigenvalue settled to 1e-11 — what ill-conditioned pencils allow (the eigenvalue error is
+ * of the order of the residual squared).
  */
 function pairConverged(
   lambda: number,
@@ -123,7 +124,7 @@ function pairConverged(
   const scale = Math.max(Math.abs(lambda), Math.abs(sigma), Number.MIN_VALUE);
   const change = Math.abs(lambda - previous[t]) / scale;
   if (residual <= tolerance && change <= Math.sqrt(tolerance)) return true;
-  return residual <= 1e-7 && change <= 1e-13 && residual > 0.5 * previousResiduals[t];
+  return residual <= 1e-8 && change <= 1e-11 && residual > 0.5 * previousResiduals[t];
 }
 
 function gatherColumns(x: Float64Array, n: number, which: number[]): Float64Array {
