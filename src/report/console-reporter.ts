@@ -27,7 +27,6 @@ export function formatConsole(report: CheckReport, options: ConsoleOptions = {})
   const level = options.colorLevel ?? colorLevelFromEnv();
   const c = level === undefined ? new Chalk() : new Chalk({ level });
   const out: string[] = [];
-  if (report.problem) out.push(`${c.red.bold('ERROR')} ${report.problem.message}`);
   if (!options.quiet) for (const m of report.models) out.push(modelLine(m, c));
   const rows = report.models.flatMap((m) => m.rules.filter(notable).map((r) => ({ m, r })));
   const problems = report.models.filter((m) => m.problem);
@@ -98,5 +97,5 @@ function verdictLine(report: CheckReport, c: ChalkInstance): string {
   const errored = report.models.filter((m) => m.verdict === 'error').length;
   if (report.verdict === 'pass') return c.green.bold(`modalgate: PASS — ${n} model(s) checked, every error-severity rule passed.`);
   if (report.verdict === 'fail') return c.red.bold(`modalgate: FAIL — ${failed} of ${n} model(s) failed a rule.`);
-  return c.red.bold(`modalgate: ERROR — ${report.problem ? 'the check could not run' : `${errored} of ${n} model(s) could not be checked`}.`);
+  return c.red.bold(`modalgate: ERROR — ${report.problem ? 'the check could not run (the reason follows on stderr)' : `${errored} of ${n} model(s) could not be checked`}.`);
 }

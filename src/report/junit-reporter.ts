@@ -46,7 +46,7 @@ export function formatJunit(report: CheckReport): string {
     },
   };
   const builder = new XMLBuilder({ ignoreAttributes: false, attributeNamePrefix: '@_', textNodeName: '#text', format: true, indentBy: '  ', suppressEmptyNode: true });
-  return builder.build(doc) as string;
+  return `${(builder.build(doc) as string).trimEnd()}\n`;
 }
 
 function modelSuite(m: ModelReport, hostname: string): XmlNode {

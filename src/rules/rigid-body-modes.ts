@@ -15,11 +15,11 @@ export interface RigidBodyModesOptions extends RigidBodyCutoffOptions {
 }
 
 const messages = {
-  pass: '{{count}} modes {{phrase}}, as expected ({{expectation}}).',
+  pass: '{{count}} {{modesWord}} {{phrase}}, as expected ({{expectation}}).',
   tooMany:
-    '{{count}} modes {{phrase}}, expected {{expectation}}: the model has a mechanism or an unintended free part ({{extra}} extra near-zero mode(s): {{extraHz}} Hz).',
+    '{{count}} {{modesWord}} {{phrase}}, expected {{expectation}}: the model has a mechanism or an unintended free part ({{extra}} extra near-zero mode(s): {{extraHz}} Hz).',
   tooFew:
-    '{{count}} modes {{phrase}}, expected {{expectation}}: the model is grounded somewhere it should be free (a spring or constraint to ground).',
+    '{{count}} {{modesWord}} {{phrase}}, expected {{expectation}}: the model is grounded somewhere it should be free (a spring or constraint to ground).',
   allRigid:
     'all {{count}} solved modes are {{phrase}}, so the count may be incomplete: solve more modes (expected {{expectation}}).',
 };
@@ -50,7 +50,7 @@ export const rigidBodyModes: RuleDefinition<RigidBodyModesOptions> = {
     const expectation = o.expected !== undefined ? String(o.expected) : hi === Infinity ? `at least ${lo}` : `${lo} to ${hi}`;
     const frequencies = Array.from(f.subarray(0, split.count));
     const details = { count: split.count, cutoffHz: split.cutoffHz, basis: split.basis, fellBack: split.fellBack, rigidBodyFrequenciesHz: frequencies };
-    const values = { count: split.count, phrase: split.phrase, expectation };
+    const values = { count: split.count, modesWord: split.count === 1 ? 'mode' : 'modes', phrase: split.phrase, expectation };
     const limit = o.expected !== undefined ? o.expected : expectation;
     if (split.count > hi) {
       const extraHz = frequencies.slice(hi).map((x) => x.toExponential(2)).join(', ');

@@ -12,7 +12,7 @@ describe('console reporter', () => {
     expect(out).not.toMatch(ANSI);
     const lines = out.split('\n');
     expect(lines.filter((l) => /^(✔|✖)/.test(l))).toHaveLength(3);
-    expect(out).toMatch(/mast-guyed-loose-anchor\s+rigid-body-modes\s+FAIL\s+1 modes below 0.005 Hz, expected 0/);
+    expect(out).toMatch(/mast-guyed-loose-anchor\s+rigid-body-modes\s+FAIL\s+1 mode below 0.005 Hz, expected 0/);
     expect(out).toMatch(/mast\s+conditioning\s+warning/);
     expect(out).toMatch(/bracket\s+model-input\s+error/);
     expect(out).toContain('modalgate: ERROR');

@@ -48,7 +48,7 @@ export function sampleReport(): CheckReport {
     ruleSets: ['supported'],
     stats: { dofs: 1300, stiffnessNonzeros: 31000, massNonzeros: 1300, stiffnessFile: '/m/a.mtx', massFile: '/m/b.mtx' },
     rules: [
-      rule('rigid-body-modes', 'fail', '1 modes below 0.005 Hz, expected 0: the model has a mechanism or an unintended free part <&> "quoted" ]]> \u0001\u0000 bell\u0007', { measured: 1, limit: 0 }),
+      rule('rigid-body-modes', 'fail', '1 mode below 0.005 Hz, expected 0: the model has a mechanism or an unintended free part <&> "quoted" ]]> \u0001\u0000 bell\u0007', { measured: 1, limit: 0 }),
       rule('eigen-residual', 'error', 'not evaluated: the eigensolver stopped: no convergence'),
       rule('matrix-finite', 'pass', 'every entry of K and M is finite.', { measured: 0, limit: 0, details: { stiffness: 0, mass: 0, weird: Infinity } }),
     ],
