@@ -32,7 +32,7 @@ describe('config loader: a good config', () => {
     expect(rule(tiny, 'first-elastic-frequency')!.options).toMatchObject({ minHz: 0.5, maxHz: 100, cutoffRatio: 1e-4 });
     // the range form replaces `expected` from the supported rule set
     const rb = rule(tiny, 'rigid-body-modes')!.options;
-    expect(rb).toMatchObject({ min: 0, max: 1, cutoffBasis: 'hz' });
+    expect(rb).toMatchObject({ min: 0, max: 1, cutoffBasis: 'ratio' });
     expect('expected' in rb).toBe(false);
   });
   it('applies rule sets in order: handoff-audit tightens free-free, then the user file wins', () => {
