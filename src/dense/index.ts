@@ -10,7 +10,23 @@ export {
   type JacobiGeneralizedOptions,
   type JacobiGeneralizedResult,
 } from './jacobi-generalized.js';
-export { tridiagonalize, type Tridiagonal } from './tridiagonalize.js';
+export { tridiagonalize, applyReductionQ, type Tridiagonal } from './tridiagonalize.js';
+export { symmetricEigenRange } from './selected-eigen.js';
+export {
+  bandedEigen,
+  bandEigenvalues,
+  tridiagonalEigen,
+  type SelectedEigenResult,
+} from './banded-eigen.js';
+export { bandToTridiagonal } from './band-to-tridiagonal.js';
+export { bandEigenvectors } from './band-inverse-iteration.js';
+export {
+  bandFromDense,
+  bandFromTridiagonal,
+  bandwidthOf,
+  bandNormInf,
+  type SymmetricBand,
+} from './symmetric-band.js';
 export { tridiagonalQr, tridiagonalEigenvalues } from './tridiagonal-qr.js';
 export {
   cholesky,

@@ -9,8 +9,8 @@
  *
  *   p = τ A₂₂ v,   w = p − (τ/2)(pᵀv) v,   A₂₂ ← A₂₂ − v wᵀ − w vᵀ.
  *
- * Storage: column-major n×n Float64Array, leading dimension n. The input is not modified.
- * Cost: about 8/3·n³ flops for T (both triangles are kept) plus 4/3·n³ to form Q.
+ * Storage: column-major n×n Float64Array, leading dimension n; only the lower triangle of A is
+ * read, and the input is not modified. Cost: about 4/3·n³ flops for T plus 4/3·n³ to form Q.
  */
 
 export interface Tridiagonal {
@@ -20,6 +20,10 @@ export interface Tridiagonal {
   offDiagonal: Float64Array;
   /** The orthogonal Q (n×n column-major) with A = Q T Qᵀ, or null when not asked for. */
   q: Float64Array | null;
+  /** n×n work array holding v_k (v_k(0) = 1 explicit) in column k, rows k+1 … n−1. */
+  reflectors: Float64Array;
+  /** τ_k of each reflector. */
+  tau: Float64Array;
 }
 
 /**
@@ -68,10 +72,35 @@ export function tridiagonalize(a: Float64Array, n: number, wantQ = true): Tridia
   for (let i = 0; i < n; i++) diagonal[i] = w[i * n + i];
   if (n >= 2) offDiagonal[n - 2] = w[(n - 2) * n + n - 1];
   const q = wantQ ? formQ(w, n, tau) : null;
-  return { diagonal, offDiagonal, q };
+  return { diagonal, offDiagonal, q, reflectors: w, tau };
 }
 
-/** A₂₂ ← H A₂₂ H for the block starting at (s, s), v stored at w[vAt .. vAt+m−1]. */
+/** Z ← Q Z for an n×cols block Z: eigenvectors of T become eigenvectors of A. */
+export function applyReductionQ(t: Tridiagonal, z: Float64Array, cols: number): void {
+  const n = t.diagonal.length;
+  const w = t.reflectors;
+  // Q = H₀ ⋯ H_{n−3}: apply H_{n−3} first
+  for (let k = n - 3; k >= 0; k--) {
+    const tk = t.tau[k];
+    if (tk === 0) continue;
+    const s = k + 1;
+    const vAt = k * n + s;
+    // Z(s:, j) ← Z(s:, j) − τ v (vᵀ Z(s:, j))
+    for (let j = 0; j < cols; j++) {
+      const c = j * n;
+      let dot = 0;
+      for (let r = s; r < n; r++) dot += w[vAt + r - s] * z[c + r];
+      dot *= tk;
+      if (dot === 0) continue;
+      for (let r = s; r < n; r++) z[c + r] -= dot * w[vAt + r - s];
+    }
+  }
+}
+
+/**
+ * A₂₂ ← H A₂₂ H for the block starting at (s, s), v stored at w[vAt .. vAt+m−1]. Only the lower
+ * triangle of A₂₂ is read and written.
+ */
 function reflectTrailing(
   w: Float64Array,
   n: number,
@@ -81,24 +110,33 @@ function reflectTrailing(
   p: Float64Array,
 ): void {
   const m = n - s;
-  // p = τ A₂₂ v (A₂₂ symmetric, so pᵢ = τ·A₂₂(:, i)ᵀ v)
+  p.fill(0, 0, m);
+  // p = A₂₂ v from the lower triangle: column j adds A(j:, j)·v_j below and A(j+1:, j)ᵀv(j+1:) at j
+  for (let j = 0; j < m; j++) {
+    const c = (s + j) * n + s;
+    const vj = w[vAt + j];
+    let dot = 0;
+    for (let r = j + 1; r < m; r++) {
+      const arj = w[c + r];
+      p[r] += arj * vj;
+      dot += arj * w[vAt + r];
+    }
+    p[j] += w[c + j] * vj + dot;
+  }
+  // p ← τp, then w = p − (τ/2)(pᵀv) v
   let pv = 0;
   for (let i = 0; i < m; i++) {
-    const c = (s + i) * n + s;
-    let sum = 0;
-    for (let r = 0; r < m; r++) sum += w[c + r] * w[vAt + r];
-    p[i] = tau * sum;
+    p[i] *= tau;
     pv += p[i] * w[vAt + i];
   }
-  // w = p − (τ/2)(pᵀv) v
   const half = 0.5 * tau * pv;
   for (let i = 0; i < m; i++) p[i] -= half * w[vAt + i];
-  // A₂₂ ← A₂₂ − v pᵀ − p vᵀ, column by column
+  // lower triangle of A₂₂ ← A₂₂ − v wᵀ − w vᵀ, column by column
   for (let j = 0; j < m; j++) {
     const c = (s + j) * n + s;
     const vj = w[vAt + j];
     const pj = p[j];
-    for (let r = 0; r < m; r++) w[c + r] -= w[vAt + r] * pj + p[r] * vj;
+    for (let r = j; r < m; r++) w[c + r] -= w[vAt + r] * pj + p[r] * vj;
   }
 }
 
