@@ -12,7 +12,7 @@ import { InputError } from '../io/errors.js';
 import type { MatrixSummary } from '../model/matrix-summary.js';
 import { EXIT_PASS, runAction } from './run-action.js';
 
-interface InspectOptions {
+export interface InspectOptions {
   dofs?: string;
   json?: boolean;
   asymmetryTolerance?: string;
@@ -26,10 +26,11 @@ export function registerInspect(program: Command): void {
     .option('--dofs <file>', 'DOF map CSV (dof,node,component,x,y,z) to name DOFs by node and component')
     .option('--json', 'print the facts as JSON')
     .option('--asymmetry-tolerance <ratio>', 'largest accepted max|a_ij - a_ji| / max|a| for general files', '1e-10')
-    .action(runAction(inspect));
+    .action(runAction(inspectMatrix));
 }
 
-async function inspect(matrixPath: string, opts: InspectOptions): Promise<number> {
+/** The command's action: prints the report, returns the exit code (errors propagate). */
+export async function inspectMatrix(matrixPath: string, opts: InspectOptions): Promise<number> {
   const tolerance = Number(opts.asymmetryTolerance ?? '1e-10');
   if (!(tolerance >= 0)) throw new InputError('--asymmetry-tolerance', `must be a number ≥ 0, got '${opts.asymmetryTolerance}'`);
   const { summary } = await readMatrixMarket(matrixPath, { asymmetryTolerance: tolerance });

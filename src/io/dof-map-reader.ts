@@ -13,6 +13,7 @@
 import { COMPONENTS, type DofMap } from './dof-map.js';
 import { InputError } from './errors.js';
 import { forEachLine } from './byte-lines.js';
+import { printable } from './matrix-market-header.js';
 
 const HEADER = ['dof', 'node', 'component', 'x', 'y', 'z'];
 const WHOLE = /^\+?\d+$/;
@@ -60,6 +61,7 @@ class DofMapBuilder {
     let text = buf.toString('utf8', start, end);
     if (line === 1 && text.charCodeAt(0) === 0xfeff) text = text.slice(1); // byte-order mark
     if (text.trim() === '') return;
+    text = printable(text); // valid fields are ASCII; keeps messages one clean line
     const fields = text.split(',').map((f) => f.trim());
     if (!this.headerSeen) {
       if (fields.length !== 6 || fields.some((f, k) => f.toLowerCase() !== HEADER[k])) {

@@ -38,8 +38,13 @@ const SYMMETRIES = ['general', 'symmetric', 'skew-symmetric', 'hermitian'];
 
 /** Shortened text for messages. */
 export function quoteText(s: string, max = 60): string {
-  const t = s.trim();
+  const t = printable(s.trim());
   return `'${t.length > max ? `${t.slice(0, max)}…` : t}'`;
+}
+
+/** Control and non-ASCII bytes shown as '?', so a message stays one clean line. */
+export function printable(s: string): string {
+  return s.replace(/[^\x20-\x7e]/g, '?');
 }
 
 /** Parse and validate line 1. */

@@ -166,6 +166,7 @@ export class MatrixMarketLines {
   private coordinateLine(buf: Buffer, start: number, end: number, line: number): void {
     let p = skipBlanks(buf, start, end);
     if (p === end) return; // blank line
+    if (buf[p] === 37) throw new InputError(this.file, "a '%' comment line after the size line; comments must come before it", { line });
     if (this.count === this.declared) {
       throw new InputError(this.file, `more entries than the ${this.declared} declared on line ${this.size!.line}`, { line });
     }

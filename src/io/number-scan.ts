@@ -51,7 +51,7 @@ export function skipBlanks(buf: Uint8Array, p: number, end: number): number {
 export function tokenText(buf: Buffer, p: number, end: number): string {
   let e = p;
   while (e < end && !isBlank(buf[e])) e++;
-  const t = buf.toString('latin1', p, Math.min(e, p + 40));
+  const t = buf.toString('latin1', p, Math.min(e, p + 40)).replace(/[^\x20-\x7e]/g, '?');
   return e - p > 40 ? `${t}…` : t;
 }
 
