@@ -5,6 +5,9 @@ import { describe, expect, it } from 'vitest';
 import { buildCantilever } from '../../fixtures/generator/cantilever.js';
 import { buildFrame, type FrameNode } from '../../fixtures/generator/frame-builder.js';
 import { rectangularSection, roundBarSection, STEEL } from '../../fixtures/generator/sections.js';
+import { beamElementMatrices } from '../../fixtures/generator/elements/beam3d.js';
+import { rodElementMatrices } from '../../fixtures/generator/elements/rod.js';
+import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { frequenciesHz, generalizedEigenvalues } from './dense-reference.js';
 
 // Cantilever roots βL of cos βL cosh βL = −1: Blevins, Formulas for Natural Frequency and Mode
@@ -65,5 +68,35 @@ describe('axial rod chain', () => {
     const f = frequenciesHz(generalizedEigenvalues(model.stiffness, model.mass));
     const c = Math.sqrt(STEEL.youngPa / STEEL.densityKgM3);
     for (let i = 1; i <= 3; i++) expect(Math.abs(f[i - 1] / (((2 * i - 1) * c) / (4 * lengthM)) - 1)).toBeLessThan(0.005);
+  });
+});
+
+describe('single elements', () => {
+  it('a skew beam element is symmetric with exactly 6 zero-energy modes (ml-matrix eigen)', () => {
+    // An unsupported element has the 6 rigid-body motions of a free body in 3D (common practice).
+    const { stiffness, mass } = beamElementMatrices([0.1, -0.2, 0.3], [1.1, 0.4, 1.0], [0, 0, 1], rectangularSection(0.04, 0.07), STEEL);
+    const K = new Matrix(12, 12);
+    const scale = Math.max(...stiffness.map(Math.abs));
+    for (let i = 0; i < 12; i++) {
+      for (let j = 0; j < 12; j++) {
+        expect(Math.abs(stiffness[i * 12 + j] - stiffness[j * 12 + i])).toBeLessThan(1e-14 * scale);
+        expect(Math.abs(mass[i * 12 + j] - mass[j * 12 + i])).toBeLessThan(1e-14 * mass[0]);
+        K.set(i, j, stiffness[i * 12 + j]);
+      }
+    }
+    const ev = new EigenvalueDecomposition(K, { assumeSymmetric: true }).realEigenvalues.map(Math.abs).sort((a, b) => a - b);
+    expect(ev[5]).toBeLessThan(1e-9 * ev[11]);
+    expect(ev[6]).toBeGreaterThan(1e-6 * ev[11]);
+  });
+
+  it('a rod element has zero energy in translation and transverse motion, EA/L along its axis', () => {
+    const section = roundBarSection(0.01);
+    const { stiffness } = rodElementMatrices([0, 0, 0], [3, 4, 0], section.areaM2, STEEL);
+    const e = [0.6, 0.8, 0]; // unit axis of the 3-4-5 triangle
+    const ea = (STEEL.youngPa * section.areaM2) / 5;
+    const stretch = [-e[0], -e[1], -e[2], e[0], e[1], e[2]]; // unit elongation 2 along the axis
+    const f = stretch.map((_, i) => stretch.reduce((s, v, j) => s + stiffness[i * 6 + j] * v, 0));
+    // energy ½ uᵀKu = ½ (EA/L) δ², δ = 2 (Hooke's law, common practice)
+    expect(stretch.reduce((s, v, i) => s + v * f[i], 0)).toBeCloseTo(ea * 4, 6);
   });
 });
