@@ -1,0 +1,61 @@
+/** DOF map CSV: write → read round trip, validation and naming (describeDof). */
+import { afterAll, describe, expect, it } from 'vitest';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { readDofMap } from '../../src/io/dof-map-reader.js';
+import { writeDofMap } from '../../src/io/dof-map-writer.js';
+import { describeDof, type DofMap } from '../../src/io/dof-map.js';
+
+const dir = mkdtempSync(join(tmpdir(), 'modalgate-dof-'));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+function beamMap(nodes: number): DofMap {
+  const n = nodes * 6;
+  const map = {
+    n, node: new Int32Array(n), component: new Uint8Array(n),
+    x: new Float64Array(n), y: new Float64Array(n), z: new Float64Array(n),
+  };
+  // six DOFs per node, nodes along x with awkward coordinates
+  for (let d = 0; d < n; d++) {
+    const k = Math.floor(d / 6);
+    map.node[d] = 100 + 7 * k;
+    map.component[d] = d % 6;
+    map.x[d] = k * 0.1;
+    map.y[d] = k === 1 ? -0 : 1 / 3;
+    map.z[d] = k * 1e-300;
+  }
+  return map;
+}
+
+describe('DOF map', () => {
+  it('round trip write → read is exact (plain and gzip)', async () => {
+    const map = beamMap(50);
+    for (const name of ['dofs.csv', 'dofs.csv.gz']) {
+      const p = join(dir, name);
+      await writeDofMap(p, map);
+      const back = await readDofMap(p, map.n);
+      expect(back.n).toBe(map.n);
+      expect(Array.from(back.node)).toEqual(Array.from(map.node));
+      expect(Array.from(back.component)).toEqual(Array.from(map.component));
+      for (const c of ['x', 'y', 'z'] as const) {
+        expect(Buffer.from(back[c].buffer).equals(Buffer.from(map[c].buffer)), c).toBe(true);
+      }
+    }
+  });
+
+  it('rows in any order, upper-case components, BOM, blank lines; n from the file when not given', async () => {
+    const p = join(dir, 'any-order.csv');
+    writeFileSync(p, '\ufeffdof, node, component, x, y, z\r\n3,11,RZ,1,0,0\r\n\r\n1,10,ux,0,0,0\r\n2,10,uy,0,0,0\r\n');
+    const map = await readDofMap(p);
+    expect(map.n).toBe(3);
+    expect(describeDof(map, 2)).toBe('node 11 rz (dof 3)');
+    expect(describeDof(undefined, 2)).toBe('dof 3');
+  });
+
+  it('a map shorter than K is refused, naming the first missing DOF', async () => {
+    const p = join(dir, 'short.csv');
+    writeFileSync(p, 'dof,node,component,x,y,z\n1,10,ux,0,0,0\n2,10,uy,0,0,0\n');
+    await expect(readDofMap(p, 3)).rejects.toThrow(/short\.csv:3: dof 3 is missing/);
+  });
+});
