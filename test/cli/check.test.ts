@@ -1,0 +1,121 @@
+/**
+ * End to end: the compiled `modalgate check`, `rules` and `init` on small configs — exit codes
+ * 0 / 1 / 2, the bad-config corpus (exit 2, one stderr line naming the config), the JUnit file
+ * written even when the check cannot run, and JUnit validity against junit-10.xsd.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { cpSync, existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { ensureBuilt, repoRoot, runCli, runMany } from './built-cli.js';
+import { badCases } from '../config/bad-configs.js';
+import { structuralProblems, xmllintValidate } from '../report/junit-validation.js';
+
+let work: string;
+
+beforeAll(() => {
+  ensureBuilt();
+  work = mkdtempSync(join(tmpdir(), 'modalgate-check-'));
+  for (const d of ['good', 'models', 'rulesets']) cpSync(join(repoRoot, 'test/config', d), join(work, d), { recursive: true });
+});
+afterAll(() => rmSync(work, { recursive: true, force: true }));
+
+function junitOf(path: string): string {
+  const xml = readFileSync(path, 'utf8');
+  expect(structuralProblems(xml)).toEqual([]);
+  const lint = xmllintValidate(xml); // junit-10.xsd (jenkinsci/xunit-plugin); null when xmllint or the xsd is absent
+  if (lint) expect(lint.ok, lint.output).toBe(true);
+  return xml;
+}
+
+describe('modalgate check', () => {
+  it('exits 1 when a rule fails, writes JUnit and JSON from the config, resolved next to it', async () => {
+    const r = await runCli(['check'], join(work, 'good'));
+    expect(r.code, r.stderr).toBe(1);
+    expect(r.stdout).toMatch(/tiny-free\s+rigid-body-modes\s+FAIL\s+0 modes below 0.005 Hz, expected 6/);
+    const xml = junitOf(join(work, 'good/out/junit.xml'));
+    expect(xml).toMatch(/<testsuites name="modalgate" tests="22" failures="1" errors="0"/);
+    const json = JSON.parse(readFileSync(join(work, 'good/out/report.json'), 'utf8'));
+    expect(json.verdict).toBe('fail');
+    // fixed–free chain of 3 unit masses and springs 100 N/m: λ₁ = (4k/m) sin²(π/14), CRITERIA.md §7 [V]
+    const exactHz = Math.sqrt(400 * Math.sin(Math.PI / 14) ** 2) / (2 * Math.PI);
+    expect(Math.abs(json.models[0].modes[0].frequencyHz - exactHz) / exactHz).toBeLessThan(1e-10);
+  });
+  it('exits 0 when the selected models pass; command-line report paths win', async () => {
+    const r = await runCli(['check', '--config', 'good/modalgate.yaml', '--model', 'tiny', '--junit', 'cli/j.xml', '--quiet'], work);
+    expect(r.code, r.stderr).toBe(0);
+    expect(r.stdout.trim()).toBe('modalgate: PASS — 1 model(s) checked, every error-severity rule passed.');
+    expect(junitOf(join(work, 'cli/j.xml'))).toContain('tests="10" failures="0" errors="0"');
+  });
+  it('exits 2 on an unknown --model name', async () => {
+    const r = await runCli(['check', '--config', 'good/modalgate.yaml', '--model', 'nope'], work);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toContain('--model nope: no model of that name (models: tiny, tiny-free)');
+  });
+  it('exits 2 on an unreadable matrix, checks the other models, and reports an <error>', async () => {
+    writeFileSync(join(work, 'models/broken.mass.mtx'), '%%MatrixMarket matrix coordinate real symmetric\n3 3 2\n1 1 1\n0 2 1\n');
+    writeFileSync(
+      join(work, 'good/broken.yaml'),
+      'models:\n  - { name: ok, stiffness: ../models/tiny.stiffness.mtx, mass: ../models/tiny.mass.mtx, ruleSets: [supported], rules: { first-elastic-frequency: { minHz: 0.1 } } }\n  - { name: broken, stiffness: ../models/tiny.stiffness.mtx, mass: ../models/broken.mass.mtx, ruleSets: [supported], rules: { first-elastic-frequency: { minHz: 0.1 } } }\n',
+    );
+    const r = await runCli(['check', '--config', 'good/broken.yaml', '--junit', 'broken/j.xml'], work);
+    expect(r.code).toBe(2);
+    expect(r.stdout).toMatch(/✔ pass\s+ok/);
+    expect(r.stdout).toMatch(/broken\s+model-input\s+error\s+.*broken\.mass\.mtx:4/);
+    const xml = junitOf(join(work, 'broken/j.xml'));
+    expect(xml).toContain('<testcase name="model-input" classname="modalgate.broken"');
+    expect(xml).toContain('type="input-error"');
+  });
+  it('writes the JUnit <error> even when the config is broken, at the path the config names', async () => {
+    writeFileSync(join(work, 'good/typo.yaml'), 'reports: { junit: typo/junit.xml }\nmodels:\n  - { name: a, stiffness: ../models/tiny.stiffness.mtx, mass: ../models/tiny.mass.mtx, rules: { eigen-residul: error } }\n');
+    const r = await runCli(['check', '--config', 'good/typo.yaml'], work);
+    expect(r.code).toBe(2);
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+    expect(r.stderr).toContain(join(work, 'good/typo.yaml'));
+    const xml = junitOf(join(work, 'good/typo/junit.xml'));
+    expect(xml).toContain('did you mean &quot;eigen-residual&quot;?');
+  });
+  it('the bad-config corpus exits 2 with one stderr line naming the config file (and its JUnit <error>)', async () => {
+    // 12 spawns of the built CLI (each costs ~0.3 s of CPU); every case runs in-process in test/config
+    const cases = badCases().slice(0, 12);
+    expect(cases.length).toBe(12);
+    const runs = await runMany(cases.map((c, i) => ['check', '--config', c.path, '--junit', join(work, 'bad', `${i}.xml`)]), undefined, 4);
+    runs.forEach((r, i) => {
+      const c = cases[i];
+      expect(r.code, c.file).toBe(2);
+      const lines = r.stderr.trim().split('\n');
+      expect(lines, c.file).toHaveLength(1);
+      expect(lines[0], c.file).toContain(c.path);
+      expect(lines[0]).not.toMatch(/\bat .*\.js:\d+/);
+      expect(readFileSync(join(work, 'bad', `${i}.xml`), 'utf8'), c.file).toContain('<error message=');
+    });
+  });
+});
+
+describe('modalgate rules and init', () => {
+  it('rules lists every rule with its defaults and the built-in rule sets', async () => {
+    const r = await runCli(['rules']);
+    expect(r.code).toBe(0);
+    for (const id of ['rigid-body-modes', 'first-elastic-frequency', 'conditioning', 'diagonal-sanity']) expect(r.stdout).toContain(`\n${id}\n`);
+    expect(r.stdout).toMatch(/cutoffHz\s+number > 0\s+default 0.005/);
+    expect(r.stdout).toMatch(/handoff-audit\s+Strict/);
+    const j = await runCli(['rules', '--json']);
+    expect(JSON.parse(j.stdout).rules.length).toBeGreaterThanOrEqual(12);
+  });
+  it('init writes a starter config, refuses to overwrite it, and --force replaces it', async () => {
+    const dir = join(work, 'init');
+    cpSync(join(work, 'models'), join(dir, 'model'), { recursive: true });
+    const first = await runCli(['init'], dir);
+    expect(first.code, first.stderr).toBe(0);
+    expect(first.stdout).toContain('next:');
+    expect(existsSync(join(dir, 'modalgate.yaml'))).toBe(true);
+    const again = await runCli(['init'], dir);
+    expect(again.code).toBe(2);
+    expect(again.stderr).toContain('already exists; not overwritten (use --force');
+    expect((await runCli(['init', '--force'], dir)).code).toBe(0);
+    // the starter parses and names the files it expects the user to provide
+    const r = await runCli(['check'], dir);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toContain('models[0].stiffness: file not found');
+  });
+});
