@@ -1,0 +1,62 @@
+/**
+ * frequency-drift: each paired mode's frequency stays within ± maxChangePercent of its baseline:
+ *   |f_current − f_baseline| / f_baseline ≤ maxChangePercent / 100,
+ * with pairs from mode tracking (MAC assignment, see src/model/compare-baseline.ts), so a swap of
+ * close modes is not read as two large changes. Rigid-body modes (f ≈ 0) are not checked.
+ * Default 5 %: the frequency agreement usually asked of significant modes (attributed to
+ * NASA-STD-5002, clause unconfirmed — [M] CRITERIA.md §1b); between revisions of one model the
+ * right limit is the project's own choice.
+ */
+import type { RuleDefinition } from './rule-types.js';
+import type { ModePair } from '../model/comparison-facts.js';
+import { outcome } from './outcome.js';
+import { formatList, formatNumber } from './message.js';
+
+export interface FrequencyDriftOptions {
+  maxChangePercent: number;
+  /** Baseline modes to check (1-based); default every paired elastic mode. */
+  modes?: number[];
+}
+
+const messages = {
+  pass: '{{count}} paired modes within ± {{limit}} % of the baseline (largest change {{worst}} % at baseline mode {{worstMode}}).',
+  fail: '{{bad}} of {{count}} paired modes changed by more than ± {{limit}} % from the baseline: {{list}}.',
+  none: 'no paired elastic modes to compare with the baseline.',
+};
+
+export const frequencyDrift: RuleDefinition<FrequencyDriftOptions> = {
+  id: 'frequency-drift',
+  description: 'Each paired mode stays within ± maxChangePercent of its baseline frequency.',
+  optionsSchema: {
+    type: 'object',
+    properties: {
+      maxChangePercent: { type: 'number', exclusiveMinimum: 0 },
+      modes: { type: 'array', items: { type: 'integer', minimum: 1 }, minItems: 1 },
+    },
+    additionalProperties: false,
+  },
+  defaults: { maxChangePercent: 5 },
+  messages,
+  needs: ['modes', 'baseline'],
+  evaluate(context, o) {
+    const wanted = o.modes ? new Set(o.modes) : null;
+    const checked = context.comparison!.pairs.filter((p) => p.changePercent !== null && (!wanted || wanted.has(p.baselineMode)));
+    if (checked.length === 0) return outcome('skip', messages.none, {});
+    const worst = checked.reduce((a, b) => (Math.abs(b.changePercent!) > Math.abs(a.changePercent!) ? b : a));
+    const bad = checked.filter((p) => Math.abs(p.changePercent!) > o.maxChangePercent);
+    const measured = Math.abs(worst.changePercent!);
+    const details = { flagged: bad.map(flag), pairs: checked.map((p) => ({ baselineMode: p.baselineMode, currentMode: p.currentMode, baselineHz: p.baselineHz, currentHz: p.currentHz, changePercent: p.changePercent })) };
+    const values = { count: checked.length, limit: o.maxChangePercent };
+    if (bad.length > 0) return outcome('fail', messages.fail, { ...values, bad: bad.length, list: formatList(bad.map(describe)) }, measured, o.maxChangePercent, details);
+    return outcome('pass', messages.pass, { ...values, worst: measured, worstMode: worst.baselineMode }, measured, o.maxChangePercent, details);
+  },
+};
+
+function flag(p: ModePair): { baselineMode: number; currentMode: number } {
+  return { baselineMode: p.baselineMode, currentMode: p.currentMode };
+}
+
+function describe(p: ModePair): string {
+  const moved = p.currentMode === p.baselineMode ? '' : ` (now mode ${p.currentMode})`;
+  return `mode ${p.baselineMode}${moved} ${formatNumber(p.baselineHz)} → ${formatNumber(p.currentHz)} Hz (${p.changePercent! > 0 ? '+' : ''}${formatNumber(p.changePercent!)} %)`;
+}

@@ -1,0 +1,57 @@
+/**
+ * mode-shape-match: each paired mode's shape still matches its baseline shape:
+ *   MAC(φ_baseline, ψ_current) ≥ minMac
+ * (Allemang & Brown 1982, CRITERIA.md §2 [C]; plain or mass-weighted as the baseline settings
+ * say). For near-repeated modes the value is the subspace share of the shape in its partner's
+ * group (src/model/mac.ts), since single vectors of a repeated pair are arbitrary.
+ * Default 0.9: the cross-MAC used for pairing in practice (SEM/IMAC ch. 18, CRITERIA.md §2 [C];
+ * "> 0.9 consistent" is common practice, [CP]).
+ */
+import type { RuleDefinition } from './rule-types.js';
+import { outcome } from './outcome.js';
+import { formatList, formatNumber } from './message.js';
+
+export interface ModeShapeMatchOptions {
+  minMac: number;
+  /** Baseline modes to check (1-based); default every paired mode. */
+  modes?: number[];
+}
+
+const messages = {
+  pass: '{{count}} paired mode shapes match the baseline (lowest MAC {{worst}} at baseline mode {{worstMode}}, limit {{limit}}).',
+  fail: '{{bad}} of {{count}} paired mode shapes differ from the baseline (MAC below {{limit}}): {{list}}.',
+  none: 'no paired modes to compare with the baseline.',
+};
+
+export const modeShapeMatch: RuleDefinition<ModeShapeMatchOptions> = {
+  id: 'mode-shape-match',
+  description: 'Each paired mode shape matches its baseline shape: MAC ≥ minMac.',
+  optionsSchema: {
+    type: 'object',
+    properties: {
+      minMac: { type: 'number', exclusiveMinimum: 0, maximum: 1 },
+      modes: { type: 'array', items: { type: 'integer', minimum: 1 }, minItems: 1 },
+    },
+    additionalProperties: false,
+  },
+  defaults: { minMac: 0.9 },
+  messages,
+  needs: ['modes', 'baseline'],
+  evaluate(context, o) {
+    const wanted = o.modes ? new Set(o.modes) : null;
+    const checked = context.comparison!.pairs.filter((p) => !wanted || wanted.has(p.baselineMode));
+    if (checked.length === 0) return outcome('skip', messages.none, {});
+    const worst = checked.reduce((a, b) => (b.correlation < a.correlation ? b : a));
+    const bad = checked.filter((p) => p.correlation < o.minMac);
+    const details = {
+      flagged: bad.map((p) => ({ baselineMode: p.baselineMode, currentMode: p.currentMode })),
+      pairs: checked.map((p) => ({ baselineMode: p.baselineMode, currentMode: p.currentMode, mac: p.mac, correlation: p.correlation, repeated: p.repeated })),
+    };
+    const values = { count: checked.length, limit: o.minMac };
+    if (bad.length > 0) {
+      const list = formatList(bad.map((p) => `mode ${p.baselineMode}${p.currentMode === p.baselineMode ? '' : ` (now mode ${p.currentMode})`} at MAC ${formatNumber(p.correlation)}`));
+      return outcome('fail', messages.fail, { ...values, bad: bad.length, list }, worst.correlation, o.minMac, details);
+    }
+    return outcome('pass', messages.pass, { ...values, worst: worst.correlation, worstMode: worst.baselineMode }, worst.correlation, o.minMac, details);
+  },
+};

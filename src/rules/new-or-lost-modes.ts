@@ -1,0 +1,57 @@
+/**
+ * new-or-lost-modes: every mode in the frequency range both solutions cover has a partner.
+ * A baseline mode with no partner although the current solve reached its frequency is lost; a
+ * current mode with no partner below the baseline's highest mode is new (CRITERIA.md §2
+ * practice 3, [CP]). Modes above the other side's range are not counted: their partner may
+ * simply not have been solved.
+ */
+import type { RuleDefinition } from './rule-types.js';
+import type { UnpairedMode } from '../model/comparison-facts.js';
+import { outcome } from './outcome.js';
+import { formatList, formatNumber } from './message.js';
+
+export interface NewOrLostModesOptions {
+  maxNew: number;
+  maxLost: number;
+}
+
+const messages = {
+  pass: 'every mode below {{rangeHz}} Hz has a partner in the baseline ({{newCount}} new, {{lostCount}} lost; allowed {{maxNew}} new, {{maxLost}} lost).',
+  fail: '{{what}} below {{rangeHz}} Hz without a partner: {{list}}.',
+};
+
+export const newOrLostModes: RuleDefinition<NewOrLostModesOptions> = {
+  id: 'new-or-lost-modes',
+  description: 'Every mode in the range both solutions cover has a partner (no new or lost modes).',
+  optionsSchema: {
+    type: 'object',
+    properties: { maxNew: { type: 'integer', minimum: 0 }, maxLost: { type: 'integer', minimum: 0 } },
+    additionalProperties: false,
+  },
+  defaults: { maxNew: 0, maxLost: 0 },
+  messages,
+  needs: ['modes', 'baseline'],
+  evaluate(context, o) {
+    const c = context.comparison!;
+    const lost = c.lostModes.filter((m) => m.withinCompared);
+    const added = c.newModes.filter((m) => m.withinCompared);
+    const rangeHz = Math.min(c.baselineMaxHz, c.currentMaxHz);
+    const details = {
+      flagged: [...lost.map((m) => ({ baselineMode: m.mode })), ...added.map((m) => ({ currentMode: m.mode }))],
+      lost,
+      new: added,
+    };
+    const measured = lost.length + added.length;
+    if (lost.length <= o.maxLost && added.length <= o.maxNew) {
+      return outcome('pass', messages.pass, { rangeHz, newCount: added.length, lostCount: lost.length, maxNew: o.maxNew, maxLost: o.maxLost }, measured, o.maxNew + o.maxLost, details);
+    }
+    const parts = [...lost.map((m) => describe('baseline', m)), ...added.map((m) => describe('new', m))];
+    const what = `${lost.length} baseline mode(s) lost and ${added.length} new mode(s)`;
+    return outcome('fail', messages.fail, { what, rangeHz: formatNumber(rangeHz), list: formatList(parts) }, measured, o.maxNew + o.maxLost, details);
+  },
+};
+
+function describe(side: 'baseline' | 'new', m: UnpairedMode): string {
+  const best = m.bestPartner === null ? 'no correlated mode' : `best MAC ${formatNumber(m.bestCorrelation)} with ${side === 'baseline' ? 'current' : 'baseline'} mode ${m.bestPartner}`;
+  return `${side === 'baseline' ? 'baseline' : 'new'} mode ${m.mode} at ${formatNumber(m.hz)} Hz (${best})`;
+}
