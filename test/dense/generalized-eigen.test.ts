@@ -155,3 +155,22 @@ describe('generalizedSymmetricEigen', () => {
     expect(() => generalizedSymmetricEigen(k, m, n)).toThrow(NotPositiveDefiniteError);
   });
 });
+
+describe('singular stiffness (rigid-body directions)', () => {
+  it.each(['cholesky', 'jacobi', 'auto'] as const)('returns zero eigenvalues for the null space of K (%s)', (method) => {
+    // Reference: K = Bᵀ B with B 6×9 has a 3-dimensional null space, so (K, M) has exactly three
+    // zero eigenvalues (definition); the others are checked against ml-matrix via the reversed pencil.
+    const n = 9;
+    const b = randomBlock(6, n, 77);
+    const k = multiply(transposed(b, 6, n), b, n, 6, n);
+    for (let j = 0; j < n; j++) for (let i = j + 1; i < n; i++) k[i * n + j] = k[j * n + i];
+    const m = randomSpd(n, 78, 1);
+    const r = generalizedSymmetricEigen(k, m, n, { method });
+    check(k, m, n, r.values, r.vectors);
+    const scale = r.values[n - 1];
+    for (let i = 0; i < 3; i++) expect(Math.abs(r.values[i]) / scale).toBeLessThan(1e-13);
+    expect(r.values[3] / scale).toBeGreaterThan(1e-6);
+    const ref = referenceByReversedPencil(k, m, n, -0.1 * r.values[3]);
+    for (let i = 3; i < n; i++) expect(Math.abs(r.values[i] - ref[i]) / scale).toBeLessThan(1e-12);
+  });
+});
