@@ -38,6 +38,7 @@ export {
   type CholeskyResult,
 } from './cholesky.js';
 export { choleskyOrthonormalize, type CholeskyQrResult } from './cholesky-qr.js';
+export { svqbOrthonormalize, type SvqbResult } from './svqb.js';
 export {
   householderQr,
   thinQr,

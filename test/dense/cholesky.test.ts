@@ -9,6 +9,7 @@ import {
   solveRightLowerTransposed,
 } from '../../src/dense/cholesky.js';
 import { choleskyOrthonormalize } from '../../src/dense/cholesky-qr.js';
+import { svqbOrthonormalize } from '../../src/dense/svqb.js';
 import { maxAbs, multiply, orthogonalityError, randomBlock, toMatrix, transposed } from './helpers.js';
 
 function randomSpd(n: number, seed: number): Float64Array {
@@ -95,5 +96,31 @@ describe('choleskyOrthonormalize', () => {
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.failedColumn).toBe(2);
     expect(Array.from(x)).toEqual(Array.from(copy));
+  });
+});
+
+describe('svqbOrthonormalize', () => {
+  it('keeps the rank of a block with a dependent column and a B-null column', () => {
+    // Reference: constructed — B = diag(1, …, 1, 0, 0) (two massless DOFs), column 3 = 2·column 0,
+    // column 4 lies in null(B): the B-rank of the 6 columns is 4 (definition of rank).
+    const rows = 30;
+    const k = 6;
+    const b = new Float64Array(rows * rows);
+    for (let i = 0; i < rows - 2; i++) b[i * rows + i] = 1;
+    const x = randomBlock(rows, k, 21);
+    for (let i = 0; i < rows; i++) {
+      x[3 * rows + i] = 2 * x[i];
+      x[4 * rows + i] = i >= rows - 2 ? 1 + i : 0;
+    }
+    const bx = multiply(b, x, rows, rows, k);
+    const r = svqbOrthonormalize(x, bx, rows, k);
+    expect(r.rank).toBe(4);
+    expect(Array.from(r.zeroColumns)).toEqual([4]);
+    expect(orthogonalityError(r.x, rows, r.rank, b)).toBeLessThan(1e-13 * rows);
+    const bxCheck = multiply(b, r.x, rows, rows, r.rank);
+    expect(maxAbs(bxCheck.map((v, i) => v - (r.bx as Float64Array)[i]))).toBeLessThan(1e-13);
+    const plain = svqbOrthonormalize(randomBlock(rows, k, 22), null, rows, k);
+    expect(plain.rank).toBe(k);
+    expect(orthogonalityError(plain.x, rows, k)).toBeLessThan(1e-13 * rows);
   });
 });
