@@ -15,6 +15,12 @@ import { InputError } from './errors.js';
 /** Return false to stop reading early. */
 export type LineCallback = (buf: Buffer, start: number, end: number, line: number) => boolean | void;
 
+/**
+ * Optional fast path: handle all the complete lines in buf[start, end) (end is just after a
+ * "\n"; `line` is the number of the first) and return how many lines that was.
+ */
+export type BlockCallback = (buf: Buffer, start: number, end: number, line: number) => number;
+
 export interface ByteSourceInfo {
   /** Size of the file on disk (compressed size for gzip). */
   fileBytes: number;
@@ -56,10 +62,10 @@ export async function probeFile(path: string): Promise<ByteSourceInfo> {
 export async function forEachLine(
   path: string,
   onLine: LineCallback,
-  options: { bufferBytes?: number; info?: ByteSourceInfo } = {},
+  options: { bufferBytes?: number; info?: ByteSourceInfo; onBlock?: BlockCallback } = {},
 ): Promise<LineScanResult> {
   const info = options.info ?? (await probeFile(path));
-  const scanner = new LineSplitter(path, onLine, options.bufferBytes ?? 1 << 20);
+  const scanner = new LineSplitter(path, onLine, options.bufferBytes ?? 1 << 20, options.onBlock);
   if (info.gzip) await scanGzip(path, scanner);
   else await scanPlain(path, scanner);
   scanner.finish();
@@ -80,6 +86,7 @@ class LineSplitter {
     readonly path: string,
     readonly onLine: LineCallback,
     bufferBytes: number,
+    readonly onBlock?: BlockCallback,
   ) {
     this.buf = Buffer.allocUnsafe(bufferBytes);
   }
@@ -88,8 +95,16 @@ class LineSplitter {
   drain(): void {
     const buf = this.buf;
     let start = 0;
+    if (this.onBlock) {
+      // all complete lines at once
+      const last = this.filled > 0 ? buf.lastIndexOf(NEWLINE, this.filled - 1) : -1;
+      if (last >= 0) {
+        this.line += this.onBlock(buf, 0, last + 1, this.line);
+        start = last + 1;
+      }
+    }
     // each "\n" ends one line
-    while (!this.stopped) {
+    while (!this.stopped && !this.onBlock) {
       const nl = buf.indexOf(NEWLINE, start);
       if (nl < 0 || nl >= this.filled) break;
       const end = nl > start && buf[nl - 1] === 13 ? nl - 1 : nl;

@@ -42,7 +42,7 @@ export interface MatrixFile {
 export async function readMatrixMarket(path: string, options: MatrixReadOptions = {}): Promise<MatrixFile> {
   const info = await probeFile(path);
   const parser = new MatrixMarketLines(path, 'triplets', info);
-  const scanned = await forEachLine(path, parser.onLine, { info });
+  const scanned = await forEachLine(path, parser.onLine, { info, onBlock: parser.onBlock });
   parser.finish(scanned.lines);
   const banner = parser.banner!;
   const size = parser.size!;

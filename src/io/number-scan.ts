@@ -36,6 +36,7 @@ const ZERO = 48;
 const SPACE = 32;
 const TAB = 9;
 const CR = 13;
+const NEWLINE = 10;
 
 export function isBlank(c: number): boolean {
   return c === SPACE || c === TAB || c === CR;
@@ -86,7 +87,7 @@ export function scanUnsigned(buf: Uint8Array, p: number, end: number): number {
 }
 
 /**
- * Real number at p, up to a blank or the end. Sets scan.end, scan.status, scan.hadFraction.
+ * Real number at p, up to a blank, a newline or the end. Sets scan.end, scan.status, scan.hadFraction.
  * Returns the correctly rounded double (which may be ±Infinity for overflowing text).
  */
 export function scanReal(buf: Buffer, p: number, end: number): number {
@@ -96,34 +97,48 @@ export function scanReal(buf: Buffer, p: number, end: number): number {
     negative = buf[p] === 45;
     p++;
   }
-  const m = mantissa;
-  m.hi = 0;
-  m.lo = 0;
-  m.extra = 0;
-  m.stored = 0;
-  m.tooMany = false;
-  m.q = 0;
+  let hi = 0; // first 15 significant digits
+  let lo = 0; // next up to 4 significant digits
+  let nd = 0; // significant digits seen (leading zeros excluded)
+  let q = 0; // decimal exponent: −(digits after the point), + dropped integer digits
   let digits = 0; // all mantissa digits seen
   let fraction = false;
-  // integer part: significant digits into hi/lo
+  // integer part: significant digits into hi, then lo
   for (; p < end; p++) {
     const d = buf[p] - ZERO;
     if (d < 0 || d > 9) break;
     digits++;
-    if (m.stored !== 0 || d !== 0) addDigit(m, d, false);
+    if (nd < 15) {
+      if (nd !== 0 || d !== 0) {
+        hi = hi * 10 + d;
+        nd++;
+      }
+    } else {
+      if (nd < 19) lo = lo * 10 + d;
+      else q++;
+      nd++;
+    }
   }
   if (p < end && buf[p] === 46) {
     fraction = true;
-    // fraction part: each digit shifts the decimal exponent by one
+    // fraction part: each kept digit lowers the decimal exponent by one
     for (p++; p < end; p++) {
       const d = buf[p] - ZERO;
       if (d < 0 || d > 9) break;
       digits++;
-      m.q--;
-      if (m.stored !== 0 || d !== 0) addDigit(m, d, true);
+      if (nd < 15) {
+        q--;
+        if (nd !== 0 || d !== 0) {
+          hi = hi * 10 + d;
+          nd++;
+        }
+      } else if (nd < 19) {
+        q--;
+        lo = lo * 10 + d;
+        nd++;
+      } else nd++;
     }
   }
-  let q = m.q;
   if (digits === 0) return notANumber(p);
   if (p < end && ((buf[p] | 32) === 101 || (buf[p] | 32) === 100)) {
     // exponent: (e|E|d|D) [+|-] digits
@@ -145,31 +160,15 @@ export function scanReal(buf: Buffer, p: number, end: number): number {
     if (p === expStart) return notANumber(p);
     q += expNegative ? -e : e;
   }
-  if (p < end && !isBlank(buf[p])) return notANumber(p);
+  if (p < end && !isBlank(buf[p]) && buf[p] !== NEWLINE) return notANumber(p);
   scan.end = p;
   scan.status = SCAN_OK;
   scan.hadFraction = fraction;
-  if (!m.tooMany) {
-    const v = decimalToDouble(negative, m.hi, m.extra, m.lo, q);
+  if (nd <= 19) {
+    const v = decimalToDouble(negative, hi, nd > 15 ? nd - 15 : 0, lo, q);
     if (v === v) return v; // not NaN: proven exact
   }
   return slowReal(buf, start, p);
-}
-
-/** Significant digits of the mantissa being scanned (module state: no allocation per number). */
-const mantissa = { hi: 0, lo: 0, extra: 0, stored: 0, tooMany: false, q: 0 };
-
-/** Append one significant digit: the first 15 go to hi, the next 4 to lo, more mark tooMany. */
-function addDigit(m: typeof mantissa, d: number, afterPoint: boolean): void {
-  if (m.stored < 15) m.hi = m.hi * 10 + d;
-  else if (m.stored < 19) {
-    m.lo = m.lo * 10 + d;
-    m.extra++;
-  } else {
-    m.tooMany = true;
-    if (!afterPoint) m.q++;
-  }
-  m.stored++;
 }
 
 function notANumber(p: number): number {
