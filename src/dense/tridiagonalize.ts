@@ -56,23 +56,110 @@ export function householderVector(a: Float64Array, start: number, m: number): nu
 export function tridiagonalize(a: Float64Array, n: number, wantQ = true): Tridiagonal {
   const w = Float64Array.from(a.subarray(0, n * n));
   const tau = new Float64Array(Math.max(n, 1));
-  const p = new Float64Array(n);
   const diagonal = new Float64Array(n);
   const offDiagonal = new Float64Array(Math.max(n - 1, 0));
-  for (let k = 0; k + 2 < n; k++) {
-    const col = k * n;
-    const m = n - k - 1;
-    const t = householderVector(w, col + k + 1, m);
-    tau[k] = t;
-    offDiagonal[k] = w[col + k + 1];
-    w[col + k + 1] = 1; // v₀ = 1 made explicit while updating
-    if (t !== 0) reflectTrailing(w, n, k + 1, col + k + 1, t, p);
-  }
+  if (n >= 3) reduceAll(w, n, tau, offDiagonal);
   // diagonal and last off-diagonal of T
   for (let i = 0; i < n; i++) diagonal[i] = w[i * n + i];
   if (n >= 2) offDiagonal[n - 2] = w[(n - 2) * n + n - 1];
   const q = wantQ ? formQ(w, n, tau) : null;
   return { diagonal, offDiagonal, q, reflectors: w, tau };
+}
+
+/**
+ * All reduction steps. Step k's update of A₂₂ and step k+1's product p = A₃₃ v_{k+1} share one
+ * pass over the trailing columns: column k+1 is updated first, v_{k+1} built from it, and each
+ * later column contributes to the next p right after its own update. Only the first p needs a
+ * pass of its own.
+ */
+function reduceAll(w: Float64Array, n: number, tau: Float64Array, offDiagonal: Float64Array): void {
+  let p = new Float64Array(n);
+  let pNext = new Float64Array(n);
+  startReflector(w, n, 0, tau, offDiagonal);
+  if (tau[0] !== 0) lowerProduct(w, n, 1, 0, p);
+  for (let k = 0; k + 2 < n; k++) {
+    const s = k + 1;
+    const hasNext = k + 3 < n;
+    if (tau[k] !== 0) {
+      toUpdateVector(w, n, k, tau[k], p);
+      updateColumn(w, n, k, p, s);
+    }
+    if (!hasNext) {
+      // last step: update the rest of the trailing block
+      if (tau[k] !== 0) for (let j = s + 1; j < n; j++) updateColumn(w, n, k, p, j);
+      continue;
+    }
+    startReflector(w, n, s, tau, offDiagonal);
+    pNext.fill(0);
+    const accumulate = tau[s] !== 0;
+    // remaining columns: update by step k, then add their share of p_{k+1} = A₃₃ v_{k+1}
+    for (let j = s + 1; j < n; j++) {
+      if (tau[k] !== 0) updateColumn(w, n, k, p, j);
+      if (accumulate) addColumnProduct(w, n, s, j, pNext);
+    }
+    const swap = p;
+    p = pNext;
+    pNext = swap;
+  }
+}
+
+/** Reflector k from A(k+1:, k): τ_k, e_k = β, and v_k(0) = 1 made explicit in place. */
+function startReflector(
+  w: Float64Array,
+  n: number,
+  k: number,
+  tau: Float64Array,
+  offDiagonal: Float64Array,
+): void {
+  const at = k * n + k + 1;
+  tau[k] = householderVector(w, at, n - k - 1);
+  offDiagonal[k] = w[at];
+  w[at] = 1;
+}
+
+/** p(s:) = A(s:, s:) v_k from the lower triangle, v_k(r) = w[k·n + r]. */
+function lowerProduct(w: Float64Array, n: number, s: number, k: number, p: Float64Array): void {
+  p.fill(0);
+  for (let j = s; j < n; j++) addColumnProduct(w, n, k, j, p);
+}
+
+/**
+ * Column j's share of p = A v_k over the lower triangle: p(r) += a_rj v(j) for r > j and
+ * p(j) += a_jj v(j) + Σ_{r>j} a_rj v(r), with v(r) = w[k·n + r].
+ */
+function addColumnProduct(w: Float64Array, n: number, k: number, j: number, p: Float64Array): void {
+  const c = j * n;
+  const v = k * n;
+  const vj = w[v + j];
+  let dot = 0;
+  for (let r = j + 1; r < n; r++) {
+    const arj = w[c + r];
+    p[r] += arj * vj;
+    dot += arj * w[v + r];
+  }
+  p[j] += w[c + j] * vj + dot;
+}
+
+/** p ← τp − (τ/2)(τpᵀv) v: the vector of the rank-2 update A₂₂ ← A₂₂ − v pᵀ − p vᵀ. */
+function toUpdateVector(w: Float64Array, n: number, k: number, tau: number, p: Float64Array): void {
+  const v = k * n;
+  let pv = 0;
+  // τp and (τp)ᵀv
+  for (let r = k + 1; r < n; r++) {
+    p[r] *= tau;
+    pv += p[r] * w[v + r];
+  }
+  const half = 0.5 * tau * pv;
+  for (let r = k + 1; r < n; r++) p[r] -= half * w[v + r];
+}
+
+/** Lower part of column j: a_rj −= v(r) p(j) + p(r) v(j) for r ≥ j, v = v_k. */
+function updateColumn(w: Float64Array, n: number, k: number, p: Float64Array, j: number): void {
+  const c = j * n;
+  const v = k * n;
+  const vj = w[v + j];
+  const pj = p[j];
+  for (let r = j; r < n; r++) w[c + r] -= w[v + r] * pj + p[r] * vj;
 }
 
 /** Z ← Q Z for an n×cols block Z: eigenvectors of T become eigenvectors of A. */
@@ -94,49 +181,6 @@ export function applyReductionQ(t: Tridiagonal, z: Float64Array, cols: number): 
       if (dot === 0) continue;
       for (let r = s; r < n; r++) z[c + r] -= dot * w[vAt + r - s];
     }
-  }
-}
-
-/**
- * A₂₂ ← H A₂₂ H for the block starting at (s, s), v stored at w[vAt .. vAt+m−1]. Only the lower
- * triangle of A₂₂ is read and written.
- */
-function reflectTrailing(
-  w: Float64Array,
-  n: number,
-  s: number,
-  vAt: number,
-  tau: number,
-  p: Float64Array,
-): void {
-  const m = n - s;
-  p.fill(0, 0, m);
-  // p = A₂₂ v from the lower triangle: column j adds A(j:, j)·v_j below and A(j+1:, j)ᵀv(j+1:) at j
-  for (let j = 0; j < m; j++) {
-    const c = (s + j) * n + s;
-    const vj = w[vAt + j];
-    let dot = 0;
-    for (let r = j + 1; r < m; r++) {
-      const arj = w[c + r];
-      p[r] += arj * vj;
-      dot += arj * w[vAt + r];
-    }
-    p[j] += w[c + j] * vj + dot;
-  }
-  // p ← τp, then w = p − (τ/2)(pᵀv) v
-  let pv = 0;
-  for (let i = 0; i < m; i++) {
-    p[i] *= tau;
-    pv += p[i] * w[vAt + i];
-  }
-  const half = 0.5 * tau * pv;
-  for (let i = 0; i < m; i++) p[i] -= half * w[vAt + i];
-  // lower triangle of A₂₂ ← A₂₂ − v wᵀ − w vᵀ, column by column
-  for (let j = 0; j < m; j++) {
-    const c = (s + j) * n + s;
-    const vj = w[vAt + j];
-    const pj = p[j];
-    for (let r = j; r < m; r++) w[c + r] -= w[vAt + r] * pj + p[r] * vj;
   }
 }
 
