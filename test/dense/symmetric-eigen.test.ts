@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { EigenvalueDecomposition } from 'ml-matrix';
 import { symmetricEigen, symmetricEigenvalues } from '../../src/dense/symmetric-eigen.js';
+import { tridiagonalize } from '../../src/dense/tridiagonalize.js';
+import { tridiagonalEigenvalues } from '../../src/dense/tridiagonal-qr.js';
 import {
   maxAbs,
   maxResidual,
@@ -106,5 +108,41 @@ describe('symmetricEigen', () => {
   it('rejects a non-finite entry', () => {
     const a = new Float64Array([1, NaN, NaN, 1]);
     expect(() => symmetricEigen(a, 2)).toThrow(/non-finite/);
+  });
+});
+
+describe('tridiagonalize and tridiagonal QR', () => {
+  it('produces T = QᵀAQ with Q orthogonal', () => {
+    // Reference: the defining identity of the reduction, checked by explicit products.
+    const n = 30;
+    const a = randomSymmetric(n, 8);
+    const t = tridiagonalize(a, n, true);
+    const q = t.q as Float64Array;
+    expect(orthogonalityError(q, n, n)).toBeLessThan(1e-13 * n);
+    const qtaq = multiply(transposed(q, n, n), multiply(a, q, n, n, n), n, n, n);
+    for (let j = 0; j < n; j++) {
+      for (let i = 0; i < n; i++) {
+        const expected = i === j ? t.diagonal[i] : i === j + 1 ? t.offDiagonal[j] : j === i + 1 ? t.offDiagonal[i] : 0;
+        expect(Math.abs(qtaq[j * n + i] - expected)).toBeLessThan(1e-13 * n);
+      }
+    }
+  });
+
+  it('gives the second-difference eigenvalues from (d, e) directly', () => {
+    // Reference: textbook closed form 2 − 2cos(kπ/(n+1)) of tridiag(−1, 2, −1).
+    const n = 500;
+    const v = tridiagonalEigenvalues(new Float64Array(n).fill(2), new Float64Array(n - 1).fill(-1));
+    for (let k = 1; k <= n; k++) expect(Math.abs(v[k - 1] - (2 - 2 * Math.cos((k * Math.PI) / (n + 1))))).toBeLessThan(1e-13 * 4);
+  });
+
+  it('is unaffected by scaling near the ends of the floating-point range', () => {
+    // Reference: λ(cA) = c·λ(A) (definition), against the unscaled decomposition.
+    const n = 8;
+    const a = randomSymmetric(n, 21);
+    const base = symmetricEigen(a, n).values;
+    for (const c of [1e-300, 1e300]) {
+      const v = symmetricEigen(a.map((x) => x * c), n).values;
+      for (let i = 0; i < n; i++) expect(Math.abs(v[i] / c - base[i])).toBeLessThan(1e-13 * n);
+    }
   });
 });
