@@ -2,7 +2,7 @@
  * Correctly rounded conversion of a decimal w · 10^q (w a whole number of up to 19 digits)
  * to the nearest double, without building a string.
  *
- * Two exact paths, each falling back (returns NaN) whenever it cannot prove its answer:
+ * Two exact paths, each falling back (returns false) whenever it cannot prove its answer:
  *
  * 1. Clinger's fast path: w < 2^53 and |q| ≤ 22. Both w and 10^|q| are exact doubles, so
  *    one IEEE multiplication or division rounds the exact value once, correctly.
@@ -15,8 +15,11 @@
  *    by less than one unit in its last place, so the 54 leading bits of H (53 + rounding bit)
  *    are exact unless the discarded low bits of H are all ones (a carry could reach them),
  *    and an exact tie is only possible when those discarded bits are all zero. In both of
- *    those rare cases (≈ 1 in 256) we return NaN and the caller uses Number() on the text.
+ *    those rare cases (≈ 1 in 256) we return false and the caller uses Number() on the text.
  *    Results that would be subnormal or overflow also return NaN.
+ *
+ * The result goes to `decimalOut[0]` and the function returns whether it is proven: returning
+ * a double from a call that is not inlined would allocate a heap number per value.
  *
  * Our own code; the table is computed here with BigInt at module load (651 entries).
  */
@@ -61,29 +64,38 @@ const INV16 = 1 / 65536;
 const TWO52 = 4503599627370496;
 const TWO53 = 9007199254740992;
 
+/** Where decimalToDouble puts its result. */
+export const decimalOut = new Float64Array(1);
+
 /**
  * Nearest double to ±(hi · 10^extra + lo) · 10^q, where hi < 10^15 holds the first (up to 15)
- * significant digits, and lo < 10^extra (extra ≤ 4) the following ones. NaN when not provable.
+ * significant digits, and lo < 10^extra (extra ≤ 4) the following ones. Writes decimalOut[0];
+ * returns false when the result could not be proven (the caller then converts the text).
  */
-export function decimalToDouble(negative: boolean, hi: number, extra: number, lo: number, q: number): number {
-  if (hi === 0 && lo === 0) return negative ? -0 : 0;
+export function decimalToDouble(negative: boolean, hi: number, extra: number, lo: number, q: number): boolean {
+  if (hi === 0 && lo === 0) {
+    decimalOut[0] = negative ? -0 : 0;
+    return true;
+  }
   if (extra === 0 && q >= -22 && q <= 22) {
     // Clinger: one correctly rounded operation on exact operands
     const v = q >= 0 ? hi * POW10[q] : hi / POW10[-q];
-    return negative ? -v : v;
+    decimalOut[0] = negative ? -v : v;
+    return true;
   }
   if (extra > 0 && extra <= 3) {
     const w = hi * POW10[extra] + lo;
     if (w < TWO53 && q >= -22 && q <= 22) {
       const v = q >= 0 ? w * POW10[q] : w / POW10[-q];
-      return negative ? -v : v;
+      decimalOut[0] = negative ? -v : v;
+      return true;
     }
   }
-  if (q < MIN_Q || q > MAX_Q) return NaN;
+  if (q < MIN_Q || q > MAX_Q) return false;
   return productPath(negative, hi, extra, lo, q);
 }
 
-function productPath(negative: boolean, hi: number, extra: number, lo: number, q: number): number {
+function productPath(negative: boolean, hi: number, extra: number, lo: number, q: number): boolean {
   // w = hi · 10^extra + lo as two 32-bit words (wh, wl)
   const p10 = POW10[extra];
   const hiH = Math.floor(hi / TWO32);
@@ -128,7 +140,7 @@ function productPath(negative: boolean, hi: number, extra: number, lo: number, q
   const upper = h7 >>> 15;
   const shift = 9 + upper; // bits of H below the 54 kept ones
   const low9 = h4 & 0x1ff;
-  if (low9 === 0x1ff || (h4 & ((1 << shift) - 1)) === 0) return NaN; // carry or tie possible
+  if (low9 === 0x1ff || (h4 & ((1 << shift) - 1)) === 0) return false; // carry or tie possible
   const top = h7 * TWO32 + h6 * 65536 + h5; // H >> 16, < 2^48
   let m = top * (upper === 0 ? 64 : 32) + (h4 >>> (shift + 1)); // H >> (shift + 1), < 2^53
   m += (h4 >>> shift) & 1; // round half up (ties excluded above)
@@ -137,7 +149,8 @@ function productPath(negative: boolean, hi: number, extra: number, lo: number, q
     m = TWO52;
     e2++;
   }
-  if (e2 < -1074 || e2 > 971) return NaN; // subnormal or overflow: let Number() decide
+  if (e2 < -1074 || e2 > 971) return false; // subnormal or overflow: let Number() decide
   const v = m * POW2[e2 + 1074];
-  return negative ? -v : v;
+  decimalOut[0] = negative ? -v : v;
+  return true;
 }

@@ -15,7 +15,7 @@ import {
   type MatrixMarketBanner, type MatrixMarketSize,
 } from './matrix-market-header.js';
 import {
-  scan, scanReal, scanUnsigned, skipBlanks, tokenText,
+  realOut, scan, scanReal, scanRealInto, scanUnsigned, skipBlanks, tokenText,
   SCAN_NOT_INTEGER, SCAN_OK, SCAN_TOO_LARGE,
 } from './number-scan.js';
 import type { ByteSourceInfo } from './byte-lines.js';
@@ -125,7 +125,8 @@ export class MatrixMarketLines {
     for (let d = buf[p] - 48; d >= 0 && d <= 9; d = buf[++p] - 48) j = j * 10 + d;
     if (p === s1 || buf[p] !== 32) return -1;
     while (buf[p] === 32) p++;
-    const v = scanReal(buf, p, end);
+    scanRealInto(buf, p, end);
+    const v = realOut[0];
     const e = scan.end;
     if (scan.status !== SCAN_OK || e >= end || buf[e] !== 10 || v - v !== 0) return -1;
     if (i < 1 || i > this.n || j < 1 || j > this.n || (this.symmetric && j > i) || this.count === this.declared) return -1;

@@ -14,7 +14,7 @@
  * Results come back through the module state `scan` (end position, status) so that the hot
  * loop allocates nothing.
  */
-import { decimalToDouble } from './decimal-to-double.js';
+import { decimalOut, decimalToDouble } from './decimal-to-double.js';
 
 export const SCAN_OK = 0;
 /** No number starts here (letter, punctuation, end of line). */
@@ -87,10 +87,19 @@ export function scanUnsigned(buf: Uint8Array, p: number, end: number): number {
 }
 
 /**
- * Real number at p, up to a blank, a newline or the end. Sets scan.end, scan.status, scan.hadFraction.
- * Returns the correctly rounded double (which may be ±Infinity for overflowing text).
+ * Real number at p, up to a blank, a newline or the end. Sets scan.end, scan.status,
+ * scan.hadFraction and returns the correctly rounded double (±Infinity for overflowing text).
  */
 export function scanReal(buf: Buffer, p: number, end: number): number {
+  scanRealInto(buf, p, end);
+  return realOut[0];
+}
+
+/** The value scanned by scanRealInto (NaN when there was no number). */
+export const realOut = new Float64Array(1);
+
+/** As scanReal, result in realOut[0]: hot loops use this to avoid a heap number per value. */
+export function scanRealInto(buf: Buffer, p: number, end: number): void {
   const start = p;
   let negative = false;
   if (p < end && (buf[p] === 45 || buf[p] === 43)) {
@@ -164,17 +173,14 @@ export function scanReal(buf: Buffer, p: number, end: number): number {
   scan.end = p;
   scan.status = SCAN_OK;
   scan.hadFraction = fraction;
-  if (nd <= 19) {
-    const v = decimalToDouble(negative, hi, nd > 15 ? nd - 15 : 0, lo, q);
-    if (v === v) return v; // not NaN: proven exact
-  }
-  return slowReal(buf, start, p);
+  if (nd <= 19 && decimalToDouble(negative, hi, nd > 15 ? nd - 15 : 0, lo, q)) realOut[0] = decimalOut[0];
+  else realOut[0] = slowReal(buf, start, p);
 }
 
-function notANumber(p: number): number {
+function notANumber(p: number): void {
   scan.end = p;
   scan.status = SCAN_NOT_A_NUMBER;
-  return NaN;
+  realOut[0] = NaN;
 }
 
 /** Exact conversion of an already validated token by the JavaScript number parser. */
