@@ -59,3 +59,19 @@ describe('DOF map', () => {
     await expect(readDofMap(p, 3)).rejects.toThrow(/short\.csv:3: dof 3 is missing/);
   });
 });
+
+describe('inspect report', () => {
+  it('names zero and negative diagonals by node and component when a DOF map is given', async () => {
+    const { formatInspection } = await import('../../src/cli/inspect.js');
+    const { readMatrixMarket } = await import('../../src/io/matrix-market-reader.js');
+    const k = join(dir, 'k.mtx');
+    writeFileSync(k, '%%MatrixMarket matrix coordinate real symmetric\n3 3 2\n1 1 4\n3 3 -1\n');
+    const d = join(dir, 'd.csv');
+    writeFileSync(d, 'dof,node,component,x,y,z\n1,10,ux,0,0,0\n2,10,uy,0,0,0\n3,11,rz,1,0,0\n');
+    const { summary } = await readMatrixMarket(k);
+    const text = formatInspection(summary, await readDofMap(d, 3));
+    expect(text).toMatch(/zero diagonals\s+1: node 10 uy \(dof 2\)/);
+    expect(text).toMatch(/negative diagonals\s+1: node 11 rz \(dof 3\)/);
+    expect(formatInspection(summary)).toMatch(/zero diagonals\s+1: dof 2/);
+  });
+});

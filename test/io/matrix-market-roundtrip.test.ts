@@ -121,6 +121,15 @@ describe('Matrix Market round trip', () => {
     expect(Array.from(matrix.values)).toEqual([2.5, -1]);
   });
 
+  it('a highly compressed .mtx.gz (storage grown while reading) with 200 000 duplicates', async () => {
+    const p = join(dir, 'dups.mtx.gz');
+    writeFileSync(p, gzipSync(`%%MatrixMarket matrix coordinate real symmetric\n2 2 200001\n${'1 1 0.5\n'.repeat(200000)}2 2 1\n`));
+    const { matrix, summary } = await readMatrixMarket(p);
+    expect(Array.from(matrix.values)).toEqual([100000, 1]);
+    expect(summary.duplicatesSummed).toBe(199999);
+    expect(summary.entriesInFile).toBe(200001);
+  });
+
   it('writes -0 as "-0" and refuses non-finite values', () => {
     expect(formatReal(-0)).toBe('-0');
     expect(formatReal(1e21)).toBe('1e+21');
