@@ -4,6 +4,7 @@
  * error failed, 2 bad input/config or internal error — in that case too the JUnit file is written
  * (with an <error>) whenever its path is known from the options or the config.
  */
+import { existsSync, statSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { findConfig, loadConfig, checkWritableTarget, readStructuredFile } from '../io/config-loader.js';
@@ -16,6 +17,7 @@ import { CAUTION, junitTimestamp, runVerdict, type CheckReport, type ModelReport
 import { formatJunit } from '../report/junit-reporter.js';
 import { formatJson } from '../report/json-reporter.js';
 import { formatConsole } from '../report/console-reporter.js';
+import { formatMarkdown } from '../report/markdown.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, runAction } from './run-action.js';
 
 export interface CheckOptions {
@@ -24,6 +26,14 @@ export interface CheckOptions {
   junit?: string;
   json?: string;
   quiet?: boolean;
+  /** Compare every model with its snapshot in this directory (overrides baseline.dir of the config). */
+  baseline?: string;
+  /** Save every checked model's snapshot into this directory. */
+  saveBaseline?: string;
+  /** Write the Markdown summary here. */
+  markdown?: string;
+  /** Markdown: every mode of the comparison, not only the flagged ones. */
+  markdownAll?: boolean;
   /** Base for relative command-line paths (default: the working directory). */
   cwd?: string;
   /** Where the console report goes (default: stdout). */
@@ -33,7 +43,7 @@ export interface CheckOptions {
 export interface CheckOutcome {
   code: number;
   report: CheckReport;
-  written: { junit?: string; json?: string };
+  written: { junit?: string; json?: string; markdown?: string };
 }
 
 export function registerCheck(program: Command): void {
@@ -44,6 +54,10 @@ export function registerCheck(program: Command): void {
     .option('-m, --model <name...>', 'check only these models (by name)')
     .option('--junit <file>', 'write JUnit XML here (overrides reports.junit of the config)')
     .option('--json <file>', 'write the JSON report here (overrides reports.json of the config)')
+    .option('--baseline <dir>', 'compare each model with its saved baseline in <dir> (overrides baseline.dir of the config)')
+    .option('--save-baseline <dir>', "save each model's frequencies and mode shapes as a baseline in <dir>")
+    .option('--markdown <file>', 'write a Markdown summary (for a pull-request comment or CI job summary) here')
+    .option('--markdown-all', 'Markdown: list every mode of the baseline comparison, not only the flagged ones')
     .option('-q, --quiet', 'print only failures, errors and the verdict')
     .action(runAction(async (opts: CheckOptions) => (await runCheck(opts)).code));
 }
@@ -52,15 +66,17 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   const cwd = opts.cwd ?? process.cwd();
   const started = new Date();
   const t0 = performance.now();
-  const cliPaths = { junit: opts.junit ? resolve(cwd, opts.junit) : undefined, json: opts.json ? resolve(cwd, opts.json) : undefined };
+  const cliPaths = { junit: opts.junit ? resolve(cwd, opts.junit) : undefined, json: opts.json ? resolve(cwd, opts.json) : undefined, markdown: opts.markdown ? resolve(cwd, opts.markdown) : undefined };
+  const baselineDirs = { baselineDir: opts.baseline ? resolve(cwd, opts.baseline) : undefined, saveBaselineDir: opts.saveBaseline ? resolve(cwd, opts.saveBaseline) : undefined };
   let configPath: string | undefined;
   let config: LoadedConfig | undefined;
   let problem: ProblemReport | undefined;
   const models: ModelReport[] = [];
   try {
-    for (const p of [cliPaths.junit, cliPaths.json]) if (p) checkWritableTarget(p, p);
+    for (const p of [cliPaths.junit, cliPaths.json, cliPaths.markdown]) if (p) checkWritableTarget(p, p);
+    checkBaselineDirs(baselineDirs);
     configPath = findConfig(opts.config, cwd);
-    config = loadConfig(configPath);
+    config = loadConfig(configPath, baselineDirs);
     for (const job of selectModels(config, opts.model)) {
       const onProgress = progressPrinter(job.name);
       models.push(await analyzeModel(job, { onProgress }));
@@ -83,11 +99,14 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   const targets = {
     junit: cliPaths.junit ?? config?.reports.junit ?? (config ? undefined : bestEffortReportPath(configPath, 'junit')),
     json: cliPaths.json ?? config?.reports.json ?? (config ? undefined : bestEffortReportPath(configPath, 'json')),
+    markdown: cliPaths.markdown,
   };
   const print = opts.print ?? ((t: string) => process.stdout.write(t));
   print(formatConsole(report, { quiet: opts.quiet }));
-  const written = writeReports(report, targets);
-  for (const [kind, p] of Object.entries(written)) if (!opts.quiet) print(`${kind === 'junit' ? 'JUnit XML' : 'JSON report'}: ${p}\n`);
+  const written = writeReports(report, targets, opts.markdownAll);
+  const labels: Record<string, string> = { junit: 'JUnit XML', json: 'JSON report', markdown: 'Markdown summary' };
+  for (const [kind, p] of Object.entries(written)) if (!opts.quiet) print(`${labels[kind]}: ${p}\n`);
+  for (const m of models) if (m.baselineSaved && !opts.quiet) print(`baseline of ${m.name} saved: ${m.baselineSaved.json}\n`);
   if (problem) process.stderr.write(`modalgate: ${problem.message}\n`);
   const code = report.verdict === 'pass' ? EXIT_PASS : report.verdict === 'fail' ? EXIT_RULE_FAILED : EXIT_BAD_INPUT;
   return { code, report, written };
@@ -117,8 +136,8 @@ function bestEffortReportPath(configPath: string | undefined, kind: 'junit' | 'j
   }
 }
 
-function writeReports(report: CheckReport, targets: { junit?: string; json?: string }): { junit?: string; json?: string } {
-  const written: { junit?: string; json?: string } = {};
+function writeReports(report: CheckReport, targets: { junit?: string; json?: string; markdown?: string }, markdownAll = false): { junit?: string; json?: string; markdown?: string } {
+  const written: { junit?: string; json?: string; markdown?: string } = {};
   if (targets.junit) {
     writeFileAtomic(targets.junit, formatJunit(report));
     written.junit = targets.junit;
@@ -127,7 +146,21 @@ function writeReports(report: CheckReport, targets: { junit?: string; json?: str
     writeFileAtomic(targets.json, formatJson(report));
     written.json = targets.json;
   }
+  if (targets.markdown) {
+    writeFileAtomic(targets.markdown, formatMarkdown(report, { allModes: markdownAll }));
+    written.markdown = targets.markdown;
+  }
   return written;
+}
+
+/** --baseline must name an existing directory; --save-baseline must not name a file. */
+function checkBaselineDirs(dirs: { baselineDir?: string; saveBaselineDir?: string }): void {
+  if (dirs.baselineDir !== undefined && (!existsSync(dirs.baselineDir) || !statSync(dirs.baselineDir).isDirectory())) {
+    throw new InputError(dirs.baselineDir, '--baseline: baseline directory not found');
+  }
+  if (dirs.saveBaselineDir !== undefined && existsSync(dirs.saveBaselineDir) && !statSync(dirs.saveBaselineDir).isDirectory()) {
+    throw new InputError(dirs.saveBaselineDir, '--save-baseline: is a file, not a directory');
+  }
 }
 
 function progressPrinter(model: string): ((message: string) => void) | undefined {

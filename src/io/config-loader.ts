@@ -12,7 +12,7 @@ import { Ajv2020, type ValidateFunction } from 'ajv/dist/2020.js';
 import { InputError } from './errors.js';
 import { packageRoot } from './package-root.js';
 import { describeSchemaError, pickError } from './config-errors.js';
-import { CONFIG_FILE_NAMES, DEFAULT_MODE_COUNT, type LoadedConfig, type ModelJob, type RawConfig, type RawModelConfig, type RawRuleEntry, type RawRuleSet } from './config-types.js';
+import { CONFIG_FILE_NAMES, DEFAULT_MODE_COUNT, type BaselineJob, type LoadedConfig, type ModelJob, type RawConfig, type RawModelConfig, type RawRuleEntry, type RawRuleSet } from './config-types.js';
 import { builtInRules, findRule, ruleIds, type AnyRule } from '../rules/registry.js';
 import type { ResolvedRule } from '../rules/engine.js';
 import type { Severity } from '../rules/rule-types.js';
@@ -71,8 +71,14 @@ export function readStructuredFile(path: string): unknown {
   return doc.toJS() as unknown;
 }
 
+/** Command-line settings that override the config: baseline directories (absolute). */
+export interface ConfigOverrides {
+  baselineDir?: string;
+  saveBaselineDir?: string;
+}
+
 /** Load, validate and resolve the config at `path`. */
-export function loadConfig(path: string): LoadedConfig {
+export function loadConfig(path: string, overrides: ConfigOverrides = {}): LoadedConfig {
   const raw = readStructuredFile(path);
   validateAgainst('config.schema.json', raw, path, '');
   const config = raw as RawConfig;
@@ -82,7 +88,7 @@ export function loadConfig(path: string): LoadedConfig {
     json: reportPath(config.reports?.json, dir, path, 'reports.json'),
   };
   checkUniqueNames(config.models, path);
-  const models = config.models.map((m, i) => resolveModel(config, m, i, path, dir));
+  const models = config.models.map((m, i) => resolveModel(config, m, i, path, dir, overrides));
   return { path, dir, reports, models };
 }
 
@@ -121,7 +127,7 @@ export function checkWritableTarget(p: string, file: string, where?: string): vo
   if (!statSync(up).isDirectory()) throw new InputError(file, `report path ${p} is inside ${up}, which is a file, not a folder`, { where });
 }
 
-function resolveModel(config: RawConfig, m: RawModelConfig, i: number, file: string, dir: string): ModelJob {
+function resolveModel(config: RawConfig, m: RawModelConfig, i: number, file: string, dir: string, overrides: ConfigOverrides = {}): ModelJob {
   const where = `models[${i}]`;
   const d = config.defaults ?? {};
   if (m.count !== undefined && m.maxHz !== undefined) throw new InputError(file, 'give either count or maxHz, not both', { where: `${where}.maxHz` });
@@ -131,7 +137,9 @@ function resolveModel(config: RawConfig, m: RawModelConfig, i: number, file: str
   const maxHz = ownsForm ? m.maxHz : d.maxHz;
   const ruleSets = m.ruleSets ?? d.ruleSets ?? [];
   const ruleSetWhere = m.ruleSets ? `${where}.ruleSets` : 'defaults.ruleSets';
-  const layers: RuleLayer[] = [];
+  const baseline = resolveBaseline(config, m, where, file, dir, overrides);
+  // a baseline to compare with turns on the regression rules (at their defaults) under every other layer
+  const layers: RuleLayer[] = baseline?.compareDir !== undefined ? baselineRuleLayers(file) : [];
   ruleSets.forEach((name, k) => layers.push(...loadRuleSetLayers(name, dir, file, `${ruleSetWhere}[${k}]`)));
   if (d.rules) layers.push(...overrideLayers(d.rules, file, 'defaults.rules'));
   if (m.rules) layers.push(...overrideLayers(m.rules, file, `${where}.rules`));
@@ -151,7 +159,26 @@ function resolveModel(config: RawConfig, m: RawModelConfig, i: number, file: str
     configPath: file,
     where,
     raw: m,
+    baseline,
   };
+}
+
+/** Top-level `baseline` merged with the model's own, paths resolved; command-line directories win. */
+function resolveBaseline(config: RawConfig, m: RawModelConfig, where: string, file: string, dir: string, overrides: ConfigOverrides): BaselineJob | undefined {
+  if (!config.baseline && !m.baseline && overrides.baselineDir === undefined && overrides.saveBaselineDir === undefined) return undefined;
+  const { dir: rawDir, ...settings } = { ...config.baseline, ...m.baseline };
+  const at = m.baseline?.dir !== undefined ? `${where}.baseline.dir` : 'baseline.dir';
+  let compareDir = overrides.baselineDir;
+  if (compareDir === undefined && rawDir !== undefined) {
+    compareDir = resolve(dir, rawDir);
+    if (!existsSync(compareDir) || !statSync(compareDir).isDirectory()) throw new InputError(file, `baseline directory not found: ${compareDir}`, { where: at });
+  }
+  return { ...settings, compareDir, saveDir: overrides.saveBaselineDir, where: m.baseline ? `${where}.baseline` : 'baseline' };
+}
+
+/** Every rule that needs a baseline, at severity error with its default options. */
+function baselineRuleLayers(file: string): RuleLayer[] {
+  return builtInRules.filter((r) => r.needs.includes('baseline')).map((r) => ({ ruleId: r.id, severity: 'error' as const, options: {}, file, where: 'baseline' }));
 }
 
 function existingFile(value: string, dir: string, file: string, where: string): string {

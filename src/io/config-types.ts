@@ -23,13 +23,49 @@ export interface RawModelConfig extends RawSolveSettings {
   stiffness: string;
   mass: string;
   dofs?: string;
+  baseline?: RawBaselineConfig;
 }
 
 export interface RawConfig {
   $schema?: string;
   reports?: { junit?: string; json?: string };
   defaults?: RawSolveSettings;
+  baseline?: RawBaselineConfig;
   models: RawModelConfig[];
+}
+
+/** `baseline:` (top level or per model; the model's keys win): where the baseline is, how to compare. */
+export interface RawBaselineConfig {
+  /** Compare with `<dir>/<model>.baseline.json` (relative to the config). */
+  dir?: string;
+  /** DOFs whose shape values a saved baseline keeps: `auto` (default), `all`, or listed nodes. */
+  shapes?: 'auto' | 'all' | { nodes: number[]; components?: string[] };
+  /** Most DOFs of the automatic selection (default 2000). */
+  maxDofs?: number;
+  /** MAC weighting: `mass` (default) or `plain`. */
+  weighting?: 'mass' | 'plain';
+  /** Pairs below this MAC are not paired (default 0.5). */
+  minPairMac?: number;
+  /** Largest |Δf|/f (%) for a pair (default: no window). */
+  windowPercent?: number;
+  /** Consecutive modes closer than this (%) are treated as near-repeated (default 0.1). */
+  repeatedTolerancePercent?: number;
+}
+
+/** The baseline settings of one model, resolved (absolute paths). */
+export interface BaselineJob {
+  /** Compare with the baseline of this model in this directory. */
+  compareDir?: string;
+  /** Save this run's snapshot of the model into this directory (`check --save-baseline`). */
+  saveDir?: string;
+  shapes?: RawBaselineConfig['shapes'];
+  maxDofs?: number;
+  weighting?: 'mass' | 'plain';
+  minPairMac?: number;
+  windowPercent?: number;
+  repeatedTolerancePercent?: number;
+  /** Where the settings were written (`baseline` or `models[2].baseline`), for messages. */
+  where: string;
 }
 
 export interface RawRuleSet {
@@ -63,6 +99,8 @@ export interface ModelJob {
   where: string;
   /** The model's entry as written, for later pipeline stages (constraints, baseline) to read. */
   raw: RawModelConfig;
+  /** Baseline comparison / saving for this model, when configured or asked for on the command line. */
+  baseline?: BaselineJob;
 }
 
 export interface LoadedConfig {

@@ -22,6 +22,7 @@ import type { RuleContext } from '../rules/rule-types.js';
 import { runRules, verdictOf, type RuleResult, type UnavailableInputs } from '../rules/engine.js';
 import type { ModelReport, ModeRow, ProblemReport, SolveReport } from '../report/report-types.js';
 import { junitTimestamp } from '../report/report-types.js';
+import { runBaselineStep } from './baseline-step.js';
 
 export interface AnalyzeOptions {
   onProgress?: (message: string) => void;
@@ -58,8 +59,10 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
     else solveInto(context, job, input.dofMap, unavailable, report, options);
     // HOOK(geometry): context.geometry = computeGeometry({ stiffness, mass, dofMap, modes, ... })
     // when context.dofMap is present; report.geometry = a JSON-ready copy of it.
-    // HOOK(baseline): context.comparison = compare(context.modes, baseline from job.raw or the CLI);
-    // report.comparison = its JSON form (MAC matrix, pairing).
+    // baseline: compare with the stored snapshot (context.comparison), save one on --save-baseline
+    const baseline = await runBaselineStep(job, context, unavailable);
+    if (context.comparison) report.comparison = context.comparison;
+    if (baseline.saved) report.baselineSaved = baseline.saved;
     report.rules = runRules(context, job.rules, unavailable);
   } catch (e) {
     report.problem = problemOf(e);

@@ -71,6 +71,8 @@ export interface ModelReport {
   geometry?: unknown;
   /** Baseline comparison (issue "regression against a baseline") as plain JSON, when computed. */
   comparison?: unknown;
+  /** Baseline files written for this model by `check --save-baseline`. */
+  baselineSaved?: { json: string; shapes: string };
 }
 
 export interface CheckReport {

@@ -16,6 +16,10 @@ import { stiffnessOrthogonality } from './stiffness-orthogonality.js';
 import { rigidBodyModes } from './rigid-body-modes.js';
 import { firstElasticFrequency } from './first-elastic-frequency.js';
 import { modeFrequencies } from './mode-frequencies.js';
+import { frequencyDrift } from './frequency-drift.js';
+import { modeShapeMatch } from './mode-shape-match.js';
+import { modeSwap } from './mode-swap.js';
+import { newOrLostModes } from './new-or-lost-modes.js';
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 export type AnyRule = RuleDefinition<any>;
@@ -33,6 +37,10 @@ export const builtInRules: readonly AnyRule[] = [
   rigidBodyModes,
   firstElasticFrequency,
   modeFrequencies,
+  frequencyDrift,
+  modeShapeMatch,
+  modeSwap,
+  newOrLostModes,
   // geometry rules (rigid-body-energy, total-mass, ...) and baseline rules (frequency-drift, ...) go here
 ];
 
