@@ -21,7 +21,7 @@
  * The result goes to `decimalOut[0]` and the function returns whether it is proven: returning
  * a double from a call that is not inlined would allocate a heap number per value.
  *
- * Our own code; the table is computed here with BigInt at module load (651 entries).
+ * Our own code; the table is computed here with BigInt on first use (651 entries).
  */
 
 const MIN_Q = -342;
@@ -31,20 +31,31 @@ const MAX_Q = 308;
 const T_LIMBS = new Uint16Array((MAX_Q - MIN_Q + 1) * 4);
 const E5 = new Int16Array(MAX_Q - MIN_Q + 1);
 
-// fill the table: T_q = floor(5^q · 2^(127 − e5)) for q in [MIN_Q, MAX_Q]
-for (let q = MIN_Q; q <= MAX_Q; q++) {
-  const p = 5n ** BigInt(Math.abs(q));
-  const bits = p.toString(2).length;
-  let t: bigint;
-  let e5: number;
-  if (q >= 0) {
-    e5 = bits - 1;
-    const s = 127 - e5;
-    t = s >= 0 ? p << BigInt(s) : p >> BigInt(-s);
-  } else {
-    e5 = -bits; // 2^(bits−1) < 5^|q| < 2^bits, so log2(5^q) ∈ (−bits, −bits + 1)
-    t = (1n << BigInt(127 + bits)) / p;
+let tableReady = false;
+
+/** Bits in a positive BigInt. */
+function bitLength(x: bigint): number {
+  const hex = x.toString(16);
+  return hex.length * 4 - Math.clz32(parseInt(hex[0], 16)) + 28;
+}
+
+/** Fill the table on first use: T_q = floor(5^q · 2^(127 − e5)) for q in [MIN_Q, MAX_Q]. */
+function fillTable(): void {
+  let p = 1n; // 5^|q|
+  // q = 0, ±1, ±2, …: one power of five serves both signs
+  for (let a = 0; a <= -MIN_Q; a++, p *= 5n) {
+    const bits = bitLength(p);
+    if (a <= MAX_Q) {
+      const s = 127 - (bits - 1);
+      storeEntry(a, s >= 0 ? p << BigInt(s) : p >> BigInt(-s), bits - 1);
+    }
+    // 2^(bits−1) < 5^a < 2^bits (a ≥ 1), so log2(5^−a) ∈ (−bits, −bits + 1)
+    if (a > 0) storeEntry(-a, (1n << BigInt(127 + bits)) / p, -bits);
   }
+  tableReady = true;
+}
+
+function storeEntry(q: number, t: bigint, e5: number): void {
   const hi = t >> 64n;
   const k = (q - MIN_Q) * 4;
   for (let l = 0; l < 4; l++) T_LIMBS[k + l] = Number((hi >> BigInt(16 * l)) & 0xffffn);
@@ -96,6 +107,7 @@ export function decimalToDouble(negative: boolean, hi: number, extra: number, lo
 }
 
 function productPath(negative: boolean, hi: number, extra: number, lo: number, q: number): boolean {
+  if (!tableReady) fillTable();
   // w = hi · 10^extra + lo as two 32-bit words (wh, wl)
   const p10 = POW10[extra];
   const hiH = Math.floor(hi / TWO32);
