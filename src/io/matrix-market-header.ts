@@ -98,10 +98,7 @@ export function checkForStructuralMatrix(file: string, b: MatrixMarketBanner): v
   if (why) throw new InputError(file, why, { line: 1 });
 }
 
-/**
- * Parse the size line: two (array) or three (coordinate) whole numbers. Returns undefined
- * when the text is not such a line so the caller can name what it found.
- */
+/** Parse the size line: two (array) or three (coordinate) whole numbers, else InputError. */
 export function parseSizeLine(file: string, text: string, line: number, format: MatrixFormat): MatrixMarketSize {
   const words = text.trim().split(/\s+/);
   const want = format === 'coordinate' ? 3 : 2;
