@@ -14,9 +14,11 @@ function resolved(id: string, severity: 'error' | 'warning' = 'error', options?:
 }
 
 describe('registry', () => {
-  it('holds every rule of the issue once, each with a schema, defaults and messages', () => {
+  it('holds every rule of the issue exactly once, each with a schema, defaults and messages', () => {
     const wanted = ['rigid-body-modes', 'first-elastic-frequency', 'mode-frequencies', 'mass-normalization', 'mass-orthogonality', 'stiffness-orthogonality', 'eigen-residual', 'modes-complete', 'matrix-symmetry', 'matrix-finite', 'diagonal-sanity', 'conditioning'];
-    expect(new Set(ruleIds())).toEqual(new Set(wanted));
+    const ids = ruleIds();
+    expect(new Set(ids).size).toBe(ids.length);
+    for (const id of wanted) expect(ids).toContain(id);
     for (const r of builtInRules) {
       expect(r.optionsSchema.type).toBe('object');
       expect(Object.keys(r.messages).length).toBeGreaterThan(0);
