@@ -49,7 +49,7 @@ export class MatrixMarketLines {
   /** Dense values, column-major (mode `dense`). */
   dense = new Float64Array(0);
   private state: number = State.Banner;
-  /** Entry lines may take the one-pass path (coordinate, real, triplets). */
+  /** Data lines may take the one-pass path (real field; coordinate entries or array values). */
   private fast = false;
   private n = 0;
   private declared = 0;
@@ -95,7 +95,7 @@ export class MatrixMarketLines {
     // one line per turn: fast entries when possible, else the general line handler
     while (p < end) {
       if (this.fast) {
-        const q = this.fastEntry(buf, p, end);
+        const q = this.banner!.format === 'coordinate' ? this.fastEntry(buf, p, end) : this.fastValue(buf, p, end);
         if (q >= 0) {
           p = q;
           ln++;
@@ -139,6 +139,16 @@ export class MatrixMarketLines {
     return e + 1;
   }
 
+  /** One array value line `real\n`, as fastEntry; −1 when the general handler is needed. */
+  private fastValue(buf: Buffer, p: number, end: number): number {
+    scanRealInto(buf, p, end);
+    const v = realOut[0];
+    const e = scan.end;
+    if (scan.status !== SCAN_OK || e === p || e >= end || buf[e] !== 10 || v - v !== 0 || this.count === this.declared) return -1;
+    this.storeArrayValue(v);
+    return e + 1;
+  }
+
   /** After the last line: the file must have held a header and every declared entry. */
   finish(lastLine: number): void {
     if (this.state === State.Banner) throw new InputError(this.file, 'the file is empty', { line: 1 });
@@ -173,7 +183,7 @@ export class MatrixMarketLines {
     this.declared = size.entries;
     this.allocate(size);
     this.state = State.Entries;
-    this.fast = b.format === 'coordinate' && b.field === 'real' && this.mode === 'triplets';
+    this.fast = b.field === 'real' && (b.format === 'array' || this.mode === 'triplets');
   }
 
   /** A declared size must fit in the file: reject it before allocating anything. */
@@ -257,7 +267,11 @@ export class MatrixMarketLines {
     if (this.count === this.declared) {
       throw new InputError(this.file, `more values than the ${this.declared} an array of this size holds`, { line });
     }
-    const v = this.value(buf, p, end, line);
+    this.storeArrayValue(this.value(buf, p, end, line));
+  }
+
+  /** Place the next value of an array file (column-major; symmetric: rows j..n−1 of column j). */
+  private storeArrayValue(v: number): void {
     const i = this.nextRow;
     const j = this.nextCol;
     // advance down the column (symmetric arrays hold rows j..n−1 of column j)
@@ -269,6 +283,7 @@ export class MatrixMarketLines {
     if (this.mode === 'dense') {
       this.dense[i + j * this.size!.rows] = v;
     } else if (v !== 0) {
+      if (this.stored === this.rows.length) this.grow();
       const k = this.stored++;
       this.rows[k] = i;
       this.cols[k] = j;

@@ -103,7 +103,7 @@ export interface DenseArray {
 export async function readDenseArray(path: string): Promise<DenseArray> {
   const info = await probeFile(path);
   const parser = new MatrixMarketLines(path, 'dense', info);
-  const scanned = await forEachLine(path, parser.onLine, { info });
+  const scanned = await forEachLine(path, parser.onLine, { info, onBlock: parser.onBlock });
   parser.finish(scanned.lines);
   return { rows: parser.size!.rows, cols: parser.size!.cols, values: parser.dense };
 }

@@ -200,3 +200,19 @@ describe('reader structure', () => {
     expect(summary.diagonalSpread).toBe(15);
   });
 });
+
+describe('array files through gzip', () => {
+  it('a compressed array stiffness file grows its storage while reading', async () => {
+    const n = 400;
+    const lines = ['%%MatrixMarket matrix array real symmetric', `${n} ${n}`];
+    // lower triangle by columns: 1000 on the diagonal, 1 elsewhere (80 200 nonzeros > first guess)
+    for (let j = 0; j < n; j++) for (let i = j; i < n; i++) lines.push(i === j ? '1000' : '1');
+    const p = join(dir, 'array-dense.mtx.gz');
+    writeFileSync(p, gzipSync(lines.join('\n') + '\n'));
+    const { matrix, summary } = await readMatrixMarket(p);
+    expect(summary.storedNonzeros).toBe((n * (n + 1)) / 2);
+    expect(summary.bandwidth).toBe(n - 1);
+    expect(matrix.values[matrix.colPtr[n - 1]]).toBe(1000);
+    expect(matrix.values[matrix.colPtr[n - 1] - 1]).toBe(1);
+  });
+});
