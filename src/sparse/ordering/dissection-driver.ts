@@ -37,13 +37,19 @@ export function nestedDissectionWith(graph: AdjacencyGraph, split: PartSplitter,
   const leafSize = Math.max(2, options.leafSize ?? 200);
   const perm = new Int32Array(n);
   const local = new Int32Array(n).fill(-1);
+  const inPart = new Uint8Array(n);
   let out = 0;
 
-  /** Orders a small part by minimum degree of its induced subgraph. */
+  /**
+   * Orders a small part by minimum degree of its subgraph plus its halo: the neighbours outside
+   * the part, all in separators ordered later, steer the degrees but are not ordered here.
+   */
   const orderLeaf = (vertices: Int32Array): void => {
-    const sub = inducedSubgraph(graph, vertices, local);
-    const weights = options.weights ? Int32Array.from(vertices, (v) => options.weights![v]) : undefined;
-    const order = approximateMinimumDegree(sub, { weights });
+    const withHalo = partWithHalo(graph, vertices, inPart);
+    const sub = inducedSubgraph(graph, withHalo, local);
+    const halo = new Uint8Array(withHalo.length).fill(1, vertices.length);
+    const weights = options.weights ? Int32Array.from(withHalo, (v) => options.weights![v]) : undefined;
+    const order = approximateMinimumDegree(sub, { weights, halo });
     // translate local pivots back to global vertices
     for (let k = 0; k < order.length; k++) perm[out++] = vertices[order[k]];
   };
@@ -72,6 +78,26 @@ export function nestedDissectionWith(graph: AdjacencyGraph, split: PartSplitter,
 
   orderPart(Int32Array.from({ length: n }, (_, v) => v), 0);
   return perm;
+}
+
+/** The part's vertices followed by its outside neighbours (`inPart` is an n-long zeroed workspace). */
+function partWithHalo(graph: AdjacencyGraph, vertices: Int32Array, inPart: Uint8Array): Int32Array {
+  const { ptr, adj } = graph;
+  for (let k = 0; k < vertices.length; k++) inPart[vertices[k]] = 1;
+  const list: number[] = Array.from(vertices);
+  // each outside neighbour once (flag 2 marks it as taken)
+  for (let k = 0; k < vertices.length; k++) {
+    const v = vertices[k];
+    for (let p = ptr[v]; p < ptr[v + 1]; p++) {
+      const u = adj[p];
+      if (inPart[u] === 0) {
+        inPart[u] = 2;
+        list.push(u);
+      }
+    }
+  }
+  for (const v of list) inPart[v] = 0;
+  return Int32Array.from(list);
 }
 
 /**

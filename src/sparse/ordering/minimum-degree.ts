@@ -19,7 +19,7 @@
  * of weight w counts w in every degree. Vertices of very high degree (dense rows) are set
  * aside and ordered last.
  *
- * Result: perm[k] = vertex eliminated k-th.
+ * Result: perm[k] = vertex eliminated k-th (halo vertices, if any, left out).
  */
 import type { AdjacencyGraph } from './adjacency-graph.js';
 
@@ -30,6 +30,11 @@ export interface MinimumDegreeOptions {
   aggressiveAbsorption?: boolean;
   /** Vertices with more neighbours than this are ordered last (default max(16, 10·√n)). */
   denseThreshold?: number;
+  /**
+   * Halo: vertices (flag 1) that shape the degrees but are never pivots and are left out of the
+   * result — the boundary of a part whose neighbours are eliminated later by someone else.
+   */
+  halo?: Uint8Array;
 }
 
 /** Encodes "absorbed into parent p" in pe[] as a value ≤ −2 (−1 means "no parent"). */
@@ -56,6 +61,8 @@ interface QuotientGraph {
   maxElement: number; // largest |Lk| so far (bounds how far marks move per step)
   mindeg: number;
   eliminated: number; // total weight eliminated
+  remaining: number; // weight of all listed vertices, halo included (caps the degrees)
+  halo: Uint8Array; // 1 = never a pivot
 }
 
 /** Approximate minimum degree permutation of the graph's vertices (perm[k] = k-th pivot). */
@@ -65,7 +72,7 @@ export function approximateMinimumDegree(graph: AdjacencyGraph, options: Minimum
   if (n === 0) return perm;
   const aggressive = options.aggressiveAbsorption ?? true;
   const dense = options.denseThreshold ?? Math.max(16, Math.floor(10 * Math.sqrt(n)));
-  const q = initialQuotientGraph(graph, options.weights);
+  const q = initialQuotientGraph(graph, options.weights, options.halo);
   let out = 0;
   const denseList: number[] = [];
   let live = 0;
@@ -82,12 +89,14 @@ export function approximateMinimumDegree(graph: AdjacencyGraph, options: Minimum
   for (let i = 0; i < n; i++) {
     if (q.elen[i] === -1) continue;
     if (q.degree[i] === 0) {
-      perm[out++] = i;
+      if (!q.halo[i]) perm[out++] = i;
       q.elen[i] = -2;
       q.pe[i] = -1;
       q.w[i] = 0;
       q.nv[i] = 0;
     } else {
+      q.remaining += q.nv[i];
+      if (q.halo[i]) continue;
       live += q.nv[i];
       insertDegreeList(q, i, q.degree[i]);
     }
@@ -95,15 +104,15 @@ export function approximateMinimumDegree(graph: AdjacencyGraph, options: Minimum
   // eliminate supervariables of least approximate degree until every weight is used
   while (q.eliminated < live) {
     const k = selectPivot(q);
-    eliminate(q, k, live, aggressive);
+    eliminate(q, k, aggressive);
     // k and everything merged or mass-eliminated with it take the next pivot positions
     for (let v = k; v !== -1; v = q.chainNext[v]) perm[out++] = v;
   }
-  for (const i of denseList) perm[out++] = i;
-  return perm;
+  for (const i of denseList) if (!q.halo[i]) perm[out++] = i;
+  return out === n ? perm : perm.slice(0, out);
 }
 
-function initialQuotientGraph(graph: AdjacencyGraph, weights: Int32Array | undefined): QuotientGraph {
+function initialQuotientGraph(graph: AdjacencyGraph, weights: Int32Array | undefined, halo: Uint8Array | undefined): QuotientGraph {
   const { n, ptr, adj } = graph;
   const nnz = ptr[n];
   const size = nnz + Math.floor(nnz / 5) + 2 * n + 16;
@@ -134,6 +143,8 @@ function initialQuotientGraph(graph: AdjacencyGraph, weights: Int32Array | undef
     maxElement: 0,
     mindeg: 0,
     eliminated: 0,
+    remaining: 0,
+    halo: halo ?? new Uint8Array(n),
   };
   // list lengths and the (weighted) degree of each vertex
   for (let i = 0; i < n; i++) {
@@ -212,7 +223,7 @@ function compact(q: QuotientGraph): void {
 }
 
 /** One pivot step: form element k, update its variables' degrees, merge twins, relist them. */
-function eliminate(q: QuotientGraph, k: number, live: number, aggressive: boolean): void {
+function eliminate(q: QuotientGraph, k: number, aggressive: boolean): void {
   q.eliminated += q.nv[k];
   ensureRoom(q, k);
   const { pk1, pk2 } = formElement(q, k);
@@ -223,7 +234,7 @@ function eliminate(q: QuotientGraph, k: number, live: number, aggressive: boolea
   q.mark += q.maxElement;
   clearMarksIfNeeded(q);
   mergeIndistinguishable(q, pk1, pk2);
-  finalizeElement(q, k, pk1, pk2, live);
+  finalizeElement(q, k, pk1, pk2);
 }
 
 /** Makes sure the new element (at most Σ|Le| + |Ak| entries) fits at the end of iw. */
@@ -265,7 +276,7 @@ function formElement(q: QuotientGraph, k: number): { pk1: number; pk2: number } 
       dk += nvi;
       nv[i] = -nvi;
       iw[pk2++] = i;
-      removeDegreeList(q, i);
+      if (!q.halo[i]) removeDegreeList(q, i); // halo vertices are never listed
     }
     if (e !== k) {
       pe[e] = flip(k); // element e absorbed into k
@@ -336,7 +347,7 @@ function updateDegrees(q: QuotientGraph, k: number, pk1: number, pk2: number, ag
       iw[pn++] = j;
       h += j;
     }
-    if (d === 0) {
+    if (d === 0 && !q.halo[i]) {
       // nothing outside Lk: i is eliminated together with k
       pe[i] = flip(k);
       const nvi = -nv[i];
@@ -380,7 +391,7 @@ function mergeIndistinguishable(q: QuotientGraph, pk1: number, pk2: number): voi
       for (let p = pe[i] + 1; p < pe[i] + ln; p++) w[iw[p]] = mark;
       let jPrev = i;
       for (let j = next[i]; j !== -1; ) {
-        let same = len[j] === ln && elen[j] === eln;
+        let same = len[j] === ln && elen[j] === eln && q.halo[j] === q.halo[i];
         for (let p = pe[j] + 1; same && p < pe[j] + ln; p++) same = w[iw[p]] === mark;
         if (same) {
           pe[j] = flip(i);
@@ -400,7 +411,7 @@ function mergeIndistinguishable(q: QuotientGraph, pk1: number, pk2: number): voi
 }
 
 /** Restores the weights of Lk's survivors, relists them by degree, and stores Lk compactly. */
-function finalizeElement(q: QuotientGraph, k: number, pk1: number, pk2: number, live: number): void {
+function finalizeElement(q: QuotientGraph, k: number, pk1: number, pk2: number): void {
   const { iw, pe, len, nv, w, degree } = q;
   const dk = degree[k];
   let p = pk1;
@@ -410,9 +421,9 @@ function finalizeElement(q: QuotientGraph, k: number, pk1: number, pk2: number, 
     if (nvi <= 0) continue; // merged away or mass-eliminated
     nv[i] = nvi;
     // external degree bound: previous bound + |Lk \ i|, capped by what is left
-    const d = Math.min(degree[i] + dk - nvi, live - q.eliminated - nvi);
+    const d = Math.max(0, Math.min(degree[i] + dk - nvi, q.remaining - q.eliminated - nvi));
     degree[i] = d;
-    insertDegreeList(q, i, d);
+    if (!q.halo[i]) insertDegreeList(q, i, d);
     if (d < q.mindeg) q.mindeg = d;
     iw[p++] = i;
   }

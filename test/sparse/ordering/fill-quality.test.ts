@@ -71,6 +71,18 @@ describe('approximate minimum degree', () => {
     });
   }
 
+  it('leaves halo vertices out of the ordering and orders every other vertex once', () => {
+    const { matrix } = gridPattern(12, 12, 1, 1, 'faces');
+    const graph = adjacencyOfPencil(matrix);
+    const halo = new Uint8Array(graph.n);
+    for (let v = 0; v < 12; v++) halo[v] = halo[graph.n - 1 - v] = 1; // first and last grid rows
+    const perm = approximateMinimumDegree(graph, { halo });
+    expect(perm.length).toBe(graph.n - 24);
+    const seen = new Uint8Array(graph.n);
+    for (const v of perm) seen[v]++;
+    for (let v = 0; v < graph.n; v++) expect(seen[v]).toBe(halo[v] ? 0 : 1);
+  });
+
   it('orders a graph with isolated and dense vertices', () => {
     // a star (vertex 0 joined to all) plus isolated vertices: the centre is dense and goes last
     const n = 400;
