@@ -52,7 +52,9 @@ export async function probeFile(path: string): Promise<ByteSourceInfo> {
     return { fileBytes: st.size, gzip: bytesRead === 2 && head[0] === GZIP_MAGIC_0 && head[1] === GZIP_MAGIC_1 };
   } catch (e) {
     if (e instanceof InputError) throw e;
-    throw new InputError(path, `cannot be read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+    const code = (e as NodeJS.ErrnoException).code;
+    const why = code === 'ENOENT' ? 'no such file' : code === 'EACCES' ? 'permission denied' : (code ?? (e as Error).message);
+    throw new InputError(path, `cannot be read (${why})`);
   } finally {
     await fh?.close();
   }
