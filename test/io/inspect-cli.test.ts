@@ -114,7 +114,7 @@ describe('modalgate inspect (compiled CLI)', () => {
     });
   });
 
-  it('K and M of different sizes are not inspected together, but each good file prints its facts', async () => {
+  it('good files: exit 0 and the facts, as text and as JSON with a DOF map', async () => {
     const [k, kd] = await runAll([
       ['inspect', join(good, 'k3.mtx')],
       ['inspect', join(good, 'k3.mtx'), '--dofs', join(good, 'dofs3.csv'), '--json'],
