@@ -38,6 +38,8 @@ export interface CheckOptions {
   cwd?: string;
   /** Where the console report goes (default: stdout). */
   print?: (text: string) => void;
+  /** Where the one-line error goes when the check cannot run (default: stderr). */
+  printError?: (line: string) => void;
 }
 
 export interface CheckOutcome {
@@ -107,7 +109,7 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   const labels: Record<string, string> = { junit: 'JUnit XML', json: 'JSON report', markdown: 'Markdown summary' };
   for (const [kind, p] of Object.entries(written)) if (!opts.quiet) print(`${labels[kind]}: ${p}\n`);
   for (const m of models) if (m.baselineSaved && !opts.quiet) print(`baseline of ${m.name} saved: ${m.baselineSaved.json}\n`);
-  if (problem) process.stderr.write(`modalgate: ${problem.message}\n`);
+  if (problem) (opts.printError ?? ((l: string) => process.stderr.write(l)))(`modalgate: ${problem.message}\n`);
   const code = report.verdict === 'pass' ? EXIT_PASS : report.verdict === 'fail' ? EXIT_RULE_FAILED : EXIT_BAD_INPUT;
   return { code, report, written };
 }

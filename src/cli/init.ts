@@ -39,22 +39,24 @@ export function registerInit(program: Command): void {
     .option('-f, --force', 'overwrite an existing file')
     .action(
       runAction((opts: { output: string; force?: boolean }) => {
-        const target = resolve(process.cwd(), opts.output);
-        if (existsSync(target) && !opts.force) throw new InputError(target, 'already exists; not overwritten (use --force to replace it)');
-        writeFileAtomic(target, STARTER_CONFIG);
-        process.stdout.write(
-          [
-            `wrote ${target}`,
-            'next:',
-            '  1. set name, stiffness and mass (and dofs if you export a DOF map) for each model;',
-            '  2. pick the rule set: free-free for an unsupported model, supported for a constrained one',
-            '     (then set rules.first-elastic-frequency.minHz from your stiffness requirement);',
-            '  3. run `npx modalgate check` and see `npx modalgate rules` for every rule and default;',
-            '  4. copy a CI template from node_modules/modalgate/ci/ into your pipeline.',
-            '',
-          ].join('\n'),
-        );
+        process.stdout.write(writeStarterConfig(resolve(process.cwd(), opts.output), opts.force ?? false));
         return 0;
       }),
     );
+}
+
+/** Write the starter config at `target` (refusing to overwrite unless `force`); returns what to print. */
+export function writeStarterConfig(target: string, force: boolean): string {
+  if (existsSync(target) && !force) throw new InputError(target, 'already exists; not overwritten (use --force to replace it)');
+  writeFileAtomic(target, STARTER_CONFIG);
+  return [
+    `wrote ${target}`,
+    'next:',
+    '  1. set name, stiffness and mass (and dofs if you export a DOF map) for each model;',
+    '  2. pick the rule set: free-free for an unsupported model, supported for a constrained one',
+    '     (then set rules.first-elastic-frequency.minHz from your stiffness requirement);',
+    '  3. run `npx modalgate check` and see `npx modalgate rules` for every rule and default;',
+    '  4. copy a CI template from node_modules/modalgate/ci/ into your pipeline.',
+    '',
+  ].join('\n');
 }
