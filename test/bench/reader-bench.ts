@@ -11,7 +11,9 @@
  *     (colPtr 4(n+1) + rowIdx 4·nnz + values 8·nnz bytes)
  * The temporary file is deleted afterwards.
  */
-import { mkdtempSync, rmSync, statSync } from 'node:fs';
+import { createReadStream, createWriteStream, mkdtempSync, rmSync, statSync } from 'node:fs';
+import { pipeline } from 'node:stream/promises';
+import { createGzip } from 'node:zlib';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { cpus, loadavg } from 'node:os';
@@ -63,6 +65,23 @@ async function writeBenchFile(path: string): Promise<{ nnz: number; writeS: numb
   return { nnz: a.colPtr[N], writeS: (performance.now() - tw) / 1000 };
 }
 
+/** The same file gzip-compressed (level 1): read throughput in text MB/s, no target. */
+async function gzipFigure(path: string, textBytes: number, plain: SymmetricCsc): Promise<void> {
+  const gz = `${path}.gz`;
+  await pipeline(createReadStream(path), createGzip({ level: 1 }), createWriteStream(gz));
+  const cpu0 = process.cpuUsage();
+  const t0 = performance.now();
+  const { matrix } = await readMatrixMarket(gz);
+  const readS = (performance.now() - t0) / 1000;
+  const cpu = process.cpuUsage(cpu0);
+  const same = Buffer.from(matrix.values.buffer).equals(Buffer.from(plain.values.buffer));
+  console.log(
+    `gzip (${(statSync(gz).size / MB).toFixed(1)} MB compressed): ${(textBytes / MB / readS).toFixed(0)} MB/s of text wall, ` +
+      `${(textBytes / MB / ((cpu.user + cpu.system) / 1e6)).toFixed(0)} MB/s of CPU time; values identical to .mtx: ${same}`,
+  );
+  rmSync(gz, { force: true });
+}
+
 export default async function readerBench(): Promise<void> {
   const dir = mkdtempSync(join(tmpdir(), 'modalgate-reader-bench-'));
   const path = join(dir, 'banded.mtx');
@@ -105,6 +124,7 @@ export default async function readerBench(): Promise<void> {
     const worst = Math.max(addedRss, addedBuffers) / cscBytes;
     console.log(`target peak memory ≤ 3 × CSC: ${worst <= 3 ? 'met' : 'NOT met'} (${worst.toFixed(2)} ×)`);
     if (summary.storedNonzeros !== nnz) console.log(`ERROR: read ${summary.storedNonzeros} nonzeros, wrote ${nnz}`);
+    await gzipFigure(path, bytes, matrix);
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
