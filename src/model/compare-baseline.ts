@@ -139,7 +139,7 @@ export function groupIndex(frequenciesHz: ArrayLike<number>, tolerancePercent: n
   let next = rigid > 0 ? 1 : 0;
   // rigid-body modes share group 0; chain consecutive elastic modes whose relative gap is within the tolerance
   for (let k = 0; k < m; k++) {
-    const close = k > rigid && (100 * (frequenciesHz[k] - frequenciesHz[k - 1])) / Math.abs(frequenciesHz[k - 1]) <= tolerancePercent;
+    const close = k > rigid && (100 * Math.abs(frequenciesHz[k] - frequenciesHz[k - 1])) / Math.abs(frequenciesHz[k - 1]) <= tolerancePercent;
     group[k] = k < rigid ? 0 : close ? group[k - 1] : next++;
   }
   return group;
