@@ -66,6 +66,8 @@ mtx('array-two-values-per-line.mtx', '%%MatrixMarket matrix array real general\n
 full = GOOD3.encode()
 mtx('truncated.mtx.gz', gzip.compress(full)[:-12], 6, 'truncated')
 mtx('gzip-bad-entry.mtx.gz', gzip.compress((B + '3 3 2\n1 1 1.0\n7 1 2.0\n').encode()), 4, 'outside 1..3')
+mtx('gzip-declared-too-large.mtx.gz', gzip.compress((B + '1000 1000 100000000\n1 1 1.0\n').encode()), 2, 'even decompressed')
+mtx('gzip-corrupt.mtx.gz', b'\x1f\x8b' + bytes(range(3, 200)), 1, 'not valid gzip data')
 mtx('gzip-no-size-line.mtx.gz', gzip.compress((B + '% nothing else\n').encode()), 2, 'before the size line')
 
 # good small matrices used with the DOF-map cases and the K/M size check
