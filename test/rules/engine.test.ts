@@ -15,7 +15,7 @@ function resolved(id: string, severity: 'error' | 'warning' = 'error', options?:
 
 describe('registry', () => {
   it('holds every rule of the issue exactly once, each with a schema, defaults and messages', () => {
-    const wanted = ['rigid-body-modes', 'first-elastic-frequency', 'mode-frequencies', 'mass-normalization', 'mass-orthogonality', 'stiffness-orthogonality', 'eigen-residual', 'modes-complete', 'matrix-symmetry', 'matrix-finite', 'diagonal-sanity', 'conditioning'];
+    const wanted = ['rigid-body-modes', 'first-elastic-frequency', 'mode-frequencies', 'mass-normalization', 'mass-orthogonality', 'stiffness-orthogonality', 'eigen-residual', 'modes-complete', 'matrix-symmetry', 'matrix-finite', 'diagonal-sanity', 'conditioning', 'frequency-drift', 'mode-shape-match', 'mode-swap', 'new-or-lost-modes'];
     const ids = ruleIds();
     expect(new Set(ids).size).toBe(ids.length);
     for (const id of wanted) expect(ids).toContain(id);
