@@ -12,7 +12,7 @@
  * Result: perm[k] = vertex eliminated k-th.
  */
 import type { AdjacencyGraph } from './adjacency-graph.js';
-import { nestedDissectionWith, pruneSeparator, SEPARATOR, SIDE_A, SIDE_B, type DissectionOptions } from './dissection-driver.js';
+import { nestedDissectionWith, separatorFromTwoSides, SIDE_A, SIDE_B, type DissectionOptions } from './dissection-driver.js';
 
 const OUTSIDE = 255;
 
@@ -52,7 +52,8 @@ function splitAtBestMedian(
     if (cut === undefined) continue;
     // A below the cut, B at or above it
     for (let k = 0; k < m; k++) trial[k] = keys[k] < cut ? SIDE_A : SIDE_B;
-    const sepWeight = separatorFromCut(graph, weights, vertices, trial, where);
+    const sepWeight = separatorFromTwoSides(graph, weights, vertices, trial, where);
+    for (let k = 0; k < m; k++) where[vertices[k]] = OUTSIDE;
     if (sepWeight < bestWeight) {
       bestWeight = sepWeight;
       side.set(trial);
@@ -72,52 +73,4 @@ function medianCut(keys: Float64Array): number | undefined {
   let k = m >> 1;
   while (sorted[k] === mid) k++;
   return sorted[k];
-}
-
-/**
- * Turns a two-sided labelling into A / B / separator: the boundary vertices of the side whose
- * boundary is lighter become the separator. Returns the separator's weight.
- */
-function separatorFromCut(
-  graph: AdjacencyGraph,
-  weights: Int32Array | undefined,
-  vertices: Int32Array,
-  side: Uint8Array,
-  where: Uint8Array,
-): number {
-  const { ptr, adj } = graph;
-  const m = vertices.length;
-  // publish the sides globally so neighbour tests are O(1)
-  for (let k = 0; k < m; k++) where[vertices[k]] = side[k];
-  const boundary = new Uint8Array(m);
-  const boundaryWeight = [0, 0];
-  // boundary[k] = 1 when vertex k has a neighbour on the other side
-  for (let k = 0; k < m; k++) {
-    const v = vertices[k];
-    const other = side[k] === SIDE_A ? SIDE_B : SIDE_A;
-    for (let p = ptr[v]; p < ptr[v + 1]; p++) {
-      if (where[adj[p]] === other) {
-        boundary[k] = 1;
-        boundaryWeight[side[k]] += weights ? weights[v] : 1;
-        break;
-      }
-    }
-  }
-  const sepSide = boundaryWeight[SIDE_A] <= boundaryWeight[SIDE_B] ? SIDE_A : SIDE_B;
-  // the lighter boundary becomes the separator
-  for (let k = 0; k < m; k++) {
-    if (boundary[k] && side[k] === sepSide) {
-      side[k] = SEPARATOR;
-      where[vertices[k]] = SEPARATOR;
-    }
-  }
-  pruneSeparator(graph, vertices, side, where);
-  let sepWeight = 0;
-  // weight of what is left in the separator; restore the workspace
-  for (let k = 0; k < m; k++) {
-    const v = vertices[k];
-    if (side[k] === SEPARATOR) sepWeight += weights ? weights[v] : 1;
-    where[v] = OUTSIDE;
-  }
-  return sepWeight;
 }

@@ -128,3 +128,47 @@ export function pruneSeparator(
     }
   }
 }
+
+/**
+ * Turns a two-sided labelling into A / B / separator: the boundary vertices of the side whose
+ * boundary is lighter become the separator. Returns the separator's weight.
+ */
+export function separatorFromTwoSides(
+  graph: AdjacencyGraph,
+  weights: Int32Array | undefined,
+  vertices: Int32Array,
+  side: Uint8Array,
+  where: Uint8Array,
+): number {
+  const { ptr, adj } = graph;
+  const m = vertices.length;
+  // publish the sides globally so neighbour tests are O(1)
+  for (let k = 0; k < m; k++) where[vertices[k]] = side[k];
+  const boundary = new Uint8Array(m);
+  const boundaryWeight = [0, 0];
+  // boundary[k] = 1 when vertex k has a neighbour on the other side
+  for (let k = 0; k < m; k++) {
+    const v = vertices[k];
+    const other = side[k] === SIDE_A ? SIDE_B : SIDE_A;
+    for (let p = ptr[v]; p < ptr[v + 1]; p++) {
+      if (where[adj[p]] === other) {
+        boundary[k] = 1;
+        boundaryWeight[side[k]] += weights ? weights[v] : 1;
+        break;
+      }
+    }
+  }
+  const sepSide = boundaryWeight[SIDE_A] <= boundaryWeight[SIDE_B] ? SIDE_A : SIDE_B;
+  // the lighter boundary becomes the separator
+  for (let k = 0; k < m; k++) {
+    if (boundary[k] && side[k] === sepSide) {
+      side[k] = SEPARATOR;
+      where[vertices[k]] = SEPARATOR;
+    }
+  }
+  pruneSeparator(graph, vertices, side, where);
+  let sepWeight = 0;
+  // weight of what is left in the separator
+  for (let k = 0; k < m; k++) if (side[k] === SEPARATOR) sepWeight += weights ? weights[vertices[k]] : 1;
+  return sepWeight;
+}
