@@ -41,16 +41,8 @@ function forwardSweep(f: SupernodalFactor, x: Float64Array, k: number, y: Float6
       for (let i = 0; i < nc; i++) y[yo + i] = x[xo + i];
       y.fill(0, yo + nc, yo + nr);
     }
-    // y ← L(R, cols)⁻¹-style elimination: column j subtracts L(j+1:, j) y_j
-    for (let j = 0; j < nc; j++) {
-      const lj = v0 + j * nr;
-      for (let c = 0; c < k; c++) {
-        const yo = c * nr;
-        const yj = y[yo + j];
-        if (yj === 0) continue;
-        for (let i = j + 1; i < nr; i++) y[yo + i] -= values[lj + i] * yj;
-      }
-    }
+    // y ← L11⁻¹ y on own rows, y(below) = −L21 y: four columns of L per pass over y
+    for (let c = 0; c < k; c++) forwardColumns(values, v0, nr, nc, y, c * nr);
     // write back: own rows directly, rows below accumulate
     for (let c = 0; c < k; c++) {
       const yo = c * nr;
@@ -79,20 +71,79 @@ function backwardSweep(f: SupernodalFactor, x: Float64Array, k: number, y: Float
       for (let i = nc; i < nr; i++) y[yo + i] = x[xo + rows[r0 + i]];
     }
     // y_j −= L(j+1:, j)ᵀ y(j+1:), last column first
-    for (let j = nc - 1; j >= 0; j--) {
-      const lj = v0 + j * nr;
-      for (let c = 0; c < k; c++) {
-        const yo = c * nr;
-        let sum = 0;
-        for (let i = j + 1; i < nr; i++) sum += values[lj + i] * y[yo + i];
-        y[yo + j] -= sum;
-      }
-    }
+    for (let c = 0; c < k; c++) backwardColumns(values, v0, nr, nc, y, c * nr);
     // own rows back into X
     for (let c = 0; c < k; c++) {
       const yo = c * nr;
       const xo = c * n + f0;
       for (let i = 0; i < nc; i++) x[xo + i] = y[yo + i];
     }
+  }
+}
+
+/** One right-hand side y[yo ..] of one supernode: y(j+1:) −= L(j+1:, j) y_j for j = 0..nc−1. */
+function forwardColumns(values: Float64Array, v0: number, nr: number, nc: number, y: Float64Array, yo: number): void {
+  let j = 0;
+  // groups of four columns: solve the 4×4 unit triangle, then one fused pass below it
+  for (; j + 4 <= nc; j += 4) {
+    const q0 = v0 + j * nr;
+    const q1 = q0 + nr;
+    const q2 = q1 + nr;
+    const q3 = q2 + nr;
+    const y0 = y[yo + j];
+    const y1 = y[yo + j + 1] - values[q0 + j + 1] * y0;
+    const y2 = y[yo + j + 2] - values[q0 + j + 2] * y0 - values[q1 + j + 2] * y1;
+    const y3 = y[yo + j + 3] - values[q0 + j + 3] * y0 - values[q1 + j + 3] * y1 - values[q2 + j + 3] * y2;
+    y[yo + j + 1] = y1;
+    y[yo + j + 2] = y2;
+    y[yo + j + 3] = y3;
+    for (let i = j + 4; i < nr; i++) {
+      y[yo + i] -= values[q0 + i] * y0 + values[q1 + i] * y1 + values[q2 + i] * y2 + values[q3 + i] * y3;
+    }
+  }
+  // remaining columns one at a time
+  for (; j < nc; j++) {
+    const q0 = v0 + j * nr;
+    const y0 = y[yo + j];
+    if (y0 !== 0) for (let i = j + 1; i < nr; i++) y[yo + i] -= values[q0 + i] * y0;
+  }
+}
+
+/** One right-hand side of one supernode: y_j −= L(j+1:, j)ᵀ y(j+1:) for j = nc−1..0. */
+function backwardColumns(values: Float64Array, v0: number, nr: number, nc: number, y: Float64Array, yo: number): void {
+  const groups = nc >> 2;
+  // columns beyond the last full group of four, last first
+  for (let j = nc - 1; j >= groups * 4; j--) {
+    const q0 = v0 + j * nr;
+    let sum = 0;
+    for (let i = j + 1; i < nr; i++) sum += values[q0 + i] * y[yo + i];
+    y[yo + j] -= sum;
+  }
+  // groups of four, last first: four dot products over the rows below, then the 4×4 triangle
+  for (let g = groups - 1; g >= 0; g--) {
+    const j = 4 * g;
+    const q0 = v0 + j * nr;
+    const q1 = q0 + nr;
+    const q2 = q1 + nr;
+    const q3 = q2 + nr;
+    let s0 = 0;
+    let s1 = 0;
+    let s2 = 0;
+    let s3 = 0;
+    for (let i = j + 4; i < nr; i++) {
+      const yi = y[yo + i];
+      s0 += values[q0 + i] * yi;
+      s1 += values[q1 + i] * yi;
+      s2 += values[q2 + i] * yi;
+      s3 += values[q3 + i] * yi;
+    }
+    const y3 = y[yo + j + 3] - s3;
+    const y2 = y[yo + j + 2] - s2 - values[q2 + j + 3] * y3;
+    const y1 = y[yo + j + 1] - s1 - values[q1 + j + 2] * y2 - values[q1 + j + 3] * y3;
+    const y0 = y[yo + j] - s0 - values[q0 + j + 1] * y1 - values[q0 + j + 2] * y2 - values[q0 + j + 3] * y3;
+    y[yo + j] = y0;
+    y[yo + j + 1] = y1;
+    y[yo + j + 2] = y2;
+    y[yo + j + 3] = y3;
   }
 }
