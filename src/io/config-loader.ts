@@ -171,7 +171,8 @@ function resolveBaseline(config: RawConfig, m: RawModelConfig, where: string, fi
   let compareDir = overrides.baselineDir;
   if (compareDir === undefined && rawDir !== undefined) {
     compareDir = resolve(dir, rawDir);
-    if (!existsSync(compareDir) || !statSync(compareDir).isDirectory()) throw new InputError(file, `baseline directory not found: ${compareDir}`, { where: at });
+    const firstSave = compareDir === overrides.saveBaselineDir && !existsSync(compareDir);
+    if (!firstSave && (!existsSync(compareDir) || !statSync(compareDir).isDirectory())) throw new InputError(file, `baseline directory not found: ${compareDir}`, { where: at });
   }
   return { ...settings, compareDir, saveDir: overrides.saveBaselineDir, where: m.baseline ? `${where}.baseline` : 'baseline' };
 }

@@ -42,6 +42,8 @@ function modelSection(m: ModelReport, options: MarkdownOptions): string[] {
   if (failing.length > 0) out.push('');
   const facts = m.comparison as ComparisonFacts | undefined;
   if (facts) out.push(...comparisonTable(facts, m.rules, options));
+  const skipped = m.rules.find((r) => r.ruleId in FLAG_LABEL && r.status === 'skip');
+  if (!facts && skipped) out.push(`No baseline comparison: ${inline(skipped.message.replace(/^not evaluated: /, ''))}`, '');
   return out;
 }
 
