@@ -10,7 +10,8 @@ import type { ModesResult } from '../eigen/modes-types.js';
 import type { GeometryFacts, ConstraintFacts } from './geometry-facts.js';
 import { RIGID_BODY_DIRECTIONS, representedDirections, type Point3, type RigidBodyDirection } from './rigid-body-vectors.js';
 import { rigidBodyVectorsAboutCenterOfMass } from './mass-properties.js';
-import { rigidBodyEnergy, stiffnessMassScale } from './rigid-body-energy.js';
+import { rigidBodyEnergy, stiffnessMassScale, type ReferenceEigenvalueSource } from './rigid-body-energy.js';
+import { elasticEigenvalueEstimate } from './elastic-estimate.js';
 import { modalParticipation } from './participation.js';
 import { countNearZeroModes, freeRigidBodyDirections, localizeMechanisms } from './mechanism-localization.js';
 
@@ -56,9 +57,10 @@ export function computeGeometry(input: GeometryInput): GeometryFacts {
   const nearZero = modes ? (input.nearZeroModes ?? countNearZeroModes(modes.eigenvalues, scale)) : null;
   const elasticIndex = nearZero === null ? null : Math.max(nearZero, input.expectedRigidBodyModes ?? 0);
   const firstElastic = modes && elasticIndex !== null && elasticIndex < modes.eigenvalues.length ? modes.eigenvalues[elasticIndex] : null;
+  const reference = referenceEigenvalue(firstElastic, () => elasticEigenvalueEstimate(stiffness, mass, dofMap, rigid), scale);
   const energy = rigidBodyEnergy(stiffness, rigid, gDiagonal, dofMap, {
-    referenceEigenvalue: firstElastic !== null && firstElastic > 0 ? firstElastic : scale,
-    referenceSource: firstElastic !== null && firstElastic > 0 ? 'first-elastic-mode' : 'stiffness-mass-scale',
+    referenceEigenvalue: reference.value,
+    referenceSource: reference.source,
     originalDofs: input.originalDofs,
     top,
   });
@@ -86,6 +88,18 @@ export function computeGeometry(input: GeometryInput): GeometryFacts {
           })
         : null,
   };
+}
+
+/** λ_ref: the first elastic mode, else the smooth-field Ritz estimate, else tr K / tr M. */
+function referenceEigenvalue(
+  firstElastic: number | null,
+  estimate: () => number | null,
+  scale: number,
+): { value: number; source: ReferenceEigenvalueSource } {
+  if (firstElastic !== null && firstElastic > 0) return { value: firstElastic, source: 'first-elastic-mode' };
+  const ritz = estimate();
+  if (ritz !== null) return { value: ritz, source: 'smooth-field-estimate' };
+  return { value: scale, source: 'stiffness-mass-scale' };
 }
 
 function supportedReason(constraints: ConstraintFacts | undefined, nearZero: number | null): { reason: string } | null {

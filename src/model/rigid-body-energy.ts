@@ -6,9 +6,10 @@
  * round-off. The energy is compared with the kinetic-energy scale of the same motion,
  *   E_ref,k = ½ λ_ref r_kᵀ M r_k,   so   E_k / E_ref,k = (rᵀKr / rᵀMr) / λ_ref = (f_r / f_ref)²,
  * the squared ratio of the rigid vector's Rayleigh frequency to a reference frequency.
- * λ_ref is the first elastic eigenvalue when modes are known; otherwise the stiffness/mass
- * scale tr_t(K) / tr_t(M) over translational DOFs (an upper-spectrum scale, so the ratio is
- * then far smaller and the check much looser — reported as such).
+ * λ_ref is the first elastic eigenvalue when modes are known; otherwise the Rayleigh–Ritz
+ * value of smooth deformation fields (./elastic-estimate.ts, an upper bound of λ₇, so the check
+ * is somewhat looser); failing that, the stiffness/mass scale tr_t(K) / tr_t(M) over
+ * translational DOFs (an upper-spectrum scale: a much looser check, reported as such).
  *
  * Where: residuals of the mass-normalized vectors r̂_k = r_k / √(r_kᵀ M r_k) make the six
  * directions comparable; each DOF scores max_k |(K r̂_k)_i|, each node its largest DOF score.
@@ -17,7 +18,7 @@ import { symMultiplyBlock, diagonalOf, type SymmetricCsc } from '../sparse/csc.j
 import { COMPONENTS, type DofMap } from '../io/dof-map.js';
 import { RIGID_BODY_DIRECTIONS, type RigidBodyDirection, type RigidBodyVectors } from './rigid-body-vectors.js';
 
-export type ReferenceEigenvalueSource = 'first-elastic-mode' | 'stiffness-mass-scale';
+export type ReferenceEigenvalueSource = 'first-elastic-mode' | 'smooth-field-estimate' | 'stiffness-mass-scale';
 
 export interface DirectionEnergy {
   direction: RigidBodyDirection;

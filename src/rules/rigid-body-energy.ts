@@ -45,10 +45,13 @@ export const rigidBodyEnergy: RuleDefinition<RigidBodyEnergyOptions> = {
     if (o.onlyFreeFree && g.supported) return outcome('skip', messages.skipped, { reason: g.supported.reason });
     const e = g.rigidBodyEnergy;
     const measured = Math.abs(e.maxRelativeEnergy);
+    const lambda = e.referenceEigenvalue.toExponential(3);
     const reference =
       e.referenceSource === 'first-elastic-mode'
-        ? `½ λ rᵀMr with λ = ${e.referenceEigenvalue.toExponential(3)} (first elastic mode)`
-        : `½ λ rᵀMr with λ = tr K / tr M = ${e.referenceEigenvalue.toExponential(3)} (no modes: a loose check)`;
+        ? `½ λ rᵀMr with λ = ${lambda} of the first elastic mode`
+        : e.referenceSource === 'smooth-field-estimate'
+          ? `½ λ rᵀMr with λ = ${lambda}, an upper estimate of the first elastic eigenvalue (no elastic mode solved)`
+          : `½ λ rᵀMr with λ = tr K / tr M = ${lambda} (no elastic mode solved: a loose check)`;
     const details = {
       referenceEigenvalue: e.referenceEigenvalue,
       referenceSource: e.referenceSource,

@@ -31,14 +31,21 @@ describe('rigid-body energy of free-free models', () => {
     });
   }
 
-  it('without modes the reference is the stiffness/mass scale and the energy is still tiny', () => {
-    const model = models['hex box (3 DOF nodes)'];
-    const facts = computeGeometry({ stiffness: model.stiffness, mass: model.mass, dofMap: model.dofMap });
-    expect(facts.rigidBodyEnergy.referenceSource).toBe('stiffness-mass-scale');
-    expect(Math.abs(facts.rigidBodyEnergy.maxRelativeEnergy)).toBeLessThan(1e-12);
-    expect(facts.participation).toBeNull();
-    expect(facts.mechanisms).toBeNull();
-  });
+  for (const [name, model] of Object.entries(models)) {
+    it(`${name}: without modes the reference is a smooth-field Ritz value, an upper bound of λ₇ within a factor 10`, () => {
+      // Courant–Fischer: a Rayleigh–Ritz value over fields M-orthogonal to the rigid-body space is ≥ λ₇
+      // (reference λ₇ from the dense ml-matrix solve).
+      const lambda7 = denseModes(model.stiffness, model.mass, 7).eigenvalues[6];
+      const facts = computeGeometry({ stiffness: model.stiffness, mass: model.mass, dofMap: model.dofMap });
+      expect(facts.rigidBodyEnergy.referenceSource).toBe('smooth-field-estimate');
+      const estimate = facts.rigidBodyEnergy.referenceEigenvalue;
+      expect(estimate).toBeGreaterThanOrEqual(lambda7 * (1 - 1e-9));
+      expect(estimate).toBeLessThan(10 * lambda7);
+      expect(Math.abs(facts.rigidBodyEnergy.maxRelativeEnergy)).toBeLessThan(1e-10);
+      expect(facts.participation).toBeNull();
+      expect(facts.mechanisms).toBeNull();
+    });
+  }
 });
 
 describe('unintended grounding: a spring to ground at one node', () => {
