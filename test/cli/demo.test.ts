@@ -62,6 +62,17 @@ describe.skipIf(!haveFixtures)('modalgate demo', () => {
       expect(m.stats.dofs).toBe(scenario.models[m.name].dofCount);
       expect(m.solve.sturm.ok).toBe(true);
     }
+    // elastic eigenvalues against a dense SciPy solve, scipy.linalg.eigh(K, M) (fixtures/demo/reference-frequencies.json)
+    const refFile = join(demoDir, 'reference-frequencies.json');
+    if (existsSync(refFile)) {
+      const ref = JSON.parse(readFileSync(refFile, 'utf8')).models as Record<string, { nearZeroEigenvalues: number; eigenvalues: number[] }>;
+      for (const m of json.models as { name: string; modes: { eigenvalue: number }[] }[]) {
+        const r = ref[m.name];
+        for (let i = r.nearZeroEigenvalues; i < m.modes.length; i++) {
+          expect(Math.abs(m.modes[i].eigenvalue - r.eigenvalues[i]) / r.eigenvalues[i], `${m.name} mode ${i + 1}`).toBeLessThan(1e-8);
+        }
+      }
+    } else console.warn(`skipping the SciPy comparison: ${refFile} is absent`);
     const loose = json.models.find((m: { name: string }) => m.name === 'mast-guyed-loose-anchor');
     expect(loose.rules.find((r: { ruleId: string }) => r.ruleId === 'rigid-body-modes')).toMatchObject({ status: 'fail', measured: scenario.models['mast-guyed-loose-anchor'].nearZeroModes, limit: 0 });
   });
