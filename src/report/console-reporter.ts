@@ -31,10 +31,10 @@ export function formatConsole(report: CheckReport, options: ConsoleOptions = {})
   const rows = report.models.flatMap((m) => m.rules.filter(notable).map((r) => ({ m, r })));
   const problems = report.models.filter((m) => m.problem);
   if (rows.length > 0 || problems.length > 0) {
-    if (!options.quiet) out.push('');
+    if (!options.quiet && out.length > 0) out.push('');
     out.push(...table(rows, problems, c));
   }
-  if (!options.quiet) out.push('');
+  if (!options.quiet && out.length > 0) out.push('');
   out.push(verdictLine(report, c));
   if (!options.quiet) out.push(c.dim(report.caution));
   return `${out.join('\n')}\n`;

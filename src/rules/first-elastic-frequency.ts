@@ -49,9 +49,9 @@ export const firstElasticFrequency: RuleDefinition<FirstElasticFrequencyOptions>
       maxHz: o.maxHz ?? Infinity,
       range: o.maxHz !== undefined ? `${o.minHz}..${o.maxHz} Hz` : `≥ ${o.minHz} Hz`,
     };
-    const details = { mode: split.firstElasticIndex + 1, frequencyHz: hz, rigidBodyModes: split.count };
-    if (hz < o.minHz) return outcome('fail', messages.low, values, hz, `≥ ${o.minHz}`, details);
-    if (o.maxHz !== undefined && hz > o.maxHz) return outcome('fail', messages.high, values, hz, `≤ ${o.maxHz}`, details);
-    return outcome('pass', messages.pass, values, hz, values.range, details);
+    const details = { mode: split.firstElasticIndex + 1, frequencyHz: hz, rigidBodyModes: split.count, minHz: o.minHz, maxHz: o.maxHz ?? null };
+    if (hz < o.minHz) return outcome('fail', messages.low, values, hz, o.minHz, details);
+    if (o.maxHz !== undefined && hz > o.maxHz) return outcome('fail', messages.high, values, hz, o.maxHz, details);
+    return outcome('pass', messages.pass, values, hz, o.minHz, { ...details, minHz: o.minHz, maxHz: o.maxHz ?? null });
   },
 };
