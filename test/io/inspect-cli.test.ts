@@ -97,7 +97,7 @@ describe('modalgate inspect (compiled CLI)', () => {
   });
 
   it('spawned CLI on a sample of the corpus: exit 2, one stderr line with file:line, no stack trace', async () => {
-    const sample = cases.filter((_, k) => k % 5 === 0 || cases[k].file.endsWith('.gz'));
+    const sample = cases.filter((c, k) => k % 10 === 0 || c.file === 'truncated.mtx.gz');
     const argv = sample.map((c) =>
       c.kind === 'matrix' ? ['inspect', join('test/io/bad-inputs', c.file)] : ['inspect', join('test/io/good-inputs/k3.mtx'), '--dofs', join('test/io/bad-inputs', c.file)],
     );
