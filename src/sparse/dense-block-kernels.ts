@@ -10,10 +10,14 @@
  * 16 multiply-adds into local accumulators, so the inner loop is arithmetic, not memory traffic.
  */
 
+const ROW_BLOCK = 256;
+const DEPTH_BLOCK = 128;
+
 /**
  * C[i, j] −= Σ_t A[i, t] · W[j, t] for 0 ≤ j < n, j − 3 ≤ i < m (the lower part in 4×4 tiles;
  * a few entries just above the diagonal of C are also written — callers never read them).
  * A[i, t] = a[aOff + i + t·lda]; W[j, t] = w[t·n + j]; C[i, j] = c[cOff + i + j·ldc].
+ * Rows and the inner dimension are cut into cache-sized blocks.
  */
 export function updateLowerProduct(
   m: number,
@@ -27,21 +31,47 @@ export function updateLowerProduct(
   cOff: number,
   ldc: number,
 ): void {
+  // cache blocks: ROW_BLOCK rows of A and C, DEPTH_BLOCK steps of the inner dimension
+  for (let i0 = 0; i0 < m; i0 += ROW_BLOCK) {
+    const i1 = Math.min(m, i0 + ROW_BLOCK);
+    const nb = Math.min(n, i1); // columns with a diagonal at or above row i1
+    for (let t0 = 0; t0 < k; t0 += DEPTH_BLOCK) {
+      productBlock(i0, i1, t0, Math.min(k, t0 + DEPTH_BLOCK), nb, n, a, aOff, lda, w, c, cOff, ldc);
+    }
+  }
+}
+
+/** Rows i0..i1−1, inner steps t0..t1−1, columns 0..nb−1 (W has n columns) of updateLowerProduct. */
+function productBlock(
+  i0: number,
+  i1: number,
+  t0: number,
+  t1: number,
+  nb: number,
+  n: number,
+  a: Float64Array,
+  aOff: number,
+  lda: number,
+  w: Float64Array,
+  c: Float64Array,
+  cOff: number,
+  ldc: number,
+): void {
   let j = 0;
   // column tiles of width 4
-  for (; j + 4 <= n; j += 4) {
+  for (; j + 4 <= nb; j += 4) {
     const c0 = cOff + j * ldc;
-    let i = j;
+    let i = j > i0 ? j : i0;
     // row tiles of height 4 from the diagonal down
-    for (; i + 4 <= m; i += 4) {
+    for (; i + 4 <= i1; i += 4) {
       let s00 = 0, s10 = 0, s20 = 0, s30 = 0;
       let s01 = 0, s11 = 0, s21 = 0, s31 = 0;
       let s02 = 0, s12 = 0, s22 = 0, s32 = 0;
       let s03 = 0, s13 = 0, s23 = 0, s33 = 0;
-      let pa = aOff + i;
-      let pw = j;
+      let pa = aOff + i + t0 * lda;
+      let pw = t0 * n + j;
       // Σ over the inner dimension
-      for (let t = 0; t < k; t++, pa += lda, pw += n) {
+      for (let t = t0; t < t1; t++, pa += lda, pw += n) {
         const a0 = a[pa], a1 = a[pa + 1], a2 = a[pa + 2], a3 = a[pa + 3];
         const w0 = w[pw], w1 = w[pw + 1], w2 = w[pw + 2], w3 = w[pw + 3];
         s00 += a0 * w0; s10 += a1 * w0; s20 += a2 * w0; s30 += a3 * w0;
@@ -59,11 +89,11 @@ export function updateLowerProduct(
       c[q] -= s03; c[q + 1] -= s13; c[q + 2] -= s23; c[q + 3] -= s33;
     }
     // leftover rows (fewer than 4) of this column tile
-    for (; i < m; i++) {
+    for (; i < i1; i++) {
       let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
-      let pa = aOff + i;
-      let pw = j;
-      for (let t = 0; t < k; t++, pa += lda, pw += n) {
+      let pa = aOff + i + t0 * lda;
+      let pw = t0 * n + j;
+      for (let t = t0; t < t1; t++, pa += lda, pw += n) {
         const a0 = a[pa];
         s0 += a0 * w[pw]; s1 += a0 * w[pw + 1]; s2 += a0 * w[pw + 2]; s3 += a0 * w[pw + 3];
       }
@@ -72,25 +102,25 @@ export function updateLowerProduct(
     }
   }
   // leftover columns (fewer than 4): one column at a time, rows from its diagonal
-  for (; j < n; j++) {
+  for (; j < nb; j++) {
     const c0 = cOff + j * ldc;
-    let i = j;
-    for (; i + 4 <= m; i += 4) {
+    let i = j > i0 ? j : i0;
+    for (; i + 4 <= i1; i += 4) {
       let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
-      let pa = aOff + i;
-      let pw = j;
-      for (let t = 0; t < k; t++, pa += lda, pw += n) {
+      let pa = aOff + i + t0 * lda;
+      let pw = t0 * n + j;
+      for (let t = t0; t < t1; t++, pa += lda, pw += n) {
         const wv = w[pw];
         s0 += a[pa] * wv; s1 += a[pa + 1] * wv; s2 += a[pa + 2] * wv; s3 += a[pa + 3] * wv;
       }
       const q = c0 + i;
       c[q] -= s0; c[q + 1] -= s1; c[q + 2] -= s2; c[q + 3] -= s3;
     }
-    for (; i < m; i++) {
+    for (; i < i1; i++) {
       let s = 0;
-      let pa = aOff + i;
-      let pw = j;
-      for (let t = 0; t < k; t++, pa += lda, pw += n) s += a[pa] * w[pw];
+      let pa = aOff + i + t0 * lda;
+      let pw = t0 * n + j;
+      for (let t = t0; t < t1; t++, pa += lda, pw += n) s += a[pa] * w[pw];
       c[c0 + i] -= s;
     }
   }
