@@ -33,9 +33,10 @@ export function registerInspect(program: Command): void {
 export async function inspectMatrix(matrixPath: string, opts: InspectOptions): Promise<number> {
   const tolerance = Number(opts.asymmetryTolerance ?? '1e-10');
   if (!(tolerance >= 0)) throw new InputError('--asymmetry-tolerance', `must be a number ≥ 0, got '${opts.asymmetryTolerance}'`);
-  const { summary } = await readMatrixMarket(matrixPath, { asymmetryTolerance: tolerance });
+  const { summary, gzip, fileBytes } = await readMatrixMarket(matrixPath, { asymmetryTolerance: tolerance });
   const dofMap = opts.dofs ? await readDofMap(opts.dofs, summary.n) : undefined;
-  process.stdout.write(opts.json ? formatInspectionJson(summary, dofMap) : formatInspection(summary, dofMap));
+  const file = { gzip, fileBytes };
+  process.stdout.write(opts.json ? formatInspectionJson(summary, dofMap, file) : formatInspection(summary, dofMap, file));
   return EXIT_PASS;
 }
 
@@ -52,8 +53,19 @@ function dofList(dofs: number[], count: number, map: DofMap | undefined): string
   return `${count}: ${names}${count > dofs.length ? `, … (first ${dofs.length} shown)` : ''}`;
 }
 
+/** How the matrix file is stored on disk. */
+export interface StoredFile {
+  gzip: boolean;
+  fileBytes: number;
+}
+
+function storage(file: StoredFile | undefined): string {
+  if (!file) return '';
+  return `, ${file.gzip ? 'gzip, ' : ''}${file.fileBytes} bytes`;
+}
+
 /** The plain-text report of one matrix. */
-export function formatInspection(s: MatrixSummary, map?: DofMap): string {
+export function formatInspection(s: MatrixSummary, map?: DofMap, file?: StoredFile): string {
   const symmetry =
     s.symmetry === 'symmetric'
       ? 'exact (the file stores one triangle)'
@@ -61,7 +73,7 @@ export function formatInspection(s: MatrixSummary, map?: DofMap): string {
         ? `largest relative asymmetry ${shortNumber(s.maxRelativeAsymmetry)} at (${s.asymmetryAt.row}, ${s.asymmetryAt.col})`
         : 'exact (both triangles equal)';
   const rows: [string, string][] = [
-    ['file format', `Matrix Market ${s.format} ${s.field} ${s.symmetry}`],
+    ['file format', `Matrix Market ${s.format} ${s.field} ${s.symmetry}${storage(file)}`],
     ['size', `${s.n} × ${s.n}`],
     ['entries in file', `${s.entriesInFile} (${s.duplicatesSummed} duplicates summed)`],
     ['nonzeros', `${s.storedNonzeros} stored (lower triangle), ${s.fullNonzeros} in the full matrix`],
@@ -78,9 +90,10 @@ export function formatInspection(s: MatrixSummary, map?: DofMap): string {
 }
 
 /** The summary as JSON; DOF lists also as names (1-based, by node/component with a map). */
-export function formatInspectionJson(s: MatrixSummary, map?: DofMap): string {
+export function formatInspectionJson(s: MatrixSummary, map?: DofMap, file?: StoredFile): string {
   const out = {
     ...s,
+    ...(file ? { gzip: file.gzip, fileBytes: file.fileBytes } : {}),
     zeroDiagonalNames: s.zeroDiagonalDofs.map((d) => describeDof(map, d)),
     negativeDiagonalNames: s.negativeDiagonalDofs.map((d) => describeDof(map, d)),
   };

@@ -39,6 +39,9 @@ export interface MatrixFile {
   summary: MatrixSummary;
   /** Line number of the size line (for messages about the whole matrix). */
   sizeLine: number;
+  /** The file was gzip-compressed; its size on disk in bytes. */
+  gzip: boolean;
+  fileBytes: number;
 }
 
 /** A stiffness or mass matrix as its lower-triangle CSC, with its screening summary. */
@@ -72,7 +75,7 @@ export async function readMatrixMarket(path: string, options: MatrixReadOptions 
     listCap: options.listCap,
   });
   if (summary.nonFiniteCount > 0) await rejectNonFiniteSum(path, info, banner.format, assembled.matrix);
-  return { matrix: assembled.matrix, summary, sizeLine: size.line };
+  return { matrix: assembled.matrix, summary, sizeLine: size.line, gzip: info.gzip, fileBytes: info.fileBytes };
 }
 
 /** Stiffness and mass of one model: both read, and of the same size. */
