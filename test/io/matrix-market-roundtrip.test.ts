@@ -216,3 +216,17 @@ describe('array files through gzip', () => {
     expect(matrix.values[matrix.colPtr[n - 1] - 1]).toBe(1);
   });
 });
+
+describe('odd files', () => {
+  it('a line longer than the 1 MiB buffer is an InputError naming its line', async () => {
+    const p = join(dir, 'long-line.mtx');
+    writeFileSync(p, `%%MatrixMarket matrix coordinate real symmetric\n% ${'x'.repeat(1_100_000)}\n1 1 1\n1 1 1\n`);
+    await expect(readMatrixMarket(p)).rejects.toThrow(/long-line\.mtx:2: line is longer than/);
+  });
+
+  it('a plain-text file named .mtx.gz is read as plain text', async () => {
+    const p = join(dir, 'not-really.mtx.gz');
+    writeFileSync(p, '%%MatrixMarket matrix coordinate real symmetric\n1 1 1\n1 1 7\n');
+    expect(Array.from((await readMatrixMarket(p)).matrix.values)).toEqual([7]);
+  });
+});
