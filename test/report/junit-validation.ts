@@ -24,8 +24,14 @@ export function hasXmllint(): boolean {
 }
 
 /** xmllint --schema junit-10.xsd; `null` when xmllint or the xsd is missing (the caller says so). */
+let warned = false;
+
 export function xmllintValidate(xml: string): { ok: boolean; output: string } | null {
-  if (!existsSync(junitXsd) || !hasXmllint()) return null;
+  if (!existsSync(junitXsd) || !hasXmllint()) {
+    if (!warned) console.warn(`xmllint step skipped: ${existsSync(junitXsd) ? 'xmllint is not installed (Debian libxml2-utils)' : `${junitXsd} is absent`}; the structural check from junit-10.xsd still runs`);
+    warned = true;
+    return null;
+  }
   const dir = mkdtempSync(join(tmpdir(), 'modalgate-junit-'));
   try {
     const file = join(dir, 'junit.xml');
