@@ -24,7 +24,7 @@ import { mOrthonormalize, type MassBasis } from './m-orthonormalize.js';
 import { rayleighRitz } from './rayleigh-ritz.js';
 import type { EigenSearch, EigenSearchResult } from './search-types.js';
 import { LockedSet } from './locked-set.js';
-import { currentEstimates, nearestFirst, relativeResiduals } from './subspace-iteration.js';
+import { currentEstimates, fixedBlocks, nearestFirst, relativeResiduals } from './subspace-iteration.js';
 import { blockTimes, columns, crossProduct, randomBlock } from './thin-block.js';
 
 /** Default block size: six rigid-body modes of a free-free model share one eigenvalue. */
@@ -59,8 +59,8 @@ export function blockLanczos(search: EigenSearch): EigenSearchResult {
   const maxCycles = search.maxIterations ?? 60;
   const locked = new LockedSet(n);
   const warnings: string[] = [];
-  const capacityFor = () => Math.min(Math.max(BASIS_PER_WANTED * p, p + 4 * b, 6 * b), search.maxBasis - locked.count);
-  let cycle = newCycle(n, capacityFor(), op.massTimes, startVectors(search, b), op.apply, []);
+  const capacityFor = () => Math.min(Math.max(BASIS_PER_WANTED * p, p + 4 * b, 6 * b), p + 20 * b, search.maxBasis - locked.count);
+  let cycle = newCycle(n, capacityFor(), op.massTimes, startVectors(search, b), op.apply, fixedBlocks(search, locked));
   let cycles = 0;
   let stagnated = 0;
   let abandoned = false;
@@ -68,7 +68,7 @@ export function blockLanczos(search: EigenSearch): EigenSearchResult {
   let extraVectors = new Float64Array(0);
   while (locked.count < p && cycles < maxCycles) {
     cycles++;
-    const lastBlock = extend(cycle, locked, op, p - locked.count, search.tolerance);
+    const lastBlock = extend(cycle, locked, search, p - locked.count);
     const wanted = p - locked.count;
     const { theta, s } = ritzOfT(cycle);
     const order = orderByMagnitude(theta);
@@ -163,7 +163,9 @@ interface LastBlock {
 }
 
 /** Grow V block by block until full or until the wanted Ritz estimates are small. */
-function extend(cycle: Cycle, locked: LockedSet, op: EigenSearch['operator'], wanted: number, tolerance: number): LastBlock {
+function extend(cycle: Cycle, locked: LockedSet, search: EigenSearch, wanted: number): LastBlock {
+  const op = search.operator;
+  const tolerance = search.tolerance;
   const n = op.n;
   let last: LastBlock = { r: cycle.coupling, rows: cycle.qCount, from: 0, width: 0 };
   while (cycle.qCount > 0 && cycle.size + cycle.qCount <= cycle.capacity) {
@@ -173,7 +175,7 @@ function extend(cycle: Cycle, locked: LockedSet, op: EigenSearch['operator'], wa
     // W = C Q_j, then its projections onto [locked, V] and the next block
     const w = op.apply(cycle.q, width);
     const basis: MassBasis = { vectors: cycle.v.subarray(0, cycle.size * n), massVectors: cycle.mv.subarray(0, cycle.size * n), count: cycle.size };
-    const against = locked.count > 0 ? [locked.basis(), basis] : [basis];
+    const against = [...fixedBlocks(search, locked), basis];
     const next = mOrthonormalize(w, width, n, op.massTimes, { against });
     const h = next.projections[against.length - 1];
     // T[0:size, from:from+width] = H and its mirror
@@ -345,7 +347,7 @@ function refill(cycle: Cycle, n: number, op: EigenSearch['operator'], locked: Lo
   const b = Math.max(1, Math.min(search.blockSize ?? DEFAULT_BLOCK_SIZE, cycle.capacity - cycle.size));
   if (cycle.capacity - cycle.size <= 0) return;
   const basis: MassBasis = { vectors: cycle.v.subarray(0, cycle.size * n), massVectors: cycle.mv.subarray(0, cycle.size * n), count: cycle.size };
-  const against = [...(locked.count > 0 ? [locked.basis()] : []), ...(cycle.size > 0 ? [basis] : [])];
+  const against = [...fixedBlocks(search, locked), ...(cycle.size > 0 ? [basis] : [])];
   const fresh = mOrthonormalize(op.apply(randomBlock(n, b, 0x77 + seed), b), b, n, op.massTimes, { against });
   cycle.q = fresh.vectors;
   cycle.mq = fresh.massVectors;

@@ -4,6 +4,7 @@
  * front door (solve-modes.ts) picks σ so those are the wanted ones.
  */
 import type { ShiftInvertOperator } from './shift-invert-operator.js';
+import type { MassBasis } from './m-orthonormalize.js';
 
 export interface EigenSearch {
   operator: ShiftInvertOperator;
@@ -15,6 +16,11 @@ export interface EigenSearch {
   maxBasis: number;
   /** ‖K‖₁ (largest column sum), the scale of the rigid-body residual floor. */
   stiffnessNorm: number;
+  /**
+   * Eigenvectors found earlier (another slice of the spectrum), M-orthonormal with their
+   * M-images: every basis stays M-orthogonal to them, so they are not found again.
+   */
+  deflation?: MassBasis;
   /** Optional start vectors (n×startCount), e.g. Ritz vectors of an earlier pass. */
   start?: Float64Array;
   startCount?: number;

@@ -41,7 +41,7 @@ export function subspaceIteration(search: EigenSearch): EigenSearchResult {
   while (locked.count < p && iterations < maxIterations) {
     iterations++;
     const w = op.apply(x, active);
-    const basis = mOrthonormalize(w, active, n, op.massTimes, { against: locked.count > 0 ? [locked.basis()] : [] });
+    const basis = mOrthonormalize(w, active, n, op.massTimes, { against: fixedBlocks(search, locked) });
     if (basis.count === 0) break;
     const ritz = rayleighRitz(basis, n, op.stiffnessTimes);
     const order = nearestFirst(ritz.values, sigma);
@@ -72,6 +72,14 @@ export function subspaceIteration(search: EigenSearch): EigenSearchResult {
     warnings.push(`subspace iteration stopped after ${iterations} iterations with ${locked.count} of ${p} modes converged`);
   }
   return { ...locked.result(p), iterations, converged, warnings, abandoned, ...locked.estimates(previous, x, previous.length) };
+}
+
+/** The blocks every new basis must stay M-orthogonal to: earlier slices, then locked pairs. */
+export function fixedBlocks(search: EigenSearch, locked: LockedSet): MassBasis[] {
+  const out: MassBasis[] = [];
+  if (search.deflation && search.deflation.count > 0) out.push(search.deflation);
+  if (locked.count > 0) out.push(locked.basis());
+  return out;
 }
 
 /** Locked values and the current Ritz values, ascending. */
