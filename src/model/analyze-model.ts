@@ -23,6 +23,7 @@ import { runRules, verdictOf, type RuleResult, type UnavailableInputs } from '..
 import type { ModelReport, ModeRow, ProblemReport, SolveReport } from '../report/report-types.js';
 import { junitTimestamp } from '../report/report-types.js';
 import { runBaselineStep } from './baseline-step.js';
+import { applyConstraintStep, runGeometryStep } from './geometry-step.js';
 
 export interface AnalyzeOptions {
   onProgress?: (message: string) => void;
@@ -43,22 +44,24 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
       dofsFile: job.dofsPath,
       nodes: input.dofMap ? new Set(input.dofMap.node).size : undefined,
     };
-    // HOOK(geometry): constraint sets from job.raw (issue "geometry-aware checks") reduce
-    // input.stiffness, input.mass and input.dofMap here, before the solve.
+    // constraint sets from the model entry reduce K, M and the DOF map before the solve
+    const constrained = applyConstraintStep(job, input);
     const context: RuleContext = {
       modelName: job.name,
-      stiffness: input.stiffness,
-      mass: input.mass,
+      stiffness: constrained.stiffness,
+      mass: constrained.mass,
       stiffnessSummary: input.stiffnessSummary,
       massSummary: input.massSummary,
-      dofMap: input.dofMap,
+      dofMap: constrained.dofMap,
     };
     const unavailable: UnavailableInputs = {};
     const blocker = screeningBlocker(input.stiffnessSummary, input.massSummary);
     if (blocker) unavailable.modes = { status: 'error', reason: `not evaluated: the modes were not solved because ${blocker}.` };
-    else solveInto(context, job, input.dofMap, unavailable, report, options);
-    // HOOK(geometry): context.geometry = computeGeometry({ stiffness, mass, dofMap, modes, ... })
-    // when context.dofMap is present; report.geometry = a JSON-ready copy of it.
+    else solveInto(context, job, constrained.dofMap, unavailable, report, options);
+    // geometry facts (rigid-body energy, mass properties, participation, mechanisms) need the DOF map
+    const geometry = runGeometryStep(job, context, constrained);
+    if (geometry.facts) report.geometry = geometry.facts;
+    else if (geometry.error) report.geometry = { error: geometry.error };
     // baseline: compare with the stored snapshot (context.comparison), save one on --save-baseline
     const baseline = await runBaselineStep(job, context, unavailable);
     if (context.comparison) report.comparison = context.comparison;

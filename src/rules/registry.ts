@@ -20,6 +20,11 @@ import { frequencyDrift } from './frequency-drift.js';
 import { modeShapeMatch } from './mode-shape-match.js';
 import { modeSwap } from './mode-swap.js';
 import { newOrLostModes } from './new-or-lost-modes.js';
+import { rigidBodyEnergy } from './rigid-body-energy.js';
+import { totalMass } from './total-mass.js';
+import { centerOfMass } from './center-of-mass.js';
+import { massConsistency } from './mass-consistency.js';
+import { massParticipation } from './mass-participation.js';
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 export type AnyRule = RuleDefinition<any>;
@@ -37,6 +42,11 @@ export const builtInRules: readonly AnyRule[] = [
   rigidBodyModes,
   firstElasticFrequency,
   modeFrequencies,
+  rigidBodyEnergy,
+  totalMass,
+  centerOfMass,
+  massConsistency,
+  massParticipation,
   frequencyDrift,
   modeShapeMatch,
   modeSwap,

@@ -7,6 +7,7 @@
 import type { RuleDefinition } from './rule-types.js';
 import { outcome } from './outcome.js';
 import { cutoffDefaults, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from './rigid-body-split.js';
+import { mechanismLocation } from './geometry-common.js';
 
 export interface RigidBodyModesOptions extends RigidBodyCutoffOptions {
   expected?: number;
@@ -54,7 +55,14 @@ export const rigidBodyModes: RuleDefinition<RigidBodyModesOptions> = {
     const limit = o.expected !== undefined ? o.expected : expectation;
     if (split.count > hi) {
       const extraHz = frequencies.slice(hi).map((x) => x.toExponential(2)).join(', ');
-      return outcome('fail', messages.tooMany, { ...values, extra: split.count - hi, extraHz }, split.count, limit, details);
+      const failed = outcome('fail', messages.tooMany, { ...values, extra: split.count - hi, extraHz }, split.count, limit, details);
+      // where the mechanism moves (geometry facts, when a DOF map was given)
+      const where = mechanismLocation(context.geometry);
+      if (where) {
+        failed.message += ` ${where.sentence}`;
+        failed.details = { ...failed.details, mechanisms: where.mechanisms, mechanismNodes: where.nodes };
+      }
+      return failed;
     }
     if (split.firstElasticIndex === null && split.count >= lo) {
       return outcome('error', messages.allRigid, values, split.count, limit, details);

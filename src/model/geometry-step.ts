@@ -1,0 +1,94 @@
+/**
+ * The geometry stages of the per-model pipeline (src/model/analyze-model.ts):
+ *
+ *   constraint sets  — before the solve: `constraints:` of the model entry remove DOFs from K, M
+ *                      and the DOF map (constraints.ts), so one exported free-free model can also
+ *                      be checked supported;
+ *   geometry facts   — after the solve: rigid-body vectors, mass properties, rigid-body energy,
+ *                      participation and mechanism location (compute-geometry.ts), when the
+ *                      model has a DOF map.
+ * A constraint set that names unknown nodes or a DOF file that cannot be read is an InputError
+ * naming the config entry (exit 2).
+ */
+import { dirname, isAbsolute, resolve } from 'node:path';
+import { existsSync } from 'node:fs';
+import type { ModelJob } from '../io/config-types.js';
+import type { DofMap } from '../io/dof-map.js';
+import { InputError } from '../io/errors.js';
+import { readDofNumberFile } from '../io/dof-number-file.js';
+import type { SymmetricCsc } from '../sparse/csc.js';
+import type { RuleContext } from '../rules/rule-types.js';
+import { applyConstraints, type ComponentSelector, type ConstraintSet, type ReducedModel } from './constraints.js';
+import { computeGeometry } from './compute-geometry.js';
+import type { GeometryFacts } from './geometry-facts.js';
+
+/** A constraint set as written in the config (`dofsFile` relative to the config file). */
+export interface RawConstraintSet {
+  name?: string;
+  nodes?: number[];
+  nodeRange?: [number, number];
+  components?: ComponentSelector[];
+  dofs?: number[];
+  dofsFile?: string;
+}
+
+export interface ConstrainedInput {
+  stiffness: SymmetricCsc;
+  mass: SymmetricCsc;
+  dofMap?: DofMap;
+  /** Present when constraint sets removed DOFs. */
+  reduced?: ReducedModel;
+  setNames: string[];
+  /** The model as read, for mass properties of the whole model. */
+  original: { mass: SymmetricCsc; dofMap?: DofMap };
+}
+
+/** Apply the model's constraint sets (none → the input unchanged). */
+export function applyConstraintStep(job: ModelJob, input: { stiffness: SymmetricCsc; mass: SymmetricCsc; dofMap?: DofMap }): ConstrainedInput {
+  const raw = (job.raw as { constraints?: RawConstraintSet[] }).constraints ?? [];
+  const base = { stiffness: input.stiffness, mass: input.mass, dofMap: input.dofMap, setNames: [], original: { mass: input.mass, dofMap: input.dofMap } };
+  if (raw.length === 0) return base;
+  const sets = raw.map((s, k) => resolveSet(job, s, k));
+  const reduced = applyConstraints(input.stiffness, input.mass, input.dofMap, sets, job.configPath);
+  const setNames = sets.map((s, k) => s.name ?? `constraints[${k}]`);
+  return { ...base, stiffness: reduced.stiffness, mass: reduced.mass, dofMap: reduced.dofMap, reduced, setNames };
+}
+
+function resolveSet(job: ModelJob, s: RawConstraintSet, k: number): ConstraintSet {
+  const { dofsFile, ...set } = s;
+  if (dofsFile === undefined) return set;
+  const path = isAbsolute(dofsFile) ? dofsFile : resolve(dirname(job.configPath), dofsFile);
+  if (!existsSync(path)) throw new InputError(job.configPath, `file not found: ${path}`, { where: `${job.where}.constraints[${k}].dofsFile` });
+  return { ...set, dofs: [...(set.dofs ?? []), ...readDofNumberFile(path)] };
+}
+
+/**
+ * Geometry facts for the rules (context.geometry) when a DOF map is present. A failure inside
+ * the geometry computation leaves the geometry rules skipping and is returned as `error`.
+ */
+export function runGeometryStep(job: ModelJob, context: RuleContext, constrained: ConstrainedInput): { facts?: GeometryFacts; error?: string } {
+  if (!context.dofMap) return {};
+  const reduced = constrained.reduced;
+  try {
+    context.geometry = computeGeometry({
+      stiffness: context.stiffness,
+      mass: context.mass,
+      dofMap: context.dofMap,
+      modes: context.modes,
+      originalDofs: reduced?.keptDofs,
+      constraints: reduced ? { sets: constrained.setNames, removedDofs: reduced.removedDofs.length, keptDofs: reduced.keptDofs.length } : undefined,
+      unconstrained: reduced && constrained.original.dofMap ? { mass: constrained.original.mass, dofMap: constrained.original.dofMap } : undefined,
+      expectedRigidBodyModes: expectedRigidBodyModes(job),
+    });
+    return { facts: context.geometry };
+  } catch (e) {
+    return { error: `geometry facts could not be computed: ${e instanceof Error ? e.message : String(e)}` };
+  }
+}
+
+/** `expected` of the rigid-body-modes rule when it is enabled with one. */
+function expectedRigidBodyModes(job: ModelJob): number | undefined {
+  const rule = job.rules.find((r) => r.rule.id === 'rigid-body-modes');
+  const expected = rule?.options.expected;
+  return typeof expected === 'number' ? expected : undefined;
+}
