@@ -6,12 +6,12 @@
  *  - a square section bends alike about both axes: every bending frequency comes twice (common practice);
  *  - a free-free 3-D body has exactly 6 rigid-body modes (common practice; ECSS-E-ST-32-03C quoted
  *    via CRITERIA.md §1a [S]: rigid/elastic frequency ratio < 1e-4);
+ *  (the unfastened-anchor mast is checked on the committed demo files, demo-models.test.ts)
  *  - every model: Sturm count, residuals ≤ 1e-10, ‖ΦᵀMΦ − I‖ ≤ 1e-10, both methods agree.
  */
 import { describe, expect, it } from 'vitest';
 import { buildCantilever } from '../../fixtures/generator/cantilever.js';
 import { buildHexBox } from '../../fixtures/generator/hex-solid.js';
-import { buildMast } from '../../fixtures/generator/mast.js';
 import { rectangularSection, STEEL } from '../../fixtures/generator/sections.js';
 import type { GeneratedModel } from '../../fixtures/generator/model-types.js';
 import { solveModes } from '../../src/eigen/solve-modes.js';
@@ -108,18 +108,5 @@ describe('free-free models: exactly 6 rigid-body modes, then the first elastic o
     expectVerified(lanczos);
     expectVerified(subspace);
     expectAgree(lanczos, subspace);
-  });
-});
-
-describe('guyed mast: an unfastened anchor adds one near-zero mode', () => {
-  it('loose anchor 901 shows one more near-zero mode than the fastened mast', () => {
-    const nearZero = (r: ModesResult) => Array.from(r.frequenciesHz).filter((f) => Math.abs(f) < 0.005).length; // ECSS d = 0.005 Hz [S]
-    const fastened = buildMast({ base: 'clamped', guyed: true });
-    const loose = buildMast({ base: 'clamped', guyed: true, looseAnchors: [901] });
-    const a = solveModes(fastened.stiffness, fastened.mass, { count: 8, coordinates: fastened.coordinates });
-    const b = solveModes(loose.stiffness, loose.mass, { count: 8, coordinates: loose.coordinates });
-    expectVerified(a);
-    expect(b.sturm.ok).toBe(true);
-    expect(nearZero(b)).toBe(nearZero(a) + 1);
   });
 });
