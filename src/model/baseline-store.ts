@@ -216,7 +216,7 @@ function parseSnapshot(file: string): BaselineSnapshot {
     typeof s.shapes.file === 'string' &&
     !/[\\/]/.test(s.shapes.file) &&
     s.shapes.cols === s.frequenciesHz.length &&
-    (s.shapes.dofs === undefined || (s.shapes.dofs.length === s.shapes.rows && s.shapes.dofs.every((d) => Number.isInteger(d) && d >= 0 && d < s.dofCount!)));
+    (s.shapes.dofs === undefined ? s.shapes.rows === s.dofCount : (s.shapes.dofs.length === s.shapes.rows && s.shapes.dofs.every((d) => Number.isInteger(d) && d >= 0 && d < s.dofCount!)));
   if (!ok) throw new InputError(file, 'is an incomplete or inconsistent baseline (frequencies, DOF count or shapes entry missing or out of range)');
   return s as BaselineSnapshot;
 }
