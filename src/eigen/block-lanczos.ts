@@ -279,17 +279,8 @@ function pickColumns(s: Float64Array, m: number, which: number[]): Float64Array 
 }
 
 /** G with Z = Y G: both M-orthonormal, so G = Yᵀ M Z = (MY)ᵀ Z. */
-function ritzRotation(y: Float64Array, z: Float64Array, my: Float64Array, k: number, n: number): Float64Array {
-  const g = new Float64Array(k * k);
-  // g_ij = (M y_i)ᵀ z_j
-  for (let j = 0; j < k; j++) {
-    for (let i = 0; i < k; i++) {
-      let sum = 0;
-      for (let r = 0; r < n; r++) sum += my[i * n + r] * z[j * n + r];
-      g[i + j * k] = sum;
-    }
-  }
-  return g;
+function ritzRotation(_y: Float64Array, z: Float64Array, my: Float64Array, k: number, n: number): Float64Array {
+  return crossProduct(my, k, z, k, n);
 }
 
 /** [S_z(keepZ), S(others)] truncated to keepCount columns (orthonormal coefficient vectors). */

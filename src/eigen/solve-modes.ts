@@ -164,7 +164,6 @@ function solveAtGoodShift(
   const polished = polish(op, result, rankM < stiffness.n || worstResidual > PURIFY_ABOVE_RESIDUAL);
   clock.iterateMs += performance.now() - t0;
   solves += polished.solves;
-  void solver;
   const beyond = Array.from(result.estimates).slice(polished.values.length);
   return { ...polished, beyond, iterations: first.iterations + (first.abandoned ? result.iterations : 0), converged: result.converged, warnings: result.warnings, factor, solves };
 }

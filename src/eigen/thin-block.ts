@@ -1,52 +1,23 @@
 /**
- * Products of thin column-major blocks used by the eigen algorithms (n×a blocks with a ≪ n,
- * and small a×b coefficient matrices). Temporary home until src/dense/block-ops.ts lands.
+ * Thin column-major blocks (n×a, a ≪ n) as the eigen algorithms use them: the products are the
+ * dense layer's kernels (src/dense/block-ops.ts) under the argument order used here, plus
+ * column bookkeeping and a repeatable random start block.
  */
+import { addTimesSmall, timesSmall, transposeTimes } from '../dense/block-ops.js';
 
-/** G = Xᵀ Y, with X n×a and Y n×b; G is a×b column-major. */
+/** G = Xᵀ Y, with X n×a and Y n×b; G is a×b column-major (src/dense/block-ops.ts). */
 export function crossProduct(x: Float64Array, a: number, y: Float64Array, b: number, n: number): Float64Array {
-  const g = new Float64Array(a * b);
-  // g_ij = Σ_r x_ri y_rj
-  for (let j = 0; j < b; j++) {
-    const yo = j * n;
-    for (let i = 0; i < a; i++) {
-      const xo = i * n;
-      let s = 0;
-      for (let r = 0; r < n; r++) s += x[xo + r] * y[yo + r];
-      g[i + j * a] = s;
-    }
-  }
-  return g;
+  return transposeTimes(x, y, n, a, b);
 }
 
-/** Z = X Q, with X n×a and Q a×b; Z is n×b. */
+/** Z = X Q, with X n×a and Q a×b; Z is n×b (src/dense/block-ops.ts). */
 export function blockTimes(x: Float64Array, a: number, q: Float64Array, b: number, n: number): Float64Array {
-  const z = new Float64Array(n * b);
-  // z_j = Σ_i q_ij x_i
-  for (let j = 0; j < b; j++) {
-    const zo = j * n;
-    for (let i = 0; i < a; i++) {
-      const c = q[i + j * a];
-      if (c === 0) continue;
-      const xo = i * n;
-      for (let r = 0; r < n; r++) z[zo + r] += c * x[xo + r];
-    }
-  }
-  return z;
+  return timesSmall(x, n, a, q, b);
 }
 
-/** Y ← Y − X H, with X n×a, H a×b, Y n×b. */
+/** Y ← Y − X H, with X n×a, H a×b, Y n×b (src/dense/block-ops.ts). */
 export function subtractBlockTimes(y: Float64Array, x: Float64Array, a: number, h: Float64Array, b: number, n: number): void {
-  // y_j −= Σ_i h_ij x_i
-  for (let j = 0; j < b; j++) {
-    const yo = j * n;
-    for (let i = 0; i < a; i++) {
-      const c = h[i + j * a];
-      if (c === 0) continue;
-      const xo = i * n;
-      for (let r = 0; r < n; r++) y[yo + r] -= c * x[xo + r];
-    }
-  }
+  addTimesSmall(y, x, n, a, h, b, -1);
 }
 
 /** Columns [from, to) of an n-row block, copied. */
