@@ -36,13 +36,91 @@ export function updateLowerProduct(
     const i1 = Math.min(m, i0 + ROW_BLOCK);
     const nb = Math.min(n, i1); // columns with a diagonal at or above row i1
     for (let t0 = 0; t0 < k; t0 += DEPTH_BLOCK) {
-      productBlock(i0, i1, t0, Math.min(k, t0 + DEPTH_BLOCK), nb, n, a, aOff, lda, w, c, cOff, ldc);
+      productBlock(true, i0, i1, t0, Math.min(k, t0 + DEPTH_BLOCK), nb, n, a, aOff, lda, w, c, cOff, ldc);
+    }
+  }
+}
+
+/** C −= A Wᵀ over the whole m×n rectangle (same storage as updateLowerProduct). */
+export function updateProduct(
+  m: number,
+  n: number,
+  k: number,
+  a: Float64Array,
+  aOff: number,
+  lda: number,
+  w: Float64Array,
+  c: Float64Array,
+  cOff: number,
+  ldc: number,
+): void {
+  // same cache blocks, every tile
+  for (let i0 = 0; i0 < m; i0 += ROW_BLOCK) {
+    const i1 = Math.min(m, i0 + ROW_BLOCK);
+    for (let t0 = 0; t0 < k; t0 += DEPTH_BLOCK) {
+      productBlock(false, i0, i1, t0, Math.min(k, t0 + DEPTH_BLOCK), n, n, a, aOff, lda, w, c, cOff, ldc);
+    }
+  }
+}
+
+/**
+ * Y[j, c] −= Σ_i A[i, j] G[i, c] for j < n, c < k: A (m×n) column-major at a[aOff], ld lda;
+ * G (m×k) row-major (g[i·k + c]); Y column-major with leading dimension ldy.
+ * Two columns of A and four right-hand sides per pass: 8 multiply-adds per 6 loads.
+ */
+export function subtractTransposedProduct(
+  m: number,
+  n: number,
+  k: number,
+  a: Float64Array,
+  aOff: number,
+  lda: number,
+  g: Float64Array,
+  y: Float64Array,
+  ldy: number,
+): void {
+  let j = 0;
+  // pairs of columns of A
+  for (; j + 2 <= n; j += 2) {
+    const q0 = aOff + j * lda;
+    const q1 = q0 + lda;
+    let c = 0;
+    for (; c + 4 <= k; c += 4) {
+      let s00 = 0, s01 = 0, s02 = 0, s03 = 0, s10 = 0, s11 = 0, s12 = 0, s13 = 0;
+      for (let i = 0, gi = c; i < m; i++, gi += k) {
+        const a0 = a[q0 + i], a1 = a[q1 + i];
+        const g0 = g[gi], g1 = g[gi + 1], g2 = g[gi + 2], g3 = g[gi + 3];
+        s00 += a0 * g0; s01 += a0 * g1; s02 += a0 * g2; s03 += a0 * g3;
+        s10 += a1 * g0; s11 += a1 * g1; s12 += a1 * g2; s13 += a1 * g3;
+      }
+      y[c * ldy + j] -= s00; y[(c + 1) * ldy + j] -= s01; y[(c + 2) * ldy + j] -= s02; y[(c + 3) * ldy + j] -= s03;
+      y[c * ldy + j + 1] -= s10; y[(c + 1) * ldy + j + 1] -= s11; y[(c + 2) * ldy + j + 1] -= s12; y[(c + 3) * ldy + j + 1] -= s13;
+    }
+    // leftover right-hand sides
+    for (; c < k; c++) {
+      let s0 = 0, s1 = 0;
+      for (let i = 0, gi = c; i < m; i++, gi += k) {
+        s0 += a[q0 + i] * g[gi];
+        s1 += a[q1 + i] * g[gi];
+      }
+      y[c * ldy + j] -= s0;
+      y[c * ldy + j + 1] -= s1;
+    }
+  }
+  // last column when n is odd
+  for (; j < n; j++) {
+    const q0 = aOff + j * lda;
+    for (let c = 0; c < k; c++) {
+      let s0 = 0;
+      for (let i = 0, gi = c; i < m; i++, gi += k) s0 += a[q0 + i] * g[gi];
+      y[c * ldy + j] -= s0;
     }
   }
 }
 
 /** Rows i0..i1−1, inner steps t0..t1−1, columns 0..nb−1 (W has n columns) of updateLowerProduct. */
 function productBlock(
+  lower: boolean,
   i0: number,
   i1: number,
   t0: number,
@@ -61,7 +139,7 @@ function productBlock(
   // column tiles of width 4
   for (; j + 4 <= nb; j += 4) {
     const c0 = cOff + j * ldc;
-    let i = j > i0 ? j : i0;
+    let i = lower && j > i0 ? j : i0;
     // row tiles of height 4 from the diagonal down
     for (; i + 4 <= i1; i += 4) {
       let s00 = 0, s10 = 0, s20 = 0, s30 = 0;
@@ -104,7 +182,7 @@ function productBlock(
   // leftover columns (fewer than 4): one column at a time, rows from its diagonal
   for (; j < nb; j++) {
     const c0 = cOff + j * ldc;
-    let i = j > i0 ? j : i0;
+    let i = lower && j > i0 ? j : i0;
     for (; i + 4 <= i1; i += 4) {
       let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
       let pa = aOff + i + t0 * lda;

@@ -9,7 +9,7 @@ import { chooseOrdering } from './ordering/choose-ordering.js';
 import { supernodalLdlt, type SupernodalFactor } from './numeric-ldlt.js';
 import { PivotMonitor } from './pivot-monitor.js';
 import { analyzeShiftedPair, type SupernodalStructure } from './symbolic.js';
-import { supernodalSolveInPlace } from './triangular-solve.js';
+import { solveWorkspaceSize, supernodalSolveInPlace } from './triangular-solve.js';
 
 /** Default relative zero-pivot tolerance (our choice, see factor-types). */
 export const DEFAULT_ZERO_PIVOT_TOLERANCE = 1e-13;
@@ -91,7 +91,7 @@ function makeFactor(f: SupernodalFactor, shift: number, monitor: PivotMonitor, d
       const o = c * n;
       for (let q = 0; q < n; q++) work[o + q] = b[o + perm[q]];
     }
-    supernodalSolveInPlace(f, work, k, new Float64Array(s.maxRows * k));
+    supernodalSolveInPlace(f, work, k, new Float64Array(solveWorkspaceSize(f, k)));
     // scatter back to DOF order
     for (let c = 0; c < k; c++) {
       const o = c * n;

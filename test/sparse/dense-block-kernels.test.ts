@@ -1,6 +1,6 @@
 import { Matrix } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
-import { scaledRowsKMajor, updateLowerProduct } from '../../src/sparse/dense-block-kernels.js';
+import { scaledRowsKMajor, subtractTransposedProduct, updateLowerProduct, updateProduct } from '../../src/sparse/dense-block-kernels.js';
 import { seededRandom } from './fe-like-matrices.js';
 
 describe('updateLowerProduct', () => {
@@ -24,5 +24,30 @@ describe('updateLowerProduct', () => {
       for (let j = 0; j < n; j++)
         for (let i = j; i < m; i++) expect(Math.abs(c[i + j * m] - (c0[i + j * m] - p.get(i, j)))).toBeLessThan(1e-12);
     }
+  });
+});
+
+describe('updateProduct and subtractTransposedProduct', () => {
+  it('equal the full products from ml-matrix mmul', () => {
+    const rnd = seededRandom(8);
+    const [m, n, k] = [301, 9, 137];
+    const a = new Float64Array(m * k).map(() => rnd() - 0.5); // m×k column-major
+    const w = new Float64Array(n * k).map(() => rnd() - 0.5); // W (n×k) k-major
+    const c = new Float64Array(m * n);
+    updateProduct(m, n, k, a, 0, m, w, c, 0, m);
+    const am = new Matrix(m, k);
+    for (let i = 0; i < m; i++) for (let t = 0; t < k; t++) am.set(i, t, a[i + t * m]);
+    const wm = new Matrix(n, k);
+    for (let j = 0; j < n; j++) for (let t = 0; t < k; t++) wm.set(j, t, w[t * n + j]);
+    // reference: ml-matrix dense products
+    const p = am.mmul(wm.transpose());
+    for (let j = 0; j < n; j++) for (let i = 0; i < m; i++) expect(Math.abs(c[i + j * m] + p.get(i, j))).toBeLessThan(1e-12);
+    const g = new Float64Array(m * n).map(() => rnd() - 0.5); // G (m×n) row-major, n right-hand sides
+    const y = new Float64Array(k * n);
+    subtractTransposedProduct(m, k, n, a, 0, m, g, y, k);
+    const gm = new Matrix(m, n);
+    for (let i = 0; i < m; i++) for (let q = 0; q < n; q++) gm.set(i, q, g[i * n + q]);
+    const q2 = am.transpose().mmul(gm);
+    for (let q = 0; q < n; q++) for (let j = 0; j < k; j++) expect(Math.abs(y[q * k + j] + q2.get(j, q))).toBeLessThan(1e-12);
   });
 });
