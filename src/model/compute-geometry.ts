@@ -74,7 +74,7 @@ export function computeGeometry(input: GeometryInput): GeometryFacts {
     rigidBodyEnergy: energy,
     freeRigidBodyMotions: free.free,
     nearZeroModes: nearZero,
-    supported: supportedReason(input.constraints, nearZero),
+    supported: supportedReason(input.constraints, nearZero, input.expectedRigidBodyModes),
     constraints: input.constraints ?? null,
     participation: modes ? modalParticipation(modes, massTimesR, gDiagonal) : null,
     mechanisms:
@@ -102,10 +102,17 @@ function referenceEigenvalue(
   return { value: scale, source: 'stiffness-mass-scale' };
 }
 
-function supportedReason(constraints: ConstraintFacts | undefined, nearZero: number | null): { reason: string } | null {
+/**
+ * Why the model counts as supported (so free-free checks skip), or null: constraint sets held
+ * DOFs; the config expects no rigid-body mode; or, when the config says nothing, no near-zero
+ * mode was solved. A configured expectation of rigid-body modes keeps the model free even when
+ * none was found (that is what grounding looks like).
+ */
+function supportedReason(constraints: ConstraintFacts | undefined, nearZero: number | null, expected: number | undefined): { reason: string } | null {
   if (constraints && constraints.removedDofs > 0) {
     return { reason: `the model is supported by constraint sets (${constraints.sets.join(', ')}; ${constraints.removedDofs} DOFs held)` };
   }
-  if (nearZero === 0) return { reason: 'the solved modes include no near-zero mode, so the model is supported' };
+  if (expected === 0) return { reason: 'the config expects no rigid-body modes (rigid-body-modes expected: 0), so the model is supported' };
+  if (expected === undefined && nearZero === 0) return { reason: 'the solved modes include no near-zero mode, so the model is supported' };
   return null;
 }
