@@ -22,13 +22,18 @@ export function nodeList(entries: readonly { node: number; component: string }[]
 
 /**
  * Where the mechanisms move, for rigid-body-modes' failure message: "largest mechanism motion
- * at node 902 uy (100 % of the kinetic energy), …", top 3 in the sentence, top 10 in `nodes`.
+ * at node 902 uy (100 % of the kinetic energy), …", up to 3 in the sentence (those after the
+ * first only with ≥ 1 % of the energy), top 10 in `nodes`.
  * Null when there are no geometry facts or no mechanism.
  */
 export function mechanismLocation(geometry: GeometryFacts | undefined): { sentence: string; nodes: unknown[]; mechanisms: number } | null {
   const m = geometry?.mechanisms;
   if (!m || m.mechanisms === 0 || m.nodes.length === 0) return null;
-  const shown = m.nodes.slice(0, 3).map((e) => `node ${e.node} ${e.component} (${(100 * e.energyFraction).toFixed(1)} %)`);
+  // the first node always; the next two only when they carry at least 1 % of the energy
+  const shown = m.nodes
+    .slice(0, 3)
+    .filter((e, k) => k === 0 || e.energyFraction >= 0.01)
+    .map((e) => `node ${e.node} ${e.component} (${(100 * e.energyFraction).toFixed(1)} %)`);
   return {
     sentence: `Largest mechanism motion (share of kinetic energy) at ${formatList(shown, 3)}.`,
     nodes: m.nodes,
