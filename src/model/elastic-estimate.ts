@@ -13,7 +13,7 @@
 import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
 import type { DofMap } from '../io/dof-map.js';
 import type { RigidBodyVectors } from './rigid-body-vectors.js';
-import { smallSymmetricEigen } from './small-symmetric-eigen.js';
+import { symmetricEigen } from '../dense/symmetric-eigen.js';
 
 /** Smallest Rayleigh–Ritz value over smooth fields M-orthogonal to R, or null when none exists. */
 export function elasticEigenvalueEstimate(stiffness: SymmetricCsc, mass: SymmetricCsc, dofMap: DofMap, rigid: RigidBodyVectors): number | null {
@@ -37,7 +37,7 @@ export function elasticEigenvalueEstimate(stiffness: SymmetricCsc, mass: Symmetr
       h[a * elastic + b] = h[b * elastic + a] = 0.5 * s;
     }
   }
-  const lowest = smallSymmetricEigen(h, elastic).values[0];
+  const lowest = symmetricEigen(Float64Array.from(h), elastic).values[0];
   return lowest > 0 ? lowest : null;
 }
 

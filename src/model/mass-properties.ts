@@ -12,7 +12,7 @@
 import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
 import type { DofMap } from '../io/dof-map.js';
 import { rigidBodyVectors, meanDofPosition, type Point3, type RigidBodyVectors } from './rigid-body-vectors.js';
-import { smallSymmetricEigen } from './small-symmetric-eigen.js';
+import { symmetricEigen } from '../dense/symmetric-eigen.js';
 
 export interface MassProperties {
   /** Mass moving with a unit translation along x, y, z (G diagonal). */
@@ -87,7 +87,7 @@ export function massPropertiesFromRigidBodyMass(g: number[], referencePoint: Poi
       inertia[a * 3 + b] = g[(3 + a) * 6 + 3 + b] - shift;
     }
   }
-  const eig = smallSymmetricEigen(inertia, 3);
+  const eig = symmetricEigen(Float64Array.from(inertia), 3);
   const axis = (k: number): Point3 => [eig.vectors[k * 3], eig.vectors[k * 3 + 1], eig.vectors[k * 3 + 2]];
   return {
     translationalMass: m,

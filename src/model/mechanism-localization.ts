@@ -20,7 +20,7 @@
 import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
 import { COMPONENTS, type DofMap } from '../io/dof-map.js';
 import type { ModesResult } from '../eigen/modes-types.js';
-import { smallSymmetricEigen } from './small-symmetric-eigen.js';
+import { symmetricEigen } from '../dense/symmetric-eigen.js';
 
 /** Eigenvalues at most this times the stiffness/mass scale are round-off zeros (our choice). */
 export const ROUND_OFF_ZERO_RATIO = 1e-10;
@@ -40,7 +40,7 @@ export function freeRigidBodyDirections(
   const s = new Float64Array(36);
   // D G D, unit diagonal where a direction has mass
   for (let r = 0; r < 6; r++) for (let c = 0; c < 6; c++) s[c * 6 + r] = d[r] * rigidBodyMass[r * 6 + c] * d[c];
-  const gEig = smallSymmetricEigen(s, 6);
+  const gEig = symmetricEigen(Float64Array.from(s), 6);
   const cut = 1e-10 * Math.max(...gEig.values);
   const keep: number[] = [];
   for (let e = 0; e < 6; e++) if (gEig.values[e] > cut) keep.push(e);
@@ -59,7 +59,7 @@ export function freeRigidBodyDirections(
       h[b * q + a] = sum;
     }
   }
-  const hEig = smallSymmetricEigen(h, q);
+  const hEig = symmetricEigen(Float64Array.from(h), q);
   const limit = referenceEigenvalue / NEAR_ZERO_GAP_RATIO;
   const freeColumns: number[] = [];
   for (let e = 0; e < q; e++) if (hEig.values[e] <= limit) freeColumns.push(e);
@@ -147,7 +147,7 @@ export function localizeMechanisms(
   const top = options.top ?? 10;
   const z = modes.shapes.subarray(0, n * k);
   const a = rigidProjectionGram(z, massTimesR, options.freeDirections, options.freeCount, n, k);
-  const eig = smallSymmetricEigen(a, k);
+  const eig = symmetricEigen(Float64Array.from(a), k);
   const mechanismColumns: number[] = [];
   const alignment: number[] = [];
   // eigenvalues of A ascending: small cos² = mechanism directions

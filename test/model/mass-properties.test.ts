@@ -4,8 +4,6 @@ import { buildFrame } from '../../fixtures/generator/frame-builder.js';
 import { buildCantilever } from '../../fixtures/generator/cantilever.js';
 import { STEEL, rectangularSection, roundBarSection } from '../../fixtures/generator/sections.js';
 import { rigidBodyVectorsAboutCenterOfMass } from '../../src/model/mass-properties.js';
-import { smallSymmetricEigen } from '../../src/model/small-symmetric-eigen.js';
-import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 
 const rel = (a: number, b: number): number => Math.abs(a - b) / Math.abs(b);
 
@@ -115,25 +113,5 @@ describe('mass properties of frames (6 DOF beam nodes, 3 DOF rod nodes)', () => 
     const mp = rigidBodyVectorsAboutCenterOfMass(box.dofMap, { ...box.mass, values }).massProperties;
     expect(mp.translationalMass[2]).toBeLessThan(mp.translationalMass[0]);
     expect(mp.translationalMassSpread).toBeGreaterThan(1e-4);
-  });
-});
-
-describe('small symmetric eigen (Jacobi) against ml-matrix', () => {
-  it('matches EigenvalueDecomposition on a 5 × 5 symmetric matrix', () => {
-    // Reference: ml-matrix EigenvalueDecomposition (general-purpose library).
-    const k = 5;
-    const a = new Float64Array(k * k);
-    for (let i = 0; i < k; i++) for (let j = 0; j <= i; j++) a[i * k + j] = a[j * k + i] = Math.sin(1 + i * 7 + j * 3) + (i === j ? 3 : 0);
-    const mine = smallSymmetricEigen(a, k);
-    const ref = [...new EigenvalueDecomposition(new Matrix(Array.from({ length: k }, (_, i) => Array.from(a.subarray(i * k, i * k + k)))), { assumeSymmetric: true }).realEigenvalues].sort((x, y) => x - y);
-    ref.forEach((v, i) => expect(Math.abs(mine.values[i] - v)).toBeLessThan(1e-13 * 5));
-    // A v = λ v for every pair
-    for (let e = 0; e < k; e++) {
-      for (let r = 0; r < k; r++) {
-        let s = 0;
-        for (let c = 0; c < k; c++) s += a[c * k + r] * mine.vectors[e * k + c];
-        expect(Math.abs(s - mine.values[e] * mine.vectors[e * k + r])).toBeLessThan(1e-12);
-      }
-    }
   });
 });
