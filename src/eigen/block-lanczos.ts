@@ -33,6 +33,13 @@ export const DEFAULT_BLOCK_SIZE = 6;
 const BASIS_PER_WANTED = 5;
 /** A thick restart keeps the unconverged wanted Ritz vectors plus this many blocks more. */
 const KEPT_EXTRA_BLOCKS = 2;
+/**
+ * A pair whose Krylov estimate ‖Cy − θy‖_M/|θ| is at rounding level (≤ 1e-13) no longer improves
+ * with more vectors; it is locked if its true residual is at most 1e-9 (ill-conditioned pencils
+ * stall above the requested tolerance; both figures our choice).
+ */
+const STALLED_ESTIMATE = 1e-13;
+const STALLED_RESIDUAL = 1e-9;
 
 interface Cycle {
   /** Basis V (n×size) and MV, with room for `capacity` columns. */
@@ -88,7 +95,7 @@ export function blockLanczos(search: EigenSearch): EigenSearchResult {
     for (const i of zOrder.slice(0, wanted)) {
       const theta = 1 / (ritz.values[i] - sigma);
       const estimate = estimates[i] / Math.abs(theta);
-      const ok = residuals[i] <= search.tolerance || (residuals[i] <= 1e-7 && estimate <= 1e-14);
+      const ok = residuals[i] <= search.tolerance || (residuals[i] <= STALLED_RESIDUAL && estimate <= STALLED_ESTIMATE);
       if (!ok) break;
       lockedNow.push(i);
     }
