@@ -226,7 +226,7 @@ async function benchCase(label: string, build: () => GeneratedModel, withScipy: 
     if (!withScipy) return;
     const mtx = join(dir, 'K.mtx');
     writeMatrixMarket(mtx, model.stiffness);
-    const specs = process.env.SPARSE_BENCH_PERMC?.split(',') ?? ['MMD_AT_PLUS_A', 'COLAMD'];
+    const specs = (process.env.SPARSE_BENCH_PERMC?.split(',') ?? ['MMD_AT_PLUS_A', 'COLAMD']).filter((p) => p !== 'none');
     for (const permc of specs) printScipy(o, runScipy(mtx, permc), permc);
   } finally {
     rmSync(dir, { recursive: true, force: true });
@@ -258,7 +258,7 @@ function printScipy(o: ChildReport, r: ScipyReport | string, permc: string): voi
 export default async function sparseBench(): Promise<void> {
   const withScipy = scipyAvailable();
   if (!withScipy) console.log('python3 with scipy not found: SciPy comparison skipped');
-  // SPARSE_BENCH_CASE=frame|hex runs one model; SPARSE_BENCH_PERMC=A,B picks SciPy's column orders
+  // SPARSE_BENCH_CASE=frame|hex runs one model; SPARSE_BENCH_PERMC=A,B picks SciPy's column orders ('none': ours only)
   const only = process.env.SPARSE_BENCH_CASE;
   if (!only || only === 'frame') await benchCase('space frame 22×22×21 nodes', spaceFrame, withScipy);
   if (!only || only === 'hex') await benchCase('hex solid 40×32×30 elements', hexSolid, withScipy);
