@@ -18,6 +18,7 @@ import { formatJunit } from '../report/junit-reporter.js';
 import { formatJson } from '../report/json-reporter.js';
 import { formatConsole } from '../report/console-reporter.js';
 import { formatMarkdown } from '../report/markdown.js';
+import { formatHtml } from '../report/html-reporter.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, runAction } from './run-action.js';
 
 export interface CheckOptions {
@@ -34,6 +35,8 @@ export interface CheckOptions {
   markdown?: string;
   /** Markdown: every mode of the comparison, not only the flagged ones. */
   markdownAll?: boolean;
+  /** Write the HTML report (with plots) here. */
+  html?: string;
   /** Base for relative command-line paths (default: the working directory). */
   cwd?: string;
   /** Where the console report goes (default: stdout). */
@@ -45,7 +48,7 @@ export interface CheckOptions {
 export interface CheckOutcome {
   code: number;
   report: CheckReport;
-  written: { junit?: string; json?: string; markdown?: string };
+  written: { junit?: string; json?: string; markdown?: string; html?: string };
 }
 
 export function registerCheck(program: Command): void {
@@ -59,6 +62,7 @@ export function registerCheck(program: Command): void {
     .option('--baseline <dir>', 'compare each model with its saved baseline in <dir> (overrides baseline.dir of the config)')
     .option('--save-baseline <dir>', "save each model's frequencies and mode shapes as a baseline in <dir>")
     .option('--markdown <file>', 'write a Markdown summary (for a pull-request comment or CI job summary) here')
+    .option('--html <file>', 'write an HTML report with plots here (overrides reports.html of the config)')
     .option('--markdown-all', 'Markdown: list every mode of the baseline comparison, not only the flagged ones')
     .option('-q, --quiet', 'print only failures, errors and the verdict')
     .action(runAction(async (opts: CheckOptions) => (await runCheck(opts)).code));
@@ -68,14 +72,14 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   const cwd = opts.cwd ?? process.cwd();
   const started = new Date();
   const t0 = performance.now();
-  const cliPaths = { junit: opts.junit ? resolve(cwd, opts.junit) : undefined, json: opts.json ? resolve(cwd, opts.json) : undefined, markdown: opts.markdown ? resolve(cwd, opts.markdown) : undefined };
+  const cliPaths = { junit: opts.junit ? resolve(cwd, opts.junit) : undefined, json: opts.json ? resolve(cwd, opts.json) : undefined, markdown: opts.markdown ? resolve(cwd, opts.markdown) : undefined, html: opts.html ? resolve(cwd, opts.html) : undefined };
   const baselineDirs = { baselineDir: opts.baseline ? resolve(cwd, opts.baseline) : undefined, saveBaselineDir: opts.saveBaseline ? resolve(cwd, opts.saveBaseline) : undefined };
   let configPath: string | undefined;
   let config: LoadedConfig | undefined;
   let problem: ProblemReport | undefined;
   const models: ModelReport[] = [];
   try {
-    for (const p of [cliPaths.junit, cliPaths.json, cliPaths.markdown]) if (p) checkWritableTarget(p, p);
+    for (const p of [cliPaths.junit, cliPaths.json, cliPaths.markdown, cliPaths.html]) if (p) checkWritableTarget(p, p);
     checkBaselineDirs(baselineDirs);
     configPath = findConfig(opts.config, cwd);
     config = loadConfig(configPath, baselineDirs);
@@ -102,11 +106,12 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
     junit: cliPaths.junit ?? config?.reports.junit ?? (config ? undefined : bestEffortReportPath(configPath, 'junit')),
     json: cliPaths.json ?? config?.reports.json ?? (config ? undefined : bestEffortReportPath(configPath, 'json')),
     markdown: cliPaths.markdown,
+    html: cliPaths.html ?? config?.reports.html,
   };
   const print = opts.print ?? ((t: string) => process.stdout.write(t));
   print(formatConsole(report, { quiet: opts.quiet }));
   const written = writeReports(report, targets, opts.markdownAll);
-  const labels: Record<string, string> = { junit: 'JUnit XML', json: 'JSON report', markdown: 'Markdown summary' };
+  const labels: Record<string, string> = { junit: 'JUnit XML', json: 'JSON report', markdown: 'Markdown summary', html: 'HTML report' };
   for (const [kind, p] of Object.entries(written)) if (!opts.quiet) print(`${labels[kind]}: ${p}\n`);
   for (const m of models) if (m.baselineSaved && !opts.quiet) print(`baseline of ${m.name} saved: ${m.baselineSaved.json}\n`);
   if (problem) (opts.printError ?? ((l: string) => process.stderr.write(l)))(`modalgate: ${problem.message}\n`);
@@ -138,8 +143,8 @@ function bestEffortReportPath(configPath: string | undefined, kind: 'junit' | 'j
   }
 }
 
-function writeReports(report: CheckReport, targets: { junit?: string; json?: string; markdown?: string }, markdownAll = false): { junit?: string; json?: string; markdown?: string } {
-  const written: { junit?: string; json?: string; markdown?: string } = {};
+function writeReports(report: CheckReport, targets: CheckOutcome['written'], markdownAll = false): CheckOutcome['written'] {
+  const written: CheckOutcome['written'] = {};
   if (targets.junit) {
     writeFileAtomic(targets.junit, formatJunit(report));
     written.junit = targets.junit;
@@ -151,6 +156,10 @@ function writeReports(report: CheckReport, targets: { junit?: string; json?: str
   if (targets.markdown) {
     writeFileAtomic(targets.markdown, formatMarkdown(report, { allModes: markdownAll }));
     written.markdown = targets.markdown;
+  }
+  if (targets.html) {
+    writeFileAtomic(targets.html, formatHtml(report));
+    written.html = targets.html;
   }
   return written;
 }

@@ -30,7 +30,7 @@ export async function runDemo(opts: { output: string; quiet?: boolean }): Promis
   const out = resolve(process.cwd(), opts.output);
   const config = join(packageRoot(), 'fixtures', 'demo', 'modalgate.yaml');
   process.stdout.write(`modalgate demo: checking the bundled models of ${config}\n\n`);
-  const { code, report } = await runCheck({ config, junit: join(out, 'junit.xml'), json: join(out, 'report.json'), quiet: opts.quiet });
+  const { code, report } = await runCheck({ config, junit: join(out, 'junit.xml'), json: join(out, 'report.json'), html: join(out, 'report.html'), quiet: opts.quiet });
   const unexpected = unexpectedOutcomes(report);
   if (code === EXIT_BAD_INPUT || unexpected.length > 0) {
     process.stdout.write(`\nThe demo did not behave as intended:\n${unexpected.map((u) => `  - ${u}`).join('\n')}\n`);

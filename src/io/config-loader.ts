@@ -86,6 +86,7 @@ export function loadConfig(path: string, overrides: ConfigOverrides = {}): Loade
   const reports = {
     junit: reportPath(config.reports?.junit, dir, path, 'reports.junit'),
     json: reportPath(config.reports?.json, dir, path, 'reports.json'),
+    html: reportPath(config.reports?.html, dir, path, 'reports.html'),
   };
   checkUniqueNames(config.models, path);
   const models = config.models.map((m, i) => resolveModel(config, m, i, path, dir, overrides));

@@ -28,7 +28,7 @@ export interface RawModelConfig extends RawSolveSettings {
 
 export interface RawConfig {
   $schema?: string;
-  reports?: { junit?: string; json?: string };
+  reports?: { junit?: string; json?: string; html?: string };
   defaults?: RawSolveSettings;
   baseline?: RawBaselineConfig;
   models: RawModelConfig[];
@@ -107,7 +107,7 @@ export interface LoadedConfig {
   path: string;
   dir: string;
   /** Absolute report paths from the config (command-line options override them). */
-  reports: { junit?: string; json?: string };
+  reports: { junit?: string; json?: string; html?: string };
   models: ModelJob[];
 }
 
