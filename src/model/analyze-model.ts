@@ -60,8 +60,7 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
     else solveInto(context, job, constrained.dofMap, unavailable, report, options);
     // geometry facts (rigid-body energy, mass properties, participation, mechanisms) need the DOF map
     const geometry = runGeometryStep(job, context, constrained);
-    if (geometry.facts) report.geometry = geometry.facts;
-    else if (geometry.error) report.geometry = { error: geometry.error };
+    if (geometry) report.geometry = geometry;
     // baseline: compare with the stored snapshot (context.comparison), save one on --save-baseline
     const baseline = await runBaselineStep(job, context, unavailable);
     if (context.comparison) report.comparison = context.comparison;

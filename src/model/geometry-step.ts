@@ -63,27 +63,23 @@ function resolveSet(job: ModelJob, s: RawConstraintSet, k: number): ConstraintSe
 }
 
 /**
- * Geometry facts for the rules (context.geometry) when a DOF map is present. A failure inside
- * the geometry computation leaves the geometry rules skipping and is returned as `error`.
+ * Geometry facts for the rules (context.geometry) when a DOF map is present. An exception here
+ * is an internal error of the model's check (exit 2, one line), like any other pipeline stage.
  */
-export function runGeometryStep(job: ModelJob, context: RuleContext, constrained: ConstrainedInput): { facts?: GeometryFacts; error?: string } {
-  if (!context.dofMap) return {};
+export function runGeometryStep(job: ModelJob, context: RuleContext, constrained: ConstrainedInput): GeometryFacts | undefined {
+  if (!context.dofMap) return undefined;
   const reduced = constrained.reduced;
-  try {
-    context.geometry = computeGeometry({
-      stiffness: context.stiffness,
-      mass: context.mass,
-      dofMap: context.dofMap,
-      modes: context.modes,
-      originalDofs: reduced?.keptDofs,
-      constraints: reduced ? { sets: constrained.setNames, removedDofs: reduced.removedDofs.length, keptDofs: reduced.keptDofs.length } : undefined,
-      unconstrained: reduced && constrained.original.dofMap ? { mass: constrained.original.mass, dofMap: constrained.original.dofMap } : undefined,
-      expectedRigidBodyModes: expectedRigidBodyModes(job),
-    });
-    return { facts: context.geometry };
-  } catch (e) {
-    return { error: `geometry facts could not be computed: ${e instanceof Error ? e.message : String(e)}` };
-  }
+  context.geometry = computeGeometry({
+    stiffness: context.stiffness,
+    mass: context.mass,
+    dofMap: context.dofMap,
+    modes: context.modes,
+    originalDofs: reduced?.keptDofs,
+    constraints: reduced ? { sets: constrained.setNames, removedDofs: reduced.removedDofs.length, keptDofs: reduced.keptDofs.length } : undefined,
+    unconstrained: reduced && constrained.original.dofMap ? { mass: constrained.original.mass, dofMap: constrained.original.dofMap } : undefined,
+    expectedRigidBodyModes: expectedRigidBodyModes(job),
+  });
+  return context.geometry;
 }
 
 /** `expected` of the rigid-body-modes rule when it is enabled with one. */
