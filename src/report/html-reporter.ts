@@ -62,8 +62,9 @@ function modelSection(m: ModelReport, i: number): string {
   if (m.problem) out.push(`<p class="problem"><strong>${m.problem.kind === 'input' ? 'Bad input' : 'Internal error'}:</strong> ${esc(m.problem.message)}</p>`);
   out.push(definitionList(keyFacts(m)));
   if (m.solve && m.solve.warnings.length > 0) out.push(`<ul class="warnings">${m.solve.warnings.map((w) => `<li>${esc(w)}</li>`).join('')}</ul>`);
-  out.push(ruleTable(m.rules));
-  out.push(...figures(m));
+  out.push('<h3>Rule outcomes</h3>', ruleTable(m.rules));
+  const plots = figures(m);
+  if (plots.length > 0) out.push('<h3>Plots</h3>', ...plots);
   const g = m.geometry as GeometryFacts | undefined;
   if (g) out.push(geometrySection(g));
   const c = m.comparison as ComparisonFacts | undefined;

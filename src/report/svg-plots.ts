@@ -351,7 +351,7 @@ export function heatMap(o: HeatMapOptions): string {
       if (showValues && Number.isFinite(v)) out.push(`<text x="${x + cell / 2}" y="${y + cell / 2}" text-anchor="middle" dominant-baseline="middle" font-size="9" fill="${v > 0.5 ? '#fff' : v < 0.005 ? MUTED : INK}">${v.toFixed(2)}</text>`);
     }
   }
-  for (const [r, c] of o.outlined ?? []) out.push(`<rect x="${left + c * cell + 1}" y="${top + r * cell + 1}" width="${cell - 2}" height="${cell - 2}" fill="none" stroke="${FLAG}" stroke-width="2"/>`);
+  for (const [r, c] of o.outlined ?? []) out.push(`<rect x="${left + c * cell + 1}" y="${top + r * cell + 1}" width="${cell - 2}" height="${cell - 2}" fill="none" stroke="${FLAG}" stroke-width="${cell >= 8 ? 2 : 1}"/>`);
   out.push(`<rect x="${left}" y="${top}" width="${o.cols * cell}" height="${o.rows * cell}" fill="none" stroke="${INK}"/>`);
   const rowStep = modeTickStep(o.rows), colStep = modeTickStep(o.cols);
   // row labels (baseline modes) and column labels (current modes)
