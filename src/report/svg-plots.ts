@@ -8,6 +8,7 @@
  * whole steps. The mode axis is a band axis: mode i sits in the middle of the i-th band.
  * Output is well-formed XML (one <svg> element per chart, text escaped) so it embeds in HTML.
  */
+import { xmlSafe } from './xml-text.js';
 
 export interface Scale {
   kind: 'linear' | 'log';
@@ -28,11 +29,9 @@ const FONT = 'font-family="sans-serif" font-size="11"';
 /** A white outline behind text drawn over lines. */
 const HALO = ' stroke="#fff" stroke-width="3" paint-order="stroke"';
 
-/** Text safe inside XML/HTML: &, <, >, quotes escaped; characters XML 1.0 forbids removed. */
+/** Text safe inside XML/HTML: characters XML 1.0 forbids removed (./xml-text.ts), &, <, >, quotes escaped. */
 export function escapeText(text: string): string {
-  // eslint-disable-next-line no-control-regex
-  const clean = text.replace(/[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g, '');
-  return clean.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
+  return xmlSafe(text, Infinity).replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
 }
 
 /** 10^k exactly as the decimal literal `1ek` reads (Math.pow can be one ulp off). */

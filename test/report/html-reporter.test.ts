@@ -7,7 +7,7 @@
  * writing modalgate-report/report.html naming every demo model.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { XMLValidator } from 'fast-xml-parser';
@@ -17,6 +17,8 @@ import { CAUTION, type CheckReport, type ModelReport } from '../../src/report/re
 import type { RuleResult } from '../../src/rules/engine.js';
 import { sampleReport } from './sample-report.js';
 import { ensureBuilt, repoRoot, runCli, type CliRun } from '../cli/built-cli.js';
+import { loadConfig } from '../../src/io/config-loader.js';
+import { runCheck } from '../../src/cli/check.js';
 
 const EVIL = '<script>&"';
 
@@ -216,6 +218,38 @@ describe('formatHtml', () => {
 const demoDir = join(repoRoot, 'fixtures/demo');
 const haveFixtures = existsSync(join(demoDir, 'scenario.json'));
 if (!haveFixtures) console.warn(`skipping the HTML demo end-to-end test: ${demoDir}/scenario.json is absent (demo models not generated yet)`);
+
+describe.skipIf(!haveFixtures)('check --html and reports.html', () => {
+  let dir: string;
+  let config: string;
+  beforeAll(() => {
+    dir = mkdtempSync(join(tmpdir(), 'modalgate-html-check-'));
+    config = join(dir, 'modalgate.yaml');
+    const m = (f: string) => JSON.stringify(join(demoDir, f));
+    writeFileSync(config, [
+      'reports: { html: out/from-config.html }',
+      'defaults: { count: 8, ruleSets: [supported] }',
+      'models:',
+      `  - { name: mast, stiffness: ${m('mast.stiffness.mtx')}, mass: ${m('mast.mass.mtx')}, dofs: ${m('mast.dofs.csv')}, rules: { first-elastic-frequency: { minHz: 4 } } }`,
+      '',
+    ].join('\n'));
+  });
+  afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+  it('resolves reports.html against the config folder', () => {
+    expect(loadConfig(config).reports.html).toBe(join(dir, 'out/from-config.html'));
+  });
+
+  it('writes the page where --html says, overriding the config', async () => {
+    const out = await runCheck({ config, html: 'cli.html', cwd: dir, quiet: true, print: () => {} });
+    expect(out.code).toBe(0);
+    expect(out.written.html).toBe(join(dir, 'cli.html'));
+    expect(existsSync(join(dir, 'out/from-config.html'))).toBe(false);
+    const html = readFileSync(join(dir, 'cli.html'), 'utf8');
+    expect(XMLValidator.validate(html)).toBe(true);
+    expect(html).toContain('<h2>mast <span class="verdict pass">PASS</span></h2>');
+  });
+});
 
 describe.skipIf(!haveFixtures)('modalgate demo writes report.html', () => {
   let cwd: string;
