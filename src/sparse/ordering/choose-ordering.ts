@@ -4,7 +4,8 @@
  * pattern), order the compressed graph, expand.
  *
  * With `ordering: 'auto'` every applicable candidate (natural, approximate minimum degree,
- * graph nested dissection, and coordinate bisection when coordinates are given) is computed
+ * graph nested dissection with multilevel separators, and coordinate bisection when
+ * coordinates are given) is computed
  * and the one with the smallest predicted nnz(L) — exact symbolic count, no numeric work — wins.
  * The factor's storage and, roughly, the flop count (Σ colcount²) follow nnz(L), so the
  * prediction is the cost model; the orderings themselves cost far less than one factorization.
@@ -17,7 +18,7 @@ import { countFactorNonzeros } from '../column-counts.js';
 import { adjacencyOfPencil, type AdjacencyGraph } from './adjacency-graph.js';
 import { expandOrdering, findSupervariables, type Supervariables } from './supervariables.js';
 import { approximateMinimumDegree } from './minimum-degree.js';
-import { graphNestedDissection } from './nested-dissection.js';
+import { multilevelNestedDissection } from './multilevel-bisection.js';
 import { coordinateBisection } from './coordinate-bisection.js';
 
 export interface ChooseOrderingOptions {
@@ -95,7 +96,7 @@ function orderingOf(name: OrderingName, sv: Supervariables, options: ChooseOrder
     case 'amd':
       return expandOrdering(sv, approximateMinimumDegree(sv.graph, { weights }));
     case 'nested-dissection':
-      return expandOrdering(sv, graphNestedDissection(sv.graph, { weights, leafSize }));
+      return expandOrdering(sv, multilevelNestedDissection(sv.graph, { weights, leafSize }));
     case 'coordinate-bisection': {
       const coords = supervariableCoordinates(sv, options.coordinates!);
       return expandOrdering(sv, coordinateBisection(sv.graph, coords, { weights, leafSize }));

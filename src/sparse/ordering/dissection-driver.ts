@@ -29,6 +29,14 @@ export interface DissectionOptions {
   leafSize?: number;
   /** Vertex weights (supervariable sizes), passed to the leaf orderings. */
   weights?: Int32Array;
+  /**
+   * Reorder the result by constrained minimum degree (default false): the dissection only
+   * fixes which vertices are eliminated in which round — the leaves first, then the separators
+   * of height 1, 2, … in the separator tree — and minimum degree orders inside each round.
+   * On hexahedral patterns this gave exactly the fill of the plain order (each separator's
+   * block is dense once its two sides are eliminated, so its inner order is free), hence off.
+   */
+  constrainedReorder?: boolean;
 }
 
 /** Nested dissection ordering of the whole graph with the given splitter. */
@@ -38,6 +46,7 @@ export function nestedDissectionWith(graph: AdjacencyGraph, split: PartSplitter,
   const perm = new Int32Array(n);
   const local = new Int32Array(n).fill(-1);
   const inPart = new Uint8Array(n);
+  const height = new Int32Array(n); // 0 in the leaves, 1 + the children's height in separators
   let out = 0;
 
   /**
@@ -54,21 +63,22 @@ export function nestedDissectionWith(graph: AdjacencyGraph, split: PartSplitter,
     for (let k = 0; k < order.length; k++) perm[out++] = vertices[order[k]];
   };
 
-  /** Orders a part: A and B recursively, then the separator. */
-  const orderPart = (vertices: Int32Array, depth: number): void => {
-    if (vertices.length <= leafSize || depth > 64) return orderLeaf(vertices);
+  /** Orders a part: A and B recursively, then the separator; returns the part's tree height. */
+  const orderPart = (vertices: Int32Array, depth: number): number => {
+    if (vertices.length <= leafSize || depth > 64) return orderLeaf(vertices), 0;
     const side = new Uint8Array(vertices.length);
-    if (!split(vertices, side)) return orderLeaf(vertices);
+    if (!split(vertices, side)) return orderLeaf(vertices), 0;
     const counts = [0, 0, 0];
     for (let k = 0; k < side.length; k++) counts[side[k]]++;
-    if (counts[SIDE_A] === 0 || counts[SIDE_B] === 0) return orderLeaf(vertices);
+    if (counts[SIDE_A] === 0 || counts[SIDE_B] === 0) return orderLeaf(vertices), 0;
     const parts = [new Int32Array(counts[0]), new Int32Array(counts[1]), new Int32Array(counts[2])];
     const fill = [0, 0, 0];
     // distribute the vertices by side, keeping their relative order
     for (let k = 0; k < side.length; k++) parts[side[k]][fill[side[k]]++] = vertices[k];
-    orderPart(parts[SIDE_A], depth + 1);
-    orderPart(parts[SIDE_B], depth + 1);
+    const h = 1 + Math.max(orderPart(parts[SIDE_A], depth + 1), orderPart(parts[SIDE_B], depth + 1));
     orderSeparator(parts[SEPARATOR]);
+    for (const v of parts[SEPARATOR]) height[v] = h;
+    return parts[SEPARATOR].length > 0 ? h : h - 1;
   };
 
   /** The separator's own block is dense after A and B are eliminated: its inner order is free. */
@@ -77,7 +87,8 @@ export function nestedDissectionWith(graph: AdjacencyGraph, split: PartSplitter,
   };
 
   orderPart(Int32Array.from({ length: n }, (_, v) => v), 0);
-  return perm;
+  if (!options.constrainedReorder) return perm;
+  return approximateMinimumDegree(graph, { weights: options.weights, constraint: height, denseThreshold: n });
 }
 
 /** The part's vertices followed by its outside neighbours (`inPart` is an n-long zeroed workspace). */

@@ -46,6 +46,12 @@ export interface MinimumDegreeOptions {
    * result — the boundary of a part whose neighbours are eliminated later by someone else.
    */
   halo?: Uint8Array;
+  /**
+   * Constraint set of each vertex (small non-negative integers): every vertex of set s is
+   * eliminated before any of a larger set, minimum degree deciding inside a set (constrained
+   * minimum degree, as used after nested dissection to order domains, then separators).
+   */
+  constraint?: Int32Array;
 }
 
 /** Approximate minimum degree permutation of the graph's vertices (perm[k] = k-th pivot). */
@@ -55,7 +61,15 @@ export function approximateMinimumDegree(graph: AdjacencyGraph, options: Minimum
   if (n === 0) return perm;
   const aggressive = options.aggressiveAbsorption ?? true;
   const dense = options.denseThreshold ?? Math.max(16, Math.floor(10 * Math.sqrt(n)));
-  const q = initialQuotientGraph(graph, options.weights, options.halo);
+  const constraint = options.constraint;
+  let currentSet = 0;
+  const held = new Uint8Array(n); // flag: halo for now, listed when its constraint set comes up
+  if (constraint) {
+    for (let i = 0; i < n; i++) currentSet = i === 0 ? constraint[i] : Math.min(currentSet, constraint[i]);
+    for (let i = 0; i < n; i++) held[i] = options.halo?.[i] || constraint[i] > currentSet ? 1 : 0;
+  }
+  const q = initialQuotientGraph(graph, options.weights, constraint ? held : options.halo);
+  q.group = constraint;
   let out = 0;
   const denseList: number[] = [];
   let live = 0;
@@ -72,7 +86,7 @@ export function approximateMinimumDegree(graph: AdjacencyGraph, options: Minimum
   for (let i = 0; i < n; i++) {
     if (q.elen[i] === -1) continue;
     if (q.degree[i] === 0) {
-      if (!q.halo[i]) perm[out++] = i;
+      if (!options.halo?.[i]) perm[out++] = i;
       q.elen[i] = -2;
       q.pe[i] = -1;
       q.w[i] = 0;
@@ -85,14 +99,49 @@ export function approximateMinimumDegree(graph: AdjacencyGraph, options: Minimum
     }
   }
   // eliminate supervariables of least approximate degree until every weight is used
-  while (q.eliminated < live) {
-    const k = selectPivot(q);
-    eliminate(q, k, aggressive);
-    // k and everything merged or mass-eliminated with it take the next pivot positions
-    for (let v = k; v !== -1; v = q.chainNext[v]) perm[out++] = v;
+  for (;;) {
+    while (q.eliminated < live) {
+      const k = selectPivot(q);
+      eliminate(q, k, aggressive);
+      // k and everything merged or mass-eliminated with it take the next pivot positions
+      for (let v = k; v !== -1; v = q.chainNext[v]) perm[out++] = v;
+    }
+    if (!constraint) break;
+    const added = listNextSet(q, constraint, options.halo, currentSet);
+    if (added.set < 0) break;
+    currentSet = added.set;
+    live += added.weight;
   }
-  for (const i of denseList) if (!q.halo[i]) perm[out++] = i;
+  for (const i of denseList) if (!options.halo?.[i]) perm[out++] = i;
   return out === n ? perm : perm.slice(0, out);
+}
+
+/**
+ * Lists the live variables of the smallest constraint set above `current` (halo excluded);
+ * returns that set (−1 when none is left) and the weight it adds.
+ */
+function listNextSet(
+  q: QuotientGraph,
+  constraint: Int32Array,
+  halo: Uint8Array | undefined,
+  current: number,
+): { set: number; weight: number } {
+  const alive = (i: number): boolean => q.nv[i] > 0 && q.elen[i] >= 0 && !halo?.[i];
+  let set = -1;
+  // the smallest set above the current one that still has live variables
+  for (let i = 0; i < q.n; i++) {
+    if (alive(i) && constraint[i] > current && (set < 0 || constraint[i] < set)) set = constraint[i];
+  }
+  let weight = 0;
+  // release its variables into the degree lists
+  for (let i = 0; set >= 0 && i < q.n; i++) {
+    if (!alive(i) || constraint[i] !== set) continue;
+    q.halo[i] = 0;
+    insertDegreeList(q, i, q.degree[i]);
+    weight += q.nv[i];
+  }
+  q.mindeg = 0;
+  return { set, weight };
 }
 
 function selectPivot(q: QuotientGraph): number {
@@ -255,7 +304,7 @@ function mergeIndistinguishable(q: QuotientGraph, pk1: number, pk2: number): voi
       for (let p = pe[i] + 1; p < pe[i] + ln; p++) w[iw[p]] = mark;
       let jPrev = i;
       for (let j = next[i]; j !== -1; ) {
-        let same = len[j] === ln && elen[j] === eln && q.halo[j] === q.halo[i];
+        let same = len[j] === ln && elen[j] === eln && q.halo[j] === q.halo[i] && (!q.group || q.group[j] === q.group[i]);
         for (let p = pe[j] + 1; same && p < pe[j] + ln; p++) same = w[iw[p]] === mark;
         if (same) {
           pe[j] = flip(i);

@@ -31,7 +31,8 @@ export interface QuotientGraph {
   mindeg: number;
   eliminated: number; // total weight eliminated
   remaining: number; // weight of all listed vertices, halo included (caps the degrees)
-  halo: Uint8Array; // 1 = never a pivot
+  halo: Uint8Array; // 1 = not a pivot now (a halo vertex, or one of a later constraint set)
+  group: Int32Array | undefined; // constraint set of each vertex; only equal sets merge
 }
 
 export function initialQuotientGraph(graph: AdjacencyGraph, weights: Int32Array | undefined, halo: Uint8Array | undefined): QuotientGraph {
@@ -67,6 +68,7 @@ export function initialQuotientGraph(graph: AdjacencyGraph, weights: Int32Array 
     eliminated: 0,
     remaining: 0,
     halo: halo ?? new Uint8Array(n),
+    group: undefined,
   };
   // list lengths and the (weighted) degree of each vertex
   for (let i = 0; i < n; i++) {
