@@ -38,7 +38,7 @@ describe('modalgate check', () => {
     expect(r.code, r.stderr).toBe(1);
     expect(r.stdout).toMatch(/tiny-free\s+rigid-body-modes\s+FAIL\s+0 modes below 0.005 Hz, expected 6/);
     const xml = junitOf(join(work, 'good/out/junit.xml'));
-    expect(xml).toMatch(/<testsuites name="modalgate" tests="22" failures="1" errors="0"/);
+    expect(xml).toMatch(/<testsuites name="modalgate" tests="24" failures="1" errors="0"/);
     const json = JSON.parse(readFileSync(join(work, 'good/out/report.json'), 'utf8'));
     expect(json.verdict).toBe('fail');
     // fixed–free chain of 3 unit masses and springs 100 N/m: λ₁ = (4k/m) sin²(π/14), CRITERIA.md §7 [V]

@@ -91,7 +91,7 @@ describe('JSON Schemas in rules/schema', () => {
       expect(findConfig(undefined, dir)).toBe(p);
       const c = loadConfig(p);
       expect(c.models[0].solve.count).toBe(20);
-      expect(c.models[0].rules.length).toBe(10);
+      expect(c.models[0].rules.length).toBe(12); // free-free: 10 numerical checks + rigid-body-energy + mass-consistency
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }
