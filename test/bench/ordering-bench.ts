@@ -1,24 +1,54 @@
 /**
- * Fill-reducing orderings at scale. Models (fixtures/generator): a free-free steel hex box of
- * 39×39×24 hexahedra (40×40×25 nodes, 120 000 DOFs, 27-node coupling) and a rigid-jointed space
- * frame of steel tubes on a 22×22×21-node lattice clamped at its base (≈ 58k DOFs, 6 per node).
+ * Fill-reducing orderings at scale. Models (fixtures/generator): a near-cube steel hex solid of
+ * 40×32×30 hexahedra clamped on its xMin face (122 760 DOFs), a free-free hex box of 39×39×24
+ * hexahedra (40×40×25 nodes, 120 000 DOFs, 27-node coupling) and a rigid-jointed space frame of
+ * steel tubes on a 22×22×21-node lattice clamped at its base (≈ 58k DOFs, 6 per node).
  *
  * For each model and each ordering (natural, approximate minimum degree, graph nested
- * dissection, coordinate bisection) prints the ordering time and the exact nnz(L) of the
- * LDLᵀ factor (src/sparse/column-counts.ts), the ratio to natural order, and nnz(L)/n^{4/3}
- * (the growth law of nested dissection on 3D meshes). Then the automatic choice with the DOF
- * map (node labels + coordinates) and with the pattern alone, and the acceptance check:
- * chosen nnz(L) ≤ natural / 5 on the hex solid.
+ * dissection — multilevel, plus the former single-level level-structure dissection for
+ * comparison — and coordinate bisection) prints the ordering time (wall and this process's
+ * CPU: the machine is shared) and the exact nnz(L) of the LDLᵀ factor
+ * (src/sparse/column-counts.ts), the ratio to natural order, nnz(L)/n^{4/3} (the growth law of
+ * nested dissection on 3D meshes) and the flop measure Σ colcount². Then the automatic choice
+ * with the DOF map (node labels + coordinates) and with the pattern alone, and the acceptance
+ * check: chosen nnz(L) ≤ natural / 5 on the hex solids.
+ * ORDERING_BENCH_MODEL = cube | hex | frame runs one model only.
  */
 import { buildFrame, type FrameMember, type FrameNode } from '../../fixtures/generator/frame-builder.js';
 import { buildHexBox } from '../../fixtures/generator/hex-solid.js';
 import type { GeneratedModel } from '../../fixtures/generator/model-types.js';
 import { circularHollowSection, STEEL } from '../../fixtures/generator/sections.js';
-import { chooseOrdering, type ChooseOrderingOptions } from '../../src/sparse/ordering/choose-ordering.js';
+import { chooseOrdering, patternOfGraph, type ChooseOrderingOptions } from '../../src/sparse/ordering/choose-ordering.js';
 import type { OrderingName } from '../../src/sparse/factor-types.js';
+import { adjacencyOfPencil } from '../../src/sparse/ordering/adjacency-graph.js';
+import { expandOrdering, findSupervariables } from '../../src/sparse/ordering/supervariables.js';
+import { graphNestedDissection } from '../../src/sparse/ordering/nested-dissection.js';
+import { factorStructureCounts } from '../../src/sparse/column-counts.js';
 
 const sec = (ms: number): string => `${(ms / 1000).toFixed(2)} s`;
 const ORDERINGS: OrderingName[] = ['natural', 'amd', 'nested-dissection', 'coordinate-bisection'];
+
+function nearCube(): GeneratedModel {
+  return buildHexBox({ sizeM: [4, 3.2, 3], elements: [40, 32, 30], material: STEEL, clampFace: 'xMin' });
+}
+
+/** Σ colcount² of the factor (the factorization's flop count up to a constant) and nnz(L). */
+function factorCost(model: GeneratedModel, perm: Int32Array): { nnzL: number; flops: number } {
+  const pattern = patternOfGraph(adjacencyOfPencil(model.stiffness, model.mass));
+  const { counts, nnzL } = factorStructureCounts(pattern, perm);
+  let flops = 0;
+  for (const c of counts) flops += c * c;
+  return { nnzL, flops };
+}
+
+/** The former single-level dissection (breadth-first levels + greedy moves), for before/after. */
+function levelStructureDissection(model: GeneratedModel): { perm: Int32Array; ms: number } {
+  const graph = adjacencyOfPencil(model.stiffness, model.mass);
+  const sv = findSupervariables(graph, { nodeOfVertex: model.dofMap.node, coordinates: model.coordinates });
+  const t = performance.now();
+  const perm = expandOrdering(sv, graphNestedDissection(sv.graph, { weights: sv.weight }));
+  return { perm, ms: performance.now() - t };
+}
 
 function hexSolid(): GeneratedModel {
   return buildHexBox({ sizeM: [3.9, 3.9, 2.4], elements: [39, 39, 24], material: STEEL });
@@ -53,26 +83,42 @@ function benchModel(label: string, model: GeneratedModel, checkTarget: boolean):
   const withMap: ChooseOrderingOptions = { coordinates: model.coordinates, nodeOfDof: model.dofMap.node };
   console.log(`\n${label}: ${n} DOFs, stored nonzeros K ${stiffness.colPtr[n]}, M ${mass.colPtr[n]}`);
   const nnz: Partial<Record<OrderingName, number>> = {};
+  const line = (name: string, ms: number, cpuMs: number, perm: Int32Array, extra = ''): void => {
+    const { nnzL, flops } = factorCost(model, perm);
+    const ratio = nnz.natural ? nnz.natural / nnzL : 1;
+    console.log(
+      `  ${name.padEnd(24)} ordering ${sec(ms).padStart(7)} (cpu ${sec(cpuMs)})  nnz(L) ${nnzL.toExponential(3)}` +
+        `  natural/this ${ratio.toFixed(2).padStart(6)}  nnz(L)/n^(4/3) ${(nnzL / n ** (4 / 3)).toFixed(1)}` +
+        `  Σcolcount² ${flops.toExponential(3)}${extra}`,
+    );
+  };
   // each ordering alone, with the DOF map
   for (const name of ORDERINGS) {
+    const cpu0 = process.cpuUsage();
     const r = chooseOrdering(stiffness, mass, { ...withMap, ordering: name });
+    const cpu = process.cpuUsage(cpu0);
     nnz[name] = r.predictedNnzL;
-    const ratio = nnz.natural! / r.predictedNnzL;
-    console.log(
-      `  ${name.padEnd(21)} ordering ${sec(r.candidates[0].ms).padStart(7)}  nnz(L) ${r.predictedNnzL.toExponential(3)}` +
-        `  natural/this ${ratio.toFixed(2).padStart(6)}  nnz(L)/n^(4/3) ${(r.predictedNnzL / n ** (4 / 3)).toFixed(1)}` +
-        `  (graph + ${r.supervariables} supervariables ${sec(r.graphMs)})`,
-    );
+    // cpu covers graph, compression, ordering and one prediction; wall is the ordering alone
+    line(name, r.candidates[0].ms, (cpu.user + cpu.system) / 1000, r.perm, `  (graph + ${r.supervariables} supervariables ${sec(r.graphMs)})`);
   }
+  const cpu0 = process.cpuUsage();
+  const old = levelStructureDissection(model);
+  const cpu = process.cpuUsage(cpu0);
+  line('nested-dissection (levels)', old.ms, (cpu.user + cpu.system) / 1000, old.perm, '  (former single-level dissection)');
   for (const [what, options] of [
     ['with DOF map', withMap],
     ['pattern only', {}],
   ] as const) {
     const t0 = performance.now();
+    const c0 = process.cpuUsage();
     const auto = chooseOrdering(stiffness, mass, { ...options, ordering: 'auto' });
     const ms = performance.now() - t0;
-    const list = auto.candidates.map((c) => `${c.name} ${c.nnzL.toExponential(2)}`).join(', ');
-    console.log(`  auto (${what}): chose ${auto.name}, nnz(L) ${auto.predictedNnzL.toExponential(3)}, ${auto.supervariables} supervariables, total ${sec(ms)} incl. predictions [${list}]`);
+    const c1 = process.cpuUsage(c0);
+    const list = auto.candidates.map((c) => `${c.name} ${c.nnzL.toExponential(2)} in ${sec(c.ms)}`).join(', ');
+    console.log(
+      `  auto (${what}): chose ${auto.name}, nnz(L) ${auto.predictedNnzL.toExponential(3)}, ${auto.supervariables} supervariables,` +
+        ` total ${sec(ms)} (cpu ${sec((c1.user + c1.system) / 1000)}) incl. predictions [${list}]`,
+    );
     if (checkTarget) {
       const ok = auto.predictedNnzL * 5 <= nnz.natural!;
       console.log(`  target nnz(L) ≤ natural/5 (${(nnz.natural! / 5).toExponential(3)}): ${ok ? 'met' : 'NOT met'} (ratio ${(nnz.natural! / auto.predictedNnzL).toFixed(2)})`);
@@ -82,6 +128,7 @@ function benchModel(label: string, model: GeneratedModel, checkTarget: boolean):
 
 export default async function orderingBench(): Promise<void> {
   const only = process.env.ORDERING_BENCH_MODEL;
+  if (!only || only === 'cube') benchModel('hex solid 40×32×30 elements (xMin clamped)', nearCube(), true);
   if (!only || only === 'hex') benchModel('hex box 39×39×24 elements (free-free)', hexSolid(), true);
   if (!only || only === 'frame') benchModel('space frame 22×22×21 nodes (base clamped)', spaceFrame(), false);
 }

@@ -6,8 +6,11 @@
  * vertices): A = vertices with coordinate < c, B = the rest. The cut band is then turned into a true vertex
  * separator — the vertices of one side that have a neighbour on the other side (whichever
  * side gives the lighter set) — so no edge joins A and B whatever the mesh looks like. The
- * lightest separator wins (ties: the earlier candidate, the median first), which on graded or
- * holed meshes finds a thinner plane than the median. On a structured hexahedral grid this cuts along one
+ * separator of least weight × (1 + 4·|quantile − ½|) wins (ties: the earlier candidate, the
+ * median first): an off-median plane must be clearly lighter (up to 24 % at the outer
+ * candidates), which on graded or holed meshes finds a thinner plane than the median. An empty
+ * off-median separator (a cut between components) is not taken: on the 40×32×30 hex solid
+ * those cuts cost 0.6 % more fill than the median plane. On a structured hexahedral grid this cuts along one
  * node plane, the separator shape nested dissection needs for O(n^{4/3}) fill in 3D.
  *
  * Coordinates are per graph vertex, interleaved x, y, z (length 3·n).
@@ -63,8 +66,11 @@ function splitAtBestMedian(
       for (let k = 0; k < m; k++) trial[k] = keys[k] < cut ? SIDE_A : SIDE_B;
       const sepWeight = separatorFromTwoSides(graph, weights, vertices, trial, where);
       for (let k = 0; k < m; k++) where[vertices[k]] = OUTSIDE;
-      if (sepWeight < bestWeight) {
-        bestWeight = sepWeight;
+      // an empty off-median separator only splits off a component: the median split does better
+      if (sepWeight === 0 && quantile !== 0.5) continue;
+      const score = sepWeight * (1 + 4 * Math.abs(quantile - 0.5));
+      if (score < bestWeight) {
+        bestWeight = score;
         side.set(trial);
       }
     }
