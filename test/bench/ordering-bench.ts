@@ -41,12 +41,12 @@ function factorCost(model: GeneratedModel, perm: Int32Array): { nnzL: number; fl
   return { nnzL, flops };
 }
 
-/** The former single-level dissection (breadth-first levels + greedy moves), for before/after. */
+/** The former single-level dissection (breadth-first levels + greedy moves, leaves of 200). */
 function levelStructureDissection(model: GeneratedModel): { perm: Int32Array; ms: number } {
   const graph = adjacencyOfPencil(model.stiffness, model.mass);
   const sv = findSupervariables(graph, { nodeOfVertex: model.dofMap.node, coordinates: model.coordinates });
   const t = performance.now();
-  const perm = expandOrdering(sv, graphNestedDissection(sv.graph, { weights: sv.weight }));
+  const perm = expandOrdering(sv, graphNestedDissection(sv.graph, { weights: sv.weight, leafSize: 200 }));
   return { perm, ms: performance.now() - t };
 }
 
@@ -105,6 +105,11 @@ function benchModel(label: string, model: GeneratedModel, checkTarget: boolean):
   const old = levelStructureDissection(model);
   const cpu = process.cpuUsage(cpu0);
   line('nested-dissection (levels)', old.ms, (cpu.user + cpu.system) / 1000, old.perm, '  (former single-level dissection)');
+  // the former leaf size with coordinate bisection (its median cuts are unchanged on these models)
+  const c0 = process.cpuUsage();
+  const cb200 = chooseOrdering(stiffness, mass, { ...withMap, ordering: 'coordinate-bisection', leafSize: 200 });
+  const c1 = process.cpuUsage(c0);
+  line('coord.-bisection leaf 200', cb200.candidates[0].ms, (c1.user + c1.system) / 1000, cb200.perm, '  (former leaf size)');
   for (const [what, options] of [
     ['with DOF map', withMap],
     ['pattern only', {}],

@@ -29,7 +29,7 @@ export interface ChooseOrderingOptions {
   nodeOfDof?: Int32Array;
   /** nnz(L) of P A Pᵀ for a permutation; default: exact count on the union pattern of K and M. */
   predictNnzL?: (perm: Int32Array) => number;
-  /** Parts of at most this many supervariables end the dissection (default 200). */
+  /** Parts of at most this many supervariables end the dissection (default 64). */
   leafSize?: number;
 }
 

@@ -25,7 +25,7 @@ export const SEPARATOR = 2;
 export type PartSplitter = (vertices: Int32Array, side: Uint8Array) => boolean;
 
 export interface DissectionOptions {
-  /** Parts with at most this many vertices are ordered by minimum degree (default 200). */
+  /** Parts with at most this many vertices are ordered by minimum degree (default 64). */
   leafSize?: number;
   /** Vertex weights (supervariable sizes), passed to the leaf orderings. */
   weights?: Int32Array;
@@ -42,7 +42,7 @@ export interface DissectionOptions {
 /** Nested dissection ordering of the whole graph with the given splitter. */
 export function nestedDissectionWith(graph: AdjacencyGraph, split: PartSplitter, options: DissectionOptions = {}): Int32Array {
   const n = graph.n;
-  const leafSize = Math.max(2, options.leafSize ?? 200);
+  const leafSize = Math.max(2, options.leafSize ?? 64);
   const perm = new Int32Array(n);
   const local = new Int32Array(n).fill(-1);
   const inPart = new Uint8Array(n);

@@ -8,8 +8,9 @@
  * first from a pseudo-peripheral vertex) and refined by edge-cut FM (coarse-bisection.ts); each
  * becomes a vertex separator — the lighter of the two boundary layers — refined by
  * vertex-separator FM (separator-refinement.ts); the lightest wins. Parts of LARGE_PART or more
- * vertices take the lightest of RUNS_ON_LARGE_PARTS independent multilevel runs: the top
- * separators decide most of the fill. The separator is then carried back level by level (a fine vertex takes its coarse
+ * vertices take the lightest of RUNS_ON_LARGE_PARTS independent multilevel runs, parts of
+ * HUGE_PART or more of RUNS_ON_HUGE_PARTS: the top separators decide most of the fill (on the
+ * 40×32×30 hex solid 8 runs at the top gave 3 % less fill than 3). The separator is then carried back level by level (a fine vertex takes its coarse
  * vertex's label, which keeps A and B apart because a fine A–B edge would be a coarse one) and
  * refined again at every level, where the finer graph offers smaller moves.
  *
@@ -31,6 +32,9 @@ const MAX_SIDE_FRACTION = 0.52;
 /** Parts with at least this many vertices get RUNS_ON_LARGE_PARTS independent runs. */
 const LARGE_PART = 2000;
 const RUNS_ON_LARGE_PARTS = 3;
+/** Parts with at least this many vertices (the top few levels) get RUNS_ON_HUGE_PARTS runs. */
+const HUGE_PART = 8000;
+const RUNS_ON_HUGE_PARTS = 8;
 const INITIAL_TRIES = 6;
 
 export interface MultilevelOptions extends DissectionOptions {
@@ -52,7 +56,7 @@ export function multilevelNestedDissection(graph: AdjacencyGraph, options: Multi
       totalWeight: 0,
     };
     for (let k = 0; k < g.n; k++) g.totalWeight += g.vertexWeight[k];
-    const runs = g.n >= LARGE_PART ? RUNS_ON_LARGE_PARTS : 1;
+    const runs = g.n >= HUGE_PART ? RUNS_ON_HUGE_PARTS : g.n >= LARGE_PART ? RUNS_ON_LARGE_PARTS : 1;
     let bestScore = Infinity;
     // independent multilevel runs on large parts; the lightest balanced separator wins
     for (let r = 0; r < runs; r++) {
