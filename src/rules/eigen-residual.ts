@@ -6,9 +6,9 @@
  * own residual figures (which go into the details for comparison).
  */
 import type { RuleDefinition } from './rule-types.js';
+import { toleranceOptionsSchema, type ToleranceOptions } from './tolerance-options.js';
 import { outcome, argMax } from './outcome.js';
 import { modalProducts } from './modal-products.js';
-import type { ToleranceOptions } from './mass-normalization.js';
 
 const messages = {
   pass: 'largest relative residual {{measured}} (mode {{mode}}), within {{tolerance}}.',
@@ -18,11 +18,7 @@ const messages = {
 export const eigenResidual: RuleDefinition<ToleranceOptions> = {
   id: 'eigen-residual',
   description: 'Every mode satisfies Kφ = λMφ: max ‖Kφ − λMφ‖ / ((‖K‖ + |λ|‖M‖)‖φ‖) ≤ tolerance.',
-  optionsSchema: {
-    type: 'object',
-    properties: { tolerance: { type: 'number', exclusiveMinimum: 0 } },
-    additionalProperties: false,
-  },
+  optionsSchema: toleranceOptionsSchema(),
   defaults: { tolerance: 1e-8 },
   messages,
   needs: ['modes'],

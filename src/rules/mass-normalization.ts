@@ -4,12 +4,9 @@
  * §4.10, [C] CRITERIA.md §6); the 1e-6 limit is common practice ([CP] CRITERIA.md §6).
  */
 import type { RuleDefinition } from './rule-types.js';
+import { toleranceOptionsSchema, type ToleranceOptions } from './tolerance-options.js';
 import { outcome } from './outcome.js';
 import { modalProducts } from './modal-products.js';
-
-export interface ToleranceOptions {
-  tolerance: number;
-}
 
 const messages = {
   pass: 'largest |φᵀMφ − 1| is {{measured}} (mode {{mode}}), within {{tolerance}}.',
@@ -19,11 +16,7 @@ const messages = {
 export const massNormalization: RuleDefinition<ToleranceOptions> = {
   id: 'mass-normalization',
   description: 'Every mode shape has unit modal mass: max |φᵢᵀMφᵢ − 1| ≤ tolerance.',
-  optionsSchema: {
-    type: 'object',
-    properties: { tolerance: { type: 'number', exclusiveMinimum: 0 } },
-    additionalProperties: false,
-  },
+  optionsSchema: toleranceOptionsSchema(),
   defaults: { tolerance: 1e-6 },
   messages,
   needs: ['modes'],

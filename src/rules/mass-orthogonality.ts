@@ -4,9 +4,9 @@
  * practice for computed modes ([CP] CRITERIA.md §6; dense solvers reach O(nε)).
  */
 import type { RuleDefinition } from './rule-types.js';
+import { toleranceOptionsSchema, type ToleranceOptions } from './tolerance-options.js';
 import { outcome } from './outcome.js';
 import { modalProducts } from './modal-products.js';
-import type { ToleranceOptions } from './mass-normalization.js';
 
 const messages = {
   pass: 'largest |φᵢᵀMφⱼ| (i ≠ j) is {{measured}} (modes {{i}}, {{j}}), within {{tolerance}}.',
@@ -17,11 +17,7 @@ const messages = {
 export const massOrthogonality: RuleDefinition<ToleranceOptions> = {
   id: 'mass-orthogonality',
   description: 'Mode shapes are mass-orthogonal: max |φᵢᵀMφⱼ|, i ≠ j, ≤ tolerance.',
-  optionsSchema: {
-    type: 'object',
-    properties: { tolerance: { type: 'number', exclusiveMinimum: 0 } },
-    additionalProperties: false,
-  },
+  optionsSchema: toleranceOptionsSchema(),
   defaults: { tolerance: 1e-6 },
   messages,
   needs: ['modes'],

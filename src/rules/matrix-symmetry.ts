@@ -4,9 +4,9 @@
  * construction; `general` files are measured when read (MatrixSummary.maxRelativeAsymmetry).
  */
 import type { RuleDefinition } from './rule-types.js';
+import { toleranceOptionsSchema, type ToleranceOptions } from './tolerance-options.js';
 import type { MatrixSummary } from '../model/matrix-summary.js';
 import { outcome } from './outcome.js';
-import type { ToleranceOptions } from './mass-normalization.js';
 
 const messages = {
   pass: 'K and M are symmetric (largest relative asymmetry {{measured}}, limit {{tolerance}}).',
@@ -16,11 +16,7 @@ const messages = {
 export const matrixSymmetry: RuleDefinition<ToleranceOptions> = {
   id: 'matrix-symmetry',
   description: 'K and M are symmetric: max |a_ij − a_ji| / max |a| ≤ tolerance.',
-  optionsSchema: {
-    type: 'object',
-    properties: { tolerance: { type: 'number', minimum: 0 } },
-    additionalProperties: false,
-  },
+  optionsSchema: toleranceOptionsSchema(true),
   defaults: { tolerance: 1e-12 },
   messages,
   needs: [],

@@ -4,9 +4,9 @@
  * is used by the solver's own orthogonality figure; 1e-6 mirrors the mass check ([CP]).
  */
 import type { RuleDefinition } from './rule-types.js';
+import { toleranceOptionsSchema, type ToleranceOptions } from './tolerance-options.js';
 import { outcome } from './outcome.js';
 import { modalProducts } from './modal-products.js';
-import type { ToleranceOptions } from './mass-normalization.js';
 
 const messages = {
   pass: 'largest |φᵢᵀKφⱼ − λᵢδᵢⱼ| / max|λ| is {{measured}} (modes {{i}}, {{j}}), within {{tolerance}}.',
@@ -16,11 +16,7 @@ const messages = {
 export const stiffnessOrthogonality: RuleDefinition<ToleranceOptions> = {
   id: 'stiffness-orthogonality',
   description: 'Mode shapes are stiffness-orthogonal: max |φᵢᵀKφⱼ − λᵢδᵢⱼ| / max|λ| ≤ tolerance.',
-  optionsSchema: {
-    type: 'object',
-    properties: { tolerance: { type: 'number', exclusiveMinimum: 0 } },
-    additionalProperties: false,
-  },
+  optionsSchema: toleranceOptionsSchema(),
   defaults: { tolerance: 1e-6 },
   messages,
   needs: ['modes'],
