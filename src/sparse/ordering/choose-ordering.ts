@@ -19,6 +19,7 @@ import { adjacencyOfPencil, type AdjacencyGraph } from './adjacency-graph.js';
 import { expandOrdering, findSupervariables, type Supervariables } from './supervariables.js';
 import { approximateMinimumDegree } from './minimum-degree.js';
 import { multilevelNestedDissection } from './multilevel-bisection.js';
+import { graphNestedDissection } from './nested-dissection.js';
 import { coordinateBisection } from './coordinate-bisection.js';
 
 export interface ChooseOrderingOptions {
@@ -36,7 +37,8 @@ export interface ChooseOrderingOptions {
 export interface OrderingCandidate {
   name: OrderingName;
   nnzL: number;
-  /** Time to compute this ordering (graph and compression excluded), ms. */
+  /** Time to compute this ordering (graph and compression excluded; for nested dissection the
+   * two variants and the prediction that picks one), ms. */
   ms: number;
 }
 
@@ -86,8 +88,27 @@ function naturalOrder(n: number): Int32Array {
   return Int32Array.from({ length: n }, (_, k) => k);
 }
 
+/**
+ * Graph nested dissection: multilevel separators and breadth-first level structures, the one of
+ * less predicted fill. Multilevel wins on hexahedral solids (4.19 vs 2.97 × less fill than
+ * natural order on the 40×32×30 bench solid), level structures on beam lattices, whose
+ * breadth-first levels are already flat planes (5.90 vs 4.32 on the 22×22×21 bench frame).
+ */
+function bestGraphDissection(sv: Supervariables, options: ChooseOrderingOptions, predict: (perm: Int32Array) => number): Int32Array {
+  const weights = sv.weight;
+  const leafSize = options.leafSize;
+  const multilevel = expandOrdering(sv, multilevelNestedDissection(sv.graph, { weights, leafSize }));
+  const levels = expandOrdering(sv, graphNestedDissection(sv.graph, { weights, leafSize }));
+  return predict(levels) < predict(multilevel) ? levels : multilevel;
+}
+
 /** Computes one ordering of the compressed graph and expands it to DOFs. */
-function orderingOf(name: OrderingName, sv: Supervariables, options: ChooseOrderingOptions): Int32Array {
+function orderingOf(
+  name: OrderingName,
+  sv: Supervariables,
+  options: ChooseOrderingOptions,
+  predict: (perm: Int32Array) => number,
+): Int32Array {
   const weights = sv.weight;
   const leafSize = options.leafSize;
   switch (name) {
@@ -96,7 +117,7 @@ function orderingOf(name: OrderingName, sv: Supervariables, options: ChooseOrder
     case 'amd':
       return expandOrdering(sv, approximateMinimumDegree(sv.graph, { weights }));
     case 'nested-dissection':
-      return expandOrdering(sv, multilevelNestedDissection(sv.graph, { weights, leafSize }));
+      return bestGraphDissection(sv, options, predict);
     case 'coordinate-bisection': {
       const coords = supervariableCoordinates(sv, options.coordinates!);
       return expandOrdering(sv, coordinateBisection(sv.graph, coords, { weights, leafSize }));
@@ -122,11 +143,17 @@ export function chooseOrdering(
   const graph = adjacencyOfPencil(stiffness, mass);
   const sv = findSupervariables(graph, { nodeOfVertex: options.nodeOfDof, coordinates: options.coordinates });
   const graphMs = performance.now() - t0;
-  let predict = options.predictNnzL;
-  if (!predict) {
+  let count = options.predictNnzL;
+  if (!count) {
     const pattern = patternOfGraph(graph);
-    predict = (perm) => countFactorNonzeros(pattern, perm);
+    count = (perm) => countFactorNonzeros(pattern, perm);
   }
+  const counted = new Map<Int32Array, number>();
+  // each permutation is counted once, however often it is compared
+  const predict = (perm: Int32Array): number => {
+    if (!counted.has(perm)) counted.set(perm, count!(perm));
+    return counted.get(perm)!;
+  };
   const names: OrderingName[] =
     requested !== 'auto'
       ? [requested]
@@ -136,7 +163,7 @@ export function chooseOrdering(
   // compute each candidate and keep the one of least predicted fill
   for (const name of names) {
     const t = performance.now();
-    const perm = orderingOf(name, sv, options);
+    const perm = orderingOf(name, sv, options, predict);
     const ms = performance.now() - t;
     const nnzL = predict(perm);
     candidates.push({ name, nnzL, ms });

@@ -15,6 +15,7 @@ import { graphNestedDissection } from '../../../src/sparse/ordering/nested-disse
 import { coordinateBisection } from '../../../src/sparse/ordering/coordinate-bisection.js';
 import { approximateMinimumDegree } from '../../../src/sparse/ordering/minimum-degree.js';
 import { expandOrdering, findSupervariables } from '../../../src/sparse/ordering/supervariables.js';
+import { chooseOrdering } from '../../../src/sparse/ordering/choose-ordering.js';
 import { exactFactorNonzeros } from './exact-fill.js';
 import { gridPattern } from './grid-patterns.js';
 import { expectPermutation, naturalPerm } from './ordering-helpers.js';
@@ -152,6 +153,19 @@ describe('multilevel nested dissection', () => {
     expect(fillMl).toBeLessThan(0.6 * exactFactorNonzeros(graph, naturalPerm(graph.n)));
     // bound from this test's runs: the old single-level dissection is clearly worse
     expect(fillMl).toBeLessThan(0.9 * exactFactorNonzeros(graph, levels));
+  });
+
+  it("chooseOrdering's nested dissection keeps the better of multilevel and level structures", () => {
+    // a beam-lattice-like pattern: 6 DOFs per node, face neighbours only
+    const { matrix } = gridPattern(8, 8, 8, 6, 'faces');
+    const graph = adjacencyOfPencil(matrix);
+    const chosen = chooseOrdering(matrix, undefined, { ordering: 'nested-dissection' });
+    expectPermutation(chosen.perm, graph.n);
+    const sv = findSupervariables(graph);
+    const ml = exactFactorNonzeros(graph, expandOrdering(sv, multilevelNestedDissection(sv.graph, { weights: sv.weight })));
+    const levels = exactFactorNonzeros(graph, expandOrdering(sv, graphNestedDissection(sv.graph, { weights: sv.weight })));
+    // the exact counter of exact-fill.ts (Liu 1990) as the independent check
+    expect(exactFactorNonzeros(graph, chosen.perm)).toBe(Math.min(ml, levels));
   });
 
   it('is deterministic for a given seed', () => {
