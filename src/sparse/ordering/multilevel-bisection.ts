@@ -28,13 +28,13 @@ const COARSEST_SIZE = 120;
 const MIN_REDUCTION = 0.08;
 /** Each side may hold at most this share of the part's weight. */
 const MAX_SIDE_FRACTION = 0.52;
-/** Bisections grown on the coarsest graph. */
 /** Parts with at least this many vertices get RUNS_ON_LARGE_PARTS independent runs. */
 const LARGE_PART = 2000;
 const RUNS_ON_LARGE_PARTS = 3;
 /** Parts with at least this many vertices (the top few levels) get RUNS_ON_HUGE_PARTS runs. */
 const HUGE_PART = 8000;
 const RUNS_ON_HUGE_PARTS = 8;
+/** Bisections grown on the coarsest graph. */
 const INITIAL_TRIES = 6;
 
 export interface MultilevelOptions extends DissectionOptions {
@@ -59,6 +59,7 @@ export function multilevelNestedDissection(graph: AdjacencyGraph, options: Multi
     const runs = g.n >= HUGE_PART ? RUNS_ON_HUGE_PARTS : g.n >= LARGE_PART ? RUNS_ON_LARGE_PARTS : 1;
     let bestScore = Infinity;
     // independent multilevel runs on large parts; the lightest balanced separator wins
+    // (a side above the balance bound counts its excess as separator weight)
     for (let r = 0; r < runs; r++) {
       const where = multilevelSeparator(g, (options.seed ?? 1) + 7919 * calls++);
       const [a, b, s] = partWeights(g, where);
