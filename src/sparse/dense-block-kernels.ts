@@ -31,6 +31,10 @@ export function updateLowerProduct(
   cOff: number,
   ldc: number,
 ): void {
+  if (n >= 4 && k >= 4 && m >= 8) {
+    packedLowerProduct(m, n, k, a, aOff, lda, w, c, cOff, ldc);
+    return;
+  }
   // cache blocks: ROW_BLOCK rows of A and C, DEPTH_BLOCK steps of the inner dimension
   for (let i0 = 0; i0 < m; i0 += ROW_BLOCK) {
     const i1 = Math.min(m, i0 + ROW_BLOCK);
@@ -39,6 +43,105 @@ export function updateLowerProduct(
       productBlock(true, i0, i1, t0, Math.min(k, t0 + DEPTH_BLOCK), nb, n, a, aOff, lda, w, c, cOff, ldc);
     }
   }
+}
+
+/** Rows of A and depth steps per packed block (packed A block: 128 × 128 doubles = 128 KiB). */
+const PACK_ROWS = 128;
+const PACK_DEPTH = 128;
+let packedA = new Float64Array(PACK_ROWS * PACK_DEPTH);
+let packedW = new Float64Array(64 * PACK_DEPTH);
+
+/**
+ * updateLowerProduct on packed copies: per depth block, W's columns in 4-wide panels and A's rows
+ * in 4-high panels, each panel t-major (entry t of the panel's 4 rows/columns side by side, zero
+ * padded), so the 4×4 inner loop reads both operands sequentially.
+ */
+function packedLowerProduct(
+  m: number,
+  n: number,
+  k: number,
+  a: Float64Array,
+  aOff: number,
+  lda: number,
+  w: Float64Array,
+  c: Float64Array,
+  cOff: number,
+  ldc: number,
+): void {
+  const nt = (n + 3) >> 2;
+  if (packedW.length < nt * 4 * PACK_DEPTH) packedW = new Float64Array(nt * 4 * PACK_DEPTH);
+  const wp = packedW;
+  const ap = packedA;
+  // depth blocks of the inner dimension
+  for (let t0 = 0; t0 < k; t0 += PACK_DEPTH) {
+    const kb = Math.min(PACK_DEPTH, k - t0);
+    // W panels: wp[(jt·kb + t)·4 + jj] = W[4jt + jj, t0 + t], zero beyond n
+    for (let t = 0; t < kb; t++) {
+      const src = (t0 + t) * n;
+      for (let j = 0; j < 4 * nt; j++) wp[((j >> 2) * kb + t) * 4 + (j & 3)] = j < n ? w[src + j] : 0;
+    }
+    // row blocks of A and C
+    for (let i0 = 0; i0 < m; i0 += PACK_ROWS) {
+      const i1 = Math.min(m, i0 + PACK_ROWS);
+      const mt = (i1 - i0 + 3) >> 2;
+      // A panels: ap[(it·kb + t)·4 + ii] = A[i0 + 4it + ii, t0 + t], zero beyond i1
+      for (let t = 0; t < kb; t++) {
+        const src = aOff + i0 + (t0 + t) * lda;
+        const rowsHere = i1 - i0;
+        for (let r = 0; r < 4 * mt; r++) ap[((r >> 2) * kb + t) * 4 + (r & 3)] = r < rowsHere ? a[src + r] : 0;
+      }
+      const nb = Math.min(n, i1);
+      // column panels with a diagonal at or above row i1, row panels from the diagonal down
+      for (let j = 0; j < nb; j += 4) {
+        const itStart = j > i0 ? (j - i0) >> 2 : 0;
+        for (let it = itStart; it < mt; it++) {
+          tile4x4(ap, it * kb * 4, wp, (j >> 2) * kb * 4, kb, c, cOff + i0 + 4 * it + j * ldc, ldc, Math.min(4, i1 - i0 - 4 * it), Math.min(4, n - j));
+        }
+      }
+    }
+  }
+}
+
+/** C(4×4 tile at q) −= Σ_t A-panel(t) W-panel(t)ᵀ over kb steps; only mr rows × nc columns stored. */
+function tile4x4(
+  ap: Float64Array,
+  pa: number,
+  wp: Float64Array,
+  pw: number,
+  kb: number,
+  c: Float64Array,
+  q: number,
+  ldc: number,
+  mr: number,
+  nc: number,
+): void {
+  let s00 = 0, s10 = 0, s20 = 0, s30 = 0;
+  let s01 = 0, s11 = 0, s21 = 0, s31 = 0;
+  let s02 = 0, s12 = 0, s22 = 0, s32 = 0;
+  let s03 = 0, s13 = 0, s23 = 0, s33 = 0;
+  const end = pa + 4 * kb;
+  // Σ over the inner dimension, both panels read in order
+  for (; pa < end; pa += 4, pw += 4) {
+    const a0 = ap[pa], a1 = ap[pa + 1], a2 = ap[pa + 2], a3 = ap[pa + 3];
+    const w0 = wp[pw], w1 = wp[pw + 1], w2 = wp[pw + 2], w3 = wp[pw + 3];
+    s00 += a0 * w0; s10 += a1 * w0; s20 += a2 * w0; s30 += a3 * w0;
+    s01 += a0 * w1; s11 += a1 * w1; s21 += a2 * w1; s31 += a3 * w1;
+    s02 += a0 * w2; s12 += a1 * w2; s22 += a2 * w2; s32 += a3 * w2;
+    s03 += a0 * w3; s13 += a1 * w3; s23 += a2 * w3; s33 += a3 * w3;
+  }
+  if (mr === 4 && nc === 4) {
+    c[q] -= s00; c[q + 1] -= s10; c[q + 2] -= s20; c[q + 3] -= s30;
+    q += ldc;
+    c[q] -= s01; c[q + 1] -= s11; c[q + 2] -= s21; c[q + 3] -= s31;
+    q += ldc;
+    c[q] -= s02; c[q + 1] -= s12; c[q + 2] -= s22; c[q + 3] -= s32;
+    q += ldc;
+    c[q] -= s03; c[q + 1] -= s13; c[q + 2] -= s23; c[q + 3] -= s33;
+    return;
+  }
+  const s = [s00, s10, s20, s30, s01, s11, s21, s31, s02, s12, s22, s32, s03, s13, s23, s33];
+  // edge tile: only the rows and columns inside C
+  for (let jj = 0; jj < nc; jj++) for (let ii = 0; ii < mr; ii++) c[q + ii + jj * ldc] -= s[4 * jj + ii];
 }
 
 /** C −= A Wᵀ over the whole m×n rectangle (same storage as updateLowerProduct). */

@@ -67,13 +67,21 @@ export function analyzeShiftedPair(stiffness: SymmetricCsc, mass: SymmetricCsc, 
   }
   const parent = relabelTree(first.parent, first.post);
   const pair = permutePair(stiffness, mass, perm);
-  const superStart = relaxSupernodes(fundamentalSupernodes(parent, counts), parent, counts);
+  const fundamental = fundamentalSupernodes(parent, counts);
+  const fundamentalRows = supernodeRows(pair, fundamental, superOfColumns(fundamental, n), parent);
+  const superStart = relaxSupernodes(fundamental, parent, fundamentalRows.rowPtr, fundamentalRows.rows);
   const ns = superStart.length - 1;
-  const superOf = new Int32Array(n);
-  // supernode of each column
-  for (let s = 0; s < ns; s++) superOf.fill(s, superStart[s], superStart[s + 1]);
+  const superOf = superOfColumns(superStart, n);
   const { rowPtr, rows } = supernodeRows(pair, superStart, superOf, parent);
   return { n, perm, pair, nnzL, supernodes: ns, superStart, superOf, rowPtr, rows, ...blockSizes(superStart, superOf, rowPtr, rows) };
+}
+
+/** Supernode of each column. */
+function superOfColumns(superStart: Int32Array, n: number): Int32Array {
+  const superOf = new Int32Array(n);
+  // each supernode's column range
+  for (let s = 0; s + 1 < superStart.length; s++) superOf.fill(s, superStart[s], superStart[s + 1]);
+  return superOf;
 }
 
 /** Row structures of all supernodes, children before parents (postorder). */
