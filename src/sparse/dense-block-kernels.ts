@@ -9,6 +9,7 @@
  * blocked 4 rows × 4 columns: per step over t, 4 loads of A's column t and 4 of W's row t feed
  * 16 multiply-adds into local accumulators, so the inner loop is arithmetic, not memory traffic.
  */
+import { createTileKernel } from './wasm-tile-kernel.js';
 
 const ROW_BLOCK = 256;
 const DEPTH_BLOCK = 128;
@@ -48,8 +49,11 @@ export function updateLowerProduct(
 /** Rows of A and depth steps per packed block (packed A block: 128 × 128 doubles = 128 KiB). */
 const PACK_ROWS = 128;
 const PACK_DEPTH = 128;
-let packedA = new Float64Array(PACK_ROWS * PACK_DEPTH);
-let packedW = new Float64Array(64 * PACK_DEPTH);
+/** Packed operands live in the SIMD kernel's memory when it is available (offsets in doubles). */
+const simdKernel = createTileKernel();
+const TILE_OUT = PACK_ROWS * PACK_DEPTH;
+const PACKED_W = TILE_OUT + 512;
+let plainBuffer = new Float64Array(PACKED_W + 64 * PACK_DEPTH);
 
 /**
  * updateLowerProduct on packed copies: per depth block, W's columns in 4-wide panels and A's rows
@@ -69,37 +73,60 @@ function packedLowerProduct(
   ldc: number,
 ): void {
   const nt = (n + 3) >> 2;
-  if (packedW.length < nt * 4 * PACK_DEPTH) packedW = new Float64Array(nt * 4 * PACK_DEPTH);
-  const wp = packedW;
-  const ap = packedA;
+  const need = PACKED_W + nt * 4 * PACK_DEPTH;
+  const simd = simdKernel !== null && need <= simdKernel.memory.length ? simdKernel : null;
+  if (simd === null && plainBuffer.length < need) plainBuffer = new Float64Array(need);
+  const buf = simd !== null ? simd.memory : plainBuffer;
   // depth blocks of the inner dimension
   for (let t0 = 0; t0 < k; t0 += PACK_DEPTH) {
     const kb = Math.min(PACK_DEPTH, k - t0);
-    // W panels: wp[(jt·kb + t)·4 + jj] = W[4jt + jj, t0 + t], zero beyond n
+    // W panels: buf[PACKED_W + (jt·kb + t)·4 + jj] = W[4jt + jj, t0 + t], zero beyond n
     for (let t = 0; t < kb; t++) {
       const src = (t0 + t) * n;
-      for (let j = 0; j < 4 * nt; j++) wp[((j >> 2) * kb + t) * 4 + (j & 3)] = j < n ? w[src + j] : 0;
+      for (let j = 0; j < 4 * nt; j++) buf[PACKED_W + ((j >> 2) * kb + t) * 4 + (j & 3)] = j < n ? w[src + j] : 0;
     }
     // row blocks of A and C
     for (let i0 = 0; i0 < m; i0 += PACK_ROWS) {
       const i1 = Math.min(m, i0 + PACK_ROWS);
       const mt = (i1 - i0 + 3) >> 2;
-      // A panels: ap[(it·kb + t)·4 + ii] = A[i0 + 4it + ii, t0 + t], zero beyond i1
+      const rowsHere = i1 - i0;
+      // A panels: buf[(it·kb + t)·4 + ii] = A[i0 + 4it + ii, t0 + t], zero beyond i1
       for (let t = 0; t < kb; t++) {
         const src = aOff + i0 + (t0 + t) * lda;
-        const rowsHere = i1 - i0;
-        for (let r = 0; r < 4 * mt; r++) ap[((r >> 2) * kb + t) * 4 + (r & 3)] = r < rowsHere ? a[src + r] : 0;
+        for (let r = 0; r < 4 * mt; r++) buf[((r >> 2) * kb + t) * 4 + (r & 3)] = r < rowsHere ? a[src + r] : 0;
       }
       const nb = Math.min(n, i1);
       // column panels with a diagonal at or above row i1, row panels from the diagonal down
       for (let j = 0; j < nb; j += 4) {
         const itStart = j > i0 ? (j - i0) >> 2 : 0;
+        const pw = PACKED_W + (j >> 2) * kb * 4;
         for (let it = itStart; it < mt; it++) {
-          tile4x4(ap, it * kb * 4, wp, (j >> 2) * kb * 4, kb, c, cOff + i0 + 4 * it + j * ldc, ldc, Math.min(4, i1 - i0 - 4 * it), Math.min(4, n - j));
+          const q = cOff + i0 + 4 * it + j * ldc;
+          const mr = Math.min(4, rowsHere - 4 * it);
+          const nc = Math.min(4, n - j);
+          if (simd !== null) {
+            simd.tile(8 * it * kb * 4, 8 * pw, kb, 8 * TILE_OUT);
+            subtractTile(buf, TILE_OUT, c, q, ldc, mr, nc);
+          } else {
+            tile4x4(buf, it * kb * 4, buf, pw, kb, c, q, ldc, mr, nc);
+          }
         }
       }
     }
   }
+}
+
+/** C(tile at q) −= the 4×4 column-major sums at s[o], only mr rows × nc columns. */
+function subtractTile(s: Float64Array, o: number, c: Float64Array, q: number, ldc: number, mr: number, nc: number): void {
+  if (mr === 4 && nc === 4) {
+    // full tile, column by column
+    for (let jj = 0; jj < 4; jj++, q += ldc, o += 4) {
+      c[q] -= s[o]; c[q + 1] -= s[o + 1]; c[q + 2] -= s[o + 2]; c[q + 3] -= s[o + 3];
+    }
+    return;
+  }
+  // edge tile: only the rows and columns inside C
+  for (let jj = 0; jj < nc; jj++) for (let ii = 0; ii < mr; ii++) c[q + ii + jj * ldc] -= s[o + ii + 4 * jj];
 }
 
 /** C(4×4 tile at q) −= Σ_t A-panel(t) W-panel(t)ᵀ over kb steps; only mr rows × nc columns stored. */
