@@ -81,20 +81,14 @@ function packedLowerProduct(
   for (let t0 = 0; t0 < k; t0 += PACK_DEPTH) {
     const kb = Math.min(PACK_DEPTH, k - t0);
     // W panels: buf[PACKED_W + (jt·kb + t)·4 + jj] = W[4jt + jj, t0 + t], zero beyond n
-    for (let t = 0; t < kb; t++) {
-      const src = (t0 + t) * n;
-      for (let j = 0; j < 4 * nt; j++) buf[PACKED_W + ((j >> 2) * kb + t) * 4 + (j & 3)] = j < n ? w[src + j] : 0;
-    }
+    for (let t = 0; t < kb; t++) packPanels(w, (t0 + t) * n, n, buf, PACKED_W + 4 * t, 4 * kb);
     // row blocks of A and C
     for (let i0 = 0; i0 < m; i0 += PACK_ROWS) {
       const i1 = Math.min(m, i0 + PACK_ROWS);
       const mt = (i1 - i0 + 3) >> 2;
       const rowsHere = i1 - i0;
       // A panels: buf[(it·kb + t)·4 + ii] = A[i0 + 4it + ii, t0 + t], zero beyond i1
-      for (let t = 0; t < kb; t++) {
-        const src = aOff + i0 + (t0 + t) * lda;
-        for (let r = 0; r < 4 * mt; r++) buf[((r >> 2) * kb + t) * 4 + (r & 3)] = r < rowsHere ? a[src + r] : 0;
-      }
+      for (let t = 0; t < kb; t++) packPanels(a, aOff + i0 + (t0 + t) * lda, rowsHere, buf, 4 * t, 4 * kb);
       const nb = Math.min(n, i1);
       // column panels with a diagonal at or above row i1, row panels from the diagonal down
       for (let j = 0; j < nb; j += 4) {
@@ -114,6 +108,26 @@ function packedLowerProduct(
       }
     }
   }
+}
+
+/**
+ * Step t of every 4-wide panel: len contiguous entries src[so ..] go to dst[do + p·stride + 0..3]
+ * for panel p = entry / 4, zero padded to a multiple of 4.
+ */
+function packPanels(src: Float64Array, so: number, len: number, dst: Float64Array, dOff: number, stride: number): void {
+  const full = len >> 2;
+  let q = dOff;
+  // whole groups of four
+  for (let p = 0; p < full; p++, so += 4, q += stride) {
+    dst[q] = src[so];
+    dst[q + 1] = src[so + 1];
+    dst[q + 2] = src[so + 2];
+    dst[q + 3] = src[so + 3];
+  }
+  const rest = len - 4 * full;
+  if (rest === 0) return;
+  // last, partial group
+  for (let r = 0; r < 4; r++) dst[q + r] = r < rest ? src[so + r] : 0;
 }
 
 /** C(tile at q) −= the 4×4 column-major sums at s[o], only mr rows × nc columns. */
