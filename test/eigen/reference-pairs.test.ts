@@ -8,7 +8,7 @@
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { readSymmetricMtx } from '../sparse/matrix-market-test-reader.js';
+import { readMatrixMarket } from '../../src/io/matrix-market-reader.js';
 import { solveModes } from '../../src/eigen/solve-modes.js';
 
 const repoRoot = path.resolve(import.meta.dirname, '../..');
@@ -28,9 +28,9 @@ const pairs: RefPair[] = present ? (JSON.parse(readFileSync(refFile, 'utf8')) as
 
 describe.skipIf(!present)('BCSSTRUC pairs vs SciPy ARPACK eigsh reference (../shared/reference/structural)', () => {
   for (const pair of pairs) {
-    it(`${pair.name}: lowest 20 within 1e-9 relative, Sturm count, residuals, M-orthonormality`, () => {
-      const stiffness = readSymmetricMtx(path.join(dir, pair.K_file));
-      const mass = readSymmetricMtx(path.join(dir, pair.M_file));
+    it(`${pair.name}: lowest 20 within 1e-9 relative, Sturm count, residuals, M-orthonormality`, async () => {
+      const stiffness = (await readMatrixMarket(path.join(dir, pair.K_file))).matrix;
+      const mass = (await readMatrixMarket(path.join(dir, pair.M_file))).matrix;
       const r = solveModes(stiffness, mass, { count: 20, method: 'lanczos' });
       expect(r.eigenvalues.length).toBe(20);
       // source: reference-eigenvalues.json (SciPy ARPACK eigsh, shift-invert)
@@ -45,10 +45,10 @@ describe.skipIf(!present)('BCSSTRUC pairs vs SciPy ARPACK eigsh reference (../sh
     });
   }
 
-  it('BCSSTK01/M01 (singular M) with subspace iteration agrees with the reference', () => {
+  it('BCSSTK01/M01 (singular M) with subspace iteration agrees with the reference', async () => {
     for (const pair of pairs.filter((p) => /01/.test(p.name))) {
-      const stiffness = readSymmetricMtx(path.join(dir, pair.K_file));
-      const mass = readSymmetricMtx(path.join(dir, pair.M_file));
+      const stiffness = (await readMatrixMarket(path.join(dir, pair.K_file))).matrix;
+      const mass = (await readMatrixMarket(path.join(dir, pair.M_file))).matrix;
       const r = solveModes(stiffness, mass, { count: 20, method: 'subspace' });
       // source: reference-eigenvalues.json (SciPy ARPACK eigsh, shift-invert)
       for (let i = 0; i < 20; i++) expect(Math.abs(r.eigenvalues[i] - pair.eigenvalues[i]) / pair.eigenvalues[i]).toBeLessThan(1e-9);
@@ -56,9 +56,9 @@ describe.skipIf(!present)('BCSSTRUC pairs vs SciPy ARPACK eigsh reference (../sh
     }
   });
 
-  it('BCSSTK01/M01: asking for more modes than rank(M) returns the 24 finite ones and says so', () => {
+  it('BCSSTK01/M01: asking for more modes than rank(M) returns the 24 finite ones and says so', async () => {
     const pair = pairs.find((p) => p.name.includes('01'))!;
-    const r = solveModes(readSymmetricMtx(path.join(dir, pair.K_file)), readSymmetricMtx(path.join(dir, pair.M_file)), { count: 30 });
+    const r = solveModes((await readMatrixMarket(path.join(dir, pair.K_file))).matrix, (await readMatrixMarket(path.join(dir, pair.M_file))).matrix, { count: 30 });
     expect(r.eigenvalues.length).toBe(24);
     expect(r.warnings.join(' ')).toMatch(/rank/);
     expect(r.sturm.ok).toBe(true);
