@@ -25,7 +25,8 @@ import { rayleighRitz } from './rayleigh-ritz.js';
 import type { EigenSearch, EigenSearchResult } from './search-types.js';
 import { LockedSet } from './locked-set.js';
 import { currentEstimates, fixedBlocks, nearestFirst, relativeResiduals } from './subspace-iteration.js';
-import { blockTimes, columns, crossProduct, randomBlock } from './thin-block.js';
+import { timesSmall, transposeTimes } from '../dense/block-ops.js';
+import { columns, randomBlock } from './thin-block.js';
 
 /** Default block size: six rigid-body modes of a free-free model share one eigenvalue. */
 export const DEFAULT_BLOCK_SIZE = 6;
@@ -82,12 +83,12 @@ export function blockLanczos(search: EigenSearch): EigenSearchResult {
     const candidates = order.slice(0, Math.min(order.length, wanted + b));
     const sc = pickColumns(s, cycle.size, candidates);
     // K-based Rayleigh–Ritz on the candidate Ritz vectors Y = V S_c
-    const y = blockTimes(cycle.v, cycle.size, sc, candidates.length, n);
-    const my = blockTimes(cycle.mv, cycle.size, sc, candidates.length, n);
+    const y = timesSmall(cycle.v, n, cycle.size, sc, candidates.length);
+    const my = timesSmall(cycle.mv, n, cycle.size, sc, candidates.length);
     const ritz = rayleighRitz({ vectors: y, massVectors: my, count: candidates.length }, n, op.stiffnessTimes);
     const residuals = relativeResiduals(ritz, search.stiffnessNorm, n);
     const g = ritzRotation(y, ritz.vectors, my, candidates.length, n);
-    const sz = blockTimes(sc, candidates.length, g, candidates.length, cycle.size);
+    const sz = timesSmall(sc, cycle.size, candidates.length, g, candidates.length);
     const estimates = residualEstimates(cycle, lastBlock, sz, candidates.length);
     const zOrder = nearestFirst(ritz.values, sigma);
     const lockedNow: number[] = [];
@@ -287,7 +288,7 @@ function pickColumns(s: Float64Array, m: number, which: number[]): Float64Array 
 
 /** G with Z = Y G: both M-orthonormal, so G = Yᵀ M Z = (MY)ᵀ Z. */
 function ritzRotation(_y: Float64Array, z: Float64Array, my: Float64Array, k: number, n: number): Float64Array {
-  return crossProduct(my, k, z, k, n);
+  return transposeTimes(my, z, n, k, k);
 }
 
 /** [S_z(keepZ), S(others)] truncated to keepCount columns (orthonormal coefficient vectors). */
@@ -316,10 +317,10 @@ function restart(
   const cap = Math.max(capacity, keep + 1);
   const v = new Float64Array(n * cap);
   const mv = new Float64Array(n * cap);
-  v.set(blockTimes(cycle.v, m, sKeep, keep, n));
-  mv.set(blockTimes(cycle.mv, m, sKeep, keep, n));
+  v.set(timesSmall(cycle.v, n, m, sKeep, keep));
+  mv.set(timesSmall(cycle.mv, n, m, sKeep, keep));
   const tm = packedT(cycle);
-  const tk = crossProduct(sKeep, keep, blockTimes(tm, m, sKeep, keep, m), keep, m);
+  const tk = transposeTimes(sKeep, timesSmall(tm, m, m, sKeep, keep), m, keep, keep);
   const t = new Float64Array(cap * cap);
   // T' = S_keepᵀ T S_keep in the leading keep×keep corner
   for (let j = 0; j < keep; j++) for (let i = 0; i < keep; i++) t[i + j * cap] = tk[i + j * keep];

@@ -16,7 +16,7 @@
  * the caller so the cost is counted where it belongs.
  */
 import { symmetricEigen } from '../dense/symmetric-eigen.js';
-import { blockTimes, crossProduct, subtractBlockTimes } from './thin-block.js';
+import { addTimesSmall, timesSmall, transposeTimes } from '../dense/block-ops.js';
 
 /** An M-orthonormal block and its M-image MQ. */
 export interface MassBasis {
@@ -69,10 +69,10 @@ function finish(first: PassResult, second: PassResult, k: number, against: MassB
   if (second === first) {
     return { vectors: first.q, massVectors: first.mq, count: first.count, coefficients: first.r, projections: first.projections };
   }
-  const r = blockTimes(second.r, first.count, first.r, k, second.count);
+  const r = timesSmall(second.r, second.count, first.count, first.r, k);
   const projections = against.map((b, i) => {
     const p = first.projections[i].slice();
-    const p2r1 = blockTimes(second.projections[i], first.count, first.r, k, b.count);
+    const p2r1 = timesSmall(second.projections[i], b.count, first.count, first.r, k);
     // P = P₁ + P₂ R₁
     for (let t = 0; t < p.length; t++) p[t] += p2r1[t];
     return p;
@@ -98,12 +98,12 @@ function onePass(
   const projections: Float64Array[] = [];
   // X ← X − B (MB)ᵀX for every block B to stay orthogonal to; MX alike
   for (const b of against) {
-    const p = crossProduct(b.massVectors, b.count, x, k, n);
-    subtractBlockTimes(x, b.vectors, b.count, p, k, n);
-    subtractBlockTimes(mx, b.massVectors, b.count, p, k, n);
+    const p = transposeTimes(b.massVectors, x, n, b.count, k);
+    addTimesSmall(x, b.vectors, n, b.count, p, k, -1);
+    addTimesSmall(mx, b.massVectors, n, b.count, p, k, -1);
     projections.push(p);
   }
-  const g = crossProduct(x, k, mx, k, n);
+  const g = transposeTimes(x, mx, n, k, k);
   const scale = new Float64Array(k);
   let maxBefore = 0;
   for (let j = 0; j < k; j++) maxBefore = Math.max(maxBefore, before[j]);
@@ -139,7 +139,7 @@ function onePass(
       coefficients[c + i * r] = scale[i] > 0 ? (sq * u) / scale[i] : 0;
     }
   }
-  return { q: blockTimes(x, k, s, r, n), mq: blockTimes(mx, k, s, r, n), r: coefficients, count: r, projections };
+  return { q: timesSmall(x, n, k, s, r), mq: timesSmall(mx, n, k, s, r), r: coefficients, count: r, projections };
 }
 
 function columnDot(x: Float64Array, y: Float64Array, n: number, j: number): number {

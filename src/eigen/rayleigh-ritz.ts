@@ -10,7 +10,7 @@
  */
 import { symmetricEigen } from '../dense/symmetric-eigen.js';
 import type { MassBasis } from './m-orthonormalize.js';
-import { blockTimes, crossProduct } from './thin-block.js';
+import { timesSmall, transposeTimes } from '../dense/block-ops.js';
 
 export interface RitzPairs {
   count: number;
@@ -35,7 +35,7 @@ export function rayleighRitz(
 ): RitzPairs {
   const k = basis.count;
   const kv = stiffnessTimes(basis.vectors, k);
-  const kbar = crossProduct(basis.vectors, k, kv, k, n);
+  const kbar = transposeTimes(basis.vectors, kv, n, k, k);
   // symmetrize K̄ against rounding
   for (let j = 0; j < k; j++) {
     for (let i = j + 1; i < k; i++) {
@@ -45,9 +45,9 @@ export function rayleighRitz(
     }
   }
   const { values, vectors: s } = symmetricEigen(kbar, k);
-  const x = blockTimes(basis.vectors, k, s, k, n);
-  const mx = blockTimes(basis.massVectors, k, s, k, n);
-  const kx = blockTimes(kv, k, s, k, n);
+  const x = timesSmall(basis.vectors, n, k, s, k);
+  const mx = timesSmall(basis.massVectors, n, k, s, k);
+  const kx = timesSmall(kv, n, k, s, k);
   return { count: k, values, vectors: x, massVectors: mx, stiffnessVectors: kx, ...residualsOf(x, mx, kx, values, k, n) };
 }
 

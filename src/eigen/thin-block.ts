@@ -1,25 +1,7 @@
 /**
- * Thin column-major blocks (n×a, a ≪ n) as the eigen algorithms use them: the products are the
- * dense layer's kernels (src/dense/block-ops.ts) under the argument order used here, plus
- * column bookkeeping and a repeatable random start block.
+ * Column bookkeeping for thin column-major blocks (n×a, a ≪ n) and a repeatable random start
+ * block. Products of blocks are the dense layer's kernels in src/dense/block-ops.ts.
  */
-import { addTimesSmall, timesSmall, transposeTimes } from '../dense/block-ops.js';
-
-/** G = Xᵀ Y, with X n×a and Y n×b; G is a×b column-major (src/dense/block-ops.ts). */
-export function crossProduct(x: Float64Array, a: number, y: Float64Array, b: number, n: number): Float64Array {
-  return transposeTimes(x, y, n, a, b);
-}
-
-/** Z = X Q, with X n×a and Q a×b; Z is n×b (src/dense/block-ops.ts). */
-export function blockTimes(x: Float64Array, a: number, q: Float64Array, b: number, n: number): Float64Array {
-  return timesSmall(x, n, a, q, b);
-}
-
-/** Y ← Y − X H, with X n×a, H a×b, Y n×b (src/dense/block-ops.ts). */
-export function subtractBlockTimes(y: Float64Array, x: Float64Array, a: number, h: Float64Array, b: number, n: number): void {
-  addTimesSmall(y, x, n, a, h, b, -1);
-}
-
 /** Columns [from, to) of an n-row block, copied. */
 export function columns(x: Float64Array, n: number, from: number, to: number): Float64Array {
   return x.slice(from * n, to * n);

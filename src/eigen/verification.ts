@@ -13,7 +13,7 @@ import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
 import type { OrthogonalityCheck } from './modes-types.js';
 import { residualsOf } from './rayleigh-ritz.js';
 import { relativeResidual } from './residual-measure.js';
-import { crossProduct } from './thin-block.js';
+import { transposeTimes } from '../dense/block-ops.js';
 
 export interface ShapeChecks {
   residuals: Float64Array;
@@ -39,8 +39,8 @@ export function checkShapes(
   for (let i = 0; i < k; i++) {
     residuals[i] = relativeResidual(norms.residualNorms[i], norms.stiffnessNorms[i], norms.vectorNorms[i], stiffnessNorm);
   }
-  const mm = crossProduct(shapes, k, mx, k, n);
-  const kk = crossProduct(shapes, k, kx, k, n);
+  const mm = transposeTimes(shapes, mx, n, k, k);
+  const kk = transposeTimes(shapes, kx, n, k, k);
   let lambdaMax = 0;
   for (let i = 0; i < k; i++) lambdaMax = Math.max(lambdaMax, Math.abs(eigenvalues[i]));
   let massMaxDeviation = 0;
