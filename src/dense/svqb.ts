@@ -43,6 +43,29 @@ export function svqbOrthonormalize(
     if (gii > 1e-300 && gii > 1e-30 * gMax) d[i] = 1 / Math.sqrt(gii);
     else zero.push(i);
   }
+  const { transform, rank } = svqbCoefficients(g, k, d, tol);
+  return {
+    x: timesSmall(x, rows, k, transform, rank),
+    bx: bx === null ? null : timesSmall(bx, rows, k, transform, rank),
+    rank,
+    zeroColumns: Int32Array.from(zero),
+  };
+}
+
+export interface SvqbCoefficients {
+  /** S = D U Θ^(−1/2) (k×rank): X S is B-orthonormal. */
+  transform: Float64Array;
+  /** R = Θ^(1/2) Uᵀ D⁻¹ (rank×k): X = (X S) R on the kept directions (0 where d_i = 0). */
+  coefficients: Float64Array;
+  rank: number;
+}
+
+/**
+ * The small half of SVQB: from the Gram matrix G = XᵀBX (k×k, overwritten with Ĝ = D G D) and the
+ * column scaling d (0 marks a column to leave out), the transform S and coefficients R, keeping
+ * the eigen-directions of Ĝ with θ > tol·θ_max, largest first.
+ */
+export function svqbCoefficients(g: Float64Array, k: number, d: Float64Array, tol: number): SvqbCoefficients {
   // Ĝ = D G D, symmetrized
   for (let j = 0; j < k; j++) {
     for (let i = j; i < k; i++) {
@@ -52,21 +75,22 @@ export function svqbOrthonormalize(
     }
   }
   const eig = symmetricEigen(g, k);
-  const thetaMax = k > 0 ? eig.values[k - 1] : 0;
+  let thetaMax = 0;
+  for (let i = 0; i < k; i++) thetaMax = Math.max(thetaMax, eig.values[i]);
   const kept: number[] = [];
   for (let i = k - 1; i >= 0; i--) if (eig.values[i] > tol * thetaMax && thetaMax > 0) kept.push(i);
   const rank = kept.length;
-  const s = new Float64Array(k * rank);
-  // S = D V_kept Θ_kept^(−1/2), largest θ first
+  const transform = new Float64Array(k * rank);
+  const coefficients = new Float64Array(rank * k);
+  // S = D U Θ^(−1/2) and R = Θ^(1/2) Uᵀ D⁻¹
   for (let c = 0; c < rank; c++) {
     const i = kept[c];
-    const f = 1 / Math.sqrt(eig.values[i]);
-    for (let r = 0; r < k; r++) s[c * k + r] = d[r] * eig.vectors[i * k + r] * f;
+    const sq = Math.sqrt(eig.values[i]);
+    for (let r = 0; r < k; r++) {
+      const u = eig.vectors[i * k + r];
+      transform[c * k + r] = (d[r] * u) / sq;
+      coefficients[c + r * rank] = d[r] > 0 ? (sq * u) / d[r] : 0;
+    }
   }
-  return {
-    x: timesSmall(x, rows, k, s, rank),
-    bx: bx === null ? null : timesSmall(bx, rows, k, s, rank),
-    rank,
-    zeroColumns: Int32Array.from(zero),
-  };
+  return { transform, coefficients, rank };
 }

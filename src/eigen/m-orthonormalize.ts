@@ -12,10 +12,10 @@
  * directions and are dropped. Two passes ("twice is enough", Kahan–Parlett) bring
  * ‖QᵀMQ − I‖ and ‖LᵀMQ‖ to rounding level.
  *
- * The symmetric eigenproblem of G comes from src/dense (QR algorithm); M products come from
+ * The small k×k step (Ĝ's eigenproblem, S and R) is src/dense/svqb.ts; M products come from
  * the caller so the cost is counted where it belongs.
  */
-import { symmetricEigen } from '../dense/symmetric-eigen.js';
+import { svqbCoefficients } from '../dense/svqb.js';
 import { addTimesSmall, timesSmall, transposeTimes } from '../dense/block-ops.js';
 
 /** An M-orthonormal block and its M-image MQ. */
@@ -113,32 +113,7 @@ function onePass(
     const dead = !(gjj > deadTolerance * before[j]) || !(gjj > deadTolerance * maxBefore) || !(before[j] > 0);
     scale[j] = dead ? 0 : 1 / Math.sqrt(gjj);
   }
-  const scaled = new Float64Array(k * k);
-  // Ĝ = D G D, symmetrized
-  for (let j = 0; j < k; j++) {
-    for (let i = 0; i < k; i++) {
-      scaled[i + j * k] = 0.5 * (g[i + j * k] + g[j + i * k]) * scale[i] * scale[j];
-    }
-  }
-  const { values, vectors } = symmetricEigen(scaled, k);
-  let thetaMax = 0;
-  for (let j = 0; j < k; j++) thetaMax = Math.max(thetaMax, values[j]);
-  const keep: number[] = [];
-  // keep the eigen-directions of Ĝ that are well above rounding, largest first
-  for (let j = k - 1; j >= 0; j--) if (values[j] > dropTolerance * thetaMax && thetaMax > 0) keep.push(j);
-  const r = keep.length;
-  const s = new Float64Array(k * r);
-  const coefficients = new Float64Array(r * k);
-  // S = D U Θ^(−1/2) (k×r) and R = Θ^(1/2) Uᵀ D⁻¹ (r×k)
-  for (let c = 0; c < r; c++) {
-    const j = keep[c];
-    const sq = Math.sqrt(values[j]);
-    for (let i = 0; i < k; i++) {
-      const u = vectors[i + j * k];
-      s[i + c * k] = (scale[i] * u) / sq;
-      coefficients[c + i * r] = scale[i] > 0 ? (sq * u) / scale[i] : 0;
-    }
-  }
+  const { transform: s, coefficients, rank: r } = svqbCoefficients(g, k, scale, dropTolerance);
   return { q: timesSmall(x, n, k, s, r), mq: timesSmall(mx, n, k, s, r), r: coefficients, count: r, projections };
 }
 
