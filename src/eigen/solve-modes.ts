@@ -15,7 +15,7 @@
  * moved and a warning says so.
  */
 import { createShiftedSolver } from '../sparse/shifted-solver.js';
-import type { SymmetricCsc } from '../sparse/csc.js';
+import { symOneNorm, type SymmetricCsc } from '../sparse/csc.js';
 import type { ShiftedFactor, ShiftedSolver } from '../sparse/factor-types.js';
 import { frequencyHzFromEigenvalue, eigenvalueFromFrequencyHz, type ModesRequest, type ModesResult, type SturmCheck } from './modes-types.js';
 import { createShiftInvertOperator, massRankBound, type ShiftInvertOperator } from './shift-invert-operator.js';
@@ -52,7 +52,7 @@ export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request:
   const shifts: number[] = [];
   const solver = createShiftedSolver(stiffness, mass, { coordinates: request.coordinates });
   const scale = diagonalScale(stiffness, mass);
-  const stiffnessNorm = oneNorm(stiffness);
+  const stiffnessNorm = symOneNorm(stiffness);
   const rankM = massRankBound(mass);
   const factorAt = (sigma: number) => factorWithMove(solver, sigma, scale, warnings, shifts, clock);
 
@@ -359,21 +359,4 @@ function emptyResult(
     solves: 0,
     rankMassBound: 0,
   };
-}
-
-/** ‖A‖₁ = max column sum of |a_ij| of the full symmetric matrix (lower triangle stored). */
-export function oneNorm(a: SymmetricCsc): number {
-  const sums = new Float64Array(a.n);
-  // each stored a_ij (i > j) counts in columns j and i
-  for (let j = 0; j < a.n; j++) {
-    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) {
-      const i = a.rowIdx[p];
-      const v = Math.abs(a.values[p]);
-      sums[j] += v;
-      if (i !== j) sums[i] += v;
-    }
-  }
-  let m = 0;
-  for (let j = 0; j < a.n; j++) if (sums[j] > m) m = sums[j];
-  return m;
 }

@@ -7,7 +7,8 @@
  * norms ‖·‖₁ are the largest column sums of |A| (equal to ‖·‖∞ for symmetric A). Computed once
  * per ModesResult and cached, so the rules that read them stay cheap and pure.
  */
-import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
+import { symMultiplyBlock, symOneNorm, type SymmetricCsc } from '../sparse/csc.js';
+import { transposeTimes } from '../dense/block-ops.js';
 import type { ModesResult } from '../eigen/modes-types.js';
 
 export interface ModalProducts {
@@ -30,10 +31,10 @@ export function modalProducts(stiffness: SymmetricCsc, mass: SymmetricCsc, modes
   const phi = modes.shapes;
   const kPhi = symMultiplyBlock(stiffness, phi, m);
   const mPhi = symMultiplyBlock(mass, phi, m);
-  const massProjected = projected(phi, mPhi, n, m);
-  const stiffnessProjected = projected(phi, kPhi, n, m);
-  const normK = oneNorm(stiffness);
-  const normM = oneNorm(mass);
+  const massProjected = transposeTimes(phi, mPhi, n, m, m);
+  const stiffnessProjected = transposeTimes(phi, kPhi, n, m, m);
+  const normK = symOneNorm(stiffness);
+  const normM = symOneNorm(mass);
   const relativeResiduals = new Float64Array(m);
   // r_i = ‖Kφ_i − λ_i Mφ_i‖ / ((‖K‖ + |λ_i|‖M‖)‖φ_i‖)
   for (let i = 0; i < m; i++) {
@@ -51,36 +52,4 @@ export function modalProducts(stiffness: SymmetricCsc, mass: SymmetricCsc, modes
   const products = { modes: m, massProjected, stiffnessProjected, relativeResiduals };
   cache.set(modes, products);
   return products;
-}
-
-/** Φᵀ (AΦ): entry (i, j) = φ_iᵀ (Aφ_j), symmetric, filled from the lower half. */
-function projected(phi: Float64Array, aPhi: Float64Array, n: number, m: number): Float64Array {
-  const p = new Float64Array(m * m);
-  // p_ij = Σ_r φ_ri (Aφ_j)_r for j ≤ i, mirrored
-  for (let j = 0; j < m; j++) {
-    for (let i = j; i < m; i++) {
-      let s = 0;
-      for (let r = 0, a = i * n, b = j * n; r < n; r++) s += phi[a + r] * aPhi[b + r];
-      p[i + j * m] = s;
-      p[j + i * m] = s;
-    }
-  }
-  return p;
-}
-
-/** ‖A‖₁ = max_j Σ_i |a_ij| of the full symmetric matrix stored as its lower triangle. */
-export function oneNorm(a: SymmetricCsc): number {
-  const colSum = new Float64Array(a.n);
-  // each stored a_ij (i > j) adds to columns j and i; the diagonal once
-  for (let j = 0; j < a.n; j++) {
-    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) {
-      const i = a.rowIdx[p];
-      const v = Math.abs(a.values[p]);
-      colSum[j] += v;
-      if (i !== j) colSum[i] += v;
-    }
-  }
-  let best = 0;
-  for (let j = 0; j < a.n; j++) if (colSum[j] > best) best = colSum[j];
-  return best;
 }

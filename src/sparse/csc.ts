@@ -101,3 +101,20 @@ export function maxAbsEntry(a: SymmetricCsc): number {
   }
   return m;
 }
+
+/** ‖A‖₁ = max_j Σ_i |a_ij| of the full symmetric matrix stored as its lower triangle (= ‖A‖∞). */
+export function symOneNorm(a: SymmetricCsc): number {
+  const colSum = new Float64Array(a.n);
+  // each stored a_ij (i > j) adds to columns j and i; the diagonal once
+  for (let j = 0; j < a.n; j++) {
+    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) {
+      const i = a.rowIdx[p];
+      const v = Math.abs(a.values[p]);
+      colSum[j] += v;
+      if (i !== j) colSum[i] += v;
+    }
+  }
+  let best = 0;
+  for (let j = 0; j < a.n; j++) if (colSum[j] > best) best = colSum[j];
+  return best;
+}
