@@ -7,6 +7,15 @@
 
 export type OrderingName = 'natural' | 'amd' | 'nested-dissection' | 'coordinate-bisection';
 
+/** One ordering tried by the automatic choice, with its exact predicted nnz(L). */
+export interface OrderingCandidate {
+  name: OrderingName;
+  nnzL: number;
+  /** Time to compute this ordering (graph and compression excluded; for nested dissection the
+   * two variants and the prediction that picks one), ms. */
+  ms: number;
+}
+
 /**
  * Counts of D's entries by sign. By Sylvester's law of inertia, with M positive
  * (semi)definite, `negative` equals the number of eigenvalues of (K, M) below σ.
@@ -78,5 +87,7 @@ export interface ShiftedSolver {
   readonly n: number;
   readonly ordering: OrderingName;
   readonly predictedNnzL: number;
+  /** Every ordering the choice computed (one when the ordering was named), in trial order. */
+  readonly orderingCandidates: readonly OrderingCandidate[];
   factor(shift: number): ShiftedFactor;
 }

@@ -67,7 +67,7 @@ export function createShiftedSolver(
     return makeFactor(f, shift, monitor, diagnostics);
   }
 
-  return { n, ordering: order.name, predictedNnzL: structure.nnzL, factor };
+  return { n, ordering: order.name, predictedNnzL: structure.nnzL, orderingCandidates: order.candidates, factor };
 }
 
 /** Bytes of the arrays a factor holds (values, D, and the structure's index arrays). */

@@ -14,10 +14,8 @@
  * check: chosen nnz(L) ≤ natural / 5 on the hex solids.
  * ORDERING_BENCH_MODEL = cube | hex | frame runs one model only.
  */
-import { buildFrame, type FrameMember, type FrameNode } from '../../fixtures/generator/frame-builder.js';
-import { buildHexBox } from '../../fixtures/generator/hex-solid.js';
 import type { GeneratedModel } from '../../fixtures/generator/model-types.js';
-import { circularHollowSection, STEEL } from '../../fixtures/generator/sections.js';
+import { clampedHexSolid, freeHexBox, latticeFrame } from './bench-models.js';
 import { chooseOrdering, patternOfGraph, type ChooseOrderingOptions } from '../../src/sparse/ordering/choose-ordering.js';
 import type { OrderingName } from '../../src/sparse/factor-types.js';
 import { adjacencyOfPencil } from '../../src/sparse/ordering/adjacency-graph.js';
@@ -27,10 +25,6 @@ import { factorStructureCounts } from '../../src/sparse/column-counts.js';
 
 const sec = (ms: number): string => `${(ms / 1000).toFixed(2)} s`;
 const ORDERINGS: OrderingName[] = ['natural', 'amd', 'nested-dissection', 'coordinate-bisection'];
-
-function nearCube(): GeneratedModel {
-  return buildHexBox({ sizeM: [4, 3.2, 3], elements: [40, 32, 30], material: STEEL, clampFace: 'xMin' });
-}
 
 /** Σ colcount² of the factor (the factorization's flop count up to a constant) and nnz(L). */
 function factorCost(model: GeneratedModel, perm: Int32Array): { nnzL: number; flops: number } {
@@ -48,33 +42,6 @@ function levelStructureDissection(model: GeneratedModel): { perm: Int32Array; ms
   const t = performance.now();
   const perm = expandOrdering(sv, graphNestedDissection(sv.graph, { weights: sv.weight, leafSize: 200 }));
   return { perm, ms: performance.now() - t };
-}
-
-function hexSolid(): GeneratedModel {
-  return buildHexBox({ sizeM: [3.9, 3.9, 2.4], elements: [39, 39, 24], material: STEEL });
-}
-
-function spaceFrame(): GeneratedModel {
-  const [nx, ny, nz] = [22, 22, 21];
-  const id = (i: number, j: number, k: number) => 1 + i + nx * (j + ny * k);
-  const nodes: FrameNode[] = [];
-  const members: FrameMember[] = [];
-  const section = circularHollowSection(0.1, 0.005);
-  const base: number[] = [];
-  // nodes on a 1 m lattice, beams along the three axes
-  for (let k = 0; k < nz; k++)
-    for (let j = 0; j < ny; j++)
-      for (let i = 0; i < nx; i++) {
-        nodes.push({ id: id(i, j, k), x: i, y: j, z: k });
-        if (k === 0) base.push(id(i, j, k));
-        const beam = (b: number): void => {
-          members.push({ kind: 'beam', nodes: [id(i, j, k), b], section, material: STEEL });
-        };
-        if (i + 1 < nx) beam(id(i + 1, j, k));
-        if (j + 1 < ny) beam(id(i, j + 1, k));
-        if (k + 1 < nz) beam(id(i, j, k + 1));
-      }
-  return buildFrame({ nodes, members, supports: [{ nodes: base, kind: 'clamp' }] });
 }
 
 function benchModel(label: string, model: GeneratedModel, checkTarget: boolean): void {
@@ -133,7 +100,7 @@ function benchModel(label: string, model: GeneratedModel, checkTarget: boolean):
 
 export default async function orderingBench(): Promise<void> {
   const only = process.env.ORDERING_BENCH_MODEL;
-  if (!only || only === 'cube') benchModel('hex solid 40×32×30 elements (xMin clamped)', nearCube(), true);
-  if (!only || only === 'hex') benchModel('hex box 39×39×24 elements (free-free)', hexSolid(), true);
-  if (!only || only === 'frame') benchModel('space frame 22×22×21 nodes (base clamped)', spaceFrame(), false);
+  if (!only || only === 'cube') benchModel('hex solid 40×32×30 elements (xMin clamped)', clampedHexSolid(), true);
+  if (!only || only === 'hex') benchModel('hex box 39×39×24 elements (free-free)', freeHexBox(), true);
+  if (!only || only === 'frame') benchModel('space frame 22×22×21 nodes (base clamped)', latticeFrame(), false);
 }

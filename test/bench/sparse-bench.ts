@@ -16,16 +16,14 @@
  * process's CPU time (process.cpuUsage / time.process_time); ratios use both.
  */
 import { spawnSync } from 'node:child_process';
-import { closeSync, mkdtempSync, openSync, readFileSync, rmSync, writeFileSync, writeSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { buildFrame, type FrameMember, type FrameNode } from '../../fixtures/generator/frame-builder.js';
-import { buildHexBox } from '../../fixtures/generator/hex-solid.js';
 import type { GeneratedModel } from '../../fixtures/generator/model-types.js';
-import { circularHollowSection, STEEL } from '../../fixtures/generator/sections.js';
+import { writeSymmetricMatrixMarket } from '../../src/io/matrix-market-writer.js';
+import { clampedHexSolid, latticeFrame } from './bench-models.js';
 import { symMultiply, type SymmetricCsc } from '../../src/sparse/csc.js';
-import { chooseOrdering } from '../../src/sparse/ordering/choose-ordering.js';
 import { createShiftedSolver } from '../../src/sparse/shifted-solver.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
@@ -33,33 +31,6 @@ const repoRoot = resolve(here, '../../..');
 const SCIPY_TIMEOUT_S = 600;
 const mb = (bytes: number): string => `${(bytes / 2 ** 20).toFixed(0)} MB`;
 const s = (ms: number): string => `${(ms / 1000).toFixed(2)} s`;
-
-function hexSolid(): GeneratedModel {
-  return buildHexBox({ sizeM: [4, 3.2, 3], elements: [40, 32, 30], material: STEEL, clampFace: 'xMin' });
-}
-
-function spaceFrame(): GeneratedModel {
-  const [nx, ny, nz] = [22, 22, 21];
-  const id = (i: number, j: number, k: number) => 1 + i + nx * (j + ny * k);
-  const nodes: FrameNode[] = [];
-  const members: FrameMember[] = [];
-  const section = circularHollowSection(0.1, 0.005);
-  const base: number[] = [];
-  // nodes on a 1 m lattice, beams along the three axes
-  for (let k = 0; k < nz; k++)
-    for (let j = 0; j < ny; j++)
-      for (let i = 0; i < nx; i++) {
-        nodes.push({ id: id(i, j, k), x: i, y: j, z: k });
-        if (k === 0) base.push(id(i, j, k));
-        const beam = (b: number): void => {
-          members.push({ kind: 'beam', nodes: [id(i, j, k), b], section, material: STEEL });
-        };
-        if (i + 1 < nx) beam(id(i + 1, j, k));
-        if (j + 1 < ny) beam(id(i, j + 1, k));
-        if (k + 1 < nz) beam(id(i, j, k + 1));
-      }
-  return buildFrame({ nodes, members, supports: [{ nodes: base, kind: 'clamp' }] });
-}
 
 /** Raw dump of CSC arrays for the child process. */
 function writeCsc(dir: string, name: string, a: SymmetricCsc): void {
@@ -74,23 +45,6 @@ function readCsc(dir: string, name: string, n: number): SymmetricCsc {
     return b.buffer.slice(b.byteOffset, b.byteOffset + b.byteLength);
   };
   return { n, colPtr: new Int32Array(bytes('colptr')), rowIdx: new Int32Array(bytes('rowidx')), values: new Float64Array(bytes('values')) };
-}
-
-/** Lower triangle of a symmetric matrix as Matrix Market coordinate text (1-based). */
-function writeMatrixMarket(file: string, a: SymmetricCsc): void {
-  const fd = openSync(file, 'w');
-  writeSync(fd, `%%MatrixMarket matrix coordinate real symmetric\n${a.n} ${a.n} ${a.colPtr[a.n]}\n`);
-  let chunk: string[] = [];
-  // column by column, rows ≥ column
-  for (let j = 0; j < a.n; j++) {
-    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) chunk.push(`${a.rowIdx[p] + 1} ${j + 1} ${a.values[p]}`);
-    if (chunk.length > 100_000) {
-      writeSync(fd, chunk.join('\n') + '\n');
-      chunk = [];
-    }
-  }
-  if (chunk.length) writeSync(fd, chunk.join('\n') + '\n');
-  closeSync(fd);
 }
 
 interface ChildReport {
@@ -128,9 +82,7 @@ function runChild(dir: string): void {
   gc();
   const rssLoaded = process.memoryUsage().rss;
   const inputBytes = [stiffness, mass].reduce((t, a) => t + a.colPtr.byteLength + a.rowIdx.byteLength + a.values.byteLength, 0);
-  const choice = chooseOrdering(stiffness, mass, { ordering: 'auto', coordinates });
-  gc();
-  const solver = createShiftedSolver(stiffness, mass, { ordering: choice.name, coordinates });
+  const solver = createShiftedSolver(stiffness, mass, { ordering: 'auto', coordinates });
   gc();
   const cpu0 = process.cpuUsage();
   const f = solver.factor(0);
@@ -165,9 +117,9 @@ function runChild(dir: string): void {
   const report: ChildReport = {
     n,
     inputBytes,
-    candidates: choice.candidates,
+    candidates: [...solver.orderingCandidates],
     ordering: d.ordering,
-    orderingMs: choice.graphMs + choice.candidates.reduce((m, c) => m + c.ms, 0),
+    orderingMs: d.timings.orderingMs,
     symbolicMs: d.timings.symbolicMs,
     numericMs: d.timings.numericMs,
     numericCpuMs,
@@ -229,7 +181,7 @@ async function benchCase(label: string, build: () => GeneratedModel, withScipy: 
     printOurs(o);
     if (!withScipy) return;
     const mtx = join(dir, 'K.mtx');
-    writeMatrixMarket(mtx, model.stiffness);
+    await writeSymmetricMatrixMarket(mtx, model.stiffness);
     const specs = (process.env.SPARSE_BENCH_PERMC?.split(',') ?? ['MMD_AT_PLUS_A', 'COLAMD']).filter((p) => p !== 'none');
     for (const permc of specs) printScipy(o, runScipy(mtx, permc), permc);
   } finally {
@@ -264,8 +216,8 @@ export default async function sparseBench(): Promise<void> {
   if (!withScipy) console.log('python3 with scipy not found: SciPy comparison skipped');
   // SPARSE_BENCH_CASE=frame|hex runs one model; SPARSE_BENCH_PERMC=A,B picks SciPy's column orders ('none': ours only)
   const only = process.env.SPARSE_BENCH_CASE;
-  if (!only || only === 'frame') await benchCase('space frame 22×22×21 nodes', spaceFrame, withScipy);
-  if (!only || only === 'hex') await benchCase('hex solid 40×32×30 elements', hexSolid, withScipy);
+  if (!only || only === 'frame') await benchCase('space frame 22×22×21 nodes', latticeFrame, withScipy);
+  if (!only || only === 'hex') await benchCase('hex solid 40×32×30 elements', clampedHexSolid, withScipy);
 }
 
 if (process.argv[2] === '--child') runChild(process.argv[3]);

@@ -13,7 +13,7 @@
  * Convention: perm[k] = original DOF index of the k-th pivot (P A Pᵀ has row k = row perm[k] of A).
  */
 import type { SymmetricCsc } from '../csc.js';
-import type { OrderingName } from '../factor-types.js';
+import type { OrderingCandidate, OrderingName } from '../factor-types.js';
 import { countFactorNonzeros } from '../column-counts.js';
 import { adjacencyOfPencil, type AdjacencyGraph } from './adjacency-graph.js';
 import { expandOrdering, findSupervariables, type Supervariables } from './supervariables.js';
@@ -32,14 +32,6 @@ export interface ChooseOrderingOptions {
   predictNnzL?: (perm: Int32Array) => number;
   /** Parts of at most this many supervariables end the dissection (default 64). */
   leafSize?: number;
-}
-
-export interface OrderingCandidate {
-  name: OrderingName;
-  nnzL: number;
-  /** Time to compute this ordering (graph and compression excluded; for nested dissection the
-   * two variants and the prediction that picks one), ms. */
-  ms: number;
 }
 
 export interface OrderingChoice {

@@ -1,0 +1,45 @@
+/**
+ * Generated models shared by the ordering and sparse benches (fixtures/generator), so both
+ * measure the same matrices.
+ */
+import { buildFrame, type FrameMember, type FrameNode } from '../../fixtures/generator/frame-builder.js';
+import { buildHexBox } from '../../fixtures/generator/hex-solid.js';
+import type { GeneratedModel } from '../../fixtures/generator/model-types.js';
+import { circularHollowSection, STEEL } from '../../fixtures/generator/sections.js';
+
+/** Steel hex solid of 40×32×30 hexahedra, 4 × 3.2 × 3 m, clamped on its xMin face (122 760 DOFs). */
+export function clampedHexSolid(): GeneratedModel {
+  return buildHexBox({ sizeM: [4, 3.2, 3], elements: [40, 32, 30], material: STEEL, clampFace: 'xMin' });
+}
+
+/** Free-free steel hex box of 39×39×24 hexahedra (40×40×25 nodes, 120 000 DOFs). */
+export function freeHexBox(): GeneratedModel {
+  return buildHexBox({ sizeM: [3.9, 3.9, 2.4], elements: [39, 39, 24], material: STEEL });
+}
+
+/**
+ * Rigid-jointed space frame of steel tubes (CHS 100 × 5) on a 22×22×21-node lattice of 1 m,
+ * beams along the three axes, clamped at its base (≈ 58k DOFs, 6 per node).
+ */
+export function latticeFrame(): GeneratedModel {
+  const [nx, ny, nz] = [22, 22, 21];
+  const id = (i: number, j: number, k: number) => 1 + i + nx * (j + ny * k);
+  const nodes: FrameNode[] = [];
+  const members: FrameMember[] = [];
+  const section = circularHollowSection(0.1, 0.005);
+  const base: number[] = [];
+  // nodes on a 1 m lattice, beams along the three axes
+  for (let k = 0; k < nz; k++)
+    for (let j = 0; j < ny; j++)
+      for (let i = 0; i < nx; i++) {
+        nodes.push({ id: id(i, j, k), x: i, y: j, z: k });
+        if (k === 0) base.push(id(i, j, k));
+        const beam = (b: number): void => {
+          members.push({ kind: 'beam', nodes: [id(i, j, k), b], section, material: STEEL });
+        };
+        if (i + 1 < nx) beam(id(i + 1, j, k));
+        if (j + 1 < ny) beam(id(i, j + 1, k));
+        if (k + 1 < nz) beam(id(i, j, k + 1));
+      }
+  return buildFrame({ nodes, members, supports: [{ nodes: base, kind: 'clamp' }] });
+}
