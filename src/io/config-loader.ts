@@ -159,7 +159,10 @@ function resolveModel(config: RawConfig, m: RawModelConfig, i: number, file: str
     ruleSets,
     configPath: file,
     where,
-    raw: m,
+    constraints: (m.constraints ?? []).map(({ dofsFile, ...set }, k) => {
+      const dofsPath = dofsFile === undefined ? undefined : existingFile(dofsFile, dir, file, `${where}.constraints[${k}].dofsFile`);
+      return { ...set, dofsPath };
+    }),
     baseline,
   };
 }

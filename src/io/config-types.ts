@@ -5,6 +5,7 @@
  */
 import type { ResolvedRule } from '../rules/engine.js';
 import type { Severity } from '../rules/rule-types.js';
+import type { ComponentSelector, ConstraintSet } from '../model/constraints.js';
 
 /** A rule entry in a rule set or override: a severity, or options with an optional severity. */
 export type RawRuleEntry = Severity | ({ severity?: Severity } & Record<string, unknown>);
@@ -24,6 +25,23 @@ export interface RawModelConfig extends RawSolveSettings {
   mass: string;
   dofs?: string;
   baseline?: RawBaselineConfig;
+  /** Constraint sets removing DOFs before the solve (src/model/constraints.ts). */
+  constraints?: RawConstraintSet[];
+}
+
+/** A constraint set as written in the config (`dofsFile` relative to the config file). */
+export interface RawConstraintSet {
+  name?: string;
+  nodes?: number[];
+  nodeRange?: [number, number];
+  components?: ComponentSelector[];
+  dofs?: number[];
+  dofsFile?: string;
+}
+
+/** A constraint set with its DOF-number file (if any) as an absolute, existing path. */
+export interface ConstraintJob extends ConstraintSet {
+  dofsPath?: string;
 }
 
 export interface RawConfig {
@@ -97,8 +115,8 @@ export interface ModelJob {
   /** The config file and the model's place in it, for error messages (`models[2]`). */
   configPath: string;
   where: string;
-  /** The model's entry as written, for later pipeline stages (constraints, baseline) to read. */
-  raw: RawModelConfig;
+  /** Constraint sets of the model entry, in config order (empty: none). */
+  constraints: ConstraintJob[];
   /** Baseline comparison / saving for this model, when configured or asked for on the command line. */
   baseline?: BaselineJob;
 }

@@ -7,30 +7,18 @@
  *   geometry facts   — after the solve: rigid-body vectors, mass properties, rigid-body energy,
  *                      participation and mechanism location (compute-geometry.ts), when the
  *                      model has a DOF map.
- * A constraint set that names unknown nodes or a DOF file that cannot be read is an InputError
- * naming the config entry (exit 2).
+ * A constraint set that names unknown nodes, or a DOF-number file that cannot be read, is an
+ * InputError naming the config entry or the file (exit 2); a missing file is caught by the config
+ * loader.
  */
-import { dirname, isAbsolute, resolve } from 'node:path';
-import { existsSync } from 'node:fs';
-import type { ModelJob } from '../io/config-types.js';
+import type { ConstraintJob, ModelJob } from '../io/config-types.js';
 import type { DofMap } from '../io/dof-map.js';
-import { InputError } from '../io/errors.js';
 import { readDofNumberFile } from '../io/dof-number-file.js';
 import type { SymmetricCsc } from '../sparse/csc.js';
 import type { RuleContext } from '../rules/rule-types.js';
-import { applyConstraints, type ComponentSelector, type ConstraintSet, type ReducedModel } from './constraints.js';
+import { applyConstraints, type ConstraintSet, type ReducedModel } from './constraints.js';
 import { computeGeometry } from './compute-geometry.js';
 import type { GeometryFacts } from './geometry-facts.js';
-
-/** A constraint set as written in the config (`dofsFile` relative to the config file). */
-export interface RawConstraintSet {
-  name?: string;
-  nodes?: number[];
-  nodeRange?: [number, number];
-  components?: ComponentSelector[];
-  dofs?: number[];
-  dofsFile?: string;
-}
 
 export interface ConstrainedInput {
   stiffness: SymmetricCsc;
@@ -45,21 +33,18 @@ export interface ConstrainedInput {
 
 /** Apply the model's constraint sets (none → the input unchanged). */
 export function applyConstraintStep(job: ModelJob, input: { stiffness: SymmetricCsc; mass: SymmetricCsc; dofMap?: DofMap }): ConstrainedInput {
-  const raw = (job.raw as { constraints?: RawConstraintSet[] }).constraints ?? [];
   const base = { stiffness: input.stiffness, mass: input.mass, dofMap: input.dofMap, setNames: [], original: { mass: input.mass, dofMap: input.dofMap } };
-  if (raw.length === 0) return base;
-  const sets = raw.map((s, k) => resolveSet(job, s, k));
+  if (job.constraints.length === 0) return base;
+  const sets = job.constraints.map(withListedDofs);
   const reduced = applyConstraints(input.stiffness, input.mass, input.dofMap, sets, job.configPath);
   const setNames = sets.map((s, k) => s.name ?? `constraints[${k}]`);
   return { ...base, stiffness: reduced.stiffness, mass: reduced.mass, dofMap: reduced.dofMap, reduced, setNames };
 }
 
-function resolveSet(job: ModelJob, s: RawConstraintSet, k: number): ConstraintSet {
-  const { dofsFile, ...set } = s;
-  if (dofsFile === undefined) return set;
-  const path = isAbsolute(dofsFile) ? dofsFile : resolve(dirname(job.configPath), dofsFile);
-  if (!existsSync(path)) throw new InputError(job.configPath, `file not found: ${path}`, { where: `${job.where}.constraints[${k}].dofsFile` });
-  return { ...set, dofs: [...(set.dofs ?? []), ...readDofNumberFile(path)] };
+/** The set with the DOF numbers of its file (if any) added to `dofs`. */
+function withListedDofs({ dofsPath, ...set }: ConstraintJob): ConstraintSet {
+  if (dofsPath === undefined) return set;
+  return { ...set, dofs: [...(set.dofs ?? []), ...readDofNumberFile(dofsPath)] };
 }
 
 /**
