@@ -22,7 +22,8 @@ import { InputError } from '../io/errors.js';
 import type { SymmetricCsc } from '../sparse/csc.js';
 import { cutoffDefaults, splitRigidBodyModes } from '../rules/rigid-body-split.js';
 import { dofMapHash, type LoadedBaseline } from './baseline-store.js';
-import { macFromProducts, restrictRows, restrictSymmetric, shapeProducts, subspaceShare, type ShapeProducts } from './mac.js';
+import { principalSubmatrix } from '../sparse/permute.js';
+import { macFromProducts, restrictRows, shapeProducts, subspaceShare, type ShapeProducts } from './mac.js';
 import { crossingPairs, DEFAULT_MIN_PAIR_CORRELATION, pairModes, type ModePairing } from './mode-pairing.js';
 import type { ComparisonFacts, ComparisonSettings, ModePair, ModeSwap, UnpairedMode } from './comparison-facts.js';
 
@@ -51,7 +52,7 @@ export function compareWithBaseline(baseline: LoadedBaseline, current: CurrentMo
   const mc = fc.length;
   const rows = baseline.shapes.rows;
   const currentValues = baseline.dofs ? restrictRows(modes.shapes, modes.n, mc, baseline.dofs) : modes.shapes.subarray(0, modes.n * mc);
-  const weight = settings.weighting === 'mass' ? (baseline.dofs ? restrictSymmetric(current.mass, baseline.dofs) : current.mass) : undefined;
+  const weight = settings.weighting === 'mass' ? (baseline.dofs ? principalSubmatrix(current.mass, baseline.dofs) : current.mass) : undefined;
   const products = shapeProducts(baseline.shapes, { rows, cols: mc, values: currentValues }, weight);
   const mac = macFromProducts(products);
   const groupOfBaseline = groupIndex(fb, settings.repeatedTolerancePercent);

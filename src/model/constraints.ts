@@ -7,6 +7,7 @@
  * so rows stay sorted and the diagonal stays first in every kept column.
  */
 import type { SymmetricCsc } from '../sparse/csc.js';
+import { principalSubmatrix } from '../sparse/permute.js';
 import { COMPONENTS, type DofMap } from '../io/dof-map.js';
 import { InputError } from '../io/errors.js';
 
@@ -94,32 +95,6 @@ export function constrainedDofMask(n: number, dofMap: DofMap | undefined, sets: 
   return mask;
 }
 
-/** Lower-triangle sub-matrix A(F, F) with F = kept DOFs (increasing), renumbered by `reducedIndex`. */
-export function symmetricSubmatrix(a: SymmetricCsc, keptDofs: Int32Array, reducedIndex: Int32Array): SymmetricCsc {
-  const m = keptDofs.length;
-  const colPtr = new Int32Array(m + 1);
-  // count kept rows in each kept column
-  for (let r = 0; r < m; r++) {
-    const j = keptDofs[r];
-    let c = 0;
-    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) if (reducedIndex[a.rowIdx[p]] >= 0) c++;
-    colPtr[r + 1] = colPtr[r] + c;
-  }
-  const rowIdx = new Int32Array(colPtr[m]);
-  const values = new Float64Array(colPtr[m]);
-  // copy the kept entries, renumbering rows (order is preserved because the map is increasing)
-  for (let r = 0, q = 0; r < m; r++) {
-    const j = keptDofs[r];
-    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) {
-      const ri = reducedIndex[a.rowIdx[p]];
-      if (ri < 0) continue;
-      rowIdx[q] = ri;
-      values[q++] = a.values[p];
-    }
-  }
-  return { n: m, colPtr, rowIdx, values };
-}
-
 /** The DOF map restricted to the kept DOFs. */
 export function reduceDofMap(map: DofMap, keptDofs: Int32Array): DofMap {
   const m = keptDofs.length;
@@ -154,8 +129,8 @@ export function removeDofs(stiffness: SymmetricCsc, mass: SymmetricCsc, dofMap: 
     else removedDofs[r++] = i;
   }
   return {
-    stiffness: symmetricSubmatrix(stiffness, keptDofs, reducedIndex),
-    mass: symmetricSubmatrix(mass, keptDofs, reducedIndex),
+    stiffness: principalSubmatrix(stiffness, keptDofs),
+    mass: principalSubmatrix(mass, keptDofs),
     dofMap: dofMap ? reduceDofMap(dofMap, keptDofs) : undefined,
     keptDofs,
     reducedIndex,

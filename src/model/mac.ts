@@ -114,38 +114,6 @@ export function subspaceShare(p: ShapeProducts, side: 'baseline' | 'current', i:
   return Math.min(1, share / self);
 }
 
-/**
- * The part of a symmetric matrix on a subset of its DOFs (`dofs` ascending, 0-based):
- * A_ss, still lower triangle by columns, as the weight of a MAC over a DOF subset.
- */
-export function restrictSymmetric(a: SymmetricCsc, dofs: Int32Array): SymmetricCsc {
-  const position = new Int32Array(a.n).fill(-1);
-  // position[d] = place of DOF d in the subset
-  for (let s = 0; s < dofs.length; s++) position[dofs[s]] = s;
-  const colPtr = new Int32Array(dofs.length + 1);
-  let count = 0;
-  // count the kept entries of each kept column
-  for (let s = 0; s < dofs.length; s++) {
-    const j = dofs[s];
-    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) if (position[a.rowIdx[p]] >= 0) count++;
-    colPtr[s + 1] = count;
-  }
-  const rowIdx = new Int32Array(count);
-  const values = new Float64Array(count);
-  let q = 0;
-  // copy them with renumbered rows (order preserved: rows ascend, diagonal first)
-  for (let s = 0; s < dofs.length; s++) {
-    const j = dofs[s];
-    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) {
-      const r = position[a.rowIdx[p]];
-      if (r < 0) continue;
-      rowIdx[q] = r;
-      values[q++] = a.values[p];
-    }
-  }
-  return { n: dofs.length, colPtr, rowIdx, values };
-}
-
 /** Rows `dofs` of a column-major n × cols block. */
 export function restrictRows(values: Float64Array, n: number, cols: number, dofs: Int32Array): Float64Array {
   const out = new Float64Array(dofs.length * cols);

@@ -148,3 +148,34 @@ export function permutePair(stiffness: SymmetricCsc, mass: SymmetricCsc, perm: I
   }
   return { n, colPtr, rowIdx, stiffness: kv, mass: mv };
 }
+
+/**
+ * Principal sub-matrix A(S, S) for DOFs S = `dofs` (strictly ascending), renumbered 0…|S|−1 and
+ * still stored as its lower triangle by columns (ascending S keeps every row below its column).
+ */
+export function principalSubmatrix(a: SymmetricCsc, dofs: Int32Array): SymmetricCsc {
+  const position = new Int32Array(a.n).fill(-1);
+  // position[d] = place of DOF d in the subset
+  for (let s = 0; s < dofs.length; s++) position[dofs[s]] = s;
+  const colPtr = new Int32Array(dofs.length + 1);
+  // count the kept entries of each kept column
+  for (let s = 0; s < dofs.length; s++) {
+    const j = dofs[s];
+    let c = 0;
+    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) if (position[a.rowIdx[p]] >= 0) c++;
+    colPtr[s + 1] = colPtr[s] + c;
+  }
+  const rowIdx = new Int32Array(colPtr[dofs.length]);
+  const values = new Float64Array(colPtr[dofs.length]);
+  // copy them with renumbered rows (order preserved: rows ascend, diagonal first)
+  for (let s = 0, q = 0; s < dofs.length; s++) {
+    const j = dofs[s];
+    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) {
+      const r = position[a.rowIdx[p]];
+      if (r < 0) continue;
+      rowIdx[q] = r;
+      values[q++] = a.values[p];
+    }
+  }
+  return { n: dofs.length, colPtr, rowIdx, values };
+}
