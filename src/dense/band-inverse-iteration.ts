@@ -14,6 +14,7 @@
  * 10ε‖A‖ of the previous shift are pushed apart by that amount so that exactly repeated
  * eigenvalues still yield independent vectors.
  */
+import { seededUniform } from './seeded-random.js';
 import { bandNormInf, type SymmetricBand } from './symmetric-band.js';
 
 const EPS = 2.220446049250313e-16;
@@ -40,7 +41,7 @@ export function bandEigenvectors(band: SymmetricBand, values: ArrayLike<number>,
   const norm = Math.max(bandNormInf(band), Number.MIN_VALUE);
   const perturb = 10 * EPS * norm;
   const growthTarget = Math.sqrt(0.1 / n) / (n * EPS * norm);
-  const random = seededUniform(seed);
+  const uniform = seededUniform(seed);
   let clusterStart = 0;
   let prevShift = -Infinity;
   for (let j = 0; j < k; j++) {
@@ -51,7 +52,7 @@ export function bandEigenvectors(band: SymmetricBand, values: ArrayLike<number>,
     const f = factorShifted(band, shift, EPS * norm);
     const x = vectors.subarray(j * n, (j + 1) * n);
     // random start in [−1, 1)
-    for (let i = 0; i < n; i++) x[i] = random();
+    for (let i = 0; i < n; i++) x[i] = uniform() * 2 - 1;
     let extra = -1;
     for (let it = 0; it < MAX_SOLVES && extra < EXTRA_SOLVES; it++) {
       orthogonalizeAgainst(vectors, n, clusterStart, j, x);
@@ -165,16 +166,4 @@ function maxAbs(x: Float64Array): number {
   let m = 0;
   for (let i = 0; i < x.length; i++) m = Math.max(m, Math.abs(x[i]));
   return m;
-}
-
-/** Deterministic uniform numbers in [−1, 1) (mulberry32). */
-function seededUniform(seed: number): () => number {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return (((t ^ (t >>> 14)) >>> 0) / 4294967296) * 2 - 1;
-  };
 }

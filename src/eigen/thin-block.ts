@@ -2,6 +2,8 @@
  * Column bookkeeping for thin column-major blocks (n×a, a ≪ n) and a repeatable random start
  * block. Products of blocks are the dense layer's kernels in src/dense/block-ops.ts.
  */
+import { seededUniform } from '../dense/seeded-random.js';
+
 /** Columns [from, to) of an n-row block, copied. */
 export function columns(x: Float64Array, n: number, from: number, to: number): Float64Array {
   return x.slice(from * n, to * n);
@@ -23,17 +25,11 @@ export function columnNorm(x: Float64Array, n: number, j: number): number {
   return Math.sqrt(s);
 }
 
-/** A deterministic pseudo-random n×k block in [−0.5, 0.5) (mulberry32), so runs repeat exactly. */
+/** A deterministic pseudo-random n×k block in [−0.5, 0.5), so runs repeat exactly. */
 export function randomBlock(n: number, k: number, seed: number): Float64Array {
   const x = new Float64Array(n * k);
-  let s = seed >>> 0;
+  const u = seededUniform(seed);
   // one uniform number per entry
-  for (let i = 0; i < x.length; i++) {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    x[i] = ((t ^ (t >>> 14)) >>> 0) / 4294967296 - 0.5;
-  }
+  for (let i = 0; i < x.length; i++) x[i] = u() - 0.5;
   return x;
 }

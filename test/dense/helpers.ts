@@ -1,16 +1,11 @@
 /** Shared helpers for the dense-kernel tests: seeded random matrices and column-major arithmetic. */
 import { Matrix } from 'ml-matrix';
+import { seededUniform } from '../../src/dense/seeded-random.js';
 
-/** Deterministic uniform numbers in [−1, 1) (mulberry32), so failures reproduce. */
+/** Deterministic uniform numbers in [−1, 1), so failures reproduce. */
 export function seededRandom(seed: number): () => number {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return (((t ^ (t >>> 14)) >>> 0) / 4294967296) * 2 - 1;
-  };
+  const u = seededUniform(seed);
+  return () => u() * 2 - 1;
 }
 
 /** Random symmetric n×n, column-major. */

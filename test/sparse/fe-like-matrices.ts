@@ -6,18 +6,10 @@
  */
 import { TripletList, assembleSymmetric } from '../../src/sparse/assemble.js';
 import type { SymmetricCsc } from '../../src/sparse/csc.js';
+import { seededUniform } from '../../src/dense/seeded-random.js';
 
-/** Deterministic uniform [0, 1) generator (mulberry32). */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** Deterministic uniform [0, 1) generator. */
+export const seededRandom = seededUniform;
 
 export interface SmallPair {
   stiffness: SymmetricCsc;
