@@ -51,6 +51,17 @@ const PACK_ROWS = 128;
 const PACK_DEPTH = 128;
 /** Packed operands live in the SIMD kernel's memory when it is available (offsets in doubles). */
 const simdKernel = createTileKernel();
+let simdEnabled = true;
+
+/**
+ * Turns the WebAssembly SIMD tile kernel on or off (default on when the runtime has it); the
+ * plain TypeScript tiles compute the same sums. Returns whether the SIMD kernel is in use now.
+ * For tests and benchmarks of the fallback path.
+ */
+export function useSimdTileKernel(on: boolean): boolean {
+  simdEnabled = on;
+  return on && simdKernel !== null;
+}
 const TILE_OUT = PACK_ROWS * PACK_DEPTH;
 const PACKED_W = TILE_OUT + 512;
 let plainBuffer = new Float64Array(PACKED_W + 64 * PACK_DEPTH);
@@ -74,7 +85,7 @@ function packedLowerProduct(
 ): void {
   const nt = (n + 3) >> 2;
   const need = PACKED_W + nt * 4 * PACK_DEPTH;
-  const simd = simdKernel !== null && need <= simdKernel.memory.length ? simdKernel : null;
+  const simd = simdEnabled && simdKernel !== null && need <= simdKernel.memory.length ? simdKernel : null;
   if (simd === null && plainBuffer.length < need) plainBuffer = new Float64Array(need);
   const buf = simd !== null ? simd.memory : plainBuffer;
   // depth blocks of the inner dimension

@@ -1,10 +1,19 @@
 import { Matrix } from 'ml-matrix';
-import { describe, expect, it } from 'vitest';
-import { scaledRowsKMajor, subtractTransposedProduct, updateLowerProduct, updateProduct } from '../../src/sparse/dense-block-kernels.js';
+import { afterEach, describe, expect, it } from 'vitest';
+import { scaledRowsKMajor, subtractTransposedProduct, updateLowerProduct, updateProduct, useSimdTileKernel } from '../../src/sparse/dense-block-kernels.js';
 import { seededRandom } from './fe-like-matrices.js';
 
-describe('updateLowerProduct', () => {
+describe.each([
+  ['WebAssembly SIMD tiles', true],
+  ['plain TypeScript tiles', false],
+])('updateLowerProduct with %s', (_label, simd) => {
+  afterEach(() => {
+    useSimdTileKernel(true);
+  });
   it('equals C − A·D·A(rows)ᵀ from ml-matrix mmul on and below the diagonal (sizes cross the cache blocks)', () => {
+    const active = useSimdTileKernel(simd);
+    // Node 20 has WebAssembly SIMD, so the first case really runs the SIMD kernel
+    expect(active).toBe(simd);
     const rnd = seededRandom(5);
     for (const [m, n, k] of [[601, 70, 301], [9, 7, 3], [260, 64, 129]]) {
       const lda = m + 3;
