@@ -5,7 +5,7 @@ import { supernodalLdlt } from '../../src/sparse/numeric-ldlt.js';
 import { chooseOrdering } from '../../src/sparse/ordering/choose-ordering.js';
 import { permuteSymmetric } from '../../src/sparse/permute.js';
 import { PivotMonitor } from '../../src/sparse/pivot-monitor.js';
-import { simplicialLdlt } from '../../src/sparse/simplicial-ldlt.js';
+import { simplicialLdlt } from './simplicial-ldlt.js';
 import { analyzeShiftedPair } from '../../src/sparse/symbolic.js';
 import { denseOf, hexGridPair } from './fe-like-matrices.js';
 
@@ -63,5 +63,23 @@ describe('supernodal structure and numeric factor', () => {
     const ref = simplicialLdlt(s.pair, shift, t.parent, t.counts, new PivotMonitor(1e-13, 1));
     expect(t.nnzL).toBe(s.nnzL);
     for (let j = 0; j < s.n; j++) expect(Math.abs(sup.d[j] - ref.d[j])).toBeLessThanOrEqual(1e-10 * Math.abs(ref.d[j]));
+  });
+
+  it('gives the pivots d_j = L_jj² of ml-matrix CholeskyDecomposition on the permuted K + M (σ = −1)', () => {
+    const sup = supernodalLdlt(s, -1, new PivotMonitor(1e-13, 1));
+    const dense = new Matrix(s.n, s.n);
+    // the permuted pair's lower storage, both triangles filled
+    for (let j = 0; j < s.n; j++) {
+      for (let p = s.pair.colPtr[j]; p < s.pair.colPtr[j + 1]; p++) {
+        const v = s.pair.stiffness[p] + s.pair.mass[p];
+        dense.set(s.pair.rowIdx[p], j, v);
+        dense.set(j, s.pair.rowIdx[p], v);
+      }
+    }
+    // reference: ml-matrix dense Cholesky A = G Gᵀ; with A = L D Lᵀ, g_jj² = d_j
+    const chol = new CholeskyDecomposition(dense);
+    expect(chol.isPositiveDefinite()).toBe(true);
+    const g = chol.lowerTriangularMatrix;
+    for (let j = 0; j < s.n; j++) expect(Math.abs(sup.d[j] - g.get(j, j) ** 2)).toBeLessThanOrEqual(1e-10 * g.get(j, j) ** 2);
   });
 });

@@ -1,12 +1,12 @@
 /**
  * Column-by-column ("up-looking") LDLᵀ of a permuted shifted pair A = K − σM, the simple
  * reference factorization: row k of L is the solution of L(0:k−1, 0:k−1) D y = A(0:k−1, k),
- * whose nonzero pattern is the row subtree of k in the elimination tree. Used by tests to cross
- * check the supernodal factorization, and small enough to read at once.
+ * whose nonzero pattern is the row subtree of k in the elimination tree. A test oracle for the
+ * supernodal factorization (no blocking, no amalgamation), small enough to read at once.
  */
-import type { PermutedPair } from './permute.js';
-import { transposePattern } from './permute.js';
-import { PivotMonitor } from './pivot-monitor.js';
+import type { PermutedPair } from '../../src/sparse/permute.js';
+import { transposePattern } from '../../src/sparse/permute.js';
+import type { PivotMonitor } from '../../src/sparse/pivot-monitor.js';
 
 export interface SimplicialFactor {
   n: number;
