@@ -67,6 +67,8 @@ interface Ours {
   solves: number;
   sturmOk: boolean;
   maxResidual: number;
+  /** Factorizations, iteration and verification times of the solve, s. */
+  phases: string;
 }
 
 function runOurs(dir: string, name: string): Ours {
@@ -85,10 +87,11 @@ function runOurs(dir: string, name: string): Ours {
     solves: doc.solves,
     sturmOk: doc.sturm.ok,
     maxResidual: Math.max(...doc.residuals),
+    phases: `factor ${(doc.timings.factorMs / 1000).toFixed(1)} s, iterate ${(doc.timings.iterateMs / 1000).toFixed(1)} s, verify ${(doc.timings.verifyMs / 1000).toFixed(1)} s`,
   };
 }
 
-function runScipy(dir: string, name: string, sigma: number): { eigenvalues: number[]; seconds: number; wall: number; peakRssKb: number } | string {
+function runScipy(dir: string, name: string, sigma: number): { eigenvalues: number[]; seconds: number; wall: number; peakRssKb: number; ordering: string } | string {
   const out = path.join(dir, `${name}.scipy.json`);
   const t0 = performance.now();
   const r = spawnSync('python3', [scipyScript, path.join(dir, `${name}.K.mtx`), path.join(dir, `${name}.M.mtx`), '20', String(sigma), out], { encoding: 'utf8', timeout: 900_000 });
@@ -143,6 +146,7 @@ export default async function modesBench(): Promise<void> {
       ours.sturmOk ? '  ok' : '  FAILED',
     );
     console.log(cols.join(' '));
+    console.log(`${''.padEnd(14)} ours: ${ours.phases}; SciPy: ${scipy.ordering}`);
   }
   console.log(`files in ${dir}; time ratio = our solve (read excluded) / SciPy factor+eigsh; memory = max RSS of each process`);
 }
