@@ -57,6 +57,8 @@ export interface FactorDiagnostics {
   maxDiagonalToPivotRatio: number;
   maxRatioDof: number;
   tinyPivots: TinyPivot[];
+  /** Threads the numeric factorization ran on (1, or 2 when the elimination tree was split). */
+  threads?: number;
 }
 
 /** The numeric factor of one shifted matrix. Vectors are in the original DOF numbering. */
@@ -77,6 +79,8 @@ export interface ShiftedSolverOptions {
   coordinates?: Float64Array;
   /** Relative zero-pivot tolerance for inertia, default 1e-13 (our choice). */
   zeroPivotTolerance?: number;
+  /** Most threads the numeric factorization and block solves may use (default: 2 when available). */
+  threads?: number;
 }
 
 /**

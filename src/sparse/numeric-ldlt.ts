@@ -41,9 +41,41 @@ export function shiftedDiagonal(s: SupernodalStructure, shift: number): Float64A
 }
 
 export function supernodalLdlt(s: SupernodalStructure, shift: number, monitor: PivotMonitor): SupernodalFactor {
+  const values = new Float64Array(s.valuePtr[s.supernodes]);
+  const d = new Float64Array(s.n);
+  const nextRow = new Int32Array(s.supernodes);
+  factorSupernodes(s, shift, monitor, { values, d, nextRow }, [[0, s.supernodes - 1]]);
+  return { structure: s, values, d };
+}
+
+/** The arrays one factorization writes; shared between threads when the work is split. */
+export interface FactorArrays {
+  values: Float64Array;
+  d: Float64Array;
+  /**
+   * nextRow[sn]: position in sn's row list of its first row not yet applied to an ancestor.
+   * After a subtree is factored, its supernodes' entries point at the ancestors outside it.
+   */
+  nextRow: Int32Array;
+}
+
+/**
+ * Factors the supernodes of `ranges` (inclusive [first, last] pairs, ascending, each closed under
+ * descendants — a postordered subtree or forest — or ancestor-closed "top" supernodes), in order.
+ * Descendants in earlier-factored supernodes outside the ranges (other threads' subtrees) are
+ * found through their `nextRow` entries when `pendingFrom` lists them; a supernode queues itself
+ * only on ancestors inside the ranges.
+ */
+export function factorSupernodes(
+  s: SupernodalStructure,
+  shift: number,
+  monitor: PivotMonitor,
+  out: FactorArrays,
+  ranges: [number, number][],
+  pendingFrom: [number, number][] = [],
+): void {
   const { n, supernodes: ns, superStart, superOf, rowPtr, rows, valuePtr, pair } = s;
-  const values = new Float64Array(valuePtr[ns]);
-  const d = new Float64Array(n);
+  const { values, d, nextRow } = out;
   const diag = shiftedDiagonal(s, shift);
   const map = new Int32Array(n);
   const rel = new Int32Array(s.maxRows);
@@ -51,50 +83,53 @@ export function supernodalLdlt(s: SupernodalStructure, shift: number, monitor: P
   const c = new Float64Array(CHUNK * s.maxRows + 1);
   const head = new Int32Array(ns).fill(-1);
   const link = new Int32Array(ns).fill(-1);
-  const nextRow = new Int32Array(ns);
+  const inRanges = new Uint8Array(ns);
+  for (const [lo, hi] of ranges) inRanges.fill(1, lo, hi + 1);
+  // queue sn on the supernode of its next unapplied row, when that one is factored here
+  const enqueue = (sn: number): void => {
+    const q = nextRow[sn];
+    if (q >= rowPtr[sn + 1] - rowPtr[sn]) return;
+    const t = superOf[rows[rowPtr[sn] + q]];
+    if (inRanges[t] === 0) return;
+    link[sn] = head[t];
+    head[t] = sn;
+  };
+  // supernodes factored elsewhere that still owe updates to ours
+  for (const [lo, hi] of pendingFrom) for (let sn = lo; sn <= hi; sn++) enqueue(sn);
   // supernodes in order: assemble, apply descendants, factor, queue for its first ancestor
-  for (let sn = 0; sn < ns; sn++) {
-    const f = superStart[sn];
-    const l = superStart[sn + 1];
-    const nc = l - f;
-    const r0 = rowPtr[sn];
-    const nr = rowPtr[sn + 1] - r0;
-    const v0 = valuePtr[sn];
-    // local position of each row of S
-    for (let i = 0; i < nr; i++) map[rows[r0 + i]] = i;
-    // B ← A(R, f..l−1) = K − σM
-    for (let j = f; j < l; j++) {
-      const base = v0 + (j - f) * nr;
-      for (let p = pair.colPtr[j]; p < pair.colPtr[j + 1]; p++) {
-        values[base + map[pair.rowIdx[p]]] = pair.stiffness[p] - shift * pair.mass[p];
+  for (const [lo, hi] of ranges) {
+    for (let sn = lo; sn <= hi; sn++) {
+      const f = superStart[sn];
+      const l = superStart[sn + 1];
+      const nc = l - f;
+      const r0 = rowPtr[sn];
+      const nr = rowPtr[sn + 1] - r0;
+      const v0 = valuePtr[sn];
+      // local position of each row of S
+      for (let i = 0; i < nr; i++) map[rows[r0 + i]] = i;
+      // B ← A(R, f..l−1) = K − σM
+      for (let j = f; j < l; j++) {
+        const base = v0 + (j - f) * nr;
+        for (let p = pair.colPtr[j]; p < pair.colPtr[j + 1]; p++) {
+          values[base + map[pair.rowIdx[p]]] = pair.stiffness[p] - shift * pair.mass[p];
+        }
       }
-    }
-    // updates from every descendant queued on S
-    let dn = head[sn];
-    head[sn] = -1;
-    while (dn !== -1) {
-      const after = link[dn];
-      const q = applyDescendant(s, dn, sn, nextRow[dn], values, d, map, rel, w, c);
-      // queue dn on the next supernode its remaining rows touch
-      const dRows = rowPtr[dn + 1] - rowPtr[dn];
-      nextRow[dn] = q;
-      if (q < dRows) {
-        const t = superOf[rows[rowPtr[dn] + q]];
-        link[dn] = head[t];
-        head[t] = dn;
+      // updates from every descendant queued on S
+      let dn = head[sn];
+      head[sn] = -1;
+      while (dn !== -1) {
+        const after = link[dn];
+        nextRow[dn] = applyDescendant(s, dn, sn, nextRow[dn], values, d, map, rel, w, c);
+        // queue dn on the next supernode its remaining rows touch
+        enqueue(dn);
+        dn = after;
       }
-      dn = after;
-    }
-    factorBlock(values, v0, nr, nc, f, d, diag, monitor, w);
-    // S's own first row below its columns
-    nextRow[sn] = nc;
-    if (nr > nc) {
-      const t = superOf[rows[r0 + nc]];
-      link[sn] = head[t];
-      head[t] = sn;
+      factorBlock(values, v0, nr, nc, f, d, diag, monitor, w);
+      // S's own first row below its columns
+      nextRow[sn] = nc;
+      enqueue(sn);
     }
   }
-  return { structure: s, values, d };
 }
 
 /**

@@ -14,6 +14,16 @@
  */
 import type { Inertia, TinyPivot } from './factor-types.js';
 
+/** A monitor's counts as plain data (to pass between threads). */
+export interface MonitorState {
+  negative: number;
+  zero: number;
+  positive: number;
+  maxRatio: number;
+  maxRatioIndex: number;
+  tiny: { index: number; pivot: number; diagonal: number }[];
+}
+
 export class PivotMonitor {
   negative = 0;
   zero = 0;
@@ -43,6 +53,25 @@ export class PivotMonitor {
       this.maxRatioIndex = j;
     }
     return d;
+  }
+
+  state(): MonitorState {
+    const { negative, zero, positive, maxRatio, maxRatioIndex } = this;
+    return { negative, zero, positive, maxRatio, maxRatioIndex, tiny: this.tiny.slice() };
+  }
+
+  /** Adds the counts of a monitor that judged other pivots of the same factorization. */
+  merge(other: MonitorState): void {
+    this.negative += other.negative;
+    this.zero += other.zero;
+    this.positive += other.positive;
+    if (other.maxRatio > this.maxRatio || (other.maxRatio === this.maxRatio && other.maxRatioIndex < this.maxRatioIndex)) {
+      this.maxRatio = other.maxRatio;
+      this.maxRatioIndex = other.maxRatioIndex;
+    }
+    const all = this.tiny.concat(other.tiny).sort((a, b) => a.index - b.index).slice(0, 1000);
+    this.tiny.length = 0;
+    this.tiny.push(...all);
   }
 
   inertia(): Inertia {

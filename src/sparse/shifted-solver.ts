@@ -10,6 +10,16 @@ import { supernodalLdlt, type SupernodalFactor } from './numeric-ldlt.js';
 import { PivotMonitor } from './pivot-monitor.js';
 import { analyzeShiftedPair, type SupernodalStructure } from './symbolic.js';
 import { solveWorkspaceSize, supernodalSolveInPlace } from './triangular-solve.js';
+import { availableThreads, parallelSolveInPlace, parallelSupernodalLdlt, shareStructure, sharedBlock } from './parallel-factor.js';
+import { splitSubtrees } from './subtree-split.js';
+
+/**
+ * Factorizations of fewer flops stay on one thread (our choice: about a tenth of a second of
+ * work, where handing out the halves stops paying).
+ */
+const PARALLEL_MIN_FLOPS = 2e8;
+/** A split whose estimated time is above this share of the serial time is not worth a thread. */
+const PARALLEL_MAX_TIME_RATIO = 0.85;
 
 /** Default relative zero-pivot tolerance (our choice, see factor-types). */
 export const DEFAULT_ZERO_PIVOT_TOLERANCE = 1e-13;
@@ -43,14 +53,20 @@ export function createShiftedSolver(
   const t0 = performance.now();
   const order = chooseOrdering(stiffness, mass, { ordering: options.ordering ?? 'auto', coordinates: options.coordinates });
   const t1 = performance.now();
-  const structure = analyzeShiftedPair(stiffness, mass, order.perm);
+  const analyzed = analyzeShiftedPair(stiffness, mass, order.perm);
+  const threads = Math.min(options.threads ?? 2, availableThreads());
+  const candidate = threads >= 2 && analyzed.flops >= PARALLEL_MIN_FLOPS ? splitSubtrees(analyzed, 2) : null;
+  const split = candidate !== null && candidate.timeRatio <= PARALLEL_MAX_TIME_RATIO ? candidate : null;
+  // shared memory lets the helper thread read the structure without a copy
+  const structure = split ? shareStructure(analyzed) : analyzed;
   const t2 = performance.now();
   const { perm } = structure;
 
   function factor(shift: number): ShiftedFactor {
     const t3 = performance.now();
     const monitor = new PivotMonitor(tolerance, maxShiftedDiagonal(structure, shift));
-    const f = supernodalLdlt(structure, shift, monitor);
+    const parallel = split ? parallelSupernodalLdlt(structure, shift, monitor, split) : null;
+    const f = parallel ?? supernodalLdlt(structure, shift, monitor);
     const t4 = performance.now();
     const diagnostics: FactorDiagnostics = {
       ordering: order.name,
@@ -63,6 +79,7 @@ export function createShiftedSolver(
       maxDiagonalToPivotRatio: monitor.maxRatio,
       maxRatioDof: monitor.maxRatioIndex >= 0 ? perm[monitor.maxRatioIndex] : -1,
       tinyPivots: monitor.tinyPivots(perm),
+      threads: parallel ? 2 : 1,
     };
     return makeFactor(f, shift, monitor, diagnostics);
   }
@@ -85,13 +102,14 @@ function makeFactor(f: SupernodalFactor, shift: number, monitor: PivotMonitor, d
 
   function solveBlock(b: Float64Array, k: number, x: Float64Array = new Float64Array(n * k)): Float64Array {
     if (b.length < n * k || x.length < n * k) throw new RangeError(`block of ${k} columns needs ${n * k} entries`);
-    const work = new Float64Array(n * k);
+    const shared = f.values.buffer instanceof SharedArrayBuffer && k >= 2;
+    const work = shared ? sharedBlock(n * k) : new Float64Array(n * k);
     // gather into pivot order: work(q, c) = b(perm[q], c)
     for (let c = 0; c < k; c++) {
       const o = c * n;
       for (let q = 0; q < n; q++) work[o + q] = b[o + perm[q]];
     }
-    supernodalSolveInPlace(f, work, k, new Float64Array(solveWorkspaceSize(f, k)));
+    if (!(shared && parallelSolveInPlace(f, work, k))) supernodalSolveInPlace(f, work, k, new Float64Array(solveWorkspaceSize(f, k)));
     // scatter back to DOF order
     for (let c = 0; c < k; c++) {
       const o = c * n;

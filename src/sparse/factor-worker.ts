@@ -1,0 +1,44 @@
+/**
+ * Helper thread of the parallel LDLᵀ (src/sparse/parallel-factor.ts). It waits for jobs on its
+ * message port, runs them on the shared arrays, posts the result on the same port and then
+ * raises the job's flag, so the main thread — blocked in Atomics.wait — can take the result
+ * with receiveMessageOnPort. Every job answers, an exception included, so the main thread
+ * never waits forever on a job that started.
+ */
+import { parentPort, workerData, type MessagePort } from 'node:worker_threads';
+import { factorSupernodes } from './numeric-ldlt.js';
+import { PivotMonitor } from './pivot-monitor.js';
+import { supernodalSolveInPlace, solveWorkspaceSize } from './triangular-solve.js';
+import type { HelperJob, HelperResult } from './parallel-factor.js';
+
+const port = (workerData as { port: MessagePort }).port;
+
+function run(job: HelperJob): HelperResult {
+  switch (job.kind) {
+    case 'ping':
+      return { kind: 'pong' };
+    case 'factor': {
+      const monitor = new PivotMonitor(job.tolerance, job.diagonalScale);
+      factorSupernodes(job.structure, job.shift, monitor, { values: job.values, d: job.d, nextRow: job.nextRow }, job.ranges);
+      return { kind: 'factored', monitor: monitor.state() };
+    }
+    case 'solve': {
+      const f = { structure: job.structure, values: job.values, d: job.d };
+      supernodalSolveInPlace(f, job.x, job.columns, new Float64Array(solveWorkspaceSize(f, job.columns)));
+      return { kind: 'solved' };
+    }
+  }
+}
+
+port.on('message', (job: HelperJob) => {
+  let result: HelperResult;
+  try {
+    result = run(job);
+  } catch (e) {
+    result = { kind: 'failed', message: e instanceof Error ? e.message : String(e) };
+  }
+  port.postMessage(result);
+  Atomics.store(job.flag, 0, 1);
+  Atomics.notify(job.flag, 0);
+});
+void parentPort;

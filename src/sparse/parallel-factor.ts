@@ -1,0 +1,206 @@
+/**
+ * Two-thread LDLᵀ factorization and block solves, behind the same synchronous interface as the
+ * serial ones.
+ *
+ * Factorization: the supernodal tree is split (subtree-split.ts) into two sets of disjoint
+ * subtrees; a helper thread (factor-worker.ts) factors one set while this thread factors the
+ * other, then this thread factors the top (their common ancestors), applying the updates the
+ * subtrees still owe through the shared `nextRow` record. Both threads write disjoint blocks of
+ * the same SharedArrayBuffer-backed arrays, so nothing is copied or merged but the pivot counts.
+ * Block solves with many right-hand sides are split by columns: each thread streams the whole
+ * factor for its share of the columns.
+ *
+ * Synchronisation: the job is posted on a MessagePort; this thread works, then blocks in
+ * Atomics.wait on the job's flag, which the helper raises after posting its result; the result
+ * is read with receiveMessageOnPort. Nothing needs the event loop, so the API stays synchronous.
+ *
+ * The helper is one module-wide thread, started on first use and unref'd (it never keeps the
+ * process alive). It is used only where the compiled worker file exists next to this module
+ * (not when the sources run untranspiled, as under the test runner), when the machine has at
+ * least two cores, and unless MODALGATE_THREADS=1. A helper that does not answer a first ping
+ * within 10 s is dropped and everything runs serially.
+ */
+import { existsSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
+import { fileURLToPath } from 'node:url';
+import { MessageChannel, Worker, receiveMessageOnPort, type MessagePort } from 'node:worker_threads';
+import { factorSupernodes, type SupernodalFactor } from './numeric-ldlt.js';
+import type { MonitorState, PivotMonitor } from './pivot-monitor.js';
+import type { SupernodalStructure } from './symbolic.js';
+import type { SubtreeSplit } from './subtree-split.js';
+import { solveWorkspaceSize, supernodalSolveInPlace } from './triangular-solve.js';
+
+interface Flagged {
+  flag: Int32Array;
+}
+
+export type HelperJob = Flagged &
+  (
+    | { kind: 'ping' }
+    | {
+        kind: 'factor';
+        structure: SupernodalStructure;
+        shift: number;
+        tolerance: number;
+        diagonalScale: number;
+        values: Float64Array;
+        d: Float64Array;
+        nextRow: Int32Array;
+        ranges: [number, number][];
+      }
+    | { kind: 'solve'; structure: SupernodalStructure; values: Float64Array; d: Float64Array; x: Float64Array; columns: number }
+  );
+
+export type HelperResult =
+  | { kind: 'pong' }
+  | { kind: 'factored'; monitor: MonitorState }
+  | { kind: 'solved' }
+  | { kind: 'failed'; message: string };
+
+const workerUrl = new URL('./factor-worker.js', import.meta.url);
+
+interface Helper {
+  port: MessagePort;
+  flag: Int32Array;
+}
+
+let helper: Helper | null | undefined;
+
+/** Threads the parallel kernels may use here (1 or 2). */
+export function availableThreads(): number {
+  if (process.env.MODALGATE_THREADS === '1') return 1;
+  if (availableParallelism() < 2) return 1;
+  return existsSync(fileURLToPath(workerUrl)) ? 2 : 1;
+}
+
+function startHelper(): Helper | null {
+  if (helper !== undefined) return helper;
+  helper = null;
+  if (availableThreads() < 2) return null;
+  const { port1, port2 } = new MessageChannel();
+  const worker = new Worker(workerUrl, { workerData: { port: port2 }, transferList: [port2] });
+  worker.unref();
+  port1.unref();
+  // an error after start-up shows as a failed job; before it, as a missing pong
+  worker.on('error', () => {});
+  const candidate = { port: port1, flag: new Int32Array(new SharedArrayBuffer(4)) };
+  const reply = runJob(candidate, { kind: 'ping' }, 10_000);
+  if (reply?.kind !== 'pong') {
+    void worker.terminate();
+    return null;
+  }
+  helper = candidate;
+  return helper;
+}
+
+/** Posts a job, returns a function that waits for its result. */
+function postJob(h: Helper, job: HelperJob): (timeoutMs?: number) => HelperResult | undefined {
+  Atomics.store(h.flag, 0, 0);
+  h.port.postMessage(job);
+  return (timeoutMs = Infinity) => {
+    if (Atomics.wait(h.flag, 0, 0, timeoutMs) === 'timed-out') return undefined;
+    return receiveMessageOnPort(h.port)?.message as HelperResult | undefined;
+  };
+}
+
+function runJob(h: Helper, job: Omit<HelperJob, 'flag'>, timeoutMs: number): HelperResult | undefined {
+  return postJob(h, { ...job, flag: h.flag } as HelperJob)(timeoutMs);
+}
+
+function sharedFloat64(length: number): Float64Array {
+  return new Float64Array(new SharedArrayBuffer(8 * Math.max(1, length)), 0, length);
+}
+
+function sharedInt32(length: number): Int32Array {
+  return new Int32Array(new SharedArrayBuffer(4 * Math.max(1, length)), 0, length);
+}
+
+function shared<T extends Float64Array | Int32Array>(a: T): T {
+  const out = (a instanceof Float64Array ? sharedFloat64(a.length) : sharedInt32(a.length)) as T;
+  out.set(a);
+  return out;
+}
+
+/** The structure with every array moved to shared memory (the helper reads it without a copy). */
+export function shareStructure(s: SupernodalStructure): SupernodalStructure {
+  const { pair } = s;
+  return {
+    ...s,
+    perm: shared(s.perm),
+    pair: { n: pair.n, colPtr: shared(pair.colPtr), rowIdx: shared(pair.rowIdx), stiffness: shared(pair.stiffness), mass: shared(pair.mass) },
+    superStart: shared(s.superStart),
+    superOf: shared(s.superOf),
+    rowPtr: shared(s.rowPtr),
+    rows: shared(s.rows),
+    valuePtr: shared(s.valuePtr),
+  };
+}
+
+function failed(r: HelperResult | undefined): never {
+  throw new Error(`parallel factorization helper ${r?.kind === 'failed' ? `failed: ${r.message}` : 'gave no result'}`);
+}
+
+/**
+ * LDLᵀ on two threads along `split` (two parts); null when no helper thread is available, so the
+ * caller factors serially. `s` must come from shareStructure.
+ */
+export function parallelSupernodalLdlt(s: SupernodalStructure, shift: number, monitor: PivotMonitor, split: SubtreeSplit): SupernodalFactor | null {
+  const h = startHelper();
+  if (h === null || split.parts.length !== 2) return null;
+  const values = sharedFloat64(s.valuePtr[s.supernodes]);
+  const d = sharedFloat64(s.n);
+  const nextRow = sharedInt32(s.supernodes);
+  const out = { values, d, nextRow };
+  const wait = postJob(h, {
+    kind: 'factor',
+    structure: s,
+    shift,
+    tolerance: monitor.tolerance,
+    diagonalScale: monitor.diagonalScale,
+    values,
+    d,
+    nextRow,
+    ranges: split.parts[1],
+    flag: h.flag,
+  });
+  factorSupernodes(s, shift, monitor, out, split.parts[0]);
+  const r = wait();
+  if (r?.kind !== 'factored') failed(r);
+  monitor.merge(r.monitor);
+  factorSupernodes(s, shift, monitor, out, split.top, [...split.parts[0], ...split.parts[1]]);
+  return { structure: s, values, d };
+}
+
+/** Right-hand sides from which a block solve is split between the threads. */
+const SPLIT_SOLVE_MIN_COLUMNS = 2;
+
+/**
+ * X ← (L D Lᵀ)⁻¹ X in pivot order for a shared-memory factor, the columns split between the
+ * threads; false when it did not run (no helper, too few columns, factor not shared).
+ */
+export function parallelSolveInPlace(f: SupernodalFactor, x: Float64Array, k: number): boolean {
+  if (k < SPLIT_SOLVE_MIN_COLUMNS || !(f.values.buffer instanceof SharedArrayBuffer) || !(x.buffer instanceof SharedArrayBuffer)) return false;
+  const h = startHelper();
+  if (h === null) return false;
+  const n = f.structure.n;
+  const mine = k >> 1;
+  const theirs = k - mine;
+  const wait = postJob(h, {
+    kind: 'solve',
+    structure: f.structure,
+    values: f.values,
+    d: f.d,
+    x: x.subarray(mine * n, k * n),
+    columns: theirs,
+    flag: h.flag,
+  });
+  supernodalSolveInPlace(f, x.subarray(0, mine * n), mine, new Float64Array(solveWorkspaceSize(f, mine)));
+  const r = wait();
+  if (r?.kind !== 'solved') failed(r);
+  return true;
+}
+
+/** A zeroed n×k block in shared memory (the right-hand sides of a parallel solve). */
+export function sharedBlock(length: number): Float64Array {
+  return sharedFloat64(length);
+}

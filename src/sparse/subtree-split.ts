@@ -1,0 +1,112 @@
+/**
+ * Splitting the supernodal elimination tree between threads.
+ *
+ * Supernode S's parent is the supernode of its first row below its own columns. Two subtrees
+ * that are disjoint (neither root an ancestor of the other) touch disjoint columns of L and
+ * update disjoint blocks, so they can be factored at the same time; what remains — the
+ * ancestors of the chosen subtrees, an ancestor-closed "top" — is factored afterwards, with the
+ * subtrees' pending updates. With a postordered tree every subtree is a contiguous range of
+ * supernode numbers [first descendant, root], which is how the parts are handed out.
+ *
+ * Choice: start from the roots; while the heaviest candidate subtree weighs more than an equal
+ * share of the candidates' total, replace it by its children (its root joins the top); then
+ * deal the candidates to the threads heaviest first, each to the lightest thread so far
+ * (longest-processing-time rule). Weight = the supernode's flop estimate Σ_c (nr − c)² over its
+ * columns (the dense work it does and sends up).
+ */
+import type { SupernodalStructure } from './symbolic.js';
+
+export interface SubtreeSplit {
+  /** Per thread: inclusive supernode ranges [first, last], ascending. */
+  parts: [number, number][][];
+  /** Supernodes left for after the parts (ancestors of every part), ascending. */
+  top: [number, number][];
+  /** Estimated share of the work in the parts (0…1). */
+  parallelShare: number;
+  /** Estimated time of the split factorization over the serial one (ideal threads). */
+  timeRatio: number;
+}
+
+/** Split for `threads` threads, or null when the tree is not postordered or gives no gain. */
+export function splitSubtrees(s: SupernodalStructure, threads: number): SubtreeSplit | null {
+  const ns = s.supernodes;
+  if (threads < 2 || ns < 2) return null;
+  const { superStart, superOf, rowPtr, rows } = s;
+  const parent = new Int32Array(ns).fill(-1);
+  const own = new Float64Array(ns);
+  // parent and own weight of every supernode
+  for (let sn = 0; sn < ns; sn++) {
+    const nc = superStart[sn + 1] - superStart[sn];
+    const nr = rowPtr[sn + 1] - rowPtr[sn];
+    if (nr > nc) parent[sn] = superOf[rows[rowPtr[sn] + nc]];
+    let w = 0;
+    for (let c = 0; c < nc; c++) w += (nr - c) * (nr - c);
+    own[sn] = w;
+  }
+  const weight = Float64Array.from(own);
+  const first = Int32Array.from({ length: ns }, (_, i) => i);
+  const size = new Int32Array(ns).fill(1);
+  // subtree weight, first descendant and size, children before parents (postorder: child < parent)
+  for (let sn = 0; sn < ns; sn++) {
+    const p = parent[sn];
+    if (p < 0) continue;
+    if (p <= sn) return null;
+    weight[p] += weight[sn];
+    size[p] += size[sn];
+    if (first[sn] < first[p]) first[p] = first[sn];
+  }
+  // a postordered subtree is exactly [first, root]
+  for (let sn = 0; sn < ns; sn++) if (sn - first[sn] + 1 !== size[sn]) return null;
+  const children: number[][] = Array.from({ length: ns }, () => []);
+  const roots: number[] = [];
+  for (let sn = 0; sn < ns; sn++) (parent[sn] < 0 ? roots : children[parent[sn]]).push(sn);
+  let total = 0;
+  for (const r of roots) total += weight[r];
+  let candidates = roots.slice();
+  const topSet: number[] = [];
+  // open the heaviest candidate while it is more than an equal share of what the candidates hold
+  for (let guard = 0; guard < ns; guard++) {
+    let heaviest = 0;
+    let sum = 0;
+    for (let i = 0; i < candidates.length; i++) {
+      sum += weight[candidates[i]];
+      if (weight[candidates[i]] > weight[candidates[heaviest]]) heaviest = i;
+    }
+    const h = candidates[heaviest];
+    if (candidates.length >= threads && weight[h] <= sum / threads) break;
+    if (children[h].length === 0) break;
+    topSet.push(h);
+    candidates = candidates.filter((_, i) => i !== heaviest).concat(children[h]);
+  }
+  if (candidates.length < threads) return null;
+  candidates.sort((a, b) => weight[b] - weight[a]);
+  const load = new Float64Array(threads);
+  const assigned: number[][] = Array.from({ length: threads }, () => []);
+  // longest processing time first: each subtree to the least loaded thread
+  for (const r of candidates) {
+    let t = 0;
+    for (let i = 1; i < threads; i++) if (load[i] < load[t]) t = i;
+    load[t] += weight[r];
+    assigned[t].push(r);
+  }
+  const parallel = load.reduce((a, b) => a + b, 0);
+  const longest = Math.max(...load);
+  const parts = assigned.map((list) => list.map((r) => [first[r], r] as [number, number]).sort((a, b) => a[0] - b[0]));
+  return {
+    parts,
+    top: runsOf(topSet.sort((a, b) => a - b)),
+    parallelShare: parallel / total,
+    timeRatio: (longest + (total - parallel)) / total,
+  };
+}
+
+/** Ascending supernode numbers as inclusive runs. */
+function runsOf(sorted: number[]): [number, number][] {
+  const out: [number, number][] = [];
+  for (const v of sorted) {
+    const last = out[out.length - 1];
+    if (last && last[1] === v - 1) last[1] = v;
+    else out.push([v, v]);
+  }
+  return out;
+}

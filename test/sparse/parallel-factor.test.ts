@@ -1,0 +1,57 @@
+/**
+ * The two-thread factorization and block solve (src/sparse/parallel-factor.ts) run their helper
+ * from the compiled worker file, so this test loads the compiled modules from dist/ (built by
+ * `npm test` before vitest runs) and skips with a message when they are absent. Checks: the
+ * two-thread factor has the same inertia and pivots as the serial one, and its solves meet the
+ * residual bound of the serial tests; the reference for the pivots is the serial factorization,
+ * itself checked against ml-matrix in supernodal.test.ts.
+ */
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { diagonalOf, maxAbsEntry, symMultiplyBlock } from '../../src/sparse/csc.js';
+import { hexGridPair } from './fe-like-matrices.js';
+
+const dist = path.resolve(import.meta.dirname, '../../dist/src/sparse');
+const built = existsSync(path.join(dist, 'factor-worker.js')) && existsSync(path.join(dist, 'shifted-solver.js'));
+if (!built) console.warn('parallel factorization test skipped: dist/ not built (run `npm run build`)');
+
+describe.skipIf(!built)('two-thread LDLᵀ from the compiled modules', () => {
+  it('matches the serial factor (inertia, pivot ratio) and solves to the serial residual bound', async () => {
+    const { createShiftedSolver } = (await import(pathToFileURL(path.join(dist, 'shifted-solver.js')).href)) as typeof import('../../src/sparse/shifted-solver.js');
+    const { stiffness, mass } = hexGridPair(14, 13, 12, 3);
+    const n = stiffness.n;
+    const diagK = diagonalOf(stiffness).reduce((a, v) => a + v, 0);
+    const diagM = diagonalOf(mass).reduce((a, v) => a + v, 0);
+    const shift = (0.5 * diagK) / diagM; // inside the spectrum: an indefinite K − σM with negative pivots
+    const serial = createShiftedSolver(stiffness, mass, { ordering: 'nested-dissection', threads: 1 }).factor(shift);
+    const parallel = createShiftedSolver(stiffness, mass, { ordering: 'nested-dissection', threads: 2 }).factor(shift);
+    expect(parallel.diagnostics.threads).toBe(2);
+    expect(serial.diagnostics.threads).toBe(1);
+    expect(parallel.inertia).toEqual(serial.inertia);
+    expect(parallel.inertia.negative).toBeGreaterThan(0);
+    expect(Math.abs(parallel.diagnostics.maxDiagonalToPivotRatio / serial.diagnostics.maxDiagonalToPivotRatio - 1)).toBeLessThan(1e-8);
+    const k = 6;
+    const b = new Float64Array(n * k).map((_, i) => Math.sin(0.37 * i) + 0.1);
+    const x = parallel.solveBlock(b, k);
+    const xs = serial.solveBlock(b, k);
+    // residual of (K − σM) x = b per column, relative to (max|K| + σ max|M|)·‖x‖∞
+    const kx = symMultiplyBlock(stiffness, x, k, new Float64Array(n * k));
+    const mx = symMultiplyBlock(mass, x, k, new Float64Array(n * k));
+    const scale = maxAbsEntry(stiffness) + shift * maxAbsEntry(mass);
+    let worst = 0;
+    let diff = 0;
+    for (let c = 0; c < k; c++) {
+      let r = 0, xn = 0;
+      for (let i = c * n; i < (c + 1) * n; i++) {
+        r = Math.max(r, Math.abs(kx[i] - shift * mx[i] - b[i]));
+        xn = Math.max(xn, Math.abs(x[i]));
+        diff = Math.max(diff, Math.abs(x[i] - xs[i]));
+      }
+      worst = Math.max(worst, r / (scale * xn));
+    }
+    expect(worst).toBeLessThan(1e-12);
+    expect(diff).toBeLessThan(1e-6 * Math.max(...Array.from(xs, Math.abs)));
+  });
+});
