@@ -33,7 +33,7 @@ export function updateLowerProduct(
   ldc: number,
 ): void {
   if (n >= 4 && k >= 4 && m >= 8) {
-    packedLowerProduct(m, n, k, a, aOff, lda, w, c, cOff, ldc);
+    packedProduct(true, m, n, k, a, aOff, lda, w, c, cOff, ldc);
     return;
   }
   // cache blocks: ROW_BLOCK rows of A and C, DEPTH_BLOCK steps of the inner dimension
@@ -67,11 +67,13 @@ const PACKED_W = TILE_OUT + 512;
 let plainBuffer = new Float64Array(PACKED_W + 64 * PACK_DEPTH);
 
 /**
- * updateLowerProduct on packed copies: per depth block, W's columns in 4-wide panels and A's rows
- * in 4-high panels, each panel t-major (entry t of the panel's 4 rows/columns side by side, zero
- * padded), so the 4×4 inner loop reads both operands sequentially.
+ * updateLowerProduct (lower = true) or updateProduct on packed copies: per depth block, W's
+ * columns in 4-wide panels and A's rows in 4-high panels, each panel t-major (entry t of the
+ * panel's 4 rows/columns side by side, zero padded), so the 4×4 inner loop reads both operands
+ * sequentially.
  */
-function packedLowerProduct(
+function packedProduct(
+  lower: boolean,
   m: number,
   n: number,
   k: number,
@@ -100,10 +102,10 @@ function packedLowerProduct(
       const rowsHere = i1 - i0;
       // A panels: buf[(it·kb + t)·4 + ii] = A[i0 + 4it + ii, t0 + t], zero beyond i1
       for (let t = 0; t < kb; t++) packPanels(a, aOff + i0 + (t0 + t) * lda, rowsHere, buf, 4 * t, 4 * kb);
-      const nb = Math.min(n, i1);
-      // column panels with a diagonal at or above row i1, row panels from the diagonal down
+      const nb = lower ? Math.min(n, i1) : n;
+      // column panels with a diagonal at or above row i1, row panels from the diagonal down (lower)
       for (let j = 0; j < nb; j += 4) {
-        const itStart = j > i0 ? (j - i0) >> 2 : 0;
+        const itStart = lower && j > i0 ? (j - i0) >> 2 : 0;
         const pw = PACKED_W + (j >> 2) * kb * 4;
         for (let it = itStart; it < mt; it++) {
           const q = cOff + i0 + 4 * it + j * ldc;
@@ -209,6 +211,10 @@ export function updateProduct(
   cOff: number,
   ldc: number,
 ): void {
+  if (n >= 4 && k >= 4 && m >= 8) {
+    packedProduct(false, m, n, k, a, aOff, lda, w, c, cOff, ldc);
+    return;
+  }
   // same cache blocks, every tile
   for (let i0 = 0; i0 < m; i0 += ROW_BLOCK) {
     const i1 = Math.min(m, i0 + ROW_BLOCK);

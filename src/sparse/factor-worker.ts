@@ -6,12 +6,27 @@
  * never waits forever on a job that started.
  */
 import { parentPort, workerData, type MessagePort } from 'node:worker_threads';
-import { factorSupernodes } from './numeric-ldlt.js';
+import { factorSupernodes, updateWorkspace, type UpdateWorkspace } from './numeric-ldlt.js';
 import { PivotMonitor } from './pivot-monitor.js';
 import { supernodalSolveInPlace, solveWorkspaceSize } from './triangular-solve.js';
-import type { HelperJob, HelperResult } from './parallel-factor.js';
+import { helperDescendants, helperPanel, type HelperJob, type HelperResult } from './parallel-factor.js';
+import type { SupernodalStructure } from './symbolic.js';
 
 const port = (workerData as { port: MessagePort }).port;
+
+/** Workspaces kept between jobs (a shared supernode sends one job per panel). */
+let map = new Int32Array(0);
+let work: UpdateWorkspace | null = null;
+let workRows = -1;
+
+function workspaces(s: SupernodalStructure): { map: Int32Array; work: UpdateWorkspace } {
+  if (map.length < s.n) map = new Int32Array(s.n);
+  if (work === null || workRows < s.maxRows) {
+    work = updateWorkspace(s);
+    workRows = s.maxRows;
+  }
+  return { map, work };
+}
 
 function run(job: HelperJob): HelperResult {
   switch (job.kind) {
@@ -22,6 +37,14 @@ function run(job: HelperJob): HelperResult {
       factorSupernodes(job.structure, job.shift, monitor, { values: job.values, d: job.d, nextRow: job.nextRow }, job.ranges);
       return { kind: 'factored', monitor: monitor.state() };
     }
+    case 'descendants': {
+      const ws = workspaces(job.structure);
+      helperDescendants(job, ws.map, ws.work);
+      return { kind: 'done' };
+    }
+    case 'panel':
+      helperPanel(job, workspaces(job.structure).work.w);
+      return { kind: 'done' };
     case 'solve': {
       const f = { structure: job.structure, values: job.values, d: job.d };
       supernodalSolveInPlace(f, job.x, job.columns, new Float64Array(solveWorkspaceSize(f, job.columns)));

@@ -12,7 +12,7 @@
  *      then factored column by column.
  * Pivots go through PivotMonitor (inertia, tiny pivots, zero-pivot substitution).
  */
-import { scaledRowsKMajor, updateLowerProduct } from './dense-block-kernels.js';
+import { scaledRowsKMajor, updateLowerProduct, updateProduct } from './dense-block-kernels.js';
 import type { PivotMonitor } from './pivot-monitor.js';
 import type { SupernodalStructure } from './symbolic.js';
 
@@ -73,14 +73,14 @@ export function factorSupernodes(
   out: FactorArrays,
   ranges: [number, number][],
   pendingFrom: [number, number][] = [],
+  cooperation?: SupernodeCooperation,
 ): void {
   const { n, supernodes: ns, superStart, superOf, rowPtr, rows, valuePtr, pair } = s;
   const { values, d, nextRow } = out;
   const diag = shiftedDiagonal(s, shift);
   const map = new Int32Array(n);
-  const rel = new Int32Array(s.maxRows);
-  const w = new Float64Array(Math.max(CHUNK, PANEL) * s.maxRows + 1);
-  const c = new Float64Array(CHUNK * s.maxRows + 1);
+  const work = updateWorkspace(s);
+  let list: Int32Array = new Int32Array(0);
   const head = new Int32Array(ns).fill(-1);
   const link = new Int32Array(ns).fill(-1);
   const inRanges = new Uint8Array(ns);
@@ -114,17 +114,32 @@ export function factorSupernodes(
           values[base + map[pair.rowIdx[p]]] = pair.stiffness[p] - shift * pair.mass[p];
         }
       }
-      // updates from every descendant queued on S
+      const shared = cooperation?.wants(sn) === true;
+      // updates from every descendant queued on S (with a large S, listed and shared out first)
       let dn = head[sn];
       head[sn] = -1;
+      let count = 0;
       while (dn !== -1) {
         const after = link[dn];
-        nextRow[dn] = applyDescendant(s, dn, sn, nextRow[dn], values, d, map, rel, w, c);
-        // queue dn on the next supernode its remaining rows touch
-        enqueue(dn);
+        const stop = rowsBefore(s, dn, nextRow[dn], l);
+        if (shared) {
+          if (list.length < 3 * (count + 1)) list = growTo(list, 6 * (count + 1));
+          list[3 * count] = dn;
+          list[3 * count + 1] = nextRow[dn];
+          list[3 * count + 2] = stop;
+          count++;
+          nextRow[dn] = stop;
+        } else {
+          applyDescendant(s, dn, sn, nextRow[dn], stop, values, d, map, work);
+          nextRow[dn] = stop;
+          enqueue(dn);
+        }
         dn = after;
       }
-      factorBlock(values, v0, nr, nc, f, d, diag, monitor, w);
+      if (shared) cooperation!.descendants(sn, list, count, map, work);
+      // queue each descendant on the next supernode its remaining rows touch
+      for (let t = 0; t < count; t++) enqueue(list[3 * t]);
+      factorBlock(values, v0, nr, nc, f, d, diag, monitor, work.w, shared ? (c0, c1) => cooperation!.panel(sn, c0, c1, work.w) : undefined);
       // S's own first row below its columns
       nextRow[sn] = nc;
       enqueue(sn);
@@ -132,41 +147,56 @@ export function factorSupernodes(
   }
 }
 
+function growTo(a: Int32Array, length: number): Int32Array {
+  const b = new Int32Array(length);
+  b.set(a);
+  return b;
+}
+
+/** Position (in dn's row list) of dn's first row at or beyond column `l`, searching from `start`. */
+export function rowsBefore(s: SupernodalStructure, dn: number, start: number, l: number): number {
+  const rd = s.rowPtr[dn];
+  const nrd = s.rowPtr[dn + 1] - rd;
+  let stop = start;
+  while (stop < nrd && s.rows[rd + stop] < l) stop++;
+  return stop;
+}
+
 /**
  * B_S(rows, cols) −= L_D D L_1ᵀ for descendant dn of supernode sn, whose rows from position
- * `start` on are ≥ f. Returns the position of dn's first row beyond S's columns.
+ * `start` on are ≥ f and up to `stop` inside S's columns, restricted to the target columns of
+ * dn's row positions start + [from, to) (all of them by default). `map` holds S's local row
+ * positions. Writes only those target columns of S.
  */
-function applyDescendant(
+export function applyDescendant(
   s: SupernodalStructure,
   dn: number,
   sn: number,
   start: number,
+  stop: number,
   values: Float64Array,
   d: Float64Array,
   map: Int32Array,
-  rel: Int32Array,
-  w: Float64Array,
-  c: Float64Array,
-): number {
+  work: UpdateWorkspace,
+  from = 0,
+  to = stop - start,
+): void {
   const { superStart, rowPtr, rows, valuePtr } = s;
+  const { rel, w, c } = work;
   const f = superStart[sn];
-  const l = superStart[sn + 1];
   const nrS = rowPtr[sn + 1] - rowPtr[sn];
   const vS = valuePtr[sn];
   const fd = superStart[dn];
   const ncd = superStart[dn + 1] - fd;
   const rd = rowPtr[dn];
   const nrd = rowPtr[dn + 1] - rd;
-  let stop = start;
-  while (stop < nrd && rows[rd + stop] < l) stop++;
-  const m1 = stop - start; // rows of dn inside S's columns
-  const m2 = nrd - start; // those rows and all below
+  const m2 = nrd - start; // dn's rows inside S's columns and all below
   const vd = valuePtr[dn] + start;
   // relative positions in S of dn's rows
-  for (let i = 0; i < m2; i++) rel[i] = map[rows[rd + start + i]];
+  for (let i = from; i < m2; i++) rel[i] = map[rows[rd + start + i]];
   // target columns in chunks: W = L_1(chunk) D (k-major), C = L_D(chunk:) Wᵀ, scatter −C
-  for (let j0 = 0; j0 < m1; j0 += CHUNK) {
-    const bw = Math.min(CHUNK, m1 - j0);
+  for (let j0 = from; j0 < to; j0 += CHUNK) {
+    const bw = Math.min(CHUNK, to - j0);
     const mr = m2 - j0;
     scaledRowsKMajor(bw, ncd, values, vd + j0, nrd, d, fd, w);
     c.fill(0, 0, mr * bw);
@@ -178,7 +208,55 @@ function applyDescendant(
       for (let i = j; i < mr; i++) values[base + rel[j0 + i]] += c[cj + i];
     }
   }
-  return stop;
+}
+
+/** Scratch arrays of the update kernels, one set per thread. */
+export interface UpdateWorkspace {
+  rel: Int32Array;
+  w: Float64Array;
+  c: Float64Array;
+}
+
+export function updateWorkspace(s: SupernodalStructure): UpdateWorkspace {
+  return {
+    rel: new Int32Array(s.maxRows),
+    w: new Float64Array(Math.max(CHUNK, PANEL) * s.maxRows + 1),
+    c: new Float64Array(CHUNK * s.maxRows + 1),
+  };
+}
+
+/** B(c0 + from : c0 + to, c0:c1) −= L(·, 0:c0) D L(c0:c1, 0:c0)ᵀ: rows [from, to) of a panel's update, relative to c0. */
+export function panelUpdateRows(
+  values: Float64Array,
+  v0: number,
+  nr: number,
+  c0: number,
+  c1: number,
+  f: number,
+  d: Float64Array,
+  w: Float64Array,
+  from: number,
+  to: number,
+): void {
+  const bw = c1 - c0;
+  scaledRowsKMajor(bw, c0, values, v0 + c0, nr, d, f, w);
+  const r0 = c0 + from;
+  // the rows starting at the panel's diagonal hold its lower triangle; rows further down are whole
+  if (from === 0) updateLowerProduct(to - from, bw, c0, values, v0 + r0, nr, w, values, v0 + r0 + c0 * nr, nr);
+  else updateProduct(to - from, bw, c0, values, v0 + r0, nr, w, values, v0 + r0 + c0 * nr, nr);
+}
+
+/**
+ * Work another thread can take over inside one large supernode: its descendants' updates split
+ * by target columns, and each panel's update split by rows (factorSupernodes calls these for
+ * supernodes it judges large enough, `wants`).
+ */
+export interface SupernodeCooperation {
+  wants(sn: number): boolean;
+  /** Apply every (dn, start, stop) of `list` (flattened) to S; both threads' shares done on return. */
+  descendants(sn: number, list: Int32Array, count: number, map: Int32Array, work: UpdateWorkspace): void;
+  /** The update of panel c0..c1 of S; both threads' shares done on return. */
+  panel(sn: number, c0: number, c1: number, w: Float64Array): void;
 }
 
 /**
@@ -196,15 +274,15 @@ function factorBlock(
   diag: Float64Array,
   monitor: PivotMonitor,
   w: Float64Array,
+  panelUpdate?: (c0: number, c1: number) => void,
 ): void {
   // panels left to right
   for (let c0 = 0; c0 < nc; c0 += PANEL) {
     const c1 = Math.min(nc, c0 + PANEL);
-    const bw = c1 - c0;
     if (c0 > 0) {
       // B(c0:, c0:c1) −= L(c0:, 0:c0) D L(c0:c1, 0:c0)ᵀ
-      scaledRowsKMajor(bw, c0, values, v0 + c0, nr, d, f, w);
-      updateLowerProduct(nr - c0, bw, c0, values, v0 + c0, nr, w, values, v0 + c0 + c0 * nr, nr);
+      if (panelUpdate) panelUpdate(c0, c1);
+      else panelUpdateRows(values, v0, nr, c0, c1, f, d, w, 0, nr - c0);
     }
     factorPanel(values, v0, nr, c0, c1, f, d, diag, monitor);
   }

@@ -24,7 +24,15 @@ import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { MessageChannel, Worker, receiveMessageOnPort, type MessagePort } from 'node:worker_threads';
-import { factorSupernodes, type SupernodalFactor } from './numeric-ldlt.js';
+import {
+  applyDescendant,
+  factorSupernodes,
+  panelUpdateRows,
+  rowsBefore,
+  type SupernodalFactor,
+  type SupernodeCooperation,
+  type UpdateWorkspace,
+} from './numeric-ldlt.js';
 import type { MonitorState, PivotMonitor } from './pivot-monitor.js';
 import type { SupernodalStructure } from './symbolic.js';
 import type { SubtreeSplit } from './subtree-split.js';
@@ -49,12 +57,25 @@ export type HelperJob = Flagged &
         ranges: [number, number][];
       }
     | { kind: 'solve'; structure: SupernodalStructure; values: Float64Array; d: Float64Array; x: Float64Array; columns: number }
+    | {
+        kind: 'descendants';
+        structure: SupernodalStructure;
+        values: Float64Array;
+        d: Float64Array;
+        sn: number;
+        /** (dn, start, stop) triples. */
+        list: Int32Array;
+        /** The helper's share: target columns ≥ fromColumn. */
+        fromColumn: number;
+      }
+    | { kind: 'panel'; structure: SupernodalStructure; values: Float64Array; d: Float64Array; sn: number; c0: number; c1: number; from: number; to: number }
   );
 
 export type HelperResult =
   | { kind: 'pong' }
   | { kind: 'factored'; monitor: MonitorState }
   | { kind: 'solved' }
+  | { kind: 'done' }
   | { kind: 'failed'; message: string };
 
 const workerUrl = new URL('./factor-worker.js', import.meta.url);
@@ -167,8 +188,101 @@ export function parallelSupernodalLdlt(s: SupernodalStructure, shift: number, mo
   const r = wait();
   if (r?.kind !== 'factored') failed(r);
   monitor.merge(r.monitor);
-  factorSupernodes(s, shift, monitor, out, split.top, [...split.parts[0], ...split.parts[1]]);
+  factorSupernodes(s, shift, monitor, out, split.top, [...split.parts[0], ...split.parts[1]], cooperation(h, s, values, d));
   return { structure: s, values, d };
+}
+
+/** Supernodes of the top with at least this many rows and columns share their work (our choice). */
+const SHARE_MIN_ROWS = 512;
+const SHARE_MIN_COLUMNS = 128;
+/** Panel updates of fewer rows stay on this thread. */
+const SHARE_MIN_PANEL_ROWS = 256;
+
+/**
+ * How the top's large supernodes are shared: descendants' updates split at the target column
+ * where the estimated work (per target column: the updating rows at and below it times the
+ * descendant's columns) is halved, panel updates split by rows.
+ */
+function cooperation(h: Helper, s: SupernodalStructure, values: Float64Array, d: Float64Array): SupernodeCooperation {
+  const { superStart, rowPtr, valuePtr } = s;
+  const run = (job: { kind: 'descendants' | 'panel' } & Record<string, unknown>, mine: () => void): void => {
+    const wait = postJob(h, { ...job, structure: s, values, d, flag: h.flag } as HelperJob);
+    mine();
+    const r = wait();
+    if (r?.kind !== 'done') failed(r);
+  };
+  return {
+    wants: (sn) => rowPtr[sn + 1] - rowPtr[sn] >= SHARE_MIN_ROWS && superStart[sn + 1] - superStart[sn] >= SHARE_MIN_COLUMNS,
+    descendants(sn, list, count, map, work) {
+      const f = superStart[sn];
+      const nc = superStart[sn + 1] - f;
+      const perColumn = new Float64Array(nc);
+      let total = 0;
+      // a descendant's row at position p inside S costs (rows from p down) × (its columns) in that target column
+      for (let t = 0; t < count; t++) {
+        const dn = list[3 * t];
+        const rd = rowPtr[dn];
+        const nrd = rowPtr[dn + 1] - rd;
+        const ncd = superStart[dn + 1] - superStart[dn];
+        for (let p = list[3 * t + 1]; p < list[3 * t + 2]; p++) {
+          const cost = (nrd - p) * ncd;
+          perColumn[s.rows[rd + p] - f] += cost;
+          total += cost;
+        }
+      }
+      // split where half of the work lies left
+      let mid = 0;
+      for (let acc = 0; mid < nc && acc + perColumn[mid] <= total / 2; mid++) acc += perColumn[mid];
+      const fromColumn = f + mid;
+      const triples = list.slice(0, 3 * count);
+      run({ kind: 'descendants', sn, list: triples, fromColumn }, () => {
+        // this thread: target columns before fromColumn
+        for (let t = 0; t < count; t++) {
+          const dn = triples[3 * t];
+          const start = triples[3 * t + 1];
+          const split = rowsBefore(s, dn, start, fromColumn);
+          if (split > start) applyDescendant(s, dn, sn, start, triples[3 * t + 2], values, d, map, work, 0, split - start);
+        }
+      });
+    },
+    panel(sn, c0, c1, w) {
+      const f = superStart[sn];
+      const nr = rowPtr[sn + 1] - rowPtr[sn];
+      const v0 = valuePtr[sn];
+      const rows = nr - c0;
+      if (rows < SHARE_MIN_PANEL_ROWS) {
+        panelUpdateRows(values, v0, nr, c0, c1, f, d, w, 0, rows);
+        return;
+      }
+      // this thread: the top half with the panel's diagonal block; the helper: the rows below
+      const split = Math.max(c1 - c0, rows >> 1);
+      run({ kind: 'panel', sn, c0, c1, from: split, to: rows }, () => panelUpdateRows(values, v0, nr, c0, c1, f, d, w, 0, split));
+    },
+  };
+}
+
+/** The helper's share of a shared supernode's descendant updates (called in the helper). */
+export function helperDescendants(job: Extract<HelperJob, { kind: 'descendants' }>, map: Int32Array, work: UpdateWorkspace): void {
+  const s = job.structure;
+  const sn = job.sn;
+  const r0 = s.rowPtr[sn];
+  const nr = s.rowPtr[sn + 1] - r0;
+  // local position of each row of S
+  for (let i = 0; i < nr; i++) map[s.rows[r0 + i]] = i;
+  for (let t = 0; 3 * t < job.list.length; t++) {
+    const dn = job.list[3 * t];
+    const start = job.list[3 * t + 1];
+    const stop = job.list[3 * t + 2];
+    const split = rowsBefore(s, dn, start, job.fromColumn);
+    if (stop > split) applyDescendant(s, dn, sn, start, stop, job.values, job.d, map, work, split - start, stop - start);
+  }
+}
+
+/** The helper's share of a panel update (called in the helper). */
+export function helperPanel(job: Extract<HelperJob, { kind: 'panel' }>, w: Float64Array): void {
+  const s = job.structure;
+  const nr = s.rowPtr[job.sn + 1] - s.rowPtr[job.sn];
+  panelUpdateRows(job.values, s.valuePtr[job.sn], nr, job.c0, job.c1, s.superStart[job.sn], job.d, w, job.from, job.to);
 }
 
 /** Right-hand sides from which a block solve is split between the threads. */

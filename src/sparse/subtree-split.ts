@@ -8,11 +8,11 @@
  * subtrees' pending updates. With a postordered tree every subtree is a contiguous range of
  * supernode numbers [first descendant, root], which is how the parts are handed out.
  *
- * Choice: start from the roots; while the heaviest candidate subtree weighs more than an equal
- * share of the candidates' total, replace it by its children (its root joins the top); then
- * deal the candidates to the threads heaviest first, each to the lightest thread so far
- * (longest-processing-time rule). Weight = the supernode's flop estimate Σ_c (nr − c)² over its
- * columns (the dense work it does and sends up).
+ * Choice: start from the roots and repeatedly replace the heaviest candidate subtree by its
+ * children (its root joins the top); after each step deal the candidates to the threads
+ * heaviest first, each to the least loaded thread (longest-processing-time rule), and keep the
+ * step whose modelled time — the longest thread plus the shared top — is least. Weight = the
+ * supernode's flop estimate Σ_c (nr − c)² over its columns (the dense work it does and sends up).
  */
 import type { SupernodalStructure } from './symbolic.js';
 
@@ -62,28 +62,41 @@ export function splitSubtrees(s: SupernodalStructure, threads: number): SubtreeS
   for (let sn = 0; sn < ns; sn++) (parent[sn] < 0 ? roots : children[parent[sn]]).push(sn);
   let total = 0;
   for (const r of roots) total += weight[r];
+  // open the heaviest candidate step by step; keep the split of least modelled time
   let candidates = roots.slice();
   const topSet: number[] = [];
-  // open the heaviest candidate while it is more than an equal share of what the candidates hold
-  for (let guard = 0; guard < ns; guard++) {
-    let heaviest = 0;
-    let sum = 0;
+  let best: SubtreeSplit | null = null;
+  for (let step = 0; step < MAX_OPENINGS; step++) {
+    const split = deal(candidates, threads, weight, first, topSet, total);
+    if (split !== null && (best === null || split.timeRatio < best.timeRatio)) best = split;
+    let heaviest = -1;
     for (let i = 0; i < candidates.length; i++) {
-      sum += weight[candidates[i]];
-      if (weight[candidates[i]] > weight[candidates[heaviest]]) heaviest = i;
+      if (children[candidates[i]].length > 0 && (heaviest < 0 || weight[candidates[i]] > weight[candidates[heaviest]])) heaviest = i;
     }
+    if (heaviest < 0) break;
     const h = candidates[heaviest];
-    if (candidates.length >= threads && weight[h] <= sum / threads) break;
-    if (children[h].length === 0) break;
     topSet.push(h);
     candidates = candidates.filter((_, i) => i !== heaviest).concat(children[h]);
   }
+  return best;
+}
+
+/** How many subtree roots may be moved to the top while searching (our choice). */
+const MAX_OPENINGS = 64;
+/**
+ * Modelled time of the top per unit of work: its large supernodes are shared by both threads
+ * (src/sparse/parallel-factor.ts), measured at about 0.6 of their serial time (our estimate).
+ */
+const TOP_TIME_FACTOR = 0.6;
+
+/** Longest-processing-time deal of the candidate subtrees to the threads, and its modelled time. */
+function deal(candidates: number[], threads: number, weight: Float64Array, first: Int32Array, topSet: number[], total: number): SubtreeSplit | null {
   if (candidates.length < threads) return null;
-  candidates.sort((a, b) => weight[b] - weight[a]);
+  const sorted = candidates.slice().sort((a, b) => weight[b] - weight[a]);
   const load = new Float64Array(threads);
   const assigned: number[][] = Array.from({ length: threads }, () => []);
-  // longest processing time first: each subtree to the least loaded thread
-  for (const r of candidates) {
+  // each subtree to the least loaded thread, heaviest first
+  for (const r of sorted) {
     let t = 0;
     for (let i = 1; i < threads; i++) if (load[i] < load[t]) t = i;
     load[t] += weight[r];
@@ -91,12 +104,11 @@ export function splitSubtrees(s: SupernodalStructure, threads: number): SubtreeS
   }
   const parallel = load.reduce((a, b) => a + b, 0);
   const longest = Math.max(...load);
-  const parts = assigned.map((list) => list.map((r) => [first[r], r] as [number, number]).sort((a, b) => a[0] - b[0]));
   return {
-    parts,
-    top: runsOf(topSet.sort((a, b) => a - b)),
+    parts: assigned.map((list) => list.map((r) => [first[r], r] as [number, number]).sort((a, b) => a[0] - b[0])),
+    top: runsOf(topSet.slice().sort((a, b) => a - b)),
     parallelShare: parallel / total,
-    timeRatio: (longest + (total - parallel)) / total,
+    timeRatio: (longest + TOP_TIME_FACTOR * (total - parallel)) / total,
   };
 }
 

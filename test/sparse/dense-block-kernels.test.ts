@@ -36,8 +36,15 @@ describe.each([
   });
 });
 
-describe('updateProduct and subtractTransposedProduct', () => {
+describe.each([
+  ['WebAssembly SIMD tiles', true],
+  ['plain TypeScript tiles', false],
+])('updateProduct and subtractTransposedProduct with %s', (_label, simd) => {
+  afterEach(() => {
+    useSimdTileKernel(true);
+  });
   it('equal the full products from ml-matrix mmul', () => {
+    expect(useSimdTileKernel(simd)).toBe(simd);
     const rnd = seededRandom(8);
     const [m, n, k] = [301, 9, 137];
     const a = new Float64Array(m * k).map(() => rnd() - 0.5); // m×k column-major
