@@ -8,7 +8,7 @@
 import { parentPort, workerData, type MessagePort } from 'node:worker_threads';
 import { factorSupernodes, updateWorkspace, type UpdateWorkspace } from './numeric-ldlt.js';
 import { PivotMonitor } from './pivot-monitor.js';
-import { supernodalSolveInPlace, solveWorkspaceSize } from './triangular-solve.js';
+import { backwardSweepRanges, forwardSweepRanges, sweepWorkspace } from './triangular-solve.js';
 import { helperDescendants, helperPanel, type HelperJob, type HelperResult } from './parallel-factor.js';
 import type { SupernodalStructure } from './symbolic.js';
 
@@ -45,10 +45,15 @@ function run(job: HelperJob): HelperResult {
     case 'panel':
       helperPanel(job, workspaces(job.structure).work.w);
       return { kind: 'done' };
-    case 'solve': {
+    case 'forward': {
       const f = { structure: job.structure, values: job.values, d: job.d };
-      supernodalSolveInPlace(f, job.x, job.columns, new Float64Array(solveWorkspaceSize(f, job.columns)));
-      return { kind: 'solved' };
+      forwardSweepRanges(f, job.x, job.columns, sweepWorkspace(f, job.columns), job.ranges, { index: job.index, count: job.count, acc: job.acc });
+      return { kind: 'done' };
+    }
+    case 'backward': {
+      const f = { structure: job.structure, values: job.values, d: job.d };
+      backwardSweepRanges(f, job.x, job.columns, sweepWorkspace(f, job.columns), job.ranges);
+      return { kind: 'done' };
     }
   }
 }

@@ -7,8 +7,7 @@
  * other, then this thread factors the top (their common ancestors), applying the updates the
  * subtrees still owe through the shared `nextRow` record. Both threads write disjoint blocks of
  * the same SharedArrayBuffer-backed arrays, so nothing is copied or merged but the pivot counts.
- * Block solves with many right-hand sides are split by columns: each thread streams the whole
- * factor for its share of the columns.
+ * Solves use the same split: the two parts' sweeps run at once, the top's between them.
  *
  * Synchronisation: the job is posted on a MessagePort; this thread works, then blocks in
  * Atomics.wait on the job's flag, which the helper raises after posting its result; the result
@@ -36,7 +35,7 @@ import {
 import type { MonitorState, PivotMonitor } from './pivot-monitor.js';
 import type { SupernodalStructure } from './symbolic.js';
 import type { SubtreeSplit } from './subtree-split.js';
-import { solveWorkspaceSize, supernodalSolveInPlace } from './triangular-solve.js';
+import { backwardSweepRanges, diagonalSolve, forwardSweepRanges, sweepWorkspace } from './triangular-solve.js';
 
 interface Flagged {
   flag: Int32Array;
@@ -56,7 +55,19 @@ export type HelperJob = Flagged &
         nextRow: Int32Array;
         ranges: [number, number][];
       }
-    | { kind: 'solve'; structure: SupernodalStructure; values: Float64Array; d: Float64Array; x: Float64Array; columns: number }
+    | {
+        kind: 'forward';
+        structure: SupernodalStructure;
+        values: Float64Array;
+        d: Float64Array;
+        x: Float64Array;
+        columns: number;
+        ranges: [number, number][];
+        index: Int32Array;
+        count: number;
+        acc: Float64Array;
+      }
+    | { kind: 'backward'; structure: SupernodalStructure; values: Float64Array; d: Float64Array; x: Float64Array; columns: number; ranges: [number, number][] }
     | {
         kind: 'descendants';
         structure: SupernodalStructure;
@@ -74,7 +85,6 @@ export type HelperJob = Flagged &
 export type HelperResult =
   | { kind: 'pong' }
   | { kind: 'factored'; monitor: MonitorState }
-  | { kind: 'solved' }
   | { kind: 'done' }
   | { kind: 'failed'; message: string };
 
@@ -285,32 +295,60 @@ export function helperPanel(job: Extract<HelperJob, { kind: 'panel' }>, w: Float
   panelUpdateRows(job.values, s.valuePtr[job.sn], nr, job.c0, job.c1, s.superStart[job.sn], job.d, w, job.from, job.to);
 }
 
-/** Right-hand sides from which a block solve is split between the threads. */
-const SPLIT_SOLVE_MIN_COLUMNS = 2;
+/** A split of the tree prepared for solves: the top's columns numbered 0…count−1. */
+export interface SplitSolve {
+  split: SubtreeSplit;
+  /** index[j] = position of column j among the top's columns, −1 for columns of the parts. */
+  index: Int32Array;
+  count: number;
+  /** The top's columns, ascending. */
+  topColumns: Int32Array;
+}
+
+export function prepareSplitSolve(s: SupernodalStructure, split: SubtreeSplit): SplitSolve {
+  const index = sharedInt32(s.n).fill(-1);
+  const cols: number[] = [];
+  // the columns of every top supernode
+  for (const [lo, hi] of split.top) {
+    for (let j = s.superStart[lo]; j < s.superStart[hi + 1]; j++) {
+      index[j] = cols.length;
+      cols.push(j);
+    }
+  }
+  return { split, index, count: cols.length, topColumns: Int32Array.from(cols) };
+}
 
 /**
- * X ← (L D Lᵀ)⁻¹ X in pivot order for a shared-memory factor, the columns split between the
- * threads; false when it did not run (no helper, too few columns, factor not shared).
+ * X ← (L D Lᵀ)⁻¹ X in pivot order on two threads: forward sweeps over the two parts at once
+ * (their updates of the top's rows kept apart and added afterwards), the top's forward sweep,
+ * D⁻¹, the top's backward sweep, then the parts' backward sweeps at once (they only read the
+ * top's rows). False when it did not run (no helper, factor or X not in shared memory).
  */
-export function parallelSolveInPlace(f: SupernodalFactor, x: Float64Array, k: number): boolean {
-  if (k < SPLIT_SOLVE_MIN_COLUMNS || !(f.values.buffer instanceof SharedArrayBuffer) || !(x.buffer instanceof SharedArrayBuffer)) return false;
+export function splitSolveInPlace(f: SupernodalFactor, x: Float64Array, k: number, plan: SplitSolve): boolean {
+  if (!(f.values.buffer instanceof SharedArrayBuffer) || !(x.buffer instanceof SharedArrayBuffer)) return false;
   const h = startHelper();
   if (h === null) return false;
+  const { split, index, count, topColumns } = plan;
   const n = f.structure.n;
-  const mine = k >> 1;
-  const theirs = k - mine;
-  const wait = postJob(h, {
-    kind: 'solve',
-    structure: f.structure,
-    values: f.values,
-    d: f.d,
-    x: x.subarray(mine * n, k * n),
-    columns: theirs,
-    flag: h.flag,
-  });
-  supernodalSolveInPlace(f, x.subarray(0, mine * n), mine, new Float64Array(solveWorkspaceSize(f, mine)));
-  const r = wait();
-  if (r?.kind !== 'solved') failed(r);
+  const ws = sweepWorkspace(f, k);
+  const mine = new Float64Array(count * k);
+  const theirs = sharedFloat64(count * k);
+  const common = { structure: f.structure, values: f.values, d: f.d, x, columns: k, flag: h.flag };
+  let wait = postJob(h, { ...common, kind: 'forward', ranges: split.parts[1], index, count, acc: theirs });
+  forwardSweepRanges(f, x, k, ws, split.parts[0], { index, count, acc: mine });
+  let r = wait();
+  if (r?.kind !== 'done') failed(r);
+  // the parts' updates of the top's rows, in a fixed order
+  for (let c = 0; c < k; c++) {
+    for (let t = 0; t < count; t++) x[c * n + topColumns[t]] += mine[c * count + t] + theirs[c * count + t];
+  }
+  forwardSweepRanges(f, x, k, ws, split.top);
+  diagonalSolve(f, x, k);
+  backwardSweepRanges(f, x, k, ws, split.top);
+  wait = postJob(h, { ...common, kind: 'backward', ranges: split.parts[1] });
+  backwardSweepRanges(f, x, k, ws, split.parts[0]);
+  r = wait();
+  if (r?.kind !== 'done') failed(r);
   return true;
 }
 

@@ -10,7 +10,7 @@ import { supernodalLdlt, type SupernodalFactor } from './numeric-ldlt.js';
 import { PivotMonitor } from './pivot-monitor.js';
 import { analyzeShiftedPair, type SupernodalStructure } from './symbolic.js';
 import { solveWorkspaceSize, supernodalSolveInPlace } from './triangular-solve.js';
-import { availableThreads, parallelSolveInPlace, parallelSupernodalLdlt, shareStructure, sharedBlock } from './parallel-factor.js';
+import { availableThreads, parallelSupernodalLdlt, prepareSplitSolve, shareStructure, sharedBlock, splitSolveInPlace, type SplitSolve } from './parallel-factor.js';
 import { splitSubtrees } from './subtree-split.js';
 
 /**
@@ -59,6 +59,7 @@ export function createShiftedSolver(
   const split = candidate !== null && candidate.timeRatio <= PARALLEL_MAX_TIME_RATIO ? candidate : null;
   // shared memory lets the helper thread read the structure without a copy
   const structure = split ? shareStructure(analyzed) : analyzed;
+  const solvePlan = split ? prepareSplitSolve(structure, split) : null;
   const t2 = performance.now();
   const { perm } = structure;
 
@@ -81,7 +82,7 @@ export function createShiftedSolver(
       tinyPivots: monitor.tinyPivots(perm),
       threads: parallel ? 2 : 1,
     };
-    return makeFactor(f, shift, monitor, diagnostics);
+    return makeFactor(f, shift, monitor, diagnostics, parallel ? solvePlan : null);
   }
 
   return { n, ordering: order.name, predictedNnzL: structure.nnzL, orderingCandidates: order.candidates, factor };
@@ -95,21 +96,20 @@ function factorBytes(f: SupernodalFactor): number {
   );
 }
 
-function makeFactor(f: SupernodalFactor, shift: number, monitor: PivotMonitor, diagnostics: FactorDiagnostics): ShiftedFactor {
+function makeFactor(f: SupernodalFactor, shift: number, monitor: PivotMonitor, diagnostics: FactorDiagnostics, plan: SplitSolve | null): ShiftedFactor {
   const s = f.structure;
   const { n, perm } = s;
   const inertia = monitor.inertia();
 
   function solveBlock(b: Float64Array, k: number, x: Float64Array = new Float64Array(n * k)): Float64Array {
     if (b.length < n * k || x.length < n * k) throw new RangeError(`block of ${k} columns needs ${n * k} entries`);
-    const shared = f.values.buffer instanceof SharedArrayBuffer && k >= 2;
-    const work = shared ? sharedBlock(n * k) : new Float64Array(n * k);
+    const work = plan ? sharedBlock(n * k) : new Float64Array(n * k);
     // gather into pivot order: work(q, c) = b(perm[q], c)
     for (let c = 0; c < k; c++) {
       const o = c * n;
       for (let q = 0; q < n; q++) work[o + q] = b[o + perm[q]];
     }
-    if (!(shared && parallelSolveInPlace(f, work, k))) supernodalSolveInPlace(f, work, k, new Float64Array(solveWorkspaceSize(f, k)));
+    if (!(plan && splitSolveInPlace(f, work, k, plan))) supernodalSolveInPlace(f, work, k, new Float64Array(solveWorkspaceSize(f, k)));
     // scatter back to DOF order
     for (let c = 0; c < k; c++) {
       const o = c * n;

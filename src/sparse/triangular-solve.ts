@@ -39,12 +39,67 @@ export function supernodalSolveInPlace(f: SupernodalFactor, x: Float64Array, k: 
   backwardSweep(f, x, k, y, w);
 }
 
-function forwardSweep(f: SupernodalFactor, x: Float64Array, k: number, y: Float64Array, w: Float64Array, z: Float64Array): void {
+/**
+ * Where a sweep over part of the tree sends its updates of rows outside the part: rows with
+ * index[row] ≥ 0 are added to acc[c · count + index[row]] instead of X (so two threads sweeping
+ * disjoint subtrees never write the same entry of X).
+ */
+export interface RowRedirect {
+  index: Int32Array;
+  count: number;
+  acc: Float64Array;
+}
+
+export interface SweepWorkspace {
+  y: Float64Array;
+  w: Float64Array;
+  z: Float64Array;
+}
+
+export function sweepWorkspace(f: SupernodalFactor, k: number): SweepWorkspace {
+  const work = new Float64Array(solveWorkspaceSize(f, k));
+  const m = f.structure.maxRows * k;
+  return { y: work.subarray(0, m), w: work.subarray(m, 2 * m), z: work.subarray(2 * m, 3 * m) };
+}
+
+/** Forward sweep L Z = X over supernode ranges (inclusive, ascending); all supernodes by default. */
+export function forwardSweepRanges(f: SupernodalFactor, x: Float64Array, k: number, ws: SweepWorkspace, ranges: [number, number][], redirect?: RowRedirect): void {
+  for (const [lo, hi] of ranges) forwardSweep(f, x, k, ws.y, ws.w, ws.z, lo, hi + 1, redirect);
+}
+
+/** Backward sweep Lᵀ X = W over supernode ranges, visited in descending order. */
+export function backwardSweepRanges(f: SupernodalFactor, x: Float64Array, k: number, ws: SweepWorkspace, ranges: [number, number][]): void {
+  for (let r = ranges.length - 1; r >= 0; r--) backwardSweep(f, x, k, ws.y, ws.w, ranges[r][0], ranges[r][1] + 1);
+}
+
+/** X ← D⁻¹ X on all rows. */
+export function diagonalSolve(f: SupernodalFactor, x: Float64Array, k: number): void {
+  const { d, structure } = f;
+  const n = structure.n;
+  // divide each row by its pivot
+  for (let c = 0; c < k; c++) {
+    const o = c * n;
+    for (let j = 0; j < n; j++) x[o + j] /= d[j];
+  }
+}
+
+function forwardSweep(
+  f: SupernodalFactor,
+  x: Float64Array,
+  k: number,
+  y: Float64Array,
+  w: Float64Array,
+  z: Float64Array,
+  from = 0,
+  to = f.structure.supernodes,
+  redirect?: RowRedirect,
+): void {
   const { structure: s, values } = f;
-  const { n, supernodes: ns, superStart, rowPtr, rows, valuePtr } = s;
+  const { n, superStart, rowPtr, rows, valuePtr } = s;
   const blocked = k >= BLOCK_PATH_MIN_K;
+  const index = redirect?.index;
   // supernodes in elimination order
-  for (let sn = 0; sn < ns; sn++) {
+  for (let sn = from; sn < to; sn++) {
     const f0 = superStart[sn];
     const nc = superStart[sn + 1] - f0;
     const r0 = rowPtr[sn];
@@ -69,11 +124,17 @@ function forwardSweep(f: SupernodalFactor, x: Float64Array, k: number, y: Float6
       z.fill(0, 0, nb * k);
       updateProduct(nb, k, nc, values, v0 + nc, nr, w, z, 0, nb);
       // rows below accumulate
-      for (let c = 0; c < k; c++) {
-        const zo = c * nb;
-        const xo = c * n;
-        for (let i = 0; i < nb; i++) x[xo + rows[r0 + nc + i]] += z[zo + i];
+      if (index) scatterRedirected(x, n, k, z, nb, rows, r0 + nc, redirect!);
+      else {
+        for (let c = 0; c < k; c++) {
+          const zo = c * nb;
+          const xo = c * n;
+          for (let i = 0; i < nb; i++) x[xo + rows[r0 + nc + i]] += z[zo + i];
+        }
       }
+    } else if (index) {
+      // unblocked: y(nc:nr, c) holds the updates; same scatter with stride nr
+      for (let c = 0; c < k; c++) scatterRedirected(x.subarray(c * n), n, 1, y.subarray(c * nr + nc), nr - nc, rows, r0 + nc, redirect!, c);
     } else {
       for (let c = 0; c < k; c++) {
         const yo = c * nr;
@@ -84,12 +145,39 @@ function forwardSweep(f: SupernodalFactor, x: Float64Array, k: number, y: Float6
   }
 }
 
-function backwardSweep(f: SupernodalFactor, x: Float64Array, k: number, y: Float64Array, g: Float64Array): void {
+/** X(rows[p0 + i], c) += u(i, c) (u: count × k column-major), rows marked in the redirect go to its accumulator. */
+function scatterRedirected(
+  x: Float64Array,
+  n: number,
+  k: number,
+  u: Float64Array,
+  count: number,
+  rows: Int32Array,
+  p0: number,
+  redirect: RowRedirect,
+  column0 = 0,
+): void {
+  const { index, acc } = redirect;
+  const m = redirect.count;
+  for (let c = 0; c < k; c++) {
+    const uo = c * count;
+    const xo = c * n;
+    const ao = (column0 + c) * m;
+    for (let i = 0; i < count; i++) {
+      const r = rows[p0 + i];
+      const t = index[r];
+      if (t >= 0) acc[ao + t] += u[uo + i];
+      else x[xo + r] += u[uo + i];
+    }
+  }
+}
+
+function backwardSweep(f: SupernodalFactor, x: Float64Array, k: number, y: Float64Array, g: Float64Array, from = 0, to = f.structure.supernodes): void {
   const { structure: s, values } = f;
-  const { n, supernodes: ns, superStart, rowPtr, rows, valuePtr } = s;
+  const { n, superStart, rowPtr, rows, valuePtr } = s;
   const blocked = k >= BLOCK_PATH_MIN_K;
   // supernodes in reverse elimination order
-  for (let sn = ns - 1; sn >= 0; sn--) {
+  for (let sn = to - 1; sn >= from; sn--) {
     const f0 = superStart[sn];
     const nc = superStart[sn + 1] - f0;
     const r0 = rowPtr[sn];
