@@ -303,6 +303,8 @@ export interface SplitSolve {
   count: number;
   /** The top's columns, ascending. */
   topColumns: Int32Array;
+  /** The helper's accumulator for the top's rows, reused (grown) from solve to solve. */
+  helperAcc: Float64Array;
 }
 
 export function prepareSplitSolve(s: SupernodalStructure, split: SubtreeSplit): SplitSolve {
@@ -315,7 +317,7 @@ export function prepareSplitSolve(s: SupernodalStructure, split: SubtreeSplit): 
       cols.push(j);
     }
   }
-  return { split, index, count: cols.length, topColumns: Int32Array.from(cols) };
+  return { split, index, count: cols.length, topColumns: Int32Array.from(cols), helperAcc: sharedFloat64(0) };
 }
 
 /**
@@ -332,7 +334,9 @@ export function splitSolveInPlace(f: SupernodalFactor, x: Float64Array, k: numbe
   const n = f.structure.n;
   const ws = sweepWorkspace(f, k);
   const mine = new Float64Array(count * k);
-  const theirs = sharedFloat64(count * k);
+  // shared memory is reclaimed late by the collector: keep one accumulator per plan
+  if (plan.helperAcc.length < count * k) plan.helperAcc = sharedFloat64(count * k);
+  const theirs = plan.helperAcc.subarray(0, count * k).fill(0);
   const common = { structure: f.structure, values: f.values, d: f.d, x, columns: k, flag: h.flag };
   let wait = postJob(h, { ...common, kind: 'forward', ranges: split.parts[1], index, count, acc: theirs });
   forwardSweepRanges(f, x, k, ws, split.parts[0], { index, count, acc: mine });

@@ -100,10 +100,16 @@ function makeFactor(f: SupernodalFactor, shift: number, monitor: PivotMonitor, d
   const s = f.structure;
   const { n, perm } = s;
   const inertia = monitor.inertia();
+  let sharedWork: Float64Array = new Float64Array(0);
 
   function solveBlock(b: Float64Array, k: number, x: Float64Array = new Float64Array(n * k)): Float64Array {
     if (b.length < n * k || x.length < n * k) throw new RangeError(`block of ${k} columns needs ${n * k} entries`);
-    const work = plan ? sharedBlock(n * k) : new Float64Array(n * k);
+    let work: Float64Array;
+    if (plan) {
+      // one shared block per factor, reused: shared memory is reclaimed late by the collector
+      if (sharedWork.length < n * k) sharedWork = sharedBlock(n * k);
+      work = sharedWork.subarray(0, n * k);
+    } else work = new Float64Array(n * k);
     // gather into pivot order: work(q, c) = b(perm[q], c)
     for (let c = 0; c < k; c++) {
       const o = c * n;
