@@ -16,7 +16,7 @@
 
 const ROW_CHUNK = 1024;
 
-/** C = AᵀB, A rows×p, B rows×q; C p×q (written to `out` when given). */
+/** C = AᵀB, A rows×p, B rows×q; C p×q (written to `out` when given); only rows [rowFrom, rowTo) of A and B when given. */
 export function transposeTimes(
   a: Float64Array,
   b: Float64Array,
@@ -24,10 +24,12 @@ export function transposeTimes(
   p: number,
   q: number,
   out: Float64Array = new Float64Array(p * q),
+  rowFrom = 0,
+  rowTo = rows,
 ): Float64Array {
   out.fill(0, 0, p * q);
-  for (let r0 = 0; r0 < rows; r0 += ROW_CHUNK) {
-    const r1 = Math.min(rows, r0 + ROW_CHUNK);
+  for (let r0 = rowFrom; r0 < rowTo; r0 += ROW_CHUNK) {
+    const r1 = Math.min(rowTo, r0 + ROW_CHUNK);
     // C(i, j) += A(r0:r1, i)ᵀ B(r0:r1, j) for all i, j
     for (let j = 0; j < q; j += 2) {
       const twoJ = j + 1 < q;
@@ -117,7 +119,7 @@ export function timesSmall(
   return out;
 }
 
-/** C ← C + α A S, C rows×q, A rows×p, S p×q. C must not overlap A. */
+/** C ← C + α A S, C rows×q, A rows×p, S p×q, on rows [rowFrom, rowTo) (all by default). C must not overlap A. */
 export function addTimesSmall(
   c: Float64Array,
   a: Float64Array,
@@ -126,9 +128,11 @@ export function addTimesSmall(
   s: Float64Array,
   q: number,
   alpha = 1,
+  rowFrom = 0,
+  rowTo = rows,
 ): void {
-  for (let r0 = 0; r0 < rows; r0 += ROW_CHUNK) {
-    const r1 = Math.min(rows, r0 + ROW_CHUNK);
+  for (let r0 = rowFrom; r0 < rowTo; r0 += ROW_CHUNK) {
+    const r1 = Math.min(rowTo, r0 + ROW_CHUNK);
     for (let j = 0; j < q; j++) {
       const cj = j * rows;
       // C(r0:r1, j) += α Σ_l S(l, j) A(r0:r1, l), four columns of A per pass

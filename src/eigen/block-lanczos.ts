@@ -26,6 +26,7 @@ import type { EigenSearch, EigenSearchResult } from './search-types.js';
 import { LockedSet } from './locked-set.js';
 import { currentEstimates, fixedBlocks, nearestFirst, relativeResiduals } from './subspace-iteration.js';
 import { timesSmall, transposeTimes } from '../dense/block-ops.js';
+import { basisAddTimesSmall, basisBlock, basisTimesSmall } from './shared-block-products.js';
 import { columns, randomBlock } from './thin-block.js';
 
 /** Default block size: six rigid-body modes of a free-free model share one eigenvalue. */
@@ -56,6 +57,8 @@ interface Cycle {
   qCount: number;
   /** Coupling rows T[Q, V] = R (S_last), qCount×size. */
   coupling: Float64Array;
+  /** The previous cycle's V and MV, reused by the next restart (shared memory is reclaimed late). */
+  spare?: { v: Float64Array; mv: Float64Array };
 }
 
 export function blockLanczos(search: EigenSearch): EigenSearchResult {
@@ -83,8 +86,8 @@ export function blockLanczos(search: EigenSearch): EigenSearchResult {
     const candidates = order.slice(0, Math.min(order.length, wanted + b));
     const sc = pickColumns(s, cycle.size, candidates);
     // K-based Rayleigh–Ritz on the candidate Ritz vectors Y = V S_c
-    const y = timesSmall(cycle.v, n, cycle.size, sc, candidates.length);
-    const my = timesSmall(cycle.mv, n, cycle.size, sc, candidates.length);
+    const y = basisTimesSmall(cycle.v, n, cycle.size, sc, candidates.length);
+    const my = basisTimesSmall(cycle.mv, n, cycle.size, sc, candidates.length);
     const ritz = rayleighRitz({ vectors: y, massVectors: my, count: candidates.length }, n, op.stiffnessTimes);
     const residuals = relativeResiduals(ritz, search.stiffnessNorm, n);
     const g = ritzRotation(y, ritz.vectors, my, candidates.length, n);
@@ -150,8 +153,8 @@ function newCycle(
   const first = mOrthonormalize(apply(x, k), k, n, massTimes, { against });
   const cap = Math.max(capacity, 1);
   return {
-    v: new Float64Array(n * cap),
-    mv: new Float64Array(n * cap),
+    v: basisBlock(n * cap),
+    mv: basisBlock(n * cap),
     size: 0,
     capacity: cap,
     t: new Float64Array(cap * cap),
@@ -315,16 +318,18 @@ function restart(
 ): Cycle {
   const m = cycle.size;
   const cap = Math.max(capacity, keep + 1);
-  const v = new Float64Array(n * cap);
-  const mv = new Float64Array(n * cap);
-  v.set(timesSmall(cycle.v, n, m, sKeep, keep));
-  mv.set(timesSmall(cycle.mv, n, m, sKeep, keep));
+  const reuse = cycle.spare !== undefined && cycle.spare.v.length >= n * cap;
+  const v = reuse ? cycle.spare!.v.subarray(0, n * cap).fill(0) : basisBlock(n * cap);
+  const mv = reuse ? cycle.spare!.mv.subarray(0, n * cap).fill(0) : basisBlock(n * cap);
+  // V' = V S_keep, MV' = MV S_keep into the leading keep columns
+  basisAddTimesSmall(v, cycle.v, n, m, sKeep, keep);
+  basisAddTimesSmall(mv, cycle.mv, n, m, sKeep, keep);
   const tm = packedT(cycle);
   const tk = transposeTimes(sKeep, timesSmall(tm, m, m, sKeep, keep), m, keep, keep);
   const t = new Float64Array(cap * cap);
   // T' = S_keepᵀ T S_keep in the leading keep×keep corner
   for (let j = 0; j < keep; j++) for (let i = 0; i < keep; i++) t[i + j * cap] = tk[i + j * keep];
-  const next: Cycle = { v, mv, size: keep, capacity: cap, t, q: cycle.q, mq: cycle.mq, qCount: cycle.qCount, coupling: new Float64Array(0) };
+  const next: Cycle = { v, mv, size: keep, capacity: cap, t, q: cycle.q, mq: cycle.mq, qCount: cycle.qCount, coupling: new Float64Array(0), spare: { v: cycle.v, mv: cycle.mv } };
   if (cycle.qCount > 0 && last.width > 0) {
     // coupling of the next block: R · S_keep[from:from+width, :]
     const c = new Float64Array(cycle.qCount * keep);

@@ -16,7 +16,8 @@
  * the caller so the cost is counted where it belongs.
  */
 import { svqbCoefficients } from '../dense/svqb.js';
-import { addTimesSmall, timesSmall, transposeTimes } from '../dense/block-ops.js';
+import { timesSmall, transposeTimes } from '../dense/block-ops.js';
+import { basisAddTimesSmall, basisTransposeTimes } from './shared-block-products.js';
 
 /** An M-orthonormal block and its M-image MQ. */
 export interface MassBasis {
@@ -98,9 +99,9 @@ function onePass(
   const projections: Float64Array[] = [];
   // X ← X − B (MB)ᵀX for every block B to stay orthogonal to; MX alike
   for (const b of against) {
-    const p = transposeTimes(b.massVectors, x, n, b.count, k);
-    addTimesSmall(x, b.vectors, n, b.count, p, k, -1);
-    addTimesSmall(mx, b.massVectors, n, b.count, p, k, -1);
+    const p = basisTransposeTimes(b.massVectors, x, n, b.count, k);
+    basisAddTimesSmall(x, b.vectors, n, b.count, p, k, -1);
+    basisAddTimesSmall(mx, b.massVectors, n, b.count, p, k, -1);
     projections.push(p);
   }
   const g = transposeTimes(x, mx, n, k, k);

@@ -6,6 +6,7 @@
  * never waits forever on a job that started.
  */
 import { parentPort, workerData, type MessagePort } from 'node:worker_threads';
+import { addTimesSmall, transposeTimes } from '../dense/block-ops.js';
 import { factorSupernodes, updateWorkspace, type UpdateWorkspace } from './numeric-ldlt.js';
 import { PivotMonitor } from './pivot-monitor.js';
 import { backwardSweepRanges, forwardSweepRanges, sweepWorkspace } from './triangular-solve.js';
@@ -44,6 +45,12 @@ function run(job: HelperJob): HelperResult {
     }
     case 'panel':
       helperPanel(job, workspaces(job.structure).work.w);
+      return { kind: 'done' };
+    case 'transposeTimes':
+      transposeTimes(job.a, job.b, job.rows, job.p, job.q, job.out, job.rowFrom, job.rowTo);
+      return { kind: 'done' };
+    case 'addTimesSmall':
+      addTimesSmall(job.c, job.a, job.rows, job.p, job.s, job.q, job.alpha, job.rowFrom, job.rowTo);
       return { kind: 'done' };
     case 'forward': {
       const f = { structure: job.structure, values: job.values, d: job.d };

@@ -68,6 +68,8 @@ export type HelperJob = Flagged &
         acc: Float64Array;
       }
     | { kind: 'backward'; structure: SupernodalStructure; values: Float64Array; d: Float64Array; x: Float64Array; columns: number; ranges: [number, number][] }
+    | { kind: 'transposeTimes'; a: Float64Array; b: Float64Array; rows: number; p: number; q: number; out: Float64Array; rowFrom: number; rowTo: number }
+    | { kind: 'addTimesSmall'; c: Float64Array; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; alpha: number; rowFrom: number; rowTo: number }
     | {
         kind: 'descendants';
         structure: SupernodalStructure;
@@ -352,6 +354,24 @@ export function splitSolveInPlace(f: SupernodalFactor, x: Float64Array, k: numbe
   wait = postJob(h, { ...common, kind: 'backward', ranges: split.parts[1] });
   backwardSweepRanges(f, x, k, ws, split.parts[0]);
   r = wait();
+  if (r?.kind !== 'done') failed(r);
+  return true;
+}
+
+/**
+ * Runs `job` (a block product on shared arrays, see src/eigen/shared-block-products.ts) on the
+ * helper while `mine` runs here; false (and `mine` not run) when there is no helper.
+ */
+export type BlockProductJob =
+  | { kind: 'transposeTimes'; a: Float64Array; b: Float64Array; rows: number; p: number; q: number; out: Float64Array; rowFrom: number; rowTo: number }
+  | { kind: 'addTimesSmall'; c: Float64Array; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; alpha: number; rowFrom: number; rowTo: number };
+
+export function runSplit(job: BlockProductJob, mine: () => void): boolean {
+  const h = startHelper();
+  if (h === null) return false;
+  const wait = postJob(h, { ...job, flag: h.flag } as HelperJob);
+  mine();
+  const r = wait();
   if (r?.kind !== 'done') failed(r);
   return true;
 }

@@ -55,3 +55,27 @@ describe.skipIf(!built)('two-thread LDLᵀ from the compiled modules', () => {
     expect(diff).toBeLessThan(1e-6 * Math.max(...Array.from(xs, Math.abs)));
   });
 });
+
+const eigenDist = path.resolve(import.meta.dirname, '../../dist/src/eigen/shared-block-products.js');
+
+describe.skipIf(!built || !existsSync(eigenDist))('basis products split between threads, from the compiled modules', () => {
+  it('equal the one-thread block kernels (src/dense/block-ops.ts) on a shared basis', async () => {
+    const shared = (await import(pathToFileURL(eigenDist).href)) as typeof import('../../src/eigen/shared-block-products.js');
+    const { addTimesSmall, transposeTimes } = await import('../../src/dense/block-ops.js');
+    const [rows, p, q] = [20_011, 40, 6];
+    const basis = shared.basisBlock(rows * p);
+    expect(basis.buffer instanceof SharedArrayBuffer).toBe(true);
+    basis.set(Float64Array.from({ length: rows * p }, (_, i) => Math.sin(0.013 * i)));
+    const x = Float64Array.from({ length: rows * q }, (_, i) => Math.cos(0.007 * i));
+    const s = Float64Array.from({ length: p * q }, (_, i) => 0.1 * i - 1);
+    const p1 = shared.basisTransposeTimes(basis, x, rows, p, q);
+    const p0 = transposeTimes(basis, x, rows, p, q);
+    for (let i = 0; i < p * q; i++) expect(Math.abs(p1[i] - p0[i])).toBeLessThanOrEqual(1e-12 * Math.max(1, Math.abs(p0[i])));
+    const c1 = x.slice();
+    const c0 = x.slice();
+    shared.basisAddTimesSmall(c1, basis, rows, p, s, q, -1);
+    addTimesSmall(c0, basis, rows, p, s, q, -1);
+    // each row is computed by one thread with the same kernel: the results are identical
+    expect(Array.from(c1)).toEqual(Array.from(c0));
+  });
+});

@@ -1,0 +1,83 @@
+/**
+ * The two products of a thin block with the large Krylov basis V (n × m, m up to a few hundred)
+ * that dominate the dense work of block Lanczos — P = VᵀX and X ← X + α V S — split by rows
+ * between this thread and the helper thread of the sparse layer (src/sparse/parallel-factor.ts),
+ * when V lives in shared memory (basisBlock) and the product is large enough to pay for the
+ * hand-over. The small operands are copied into shared staging blocks; each thread sums its rows,
+ * the two partial P are added (fixed order), the helper's rows of X are copied back. Otherwise
+ * the plain kernels of src/dense/block-ops.ts run here.
+ */
+import { addTimesSmall, transposeTimes } from '../dense/block-ops.js';
+import { availableThreads, runSplit, sharedBlock } from '../sparse/parallel-factor.js';
+
+/** Products below this many multiply-adds stay on one thread (our choice, about 1 ms of work). */
+const SPLIT_MIN_WORK = 2e6;
+
+let staging: Float64Array = new Float64Array(0);
+let stagingOut: Float64Array = new Float64Array(0);
+
+function stage(length: number): Float64Array {
+  if (staging.length < length) staging = sharedBlock(length);
+  return staging.subarray(0, length);
+}
+
+function stageOut(length: number): Float64Array {
+  if (stagingOut.length < length) stagingOut = sharedBlock(length);
+  return stagingOut.subarray(0, length);
+}
+
+/** An n×m basis block, in shared memory when a helper thread may work on it. */
+export function basisBlock(length: number): Float64Array {
+  return availableThreads() >= 2 ? sharedBlock(length) : new Float64Array(length);
+}
+
+function splittable(a: Float64Array, work: number): boolean {
+  return work >= SPLIT_MIN_WORK && a.buffer instanceof SharedArrayBuffer;
+}
+
+/** P = AᵀB (A rows×p in shared memory: the basis; B rows×q), p×q. */
+export function basisTransposeTimes(a: Float64Array, b: Float64Array, rows: number, p: number, q: number): Float64Array {
+  if (!splittable(a, rows * p * q)) return transposeTimes(a, b, rows, p, q);
+  const bs = b.buffer instanceof SharedArrayBuffer ? b : stage(rows * q);
+  if (bs !== b) bs.set(b.subarray(0, rows * q));
+  const theirs = stageOut(p * q);
+  const mid = rows >> 1;
+  const mine = new Float64Array(p * q);
+  const ran = runSplit({ kind: 'transposeTimes', a, b: bs, rows, p, q, out: theirs, rowFrom: mid, rowTo: rows }, () => {
+    transposeTimes(a, bs, rows, p, q, mine, 0, mid);
+  });
+  if (!ran) return transposeTimes(a, b, rows, p, q);
+  // partial sums of both halves
+  for (let i = 0; i < p * q; i++) mine[i] += theirs[i];
+  return mine;
+}
+
+/** C ← C + α A S (A rows×p in shared memory: the basis; S p×q; C rows×q). */
+export function basisAddTimesSmall(c: Float64Array, a: Float64Array, rows: number, p: number, s: Float64Array, q: number, alpha = 1): void {
+  if (!splittable(a, rows * p * q)) {
+    addTimesSmall(c, a, rows, p, s, q, alpha);
+    return;
+  }
+  const shared = c.buffer instanceof SharedArrayBuffer;
+  const cs = shared ? c : stageOut(rows * q);
+  const mid = rows >> 1;
+  // the helper's rows of C, staged when C is not shared
+  if (!shared) for (let j = 0; j < q; j++) cs.set(c.subarray(j * rows + mid, (j + 1) * rows), j * rows + mid);
+  const ss = stage(p * q);
+  ss.set(s.subarray(0, p * q));
+  const ran = runSplit({ kind: 'addTimesSmall', c: cs, a, rows, p, s: ss, q, alpha, rowFrom: mid, rowTo: rows }, () => {
+    addTimesSmall(c, a, rows, p, s, q, alpha, 0, mid);
+  });
+  if (!ran) {
+    addTimesSmall(c, a, rows, p, s, q, alpha, mid, rows);
+    return;
+  }
+  if (!shared) for (let j = 0; j < q; j++) c.set(cs.subarray(j * rows + mid, (j + 1) * rows), j * rows + mid);
+}
+
+/** C = A S (A rows×p shared basis, S p×q). */
+export function basisTimesSmall(a: Float64Array, rows: number, p: number, s: Float64Array, q: number): Float64Array {
+  const c = new Float64Array(rows * q);
+  basisAddTimesSmall(c, a, rows, p, s, q, 1);
+  return c;
+}
