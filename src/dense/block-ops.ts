@@ -160,6 +160,38 @@ export function addTimesSmall(
   }
 }
 
+/**
+ * A(:, 0:q) ← A S in place (A rows×p, S p×q, q ≤ p), on rows [rowFrom, rowTo): each row of the
+ * result depends only on the same row of A, so the rows are done a chunk at a time through a
+ * small buffer and written back over the first q columns.
+ */
+export function timesSmallInPlace(a: Float64Array, rows: number, p: number, s: Float64Array, q: number, rowFrom = 0, rowTo = rows): void {
+  if (q > p) throw new RangeError(`timesSmallInPlace: ${q} result columns exceed the ${p} of A`);
+  const buf = new Float64Array(ROW_CHUNK * q);
+  for (let r0 = rowFrom; r0 < rowTo; r0 += ROW_CHUNK) {
+    const r1 = Math.min(rowTo, r0 + ROW_CHUNK);
+    const len = r1 - r0;
+    buf.fill(0, 0, len * q);
+    // buf(:, j) = Σ_l S(l, j) A(r0:r1, l)
+    for (let j = 0; j < q; j++) {
+      const bj = j * len;
+      let l = 0;
+      // four columns of A per pass
+      for (; l + 3 < p; l += 4) {
+        const s0 = s[j * p + l], s1 = s[j * p + l + 1], s2 = s[j * p + l + 2], s3 = s[j * p + l + 3];
+        const a0 = l * rows + r0, a1 = a0 + rows, a2 = a1 + rows, a3 = a2 + rows;
+        for (let r = 0; r < len; r++) buf[bj + r] += s0 * a[a0 + r] + s1 * a[a1 + r] + s2 * a[a2 + r] + s3 * a[a3 + r];
+      }
+      for (; l < p; l++) {
+        const sl = s[j * p + l];
+        const al = l * rows + r0;
+        for (let r = 0; r < len; r++) buf[bj + r] += sl * a[al + r];
+      }
+    }
+    for (let j = 0; j < q; j++) a.set(buf.subarray(j * len, (j + 1) * len), j * rows + r0);
+  }
+}
+
 /** y ← y + α x over `length` entries (offsets allow columns of blocks). */
 export function axpy(
   y: Float64Array,

@@ -26,7 +26,7 @@ import type { EigenSearch, EigenSearchResult } from './search-types.js';
 import { LockedSet } from './locked-set.js';
 import { currentEstimates, fixedBlocks, nearestFirst, relativeResiduals } from './subspace-iteration.js';
 import { timesSmall, transposeTimes } from '../dense/block-ops.js';
-import { basisAddTimesSmall, basisBlock, basisTimesSmall } from './shared-block-products.js';
+import { basisBlock, basisTimesSmall, basisTimesSmallInPlace } from './shared-block-products.js';
 import { columns, randomBlock } from './thin-block.js';
 
 /** Default block size: six rigid-body modes of a free-free model share one eigenvalue. */
@@ -57,8 +57,6 @@ interface Cycle {
   qCount: number;
   /** Coupling rows T[Q, V] = R (S_last), qCount×size. */
   coupling: Float64Array;
-  /** The previous cycle's V and MV, reused by the next restart (shared memory is reclaimed late). */
-  spare?: { v: Float64Array; mv: Float64Array };
 }
 
 export function blockLanczos(search: EigenSearch): EigenSearchResult {
@@ -318,18 +316,24 @@ function restart(
 ): Cycle {
   const m = cycle.size;
   const cap = Math.max(capacity, keep + 1);
-  const reuse = cycle.spare !== undefined && cycle.spare.v.length >= n * cap;
-  const v = reuse ? cycle.spare!.v.subarray(0, n * cap).fill(0) : basisBlock(n * cap);
-  const mv = reuse ? cycle.spare!.mv.subarray(0, n * cap).fill(0) : basisBlock(n * cap);
-  // V' = V S_keep, MV' = MV S_keep into the leading keep columns
-  basisAddTimesSmall(v, cycle.v, n, m, sKeep, keep);
-  basisAddTimesSmall(mv, cycle.mv, n, m, sKeep, keep);
+  // V' = V S_keep, MV' = MV S_keep in place (row by row), in the same buffers when they are large enough
+  basisTimesSmallInPlace(cycle.v, n, m, sKeep, keep);
+  basisTimesSmallInPlace(cycle.mv, n, m, sKeep, keep);
+  const inPlace = cycle.v.length >= n * cap;
+  const v = inPlace ? cycle.v.subarray(0, n * cap) : basisBlock(n * cap);
+  const mv = inPlace ? cycle.mv.subarray(0, n * cap) : basisBlock(n * cap);
+  if (!inPlace) {
+    v.set(cycle.v.subarray(0, n * keep));
+    mv.set(cycle.mv.subarray(0, n * keep));
+  }
+  v.fill(0, n * keep);
+  mv.fill(0, n * keep);
   const tm = packedT(cycle);
   const tk = transposeTimes(sKeep, timesSmall(tm, m, m, sKeep, keep), m, keep, keep);
   const t = new Float64Array(cap * cap);
   // T' = S_keepᵀ T S_keep in the leading keep×keep corner
   for (let j = 0; j < keep; j++) for (let i = 0; i < keep; i++) t[i + j * cap] = tk[i + j * keep];
-  const next: Cycle = { v, mv, size: keep, capacity: cap, t, q: cycle.q, mq: cycle.mq, qCount: cycle.qCount, coupling: new Float64Array(0), spare: { v: cycle.v, mv: cycle.mv } };
+  const next: Cycle = { v, mv, size: keep, capacity: cap, t, q: cycle.q, mq: cycle.mq, qCount: cycle.qCount, coupling: new Float64Array(0) };
   if (cycle.qCount > 0 && last.width > 0) {
     // coupling of the next block: R · S_keep[from:from+width, :]
     const c = new Float64Array(cycle.qCount * keep);

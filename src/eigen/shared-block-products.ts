@@ -1,13 +1,14 @@
 /**
- * The two products of a thin block with the large Krylov basis V (n × m, m up to a few hundred)
- * that dominate the dense work of block Lanczos — P = VᵀX and X ← X + α V S — split by rows
+ * The products of a thin block with the large Krylov basis V (n × m, m up to a few hundred)
+ * that dominate the dense work of block Lanczos — P = VᵀX, X ← X + α V S and the restart
+ * V ← V S in place — split by rows
  * between this thread and the helper thread of the sparse layer (src/sparse/parallel-factor.ts),
  * when V lives in shared memory (basisBlock) and the product is large enough to pay for the
  * hand-over. The small operands are copied into shared staging blocks; each thread sums its rows,
  * the two partial P are added (fixed order), the helper's rows of X are copied back. Otherwise
  * the plain kernels of src/dense/block-ops.ts run here.
  */
-import { addTimesSmall, transposeTimes } from '../dense/block-ops.js';
+import { addTimesSmall, timesSmallInPlace, transposeTimes } from '../dense/block-ops.js';
 import { availableThreads, runSplit, sharedBlock } from '../sparse/parallel-factor.js';
 
 /** Products below this many multiply-adds stay on one thread (our choice, about 1 ms of work). */
@@ -73,6 +74,19 @@ export function basisAddTimesSmall(c: Float64Array, a: Float64Array, rows: numbe
     return;
   }
   if (!shared) for (let j = 0; j < q; j++) c.set(cs.subarray(j * rows + mid, (j + 1) * rows), j * rows + mid);
+}
+
+/** A(:, 0:q) ← A S in place (A rows×p, the basis; q ≤ p): a restart without a second basis. */
+export function basisTimesSmallInPlace(a: Float64Array, rows: number, p: number, s: Float64Array, q: number): void {
+  if (!splittable(a, rows * p * q)) {
+    timesSmallInPlace(a, rows, p, s, q);
+    return;
+  }
+  const ss = stage(p * q);
+  ss.set(s.subarray(0, p * q));
+  const mid = rows >> 1;
+  const ran = runSplit({ kind: 'timesSmallInPlace', a, rows, p, s: ss, q, rowFrom: mid, rowTo: rows }, () => timesSmallInPlace(a, rows, p, s, q, 0, mid));
+  if (!ran) timesSmallInPlace(a, rows, p, s, q, mid, rows);
 }
 
 /** C = A S (A rows×p shared basis, S p×q). */

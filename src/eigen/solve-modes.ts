@@ -16,7 +16,7 @@
  */
 import { createShiftedSolver } from '../sparse/shifted-solver.js';
 import { symOneNorm, type SymmetricCsc } from '../sparse/csc.js';
-import type { ShiftedFactor, ShiftedSolver } from '../sparse/factor-types.js';
+import type { FactorDiagnostics, ShiftedFactor, ShiftedSolver } from '../sparse/factor-types.js';
 import { frequencyHzFromEigenvalue, eigenvalueFromFrequencyHz, type ModesRequest, type ModesResult, type SturmCheck } from './modes-types.js';
 import { createShiftInvertOperator, massRankBound, type ShiftInvertOperator } from './shift-invert-operator.js';
 import { blockLanczos } from './block-lanczos.js';
@@ -71,8 +71,12 @@ export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request:
     return emptyResult(n, method, cutoff, shifts, warnings, clock, start, solver);
   }
   const firstChunk = Math.min(wanted, SLICE_SIZE);
-  let solved = solveAtGoodShift(stiffness, mass, solver, factorAt, scale, stiffnessNorm, rankM, firstChunk, method, request, warnings, clock);
-  if (wanted > firstChunk) solved = sliceOnward(stiffness, mass, solved, wanted, factorAt, stiffnessNorm, rankM, method, request, warnings, clock);
+  const solveAll = (): Solved => {
+    const lowest = solveAtGoodShift(stiffness, mass, solver, factorAt, scale, stiffnessNorm, rankM, firstChunk, method, request, warnings, clock);
+    return wanted > firstChunk ? sliceOnward(stiffness, mass, lowest, wanted, factorAt, stiffnessNorm, rankM, method, request, warnings, clock) : lowest;
+  };
+  // the iteration's factor is let go here, before the Sturm check allocates another one
+  const { found: solved, diagnostics: factorDiagnostics } = withoutFactor(solveAll());
   const t0 = performance.now();
   const factorBefore = clock.factorMs;
   const checks = checkShapes(stiffness, mass, solved.values, solved.vectors, stiffnessNorm);
@@ -96,7 +100,7 @@ export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request:
     shifts,
     iterations: solved.iterations,
     timings: { totalMs: performance.now() - start, factorMs: clock.factorMs, iterateMs: clock.iterateMs, verifyMs: Math.max(0, clock.verifyMs) },
-    factor: solved.factor.diagnostics,
+    factor: factorDiagnostics,
     warnings,
     solves: solved.solves,
     rankMassBound: rankM,
@@ -302,7 +306,13 @@ function factorWithMove(
 }
 
 /** Sturm count in the gap after λ_N; if it comes out high, once more closer to λ_N. */
-function gapSturm(solved: Solved, factorAt: (sigma: number) => ShiftedFactor, warnings: string[]): SturmCheck & { note?: string } {
+/** The solution without its factorization (only the factor's diagnostics are kept). */
+function withoutFactor(s: Solved): { found: Omit<Solved, 'factor'>; diagnostics: FactorDiagnostics } {
+  const { factor, ...found } = s;
+  return { found, diagnostics: factor.diagnostics };
+}
+
+function gapSturm(solved: Omit<Solved, 'factor'>, factorAt: (sigma: number) => ShiftedFactor, warnings: string[]): SturmCheck & { note?: string } {
   const count = solved.values.length;
   const placement = placeSturmShift(solved.values, solved.beyond);
   let f = factorAt(placement.shift);

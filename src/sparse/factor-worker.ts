@@ -5,8 +5,10 @@
  * with receiveMessageOnPort. Every job answers, an exception included, so the main thread
  * never waits forever on a job that started.
  */
+import { setFlagsFromString } from 'node:v8';
+import { runInNewContext } from 'node:vm';
 import { parentPort, workerData, type MessagePort } from 'node:worker_threads';
-import { addTimesSmall, transposeTimes } from '../dense/block-ops.js';
+import { addTimesSmall, timesSmallInPlace, transposeTimes } from '../dense/block-ops.js';
 import { factorSupernodes, updateWorkspace, type UpdateWorkspace } from './numeric-ldlt.js';
 import { PivotMonitor } from './pivot-monitor.js';
 import { backwardSweepRanges, forwardSweepRanges, sweepWorkspace } from './triangular-solve.js';
@@ -14,6 +16,14 @@ import { helperDescendants, helperPanel, type HelperJob, type HelperResult } fro
 import type { SupernodalStructure } from './symbolic.js';
 
 const port = (workerData as { port: MessagePort }).port;
+
+/**
+ * A collector this thread can run on request: the jobs hand it shared arrays (bases, factors),
+ * and their memory is returned only when every thread has dropped them — this thread allocates
+ * too little for its collector to run on its own.
+ */
+setFlagsFromString('--expose-gc');
+const collect = runInNewContext('gc') as () => void;
 
 /** Workspaces kept between jobs (a shared supernode sends one job per panel). */
 let map = new Int32Array(0);
@@ -33,6 +43,9 @@ function run(job: HelperJob): HelperResult {
   switch (job.kind) {
     case 'ping':
       return { kind: 'pong' };
+    case 'collect':
+      collect();
+      return { kind: 'done' };
     case 'factor': {
       const monitor = new PivotMonitor(job.tolerance, job.diagonalScale);
       factorSupernodes(job.structure, job.shift, monitor, { values: job.values, d: job.d, nextRow: job.nextRow }, job.ranges);
@@ -51,6 +64,9 @@ function run(job: HelperJob): HelperResult {
       return { kind: 'done' };
     case 'addTimesSmall':
       addTimesSmall(job.c, job.a, job.rows, job.p, job.s, job.q, job.alpha, job.rowFrom, job.rowTo);
+      return { kind: 'done' };
+    case 'timesSmallInPlace':
+      timesSmallInPlace(job.a, job.rows, job.p, job.s, job.q, job.rowFrom, job.rowTo);
       return { kind: 'done' };
     case 'forward': {
       const f = { structure: job.structure, values: job.values, d: job.d };

@@ -22,6 +22,8 @@
 import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
+import { setFlagsFromString } from 'node:v8';
+import { runInNewContext } from 'node:vm';
 import { MessageChannel, Worker, receiveMessageOnPort, type MessagePort } from 'node:worker_threads';
 import {
   applyDescendant,
@@ -44,6 +46,7 @@ interface Flagged {
 export type HelperJob = Flagged &
   (
     | { kind: 'ping' }
+    | { kind: 'collect' }
     | {
         kind: 'factor';
         structure: SupernodalStructure;
@@ -68,8 +71,7 @@ export type HelperJob = Flagged &
         acc: Float64Array;
       }
     | { kind: 'backward'; structure: SupernodalStructure; values: Float64Array; d: Float64Array; x: Float64Array; columns: number; ranges: [number, number][] }
-    | { kind: 'transposeTimes'; a: Float64Array; b: Float64Array; rows: number; p: number; q: number; out: Float64Array; rowFrom: number; rowTo: number }
-    | { kind: 'addTimesSmall'; c: Float64Array; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; alpha: number; rowFrom: number; rowTo: number }
+    | BlockProductJob
     | {
         kind: 'descendants';
         structure: SupernodalStructure;
@@ -140,6 +142,21 @@ function runJob(h: Helper, job: Omit<HelperJob, 'flag'>, timeoutMs: number): Hel
   return postJob(h, { ...job, flag: h.flag } as HelperJob)(timeoutMs);
 }
 
+let collector: (() => void) | undefined;
+
+/**
+ * A full collection on this thread. Shared arrays are returned to the system only when every
+ * thread has dropped them, and the collector does not count them as pressure: without this, dead
+ * Krylov bases and factors outlive their use by a whole factorization.
+ */
+function collectHere(): void {
+  if (collector === undefined) {
+    setFlagsFromString('--expose-gc');
+    collector = runInNewContext('gc') as () => void;
+  }
+  collector();
+}
+
 function sharedFloat64(length: number): Float64Array {
   return new Float64Array(new SharedArrayBuffer(8 * Math.max(1, length)), 0, length);
 }
@@ -180,6 +197,10 @@ function failed(r: HelperResult | undefined): never {
 export function parallelSupernodalLdlt(s: SupernodalStructure, shift: number, monitor: PivotMonitor, split: SubtreeSplit): SupernodalFactor | null {
   const h = startHelper();
   if (h === null || split.parts.length !== 2) return null;
+  // before the factor's large allocation: let both threads drop the shared arrays of earlier work
+  const collected = postJob(h, { kind: 'collect', flag: h.flag })();
+  if (collected?.kind !== 'done') failed(collected);
+  collectHere();
   const values = sharedFloat64(s.valuePtr[s.supernodes]);
   const d = sharedFloat64(s.n);
   const nextRow = sharedInt32(s.supernodes);
@@ -364,7 +385,8 @@ export function splitSolveInPlace(f: SupernodalFactor, x: Float64Array, k: numbe
  */
 export type BlockProductJob =
   | { kind: 'transposeTimes'; a: Float64Array; b: Float64Array; rows: number; p: number; q: number; out: Float64Array; rowFrom: number; rowTo: number }
-  | { kind: 'addTimesSmall'; c: Float64Array; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; alpha: number; rowFrom: number; rowTo: number };
+  | { kind: 'addTimesSmall'; c: Float64Array; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; alpha: number; rowFrom: number; rowTo: number }
+  | { kind: 'timesSmallInPlace'; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; rowFrom: number; rowTo: number };
 
 export function runSplit(job: BlockProductJob, mine: () => void): boolean {
   const h = startHelper();
