@@ -37,6 +37,7 @@ import {
 import type { MonitorState, PivotMonitor } from './pivot-monitor.js';
 import type { SupernodalStructure } from './symbolic.js';
 import type { SubtreeSplit } from './subtree-split.js';
+import type { AdjacencyGraph } from './ordering/adjacency-graph.js';
 import { backwardSweepRanges, diagonalSolve, forwardSweepRanges, sweepWorkspace } from './triangular-solve.js';
 
 interface Flagged {
@@ -47,6 +48,7 @@ export type HelperJob = Flagged &
   (
     | { kind: 'ping' }
     | { kind: 'collect' }
+    | { kind: 'multilevel'; n: number; ptr: Int32Array; adj: Int32Array; weights: Int32Array; leafSize?: number }
     | {
         kind: 'factor';
         structure: SupernodalStructure;
@@ -89,6 +91,7 @@ export type HelperJob = Flagged &
 export type HelperResult =
   | { kind: 'pong' }
   | { kind: 'factored'; monitor: MonitorState }
+  | { kind: 'ordered'; perm: Int32Array }
   | { kind: 'done' }
   | { kind: 'failed'; message: string };
 
@@ -396,6 +399,26 @@ export function runSplit(job: BlockProductJob, mine: () => void): boolean {
   const r = wait();
   if (r?.kind !== 'done') failed(r);
   return true;
+}
+
+/** Compressed graphs below this many vertices are ordered on this thread (our choice). */
+const HELPER_ORDERING_MIN_VERTICES = 5000;
+
+/**
+ * Starts the multilevel nested dissection of `graph` (src/sparse/ordering/multilevel-bisection.ts)
+ * on the helper thread and returns a function that waits for its ordering; null when there is no
+ * helper or the graph is small (the caller orders it here). The graph is copied to the helper.
+ */
+export function startMultilevelOrdering(graph: AdjacencyGraph, weights: Int32Array, leafSize: number | undefined, threads: number): (() => Int32Array) | null {
+  if (threads < 2 || graph.n < HELPER_ORDERING_MIN_VERTICES) return null;
+  const h = startHelper();
+  if (h === null) return null;
+  const wait = postJob(h, { kind: 'multilevel', n: graph.n, ptr: graph.ptr, adj: graph.adj, weights, leafSize, flag: h.flag });
+  return () => {
+    const r = wait();
+    if (r?.kind !== 'ordered') failed(r);
+    return r.perm;
+  };
 }
 
 /** A zeroed n×k block in shared memory (the right-hand sides of a parallel solve). */

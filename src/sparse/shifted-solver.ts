@@ -51,10 +51,10 @@ export function createShiftedSolver(
   const n = stiffness.n;
   const tolerance = options.zeroPivotTolerance ?? DEFAULT_ZERO_PIVOT_TOLERANCE;
   const t0 = performance.now();
-  const order = chooseOrdering(stiffness, mass, { ordering: options.ordering ?? 'auto', coordinates: options.coordinates });
+  const threads = Math.min(options.threads ?? 2, availableThreads());
+  const order = chooseOrdering(stiffness, mass, { ordering: options.ordering ?? 'auto', coordinates: options.coordinates, threads });
   const t1 = performance.now();
   const analyzed = analyzeShiftedPair(stiffness, mass, order.perm);
-  const threads = Math.min(options.threads ?? 2, availableThreads());
   const candidate = threads >= 2 && analyzed.flops >= PARALLEL_MIN_FLOPS ? splitSubtrees(analyzed, 2) : null;
   const split = candidate !== null && candidate.timeRatio <= PARALLEL_MAX_TIME_RATIO ? candidate : null;
   // shared memory lets the helper thread read the structure without a copy

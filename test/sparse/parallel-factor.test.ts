@@ -79,3 +79,14 @@ describe.skipIf(!built || !existsSync(eigenDist))('basis products split between 
     expect(Array.from(c1)).toEqual(Array.from(c0));
   });
 });
+
+describe.skipIf(!built)('ordering with the multilevel dissection on the helper thread, from the compiled modules', () => {
+  it('gives the same ordering as on one thread (the dissection is deterministic)', async () => {
+    const { chooseOrdering } = (await import(pathToFileURL(path.join(dist, 'ordering/choose-ordering.js')).href)) as typeof import('../../src/sparse/ordering/choose-ordering.js');
+    const { stiffness, mass } = hexGridPair(18, 17, 16, 5);
+    const one = chooseOrdering(stiffness, mass, { ordering: 'nested-dissection', threads: 1 });
+    const two = chooseOrdering(stiffness, mass, { ordering: 'nested-dissection', threads: 2 });
+    expect(two.predictedNnzL).toBe(one.predictedNnzL);
+    expect(Array.from(two.perm)).toEqual(Array.from(one.perm));
+  });
+});
