@@ -12,6 +12,7 @@
  * Blocks are column-major n×k Float64Arrays; one pass over the factor serves all k columns.
  */
 import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
+import { sharedMatrix, splitSymMultiplyBlock } from '../sparse/parallel-factor.js';
 import type { ShiftedFactor } from '../sparse/factor-types.js';
 
 /** How much work the operator did: the figures that decide the cost of a solve. */
@@ -50,13 +51,21 @@ export function createShiftInvertOperator(
 ): ShiftInvertOperator {
   const n = stiffness.n;
   const counts: OperatorCounts = { solves: 0, factorPasses: 0, massProducts: 0, stiffnessProducts: 0 };
+  // shared copies (made once per matrix) let the helper thread take half of each product
+  const sharedK = sharedMatrix(stiffness);
+  const sharedM = sharedMatrix(mass);
+  const times = (a: SymmetricCsc, s: SymmetricCsc | null, x: Float64Array, k: number): Float64Array => {
+    const y = new Float64Array(n * k);
+    if (s === null || !splitSymMultiplyBlock(s, x, k, y)) symMultiplyBlock(a, x, k, y);
+    return y;
+  };
   const massTimes = (x: Float64Array, k: number): Float64Array => {
     counts.massProducts += k;
-    return symMultiplyBlock(mass, x, k, new Float64Array(n * k));
+    return times(mass, sharedM, x, k);
   };
   const stiffnessTimes = (x: Float64Array, k: number): Float64Array => {
     counts.stiffnessProducts += k;
-    return symMultiplyBlock(stiffness, x, k, new Float64Array(n * k));
+    return times(stiffness, sharedK, x, k);
   };
   const solve = (b: Float64Array, k: number): Float64Array => {
     counts.solves += k;

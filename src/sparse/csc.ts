@@ -69,11 +69,21 @@ export function symMultiplyBlock(
   k: number,
   y: Float64Array = new Float64Array(a.n * k),
 ): Float64Array {
-  const { n, colPtr, rowIdx, values } = a;
   if (k === 1) return symMultiply(a, x, y);
   y.fill(0);
+  symMultiplyColumns(a, x, k, y, 0, a.n);
+  return y;
+}
+
+/**
+ * Y += (the part of A X carried by the stored columns [colFrom, colTo)): each stored a_ij of those
+ * columns adds a_ij x_j to y_i and, off the diagonal, a_ij x_i to y_j. Two calls on disjoint
+ * column ranges into two outputs sum to A X.
+ */
+export function symMultiplyColumns(a: SymmetricCsc, x: Float64Array, k: number, y: Float64Array, colFrom: number, colTo: number): void {
+  const { n, colPtr, rowIdx, values } = a;
   const sum = new Float64Array(k);
-  for (let j = 0; j < n; j++) {
+  for (let j = colFrom; j < colTo; j++) {
     sum.fill(0);
     for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
       const i = rowIdx[p];
@@ -89,7 +99,6 @@ export function symMultiplyBlock(
     }
     for (let c = 0, o = j; c < k; c++, o += n) y[o] += sum[c];
   }
-  return y;
 }
 
 /** Largest |a_ij| over the stored entries (the max-norm of the full matrix). */

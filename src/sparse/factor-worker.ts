@@ -10,6 +10,7 @@ import { runInNewContext } from 'node:vm';
 import { parentPort, workerData, type MessagePort } from 'node:worker_threads';
 import { addTimesSmall, timesSmallInPlace, transposeTimes } from '../dense/block-ops.js';
 import { multilevelNestedDissection } from './ordering/multilevel-bisection.js';
+import { symMultiplyColumns } from './csc.js';
 import { factorSupernodes, updateWorkspace, type UpdateWorkspace } from './numeric-ldlt.js';
 import { PivotMonitor } from './pivot-monitor.js';
 import { backwardSweepRanges, forwardSweepRanges, sweepWorkspace } from './triangular-solve.js';
@@ -67,6 +68,9 @@ function run(job: HelperJob): HelperResult {
       return { kind: 'done' };
     case 'addTimesSmall':
       addTimesSmall(job.c, job.a, job.rows, job.p, job.s, job.q, job.alpha, job.rowFrom, job.rowTo);
+      return { kind: 'done' };
+    case 'symMultiply':
+      symMultiplyColumns(job.a, job.x, job.k, job.y, job.colFrom, job.colTo);
       return { kind: 'done' };
     case 'timesSmallInPlace':
       timesSmallInPlace(job.a, job.rows, job.p, job.s, job.q, job.rowFrom, job.rowTo);

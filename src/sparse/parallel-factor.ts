@@ -38,6 +38,7 @@ import type { MonitorState, PivotMonitor } from './pivot-monitor.js';
 import type { SupernodalStructure } from './symbolic.js';
 import type { SubtreeSplit } from './subtree-split.js';
 import type { AdjacencyGraph } from './ordering/adjacency-graph.js';
+import { symMultiplyColumns, type SymmetricCsc } from './csc.js';
 import { backwardSweepRanges, diagonalSolve, forwardSweepRanges, sweepWorkspace } from './triangular-solve.js';
 
 interface Flagged {
@@ -389,7 +390,8 @@ export function splitSolveInPlace(f: SupernodalFactor, x: Float64Array, k: numbe
 export type BlockProductJob =
   | { kind: 'transposeTimes'; a: Float64Array; b: Float64Array; rows: number; p: number; q: number; out: Float64Array; rowFrom: number; rowTo: number }
   | { kind: 'addTimesSmall'; c: Float64Array; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; alpha: number; rowFrom: number; rowTo: number }
-  | { kind: 'timesSmallInPlace'; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; rowFrom: number; rowTo: number };
+  | { kind: 'timesSmallInPlace'; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; rowFrom: number; rowTo: number }
+  | { kind: 'symMultiply'; a: SymmetricCsc; x: Float64Array; k: number; y: Float64Array; colFrom: number; colTo: number };
 
 export function runSplit(job: BlockProductJob, mine: () => void): boolean {
   const h = startHelper();
@@ -398,6 +400,57 @@ export function runSplit(job: BlockProductJob, mine: () => void): boolean {
   mine();
   const r = wait();
   if (r?.kind !== 'done') failed(r);
+  return true;
+}
+
+/** Sparse products below this many multiply-adds stay on this thread (our choice). */
+const SPLIT_PRODUCT_MIN_WORK = 2e6;
+
+const sharedMatrices = new WeakMap<SymmetricCsc, SymmetricCsc>();
+let productX: Float64Array = sharedFloat64(0);
+let productY: Float64Array = sharedFloat64(0);
+
+/** A copy of `a` in shared memory (made once per matrix), or null without a helper thread. */
+export function sharedMatrix(a: SymmetricCsc): SymmetricCsc | null {
+  if (availableThreads() < 2) return null;
+  let s = sharedMatrices.get(a);
+  if (s === undefined) {
+    s = { n: a.n, colPtr: shared(a.colPtr), rowIdx: shared(a.rowIdx), values: shared(a.values) };
+    sharedMatrices.set(a, s);
+  }
+  return s;
+}
+
+/**
+ * Y = A X (A from sharedMatrix, X n×k) with the stored columns split between the threads at half
+ * the nonzeros; each thread sums into its own output and the helper's is added here. False when
+ * it did not run (small product, no helper).
+ */
+export function splitSymMultiplyBlock(a: SymmetricCsc, x: Float64Array, k: number, y: Float64Array): boolean {
+  const n = a.n;
+  const nnz = a.colPtr[n];
+  if (nnz * k < SPLIT_PRODUCT_MIN_WORK || !(a.values.buffer instanceof SharedArrayBuffer)) return false;
+  const h = startHelper();
+  if (h === null) return false;
+  if (productX.length < n * k) productX = sharedFloat64(n * k);
+  if (productY.length < n * k) productY = sharedFloat64(n * k);
+  const xs = productX.subarray(0, n * k);
+  const ys = productY.subarray(0, n * k).fill(0);
+  xs.set(x.subarray(0, n * k));
+  // the column where half of the stored entries lie before
+  let lo = 0;
+  let hi = n;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (a.colPtr[mid] < nnz / 2) lo = mid + 1;
+    else hi = mid;
+  }
+  const wait = postJob(h, { kind: 'symMultiply', a, x: xs, k, y: ys, colFrom: lo, colTo: n, flag: h.flag });
+  y.fill(0, 0, n * k);
+  symMultiplyColumns(a, xs, k, y, 0, lo);
+  const r = wait();
+  if (r?.kind !== 'done') failed(r);
+  for (let i = 0; i < n * k; i++) y[i] += ys[i];
   return true;
 }
 
