@@ -9,7 +9,7 @@ import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
 import { parentPort, workerData, type MessagePort } from 'node:worker_threads';
 import { addTimesSmall, timesSmallInPlace, transposeTimes } from '../dense/block-ops.js';
-import { multilevelNestedDissection } from './ordering/multilevel-bisection.js';
+import { multilevelSeparator } from './ordering/multilevel-bisection.js';
 import { symMultiplyColumns } from './csc.js';
 import { factorSupernodes, updateWorkspace, type UpdateWorkspace } from './numeric-ldlt.js';
 import { PivotMonitor } from './pivot-monitor.js';
@@ -45,8 +45,8 @@ function run(job: HelperJob): HelperResult {
   switch (job.kind) {
     case 'ping':
       return { kind: 'pong' };
-    case 'multilevel':
-      return { kind: 'ordered', perm: multilevelNestedDissection({ n: job.n, ptr: job.ptr, adj: job.adj }, { weights: job.weights, leafSize: job.leafSize }) };
+    case 'separatorRuns':
+      return { kind: 'separators', wheres: job.seeds.map((seed) => multilevelSeparator(job.graph, seed)) };
     case 'collect':
       collect();
       return { kind: 'done' };

@@ -37,7 +37,7 @@ import {
 import type { MonitorState, PivotMonitor } from './pivot-monitor.js';
 import type { SupernodalStructure } from './symbolic.js';
 import type { SubtreeSplit } from './subtree-split.js';
-import type { AdjacencyGraph } from './ordering/adjacency-graph.js';
+import type { WeightedGraph } from './ordering/coarsen-graph.js';
 import { symMultiplyColumns, type SymmetricCsc } from './csc.js';
 import { backwardSweepRanges, diagonalSolve, forwardSweepRanges, sweepWorkspace } from './triangular-solve.js';
 
@@ -49,7 +49,7 @@ export type HelperJob = Flagged &
   (
     | { kind: 'ping' }
     | { kind: 'collect' }
-    | { kind: 'multilevel'; n: number; ptr: Int32Array; adj: Int32Array; weights: Int32Array; leafSize?: number }
+    | { kind: 'separatorRuns'; graph: WeightedGraph; seeds: number[] }
     | {
         kind: 'factor';
         structure: SupernodalStructure;
@@ -92,7 +92,7 @@ export type HelperJob = Flagged &
 export type HelperResult =
   | { kind: 'pong' }
   | { kind: 'factored'; monitor: MonitorState }
-  | { kind: 'ordered'; perm: Int32Array }
+  | { kind: 'separators'; wheres: Uint8Array[] }
   | { kind: 'done' }
   | { kind: 'failed'; message: string };
 
@@ -454,23 +454,20 @@ export function splitSymMultiplyBlock(a: SymmetricCsc, x: Float64Array, k: numbe
   return true;
 }
 
-/** Compressed graphs below this many vertices are ordered on this thread (our choice). */
-const HELPER_ORDERING_MIN_VERTICES = 5000;
-
 /**
- * Starts the multilevel nested dissection of `graph` (src/sparse/ordering/multilevel-bisection.ts)
- * on the helper thread and returns a function that waits for its ordering; null when there is no
- * helper or the graph is small (the caller orders it here). The graph is copied to the helper.
+ * Starts independent multilevel separator runs (src/sparse/ordering/multilevel-bisection.ts) with
+ * the given seeds on the helper thread and returns a function that waits for their labellings, in
+ * seed order; null without a helper (the caller runs them here). The graph is copied.
  */
-export function startMultilevelOrdering(graph: AdjacencyGraph, weights: Int32Array, leafSize: number | undefined, threads: number): (() => Int32Array) | null {
-  if (threads < 2 || graph.n < HELPER_ORDERING_MIN_VERTICES) return null;
+export function startSeparatorRuns(graph: WeightedGraph, seeds: number[], threads: number): (() => Uint8Array[]) | null {
+  if (threads < 2 || seeds.length === 0) return null;
   const h = startHelper();
   if (h === null) return null;
-  const wait = postJob(h, { kind: 'multilevel', n: graph.n, ptr: graph.ptr, adj: graph.adj, weights, leafSize, flag: h.flag });
+  const wait = postJob(h, { kind: 'separatorRuns', graph, seeds, flag: h.flag });
   return () => {
     const r = wait();
-    if (r?.kind !== 'ordered') failed(r);
-    return r.perm;
+    if (r?.kind !== 'separators') failed(r);
+    return r.wheres;
   };
 }
 

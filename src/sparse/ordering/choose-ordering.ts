@@ -21,7 +21,6 @@ import { approximateMinimumDegree } from './minimum-degree.js';
 import { multilevelNestedDissection } from './multilevel-bisection.js';
 import { graphNestedDissection } from './nested-dissection.js';
 import { coordinateBisection } from './coordinate-bisection.js';
-import { startMultilevelOrdering } from '../parallel-factor.js';
 
 export interface ChooseOrderingOptions {
   ordering?: 'auto' | OrderingName;
@@ -33,7 +32,7 @@ export interface ChooseOrderingOptions {
   predictNnzL?: (perm: Int32Array) => number;
   /** Parts of at most this many supervariables end the dissection (default 64). */
   leafSize?: number;
-  /** Threads the orderings may use (default 1; with 2 the multilevel dissection runs on the helper thread). */
+  /** Threads the orderings may use (default 1; with 2 the multilevel dissection shares its repeated runs with the helper thread). */
   threads?: number;
 }
 
@@ -89,18 +88,12 @@ function naturalOrder(n: number): Int32Array {
  * natural order on the 40×32×30 bench solid), level structures on beam lattices, whose
  * breadth-first levels are already flat planes (5.90 vs 4.32 on the 22×22×21 bench frame).
  */
-function bestGraphDissection(
-  sv: Supervariables,
-  options: ChooseOrderingOptions,
-  predict: (perm: Int32Array) => number,
-  started: (() => Int32Array) | null,
-): Int32Array {
+function bestGraphDissection(sv: Supervariables, options: ChooseOrderingOptions, predict: (perm: Int32Array) => number): Int32Array {
   const weights = sv.weight;
   const leafSize = options.leafSize;
+  const multilevel = expandOrdering(sv, multilevelNestedDissection(sv.graph, { weights, leafSize, threads: options.threads }));
   const levels = expandOrdering(sv, graphNestedDissection(sv.graph, { weights, leafSize }));
-  const levelsNnz = predict(levels);
-  const multilevel = expandOrdering(sv, started ? started() : multilevelNestedDissection(sv.graph, { weights, leafSize }));
-  return levelsNnz < predict(multilevel) ? levels : multilevel;
+  return predict(levels) < predict(multilevel) ? levels : multilevel;
 }
 
 /** Computes one ordering of the compressed graph and expands it to DOFs. */
@@ -109,7 +102,6 @@ function orderingOf(
   sv: Supervariables,
   options: ChooseOrderingOptions,
   predict: (perm: Int32Array) => number,
-  started: (() => Int32Array) | null,
 ): Int32Array {
   const weights = sv.weight;
   const leafSize = options.leafSize;
@@ -119,7 +111,7 @@ function orderingOf(
     case 'amd':
       return expandOrdering(sv, approximateMinimumDegree(sv.graph, { weights }));
     case 'nested-dissection':
-      return bestGraphDissection(sv, options, predict, started);
+      return bestGraphDissection(sv, options, predict);
     case 'coordinate-bisection': {
       const coords = supervariableCoordinates(sv, options.coordinates!);
       return expandOrdering(sv, coordinateBisection(sv.graph, coords, { weights, leafSize }));
@@ -160,24 +152,16 @@ export function chooseOrdering(
     requested !== 'auto'
       ? [requested]
       : ['natural', 'amd', 'nested-dissection', ...(options.coordinates ? (['coordinate-bisection'] as const) : [])];
-  // the multilevel dissection starts on the helper thread (when there is one) and the other
-  // candidates are computed meanwhile; graph dissection is then finished last
-  const started = names.includes('nested-dissection') ? startMultilevelOrdering(sv.graph, sv.weight, options.leafSize, options.threads ?? 1) : null;
-  const order = started ? [...names.filter((x) => x !== 'nested-dissection'), 'nested-dissection' as const] : names;
-  const computed = new Map<OrderingName, { perm: Int32Array; candidate: OrderingCandidate }>();
-  for (const name of order) {
-    const t = performance.now();
-    const perm = orderingOf(name, sv, options, predict, started);
-    const ms = performance.now() - t;
-    computed.set(name, { perm, candidate: { name, nnzL: predict(perm), ms } });
-  }
   const candidates: OrderingCandidate[] = [];
   let best: { perm: Int32Array; name: OrderingName; nnzL: number } | undefined;
-  // keep the candidate of least predicted fill, the earlier name on a tie
+  // compute each candidate and keep the one of least predicted fill
   for (const name of names) {
-    const { perm, candidate } = computed.get(name)!;
-    candidates.push(candidate);
-    if (!best || candidate.nnzL < best.nnzL) best = { perm, name, nnzL: candidate.nnzL };
+    const t = performance.now();
+    const perm = orderingOf(name, sv, options, predict);
+    const ms = performance.now() - t;
+    const nnzL = predict(perm);
+    candidates.push({ name, nnzL, ms });
+    if (!best || nnzL < best.nnzL) best = { perm, name, nnzL };
   }
   return {
     perm: best!.perm,

@@ -18,6 +18,7 @@
  */
 import { inducedSubgraph, type AdjacencyGraph } from './adjacency-graph.js';
 import { coarsen, shuffled, type CoarseLevel, type WeightedGraph } from './coarsen-graph.js';
+import { startSeparatorRuns } from '../parallel-factor.js';
 import { nestedDissectionWith, type DissectionOptions } from './dissection-driver.js';
 import { partWeights, PART_A, PART_B, PART_S, refineSeparator } from './separator-refinement.js';
 import { greedyGrownBisection, refineEdgeCut } from './coarse-bisection.js';
@@ -40,6 +41,8 @@ const INITIAL_TRIES = 6;
 export interface MultilevelOptions extends DissectionOptions {
   /** Seed of the matchings' visiting order (default 1): the result is deterministic. */
   seed?: number;
+  /** Threads for the independent runs on large parts (default 1; the result does not depend on it). */
+  threads?: number;
 }
 
 /** Nested dissection ordering with multilevel vertex separators (perm[k] = k-th pivot). */
@@ -57,11 +60,19 @@ export function multilevelNestedDissection(graph: AdjacencyGraph, options: Multi
     };
     for (let k = 0; k < g.n; k++) g.totalWeight += g.vertexWeight[k];
     const runs = g.n >= HUGE_PART ? RUNS_ON_HUGE_PARTS : g.n >= LARGE_PART ? RUNS_ON_LARGE_PARTS : 1;
+    const seeds = Array.from({ length: runs }, (_, r) => (options.seed ?? 1) + 7919 * (calls + r));
+    calls += runs;
+    // the later half of the runs on the helper thread, when there is one
+    const half = runs >> 1;
+    const theirs = runs > 1 ? startSeparatorRuns(g, seeds.slice(half), options.threads ?? 1) : null;
+    const wheres: Uint8Array[] = [];
+    for (let r = 0; r < (theirs ? half : runs); r++) wheres.push(multilevelSeparator(g, seeds[r]));
+    if (theirs) wheres.push(...theirs());
     let bestScore = Infinity;
-    // independent multilevel runs on large parts; the lightest balanced separator wins
-    // (a side above the balance bound counts its excess as separator weight)
+    // independent multilevel runs on large parts; the lightest balanced separator wins, the
+    // earlier run on a tie (a side above the balance bound counts its excess as separator weight)
     for (let r = 0; r < runs; r++) {
-      const where = multilevelSeparator(g, (options.seed ?? 1) + 7919 * calls++);
+      const where = wheres[r];
       const [a, b, s] = partWeights(g, where);
       const score = s + Math.max(0, Math.max(a, b) - MAX_SIDE_FRACTION * g.totalWeight);
       if (score < bestScore) {
