@@ -227,7 +227,8 @@ export function updateProduct(
 /**
  * Y[j, c] −= Σ_i A[i, j] G[i, c] for j < n, c < k: A (m×n) column-major at a[aOff], ld lda;
  * G (m×k) row-major (g[i·k + c]); Y column-major with leading dimension ldy.
- * Two columns of A and four right-hand sides per pass: 8 multiply-adds per 6 loads.
+ * Two columns of A and four right-hand sides per pass: 8 multiply-adds per 6 loads; two leftover
+ * right-hand sides share one pass (6 of a block of 6 take two passes over A, not three).
  */
 export function subtractTransposedProduct(
   m: number,
@@ -257,7 +258,20 @@ export function subtractTransposedProduct(
       y[c * ldy + j] -= s00; y[(c + 1) * ldy + j] -= s01; y[(c + 2) * ldy + j] -= s02; y[(c + 3) * ldy + j] -= s03;
       y[c * ldy + j + 1] -= s10; y[(c + 1) * ldy + j + 1] -= s11; y[(c + 2) * ldy + j + 1] -= s12; y[(c + 3) * ldy + j + 1] -= s13;
     }
-    // leftover right-hand sides
+    // two leftover right-hand sides in one pass
+    if (c + 2 <= k) {
+      let s00 = 0, s01 = 0, s10 = 0, s11 = 0;
+      for (let i = 0, gi = c; i < m; i++, gi += k) {
+        const a0 = a[q0 + i], a1 = a[q1 + i];
+        const g0 = g[gi], g1 = g[gi + 1];
+        s00 += a0 * g0; s01 += a0 * g1;
+        s10 += a1 * g0; s11 += a1 * g1;
+      }
+      y[c * ldy + j] -= s00; y[(c + 1) * ldy + j] -= s01;
+      y[c * ldy + j + 1] -= s10; y[(c + 1) * ldy + j + 1] -= s11;
+      c += 2;
+    }
+    // a last leftover right-hand side
     for (; c < k; c++) {
       let s0 = 0, s1 = 0;
       for (let i = 0, gi = c; i < m; i++, gi += k) {

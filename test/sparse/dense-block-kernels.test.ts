@@ -58,12 +58,16 @@ describe.each([
     // reference: ml-matrix dense products
     const p = am.mmul(wm.transpose());
     for (let j = 0; j < n; j++) for (let i = 0; i < m; i++) expect(Math.abs(c[i + j * m] + p.get(i, j))).toBeLessThan(1e-12);
-    const g = new Float64Array(m * n).map(() => rnd() - 0.5); // G (m×n) row-major, n right-hand sides
-    const y = new Float64Array(k * n);
-    subtractTransposedProduct(m, k, n, a, 0, m, g, y, k);
-    const gm = new Matrix(m, n);
-    for (let i = 0; i < m; i++) for (let q = 0; q < n; q++) gm.set(i, q, g[i * n + q]);
-    const q2 = am.transpose().mmul(gm);
-    for (let q = 0; q < n; q++) for (let j = 0; j < k; j++) expect(Math.abs(y[q * k + j] + q2.get(j, q))).toBeLessThan(1e-12);
+    // right-hand side counts that exercise the groups of four, the pair and the single leftover
+    for (const rhs of [n, 6, 7, 2, 1]) {
+      const g = new Float64Array(m * rhs).map(() => rnd() - 0.5); // G (m×rhs) row-major
+      const y = new Float64Array(k * rhs);
+      subtractTransposedProduct(m, k, rhs, a, 0, m, g, y, k);
+      const gm = new Matrix(m, rhs);
+      for (let i = 0; i < m; i++) for (let q = 0; q < rhs; q++) gm.set(i, q, g[i * rhs + q]);
+      // reference: ml-matrix Aᵀ G
+      const q2 = am.transpose().mmul(gm);
+      for (let q = 0; q < rhs; q++) for (let j = 0; j < k; j++) expect(Math.abs(y[q * k + j] + q2.get(j, q))).toBeLessThan(1e-12);
+    }
   });
 });
