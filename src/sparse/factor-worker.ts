@@ -1,9 +1,9 @@
 /**
  * Helper thread of the parallel LDLᵀ (src/sparse/parallel-factor.ts). It waits for jobs on its
- * message port, runs them on the shared arrays, posts the result on the same port and then
- * raises the job's flag, so the main thread — blocked in Atomics.wait — can take the result
- * with receiveMessageOnPort. Every job answers, an exception included, so the main thread
- * never waits forever on a job that started.
+ * message port, runs them on the shared arrays, posts the result (tagged with the job's id) on
+ * the same port and then writes the id into the job's flag, so the main thread — blocked in
+ * Atomics.wait — can take the result with receiveMessageOnPort. Every job answers, an exception
+ * included, so the main thread never waits forever on a job that started.
  */
 import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
@@ -95,8 +95,8 @@ port.on('message', (job: HelperJob) => {
   } catch (e) {
     result = { kind: 'failed', message: e instanceof Error ? e.message : String(e) };
   }
-  port.postMessage(result);
-  Atomics.store(job.flag, 0, 1);
+  port.postMessage({ ...result, id: job.id });
+  Atomics.store(job.flag, 0, job.id ?? 0);
   Atomics.notify(job.flag, 0);
 });
 void parentPort;

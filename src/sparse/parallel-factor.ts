@@ -9,9 +9,10 @@
  * the same SharedArrayBuffer-backed arrays, so nothing is copied or merged but the pivot counts.
  * Solves use the same split: the two parts' sweeps run at once, the top's between them.
  *
- * Synchronisation: the job is posted on a MessagePort; this thread works, then blocks in
- * Atomics.wait on the job's flag, which the helper raises after posting its result; the result
- * is read with receiveMessageOnPort. Nothing needs the event loop, so the API stays synchronous.
+ * Synchronisation: the job is posted on a MessagePort with an id; this thread works, then blocks
+ * in Atomics.wait until the helper writes that id into the shared flag after posting its result;
+ * the result is read with receiveMessageOnPort. Nothing needs the event loop, so the API stays
+ * synchronous.
  *
  * The helper is one module-wide thread, started on first use and unref'd (it never keeps the
  * process alive). It is used only where the compiled worker file exists next to this module
@@ -43,6 +44,8 @@ import { backwardSweepRanges, diagonalSolve, forwardSweepRanges, sweepWorkspace 
 
 interface Flagged {
   flag: Int32Array;
+  /** Set by postJob; the helper writes it into the flag and its result when done. */
+  id?: number;
 }
 
 export type HelperJob = Flagged &
@@ -133,12 +136,27 @@ function startHelper(): Helper | null {
 }
 
 /** Posts a job, returns a function that waits for its result. */
+let lastJobId = 0;
+
+/**
+ * Posts a job, returns a function that waits for its result. Jobs carry an id that the helper
+ * writes into the flag and its answer: an answer to an earlier job whose wait was abandoned (this
+ * thread threw during its own share) is skipped, never taken for this one's.
+ */
 function postJob(h: Helper, job: HelperJob): (timeoutMs?: number) => HelperResult | undefined {
-  Atomics.store(h.flag, 0, 0);
-  h.port.postMessage(job);
+  const id = (lastJobId = (lastJobId % 0x3fffffff) + 1);
+  h.port.postMessage({ ...job, id });
   return (timeoutMs = Infinity) => {
-    if (Atomics.wait(h.flag, 0, 0, timeoutMs) === 'timed-out') return undefined;
-    return receiveMessageOnPort(h.port)?.message as HelperResult | undefined;
+    const deadline = performance.now() + timeoutMs;
+    // the flag holds the id of the last finished job
+    for (let seen = Atomics.load(h.flag, 0); seen !== id; seen = Atomics.load(h.flag, 0)) {
+      const left = deadline - performance.now();
+      if (left <= 0 || Atomics.wait(h.flag, 0, seen, left) === 'timed-out') return undefined;
+    }
+    for (;;) {
+      const got = receiveMessageOnPort(h.port)?.message as (HelperResult & { id?: number }) | undefined;
+      if (got === undefined || got.id === id) return got;
+    }
   };
 }
 
