@@ -1,31 +1,18 @@
 /**
  * The products of a thin block with the large Krylov basis V (n × m, m up to a few hundred)
  * that dominate the dense work of block Lanczos — P = VᵀX, X ← X + α V S and the restart
- * V ← V S in place — split by rows
- * between this thread and the helper thread of the sparse layer (src/sparse/parallel-factor.ts),
- * when V lives in shared memory (basisBlock) and the product is large enough to pay for the
- * hand-over. The small operands are copied into shared staging blocks; each thread sums its rows,
+ * V ← V S in place — split by rows between this thread and the helper thread of the sparse
+ * layer (src/sparse/parallel-factor.ts), when V lives in shared memory (basisBlock) and the
+ * product is large enough to pay for the hand-over. The small operands are copied into shared staging blocks; each thread sums its rows,
  * the two partial P are added (fixed order), the helper's rows of X are copied back. Otherwise
  * the plain kernels of src/dense/block-ops.ts run here.
  */
 import { addTimesSmall, timesSmallInPlace, transposeTimes } from '../dense/block-ops.js';
-import { availableThreads, runSplit, sharedBlock } from '../sparse/parallel-factor.js';
+import { SPLIT_MIN_WORK, availableThreads, inSharedMemory, runSplit, sharedBlock, sharedScratch } from '../sparse/parallel-factor.js';
 
-/** Products below this many multiply-adds stay on one thread (our choice, about 1 ms of work). */
-const SPLIT_MIN_WORK = 2e6;
-
-let staging: Float64Array = new Float64Array(0);
-let stagingOut: Float64Array = new Float64Array(0);
-
-function stage(length: number): Float64Array {
-  if (staging.length < length) staging = sharedBlock(length);
-  return staging.subarray(0, length);
-}
-
-function stageOut(length: number): Float64Array {
-  if (stagingOut.length < length) stagingOut = sharedBlock(length);
-  return stagingOut.subarray(0, length);
-}
+/** Shared staging blocks for the small operands, reused from call to call. */
+const stage = sharedScratch();
+const stageOut = sharedScratch();
 
 /** An n×m basis block, in shared memory when a helper thread may work on it. */
 export function basisBlock(length: number): Float64Array {
@@ -39,8 +26,7 @@ function splittable(a: Float64Array, work: number): boolean {
 /** P = AᵀB (A rows×p in shared memory: the basis; B rows×q), p×q. */
 export function basisTransposeTimes(a: Float64Array, b: Float64Array, rows: number, p: number, q: number): Float64Array {
   if (!splittable(a, rows * p * q)) return transposeTimes(a, b, rows, p, q);
-  const bs = b.buffer instanceof SharedArrayBuffer ? b : stage(rows * q);
-  if (bs !== b) bs.set(b.subarray(0, rows * q));
+  const bs = inSharedMemory(b, rows * q, stage);
   const theirs = stageOut(p * q);
   const mid = rows >> 1;
   const mine = new Float64Array(p * q);
@@ -64,13 +50,13 @@ export function basisAddTimesSmall(c: Float64Array, a: Float64Array, rows: numbe
   const mid = rows >> 1;
   // the helper's rows of C, staged when C is not shared
   if (!shared) for (let j = 0; j < q; j++) cs.set(c.subarray(j * rows + mid, (j + 1) * rows), j * rows + mid);
-  const ss = stage(p * q);
-  ss.set(s.subarray(0, p * q));
+  const ss = inSharedMemory(s, p * q, stage);
   const ran = runSplit({ kind: 'addTimesSmall', c: cs, a, rows, p, s: ss, q, alpha, rowFrom: mid, rowTo: rows }, () => {
     addTimesSmall(c, a, rows, p, s, q, alpha, 0, mid);
   });
   if (!ran) {
-    addTimesSmall(c, a, rows, p, s, q, alpha, mid, rows);
+    // no helper after all (runSplit ran nothing): every row here
+    addTimesSmall(c, a, rows, p, s, q, alpha);
     return;
   }
   if (!shared) for (let j = 0; j < q; j++) c.set(cs.subarray(j * rows + mid, (j + 1) * rows), j * rows + mid);
@@ -82,11 +68,11 @@ export function basisTimesSmallInPlace(a: Float64Array, rows: number, p: number,
     timesSmallInPlace(a, rows, p, s, q);
     return;
   }
-  const ss = stage(p * q);
-  ss.set(s.subarray(0, p * q));
+  const ss = inSharedMemory(s, p * q, stage);
   const mid = rows >> 1;
   const ran = runSplit({ kind: 'timesSmallInPlace', a, rows, p, s: ss, q, rowFrom: mid, rowTo: rows }, () => timesSmallInPlace(a, rows, p, s, q, 0, mid));
-  if (!ran) timesSmallInPlace(a, rows, p, s, q, mid, rows);
+  // no helper after all (runSplit ran nothing): every row here
+  if (!ran) timesSmallInPlace(a, rows, p, s, q);
 }
 
 /** C = A S (A rows×p shared basis, S p×q). */

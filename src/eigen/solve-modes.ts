@@ -305,13 +305,13 @@ function factorWithMove(
   return f;
 }
 
-/** Sturm count in the gap after λ_N; if it comes out high, once more closer to λ_N. */
 /** The solution without its factorization (only the factor's diagnostics are kept). */
 function withoutFactor(s: Solved): { found: Omit<Solved, 'factor'>; diagnostics: FactorDiagnostics } {
   const { factor, ...found } = s;
   return { found, diagnostics: factor.diagnostics };
 }
 
+/** Sturm count in the gap after λ_N; if it comes out high, once more closer to λ_N. */
 function gapSturm(solved: Omit<Solved, 'factor'>, factorAt: (sigma: number) => ShiftedFactor, warnings: string[]): SturmCheck & { note?: string } {
   const count = solved.values.length;
   const placement = placeSturmShift(solved.values, solved.beyond);

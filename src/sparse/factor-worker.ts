@@ -7,7 +7,7 @@
  */
 import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
-import { parentPort, workerData, type MessagePort } from 'node:worker_threads';
+import { workerData, type MessagePort } from 'node:worker_threads';
 import { addTimesSmall, timesSmallInPlace, transposeTimes } from '../dense/block-ops.js';
 import { multilevelSeparator } from './ordering/multilevel-bisection.js';
 import { symMultiplyColumns } from './csc.js';
@@ -30,14 +30,11 @@ const collect = runInNewContext('gc') as () => void;
 /** Workspaces kept between jobs (a shared supernode sends one job per panel). */
 let map = new Int32Array(0);
 let work: UpdateWorkspace | null = null;
-let workRows = -1;
 
 function workspaces(s: SupernodalStructure): { map: Int32Array; work: UpdateWorkspace } {
   if (map.length < s.n) map = new Int32Array(s.n);
-  if (work === null || workRows < s.maxRows) {
-    work = updateWorkspace(s);
-    workRows = s.maxRows;
-  }
+  // the workspace is sized by the structure's largest row count
+  if (work === null || work.rel.length < s.maxRows) work = updateWorkspace(s);
   return { map, work };
 }
 
@@ -96,7 +93,6 @@ port.on('message', (job: HelperJob) => {
     result = { kind: 'failed', message: e instanceof Error ? e.message : String(e) };
   }
   port.postMessage({ ...result, id: job.id });
-  Atomics.store(job.flag, 0, job.id ?? 0);
+  Atomics.store(job.flag, 0, job.id);
   Atomics.notify(job.flag, 0);
 });
-void parentPort;

@@ -121,17 +121,17 @@ export function factorSupernodes(
       let count = 0;
       while (dn !== -1) {
         const after = link[dn];
-        const stop = rowsBefore(s, dn, nextRow[dn], l);
+        const start = nextRow[dn];
+        const stop = rowsBefore(s, dn, start, l);
+        nextRow[dn] = stop;
         if (shared) {
           if (list.length < 3 * (count + 1)) list = growTo(list, 6 * (count + 1));
           list[3 * count] = dn;
-          list[3 * count + 1] = nextRow[dn];
+          list[3 * count + 1] = start;
           list[3 * count + 2] = stop;
           count++;
-          nextRow[dn] = stop;
         } else {
-          applyDescendant(s, dn, sn, nextRow[dn], stop, values, d, map, work);
-          nextRow[dn] = stop;
+          applyDescendant(s, dn, sn, start, stop, values, d, map, work);
           enqueue(dn);
         }
         dn = after;

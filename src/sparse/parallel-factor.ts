@@ -42,55 +42,51 @@ import type { WeightedGraph } from './ordering/coarsen-graph.js';
 import { symMultiplyColumns, type SymmetricCsc } from './csc.js';
 import { backwardSweepRanges, diagonalSolve, forwardSweepRanges, sweepWorkspace } from './triangular-solve.js';
 
-interface Flagged {
-  flag: Int32Array;
-  /** Set by postJob; the helper writes it into the flag and its result when done. */
-  id?: number;
-}
+/** What a job asks the helper to do. */
+export type JobBody =
+  | { kind: 'ping' }
+  | { kind: 'collect' }
+  | { kind: 'separatorRuns'; graph: WeightedGraph; seeds: number[] }
+  | {
+      kind: 'factor';
+      structure: SupernodalStructure;
+      shift: number;
+      tolerance: number;
+      diagonalScale: number;
+      values: Float64Array;
+      d: Float64Array;
+      nextRow: Int32Array;
+      ranges: [number, number][];
+    }
+  | {
+      kind: 'forward';
+      structure: SupernodalStructure;
+      values: Float64Array;
+      d: Float64Array;
+      x: Float64Array;
+      columns: number;
+      ranges: [number, number][];
+      index: Int32Array;
+      count: number;
+      acc: Float64Array;
+    }
+  | { kind: 'backward'; structure: SupernodalStructure; values: Float64Array; d: Float64Array; x: Float64Array; columns: number; ranges: [number, number][] }
+  | BlockProductJob
+  | {
+      kind: 'descendants';
+      structure: SupernodalStructure;
+      values: Float64Array;
+      d: Float64Array;
+      sn: number;
+      /** (dn, start, stop) triples. */
+      list: Int32Array;
+      /** The helper's share: target columns ≥ fromColumn. */
+      fromColumn: number;
+    }
+  | { kind: 'panel'; structure: SupernodalStructure; values: Float64Array; d: Float64Array; sn: number; c0: number; c1: number; from: number; to: number };
 
-export type HelperJob = Flagged &
-  (
-    | { kind: 'ping' }
-    | { kind: 'collect' }
-    | { kind: 'separatorRuns'; graph: WeightedGraph; seeds: number[] }
-    | {
-        kind: 'factor';
-        structure: SupernodalStructure;
-        shift: number;
-        tolerance: number;
-        diagonalScale: number;
-        values: Float64Array;
-        d: Float64Array;
-        nextRow: Int32Array;
-        ranges: [number, number][];
-      }
-    | {
-        kind: 'forward';
-        structure: SupernodalStructure;
-        values: Float64Array;
-        d: Float64Array;
-        x: Float64Array;
-        columns: number;
-        ranges: [number, number][];
-        index: Int32Array;
-        count: number;
-        acc: Float64Array;
-      }
-    | { kind: 'backward'; structure: SupernodalStructure; values: Float64Array; d: Float64Array; x: Float64Array; columns: number; ranges: [number, number][] }
-    | BlockProductJob
-    | {
-        kind: 'descendants';
-        structure: SupernodalStructure;
-        values: Float64Array;
-        d: Float64Array;
-        sn: number;
-        /** (dn, start, stop) triples. */
-        list: Int32Array;
-        /** The helper's share: target columns ≥ fromColumn. */
-        fromColumn: number;
-      }
-    | { kind: 'panel'; structure: SupernodalStructure; values: Float64Array; d: Float64Array; sn: number; c0: number; c1: number; from: number; to: number }
-  );
+/** A job as posted: its body, the shared flag and the id the helper writes into it when done. */
+export type HelperJob = JobBody & { flag: Int32Array; id: number };
 
 export type HelperResult =
   | { kind: 'pong' }
@@ -100,6 +96,8 @@ export type HelperResult =
   | { kind: 'failed'; message: string };
 
 const workerUrl = new URL('./factor-worker.js', import.meta.url);
+/** The compiled helper exists next to this module (not when the sources run untranspiled). */
+const workerBuilt = existsSync(fileURLToPath(workerUrl));
 
 interface Helper {
   port: MessagePort;
@@ -112,7 +110,7 @@ let helper: Helper | null | undefined;
 export function availableThreads(): number {
   if (process.env.MODALGATE_THREADS === '1') return 1;
   if (availableParallelism() < 2) return 1;
-  return existsSync(fileURLToPath(workerUrl)) ? 2 : 1;
+  return workerBuilt ? 2 : 1;
 }
 
 function startHelper(): Helper | null {
@@ -126,7 +124,7 @@ function startHelper(): Helper | null {
   // an error after start-up shows as a failed job; before it, as a missing pong
   worker.on('error', () => {});
   const candidate = { port: port1, flag: new Int32Array(new SharedArrayBuffer(4)) };
-  const reply = runJob(candidate, { kind: 'ping' }, 10_000);
+  const reply = postJob(candidate, { kind: 'ping' })(10_000);
   if (reply?.kind !== 'pong') {
     void worker.terminate();
     return null;
@@ -135,7 +133,6 @@ function startHelper(): Helper | null {
   return helper;
 }
 
-/** Posts a job, returns a function that waits for its result. */
 let lastJobId = 0;
 
 /**
@@ -143,9 +140,10 @@ let lastJobId = 0;
  * writes into the flag and its answer: an answer to an earlier job whose wait was abandoned (this
  * thread threw during its own share) is skipped, never taken for this one's.
  */
-function postJob(h: Helper, job: HelperJob): (timeoutMs?: number) => HelperResult | undefined {
+function postJob(h: Helper, body: JobBody): (timeoutMs?: number) => HelperResult | undefined {
   const id = (lastJobId = (lastJobId % 0x3fffffff) + 1);
-  h.port.postMessage({ ...job, id });
+  const job: HelperJob = { ...body, flag: h.flag, id };
+  h.port.postMessage(job);
   return (timeoutMs = Infinity) => {
     const deadline = performance.now() + timeoutMs;
     // the flag holds the id of the last finished job
@@ -160,8 +158,13 @@ function postJob(h: Helper, job: HelperJob): (timeoutMs?: number) => HelperResul
   };
 }
 
-function runJob(h: Helper, job: Omit<HelperJob, 'flag'>, timeoutMs: number): HelperResult | undefined {
-  return postJob(h, { ...job, flag: h.flag } as HelperJob)(timeoutMs);
+/** Runs `body` on the helper while `mine` runs here; returns the helper's result, of kind `expect`. */
+function alongside<K extends HelperResult['kind']>(h: Helper, body: JobBody, mine: () => void, expect: K): Extract<HelperResult, { kind: K }> {
+  const wait = postJob(h, body);
+  mine();
+  const r = wait();
+  if (r?.kind !== expect) failed(r);
+  return r as Extract<HelperResult, { kind: K }>;
 }
 
 let collector: (() => void) | undefined;
@@ -179,7 +182,8 @@ function collectHere(): void {
   collector();
 }
 
-function sharedFloat64(length: number): Float64Array {
+/** A zeroed Float64Array in shared memory. */
+export function sharedBlock(length: number): Float64Array {
   return new Float64Array(new SharedArrayBuffer(8 * Math.max(1, length)), 0, length);
 }
 
@@ -187,8 +191,28 @@ function sharedInt32(length: number): Int32Array {
   return new Int32Array(new SharedArrayBuffer(4 * Math.max(1, length)), 0, length);
 }
 
+/**
+ * A shared block that grows on demand and is handed out again and again: shared memory is
+ * reclaimed late by the collector, so blocks used once per call would pile up.
+ */
+export function sharedScratch(): (length: number) => Float64Array {
+  let block = sharedBlock(0);
+  return (length) => {
+    if (block.length < length) block = sharedBlock(length);
+    return block.subarray(0, length);
+  };
+}
+
+/** The first `length` entries of `x`, copied into `scratch` unless they are in shared memory already. */
+export function inSharedMemory(x: Float64Array, length: number, scratch: (length: number) => Float64Array): Float64Array {
+  if (x.buffer instanceof SharedArrayBuffer) return x;
+  const copy = scratch(length);
+  copy.set(x.subarray(0, length));
+  return copy;
+}
+
 function shared<T extends Float64Array | Int32Array>(a: T): T {
-  const out = (a instanceof Float64Array ? sharedFloat64(a.length) : sharedInt32(a.length)) as T;
+  const out = (a instanceof Float64Array ? sharedBlock(a.length) : sharedInt32(a.length)) as T;
   out.set(a);
   return out;
 }
@@ -220,29 +244,14 @@ export function parallelSupernodalLdlt(s: SupernodalStructure, shift: number, mo
   const h = startHelper();
   if (h === null || split.parts.length !== 2) return null;
   // before the factor's large allocation: let both threads drop the shared arrays of earlier work
-  const collected = postJob(h, { kind: 'collect', flag: h.flag })();
-  if (collected?.kind !== 'done') failed(collected);
-  collectHere();
-  const values = sharedFloat64(s.valuePtr[s.supernodes]);
-  const d = sharedFloat64(s.n);
+  alongside(h, { kind: 'collect' }, collectHere, 'done');
+  const values = sharedBlock(s.valuePtr[s.supernodes]);
+  const d = sharedBlock(s.n);
   const nextRow = sharedInt32(s.supernodes);
   const out = { values, d, nextRow };
-  const wait = postJob(h, {
-    kind: 'factor',
-    structure: s,
-    shift,
-    tolerance: monitor.tolerance,
-    diagonalScale: monitor.diagonalScale,
-    values,
-    d,
-    nextRow,
-    ranges: split.parts[1],
-    flag: h.flag,
-  });
-  factorSupernodes(s, shift, monitor, out, split.parts[0]);
-  const r = wait();
-  if (r?.kind !== 'factored') failed(r);
-  monitor.merge(r.monitor);
+  const job: JobBody = { kind: 'factor', structure: s, shift, tolerance: monitor.tolerance, diagonalScale: monitor.diagonalScale, values, d, nextRow, ranges: split.parts[1] };
+  const theirs = alongside(h, job, () => factorSupernodes(s, shift, monitor, out, split.parts[0]), 'factored');
+  monitor.merge(theirs.monitor);
   factorSupernodes(s, shift, monitor, out, split.top, [...split.parts[0], ...split.parts[1]], cooperation(h, s, values, d));
   return { structure: s, values, d };
 }
@@ -260,12 +269,6 @@ const SHARE_MIN_PANEL_ROWS = 256;
  */
 function cooperation(h: Helper, s: SupernodalStructure, values: Float64Array, d: Float64Array): SupernodeCooperation {
   const { superStart, rowPtr, valuePtr } = s;
-  const run = (job: { kind: 'descendants' | 'panel' } & Record<string, unknown>, mine: () => void): void => {
-    const wait = postJob(h, { ...job, structure: s, values, d, flag: h.flag } as HelperJob);
-    mine();
-    const r = wait();
-    if (r?.kind !== 'done') failed(r);
-  };
   return {
     wants: (sn) => rowPtr[sn + 1] - rowPtr[sn] >= SHARE_MIN_ROWS && superStart[sn + 1] - superStart[sn] >= SHARE_MIN_COLUMNS,
     descendants(sn, list, count, map, work) {
@@ -290,7 +293,8 @@ function cooperation(h: Helper, s: SupernodalStructure, values: Float64Array, d:
       for (let acc = 0; mid < nc && acc + perColumn[mid] <= total / 2; mid++) acc += perColumn[mid];
       const fromColumn = f + mid;
       const triples = list.slice(0, 3 * count);
-      run({ kind: 'descendants', sn, list: triples, fromColumn }, () => {
+      const job: JobBody = { kind: 'descendants', structure: s, values, d, sn, list: triples, fromColumn };
+      alongside(h, job, () => {
         // this thread: target columns before fromColumn
         for (let t = 0; t < count; t++) {
           const dn = triples[3 * t];
@@ -298,7 +302,7 @@ function cooperation(h: Helper, s: SupernodalStructure, values: Float64Array, d:
           const split = rowsBefore(s, dn, start, fromColumn);
           if (split > start) applyDescendant(s, dn, sn, start, triples[3 * t + 2], values, d, map, work, 0, split - start);
         }
-      });
+      }, 'done');
     },
     panel(sn, c0, c1, w) {
       const f = superStart[sn];
@@ -311,13 +315,14 @@ function cooperation(h: Helper, s: SupernodalStructure, values: Float64Array, d:
       }
       // this thread: the top half with the panel's diagonal block; the helper: the rows below
       const split = Math.max(c1 - c0, rows >> 1);
-      run({ kind: 'panel', sn, c0, c1, from: split, to: rows }, () => panelUpdateRows(values, v0, nr, c0, c1, f, d, w, 0, split));
+      const job: JobBody = { kind: 'panel', structure: s, values, d, sn, c0, c1, from: split, to: rows };
+      alongside(h, job, () => panelUpdateRows(values, v0, nr, c0, c1, f, d, w, 0, split), 'done');
     },
   };
 }
 
 /** The helper's share of a shared supernode's descendant updates (called in the helper). */
-export function helperDescendants(job: Extract<HelperJob, { kind: 'descendants' }>, map: Int32Array, work: UpdateWorkspace): void {
+export function helperDescendants(job: Extract<JobBody, { kind: 'descendants' }>, map: Int32Array, work: UpdateWorkspace): void {
   const s = job.structure;
   const sn = job.sn;
   const r0 = s.rowPtr[sn];
@@ -334,7 +339,7 @@ export function helperDescendants(job: Extract<HelperJob, { kind: 'descendants' 
 }
 
 /** The helper's share of a panel update (called in the helper). */
-export function helperPanel(job: Extract<HelperJob, { kind: 'panel' }>, w: Float64Array): void {
+export function helperPanel(job: Extract<JobBody, { kind: 'panel' }>, w: Float64Array): void {
   const s = job.structure;
   const nr = s.rowPtr[job.sn + 1] - s.rowPtr[job.sn];
   panelUpdateRows(job.values, s.valuePtr[job.sn], nr, job.c0, job.c1, s.superStart[job.sn], job.d, w, job.from, job.to);
@@ -348,8 +353,8 @@ export interface SplitSolve {
   count: number;
   /** The top's columns, ascending. */
   topColumns: Int32Array;
-  /** The helper's accumulator for the top's rows, reused (grown) from solve to solve. */
-  helperAcc: Float64Array;
+  /** The helper's accumulator for the top's rows, reused from solve to solve. */
+  helperAcc: (length: number) => Float64Array;
 }
 
 export function prepareSplitSolve(s: SupernodalStructure, split: SubtreeSplit): SplitSolve {
@@ -362,7 +367,7 @@ export function prepareSplitSolve(s: SupernodalStructure, split: SubtreeSplit): 
       cols.push(j);
     }
   }
-  return { split, index, count: cols.length, topColumns: Int32Array.from(cols), helperAcc: sharedFloat64(0) };
+  return { split, index, count: cols.length, topColumns: Int32Array.from(cols), helperAcc: sharedScratch() };
 }
 
 /**
@@ -379,14 +384,11 @@ export function splitSolveInPlace(f: SupernodalFactor, x: Float64Array, k: numbe
   const n = f.structure.n;
   const ws = sweepWorkspace(f, k);
   const mine = new Float64Array(count * k);
-  // shared memory is reclaimed late by the collector: keep one accumulator per plan
-  if (plan.helperAcc.length < count * k) plan.helperAcc = sharedFloat64(count * k);
-  const theirs = plan.helperAcc.subarray(0, count * k).fill(0);
-  const common = { structure: f.structure, values: f.values, d: f.d, x, columns: k, flag: h.flag };
-  let wait = postJob(h, { ...common, kind: 'forward', ranges: split.parts[1], index, count, acc: theirs });
-  forwardSweepRanges(f, x, k, ws, split.parts[0], { index, count, acc: mine });
-  let r = wait();
-  if (r?.kind !== 'done') failed(r);
+  const theirs = plan.helperAcc(count * k).fill(0);
+  const common = { structure: f.structure, values: f.values, d: f.d, x, columns: k };
+  alongside(h, { ...common, kind: 'forward', ranges: split.parts[1], index, count, acc: theirs }, () => {
+    forwardSweepRanges(f, x, k, ws, split.parts[0], { index, count, acc: mine });
+  }, 'done');
   // the parts' updates of the top's rows, in a fixed order
   for (let c = 0; c < k; c++) {
     for (let t = 0; t < count; t++) x[c * n + topColumns[t]] += mine[c * count + t] + theirs[c * count + t];
@@ -394,39 +396,34 @@ export function splitSolveInPlace(f: SupernodalFactor, x: Float64Array, k: numbe
   forwardSweepRanges(f, x, k, ws, split.top);
   diagonalSolve(f, x, k);
   backwardSweepRanges(f, x, k, ws, split.top);
-  wait = postJob(h, { ...common, kind: 'backward', ranges: split.parts[1] });
-  backwardSweepRanges(f, x, k, ws, split.parts[0]);
-  r = wait();
-  if (r?.kind !== 'done') failed(r);
+  alongside(h, { ...common, kind: 'backward', ranges: split.parts[1] }, () => backwardSweepRanges(f, x, k, ws, split.parts[0]), 'done');
   return true;
 }
 
-/**
- * Runs `job` (a block product on shared arrays, see src/eigen/shared-block-products.ts) on the
- * helper while `mine` runs here; false (and `mine` not run) when there is no helper.
- */
+/** Block products on shared arrays that the helper runs on a share of the rows or columns. */
 export type BlockProductJob =
   | { kind: 'transposeTimes'; a: Float64Array; b: Float64Array; rows: number; p: number; q: number; out: Float64Array; rowFrom: number; rowTo: number }
   | { kind: 'addTimesSmall'; c: Float64Array; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; alpha: number; rowFrom: number; rowTo: number }
   | { kind: 'timesSmallInPlace'; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; rowFrom: number; rowTo: number }
   | { kind: 'symMultiply'; a: SymmetricCsc; x: Float64Array; k: number; y: Float64Array; colFrom: number; colTo: number };
 
+/**
+ * Runs `job` (see src/eigen/shared-block-products.ts) on the helper while `mine` runs here;
+ * false (and `mine` not run) when there is no helper.
+ */
 export function runSplit(job: BlockProductJob, mine: () => void): boolean {
   const h = startHelper();
   if (h === null) return false;
-  const wait = postJob(h, { ...job, flag: h.flag } as HelperJob);
-  mine();
-  const r = wait();
-  if (r?.kind !== 'done') failed(r);
+  alongside(h, job, mine, 'done');
   return true;
 }
 
-/** Sparse products below this many multiply-adds stay on this thread (our choice). */
-const SPLIT_PRODUCT_MIN_WORK = 2e6;
+/** Products below this many multiply-adds stay on this thread (our choice, about 1 ms of work). */
+export const SPLIT_MIN_WORK = 2e6;
 
 const sharedMatrices = new WeakMap<SymmetricCsc, SymmetricCsc>();
-let productX: Float64Array = sharedFloat64(0);
-let productY: Float64Array = sharedFloat64(0);
+const productX = sharedScratch();
+const productY = sharedScratch();
 
 /** A copy of `a` in shared memory (made once per matrix), or null without a helper thread. */
 export function sharedMatrix(a: SymmetricCsc): SymmetricCsc | null {
@@ -447,14 +444,12 @@ export function sharedMatrix(a: SymmetricCsc): SymmetricCsc | null {
 export function splitSymMultiplyBlock(a: SymmetricCsc, x: Float64Array, k: number, y: Float64Array): boolean {
   const n = a.n;
   const nnz = a.colPtr[n];
-  if (nnz * k < SPLIT_PRODUCT_MIN_WORK || !(a.values.buffer instanceof SharedArrayBuffer)) return false;
+  if (nnz * k < SPLIT_MIN_WORK || !(a.values.buffer instanceof SharedArrayBuffer)) return false;
   const h = startHelper();
   if (h === null) return false;
-  if (productX.length < n * k) productX = sharedFloat64(n * k);
-  if (productY.length < n * k) productY = sharedFloat64(n * k);
-  const xs = productX.subarray(0, n * k);
-  const ys = productY.subarray(0, n * k).fill(0);
-  xs.set(x.subarray(0, n * k));
+  // X staged in shared memory unless it is there already; the helper's partial Y apart
+  const xs = inSharedMemory(x, n * k, productX);
+  const ys = productY(n * k).fill(0);
   // the column where half of the stored entries lie before
   let lo = 0;
   let hi = n;
@@ -463,11 +458,10 @@ export function splitSymMultiplyBlock(a: SymmetricCsc, x: Float64Array, k: numbe
     if (a.colPtr[mid] < nnz / 2) lo = mid + 1;
     else hi = mid;
   }
-  const wait = postJob(h, { kind: 'symMultiply', a, x: xs, k, y: ys, colFrom: lo, colTo: n, flag: h.flag });
-  y.fill(0, 0, n * k);
-  symMultiplyColumns(a, xs, k, y, 0, lo);
-  const r = wait();
-  if (r?.kind !== 'done') failed(r);
+  alongside(h, { kind: 'symMultiply', a, x: xs, k, y: ys, colFrom: lo, colTo: n }, () => {
+    y.fill(0, 0, n * k);
+    symMultiplyColumns(a, xs, k, y, 0, lo);
+  }, 'done');
   for (let i = 0; i < n * k; i++) y[i] += ys[i];
   return true;
 }
@@ -481,15 +475,10 @@ export function startSeparatorRuns(graph: WeightedGraph, seeds: number[], thread
   if (threads < 2 || seeds.length === 0) return null;
   const h = startHelper();
   if (h === null) return null;
-  const wait = postJob(h, { kind: 'separatorRuns', graph, seeds, flag: h.flag });
+  const wait = postJob(h, { kind: 'separatorRuns', graph, seeds });
   return () => {
     const r = wait();
     if (r?.kind !== 'separators') failed(r);
     return r.wheres;
   };
-}
-
-/** A zeroed n×k block in shared memory (the right-hand sides of a parallel solve). */
-export function sharedBlock(length: number): Float64Array {
-  return sharedFloat64(length);
 }

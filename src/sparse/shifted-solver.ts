@@ -9,8 +9,8 @@ import { chooseOrdering } from './ordering/choose-ordering.js';
 import { supernodalLdlt, type SupernodalFactor } from './numeric-ldlt.js';
 import { PivotMonitor } from './pivot-monitor.js';
 import { analyzeShiftedPair, type SupernodalStructure } from './symbolic.js';
-import { solveWorkspaceSize, supernodalSolveInPlace } from './triangular-solve.js';
-import { availableThreads, parallelSupernodalLdlt, prepareSplitSolve, shareStructure, sharedBlock, splitSolveInPlace, type SplitSolve } from './parallel-factor.js';
+import { supernodalSolveInPlace } from './triangular-solve.js';
+import { availableThreads, parallelSupernodalLdlt, prepareSplitSolve, shareStructure, sharedScratch, splitSolveInPlace, type SplitSolve } from './parallel-factor.js';
 import { splitSubtrees } from './subtree-split.js';
 
 /**
@@ -100,22 +100,18 @@ function makeFactor(f: SupernodalFactor, shift: number, monitor: PivotMonitor, d
   const s = f.structure;
   const { n, perm } = s;
   const inertia = monitor.inertia();
-  let sharedWork: Float64Array = new Float64Array(0);
+  // one shared right-hand-side block per factor, reused
+  const sharedWork = plan ? sharedScratch() : null;
 
   function solveBlock(b: Float64Array, k: number, x: Float64Array = new Float64Array(n * k)): Float64Array {
     if (b.length < n * k || x.length < n * k) throw new RangeError(`block of ${k} columns needs ${n * k} entries`);
-    let work: Float64Array;
-    if (plan) {
-      // one shared block per factor, reused: shared memory is reclaimed late by the collector
-      if (sharedWork.length < n * k) sharedWork = sharedBlock(n * k);
-      work = sharedWork.subarray(0, n * k);
-    } else work = new Float64Array(n * k);
+    const work = sharedWork ? sharedWork(n * k) : new Float64Array(n * k);
     // gather into pivot order: work(q, c) = b(perm[q], c)
     for (let c = 0; c < k; c++) {
       const o = c * n;
       for (let q = 0; q < n; q++) work[o + q] = b[o + perm[q]];
     }
-    if (!(plan && splitSolveInPlace(f, work, k, plan))) supernodalSolveInPlace(f, work, k, new Float64Array(solveWorkspaceSize(f, k)));
+    if (!(plan && splitSolveInPlace(f, work, k, plan))) supernodalSolveInPlace(f, work, k);
     // scatter back to DOF order
     for (let c = 0; c < k; c++) {
       const o = c * n;

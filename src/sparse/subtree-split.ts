@@ -21,29 +21,24 @@ export interface SubtreeSplit {
   parts: [number, number][][];
   /** Supernodes left for after the parts (ancestors of every part), ascending. */
   top: [number, number][];
-  /** Estimated share of the work in the parts (0…1). */
-  parallelShare: number;
   /** Estimated time of the split factorization over the serial one (ideal threads). */
   timeRatio: number;
 }
 
-/** Split for `threads` threads, or null when the tree is not postordered or gives no gain. */
+/** Split for `threads` threads, or null when the tree is not postordered or has too few subtrees. */
 export function splitSubtrees(s: SupernodalStructure, threads: number): SubtreeSplit | null {
   const ns = s.supernodes;
   if (threads < 2 || ns < 2) return null;
   const { superStart, superOf, rowPtr, rows } = s;
   const parent = new Int32Array(ns).fill(-1);
-  const own = new Float64Array(ns);
-  // parent and own weight of every supernode
+  const weight = new Float64Array(ns);
+  // parent and own weight of every supernode (subtree weights are summed below)
   for (let sn = 0; sn < ns; sn++) {
     const nc = superStart[sn + 1] - superStart[sn];
     const nr = rowPtr[sn + 1] - rowPtr[sn];
     if (nr > nc) parent[sn] = superOf[rows[rowPtr[sn] + nc]];
-    let w = 0;
-    for (let c = 0; c < nc; c++) w += (nr - c) * (nr - c);
-    own[sn] = w;
+    for (let c = 0; c < nc; c++) weight[sn] += (nr - c) * (nr - c);
   }
-  const weight = Float64Array.from(own);
   const first = Int32Array.from({ length: ns }, (_, i) => i);
   const size = new Int32Array(ns).fill(1);
   // subtree weight, first descendant and size, children before parents (postorder: child < parent)
@@ -107,7 +102,6 @@ function deal(candidates: number[], threads: number, weight: Float64Array, first
   return {
     parts: assigned.map((list) => list.map((r) => [first[r], r] as [number, number]).sort((a, b) => a[0] - b[0])),
     top: runsOf(topSet.slice().sort((a, b) => a - b)),
-    parallelShare: parallel / total,
     timeRatio: (longest + TOP_TIME_FACTOR * (total - parallel)) / total,
   };
 }

@@ -17,26 +17,11 @@ import type { SupernodalFactor } from './numeric-ldlt.js';
 /** Right-hand sides from which the rows below each supernode go through dense products. */
 const BLOCK_PATH_MIN_K = 4;
 
-/** Workspace entries supernodalSolveInPlace needs for k right-hand sides. */
-export function solveWorkspaceSize(f: SupernodalFactor, k: number): number {
-  return 3 * f.structure.maxRows * k + 1;
-}
-
-/** X ← (L D Lᵀ)⁻¹ X; `work` needs solveWorkspaceSize(f, k) entries. */
-export function supernodalSolveInPlace(f: SupernodalFactor, x: Float64Array, k: number, work: Float64Array): void {
-  const m = f.structure.maxRows * k;
-  const y = work.subarray(0, m);
-  const w = work.subarray(m, 2 * m);
-  const z = work.subarray(2 * m, 3 * m);
-  forwardSweep(f, x, k, y, w, z);
-  const { d, structure } = f;
-  const n = structure.n;
-  // diagonal: divide each row by its pivot
-  for (let c = 0; c < k; c++) {
-    const o = c * n;
-    for (let j = 0; j < n; j++) x[o + j] /= d[j];
-  }
-  backwardSweep(f, x, k, y, w);
+/** X ← (L D Lᵀ)⁻¹ X over the whole tree. */
+export function supernodalSolveInPlace(f: SupernodalFactor, x: Float64Array, k: number, ws: SweepWorkspace = sweepWorkspace(f, k)): void {
+  forwardSweep(f, x, k, ws.y, ws.w, ws.z);
+  diagonalSolve(f, x, k);
+  backwardSweep(f, x, k, ws.y, ws.w);
 }
 
 /**
@@ -56,9 +41,10 @@ export interface SweepWorkspace {
   z: Float64Array;
 }
 
+/** Gathered rows of X for one supernode (y, z) and its k-major copy (w): maxRows × k each. */
 export function sweepWorkspace(f: SupernodalFactor, k: number): SweepWorkspace {
-  const work = new Float64Array(solveWorkspaceSize(f, k));
   const m = f.structure.maxRows * k;
+  const work = new Float64Array(3 * m + 1);
   return { y: work.subarray(0, m), w: work.subarray(m, 2 * m), z: work.subarray(2 * m, 3 * m) };
 }
 
