@@ -41,6 +41,14 @@ const KEPT_EXTRA_BLOCKS = 2;
  * stall above the requested tolerance; both figures our choice).
  */
 const STALLED_ESTIMATE = 1e-13;
+/**
+ * After this many cycles without a newly locked pair the search starts once more from its best
+ * p vectors with nothing locked: a locked vector that is slightly off (a near-mechanism mode,
+ * whose residual is measured against the rigid-body floor) keeps the modes it is mixed with from
+ * converging while they are held M-orthogonal to it; one Krylov space over all of them sorts
+ * the mixture out (our choice; seen on the unfastened-anchor mast).
+ */
+const REBUILD_AFTER_STALLED = 4;
 const STALLED_RESIDUAL = 1e-9;
 
 interface Cycle {
@@ -66,8 +74,9 @@ export function blockLanczos(search: EigenSearch): EigenSearchResult {
   const p = Math.min(search.count, search.maxBasis);
   const b = Math.max(1, Math.min(search.blockSize ?? DEFAULT_BLOCK_SIZE, search.maxBasis));
   const maxCycles = search.maxIterations ?? 60;
-  const locked = new LockedSet(n);
+  let locked = new LockedSet(n);
   const warnings: string[] = [];
+  let rebuilt = false;
   const capacityFor = () => Math.min(Math.max(BASIS_PER_WANTED * p, p + 4 * b, 6 * b), p + 20 * b, search.maxBasis - locked.count);
   let cycle = newCycle(n, capacityFor(), op.massTimes, startVectors(search, b), op.apply, fixedBlocks(search, locked));
   let cycles = 0;
@@ -114,11 +123,24 @@ export function blockLanczos(search: EigenSearch): EigenSearchResult {
     }
     search.onProgress?.(`block Lanczos cycle ${cycles}: ${locked.count} of ${p} modes converged`);
     if (locked.count >= p) break;
+    if (stagnated >= REBUILD_AFTER_STALLED && !rebuilt) {
+      // once: unlock everything and start again from the best p vectors (see REBUILD_AFTER_STALLED)
+      const picture = locked.estimates(extraValues, extraVectors, extraValues.length);
+      const width = Math.min(picture.estimateCount, Math.max(p, b));
+      const nearest = nearestFirst(picture.estimates, sigma).slice(0, width);
+      const start = new Float64Array(n * width);
+      nearest.forEach((i, t) => start.set(picture.estimateVectors.subarray(i * n, (i + 1) * n), t * n));
+      locked = new LockedSet(n);
+      cycle = newCycle(n, capacityFor(), op.massTimes, start, op.apply, fixedBlocks(search, locked));
+      rebuilt = true;
+      stagnated = 0;
+      continue;
+    }
     const keepZ = zOrder.filter((i) => !lockedNow.includes(i));
     const others = order.slice(candidates.length);
     const restartCapacity = capacityFor();
     const keepCount = Math.max(0, Math.min(keepZ.length + others.length, restartCapacity - 2 * b, wanted + KEPT_EXTRA_BLOCKS * b));
-    const sKeep = keepColumns(sz, keepZ, s, others, cycle.size, keepCount);
+    const sKeep = orthonormalColumns(keepColumns(sz, keepZ, s, others, cycle.size, keepCount), cycle.size, keepCount);
     cycle = restart(cycle, sKeep, keepCount, lastBlock, restartCapacity, n, op, locked, search, cycles);
     if (cycle.size === 0 && cycle.qCount === 0) break;
   }
@@ -299,6 +321,32 @@ function keepColumns(sz: Float64Array, keepZ: number[], s: Float64Array, others:
   for (const i of keepZ) if (t < keepCount) out.set(sz.subarray(i * m, (i + 1) * m), m * t++);
   for (const i of others) if (t < keepCount) out.set(s.subarray(i * m, (i + 1) * m), m * t++);
   return out;
+}
+
+/**
+ * The columns of S (m×k) made orthonormal by modified Gram–Schmidt, twice. The Ritz rotation G
+ * behind S_z is only as orthogonal as the basis is M-orthonormal, and V ← V S_keep would carry
+ * that error forward, roughly tripled at each restart (it grew from 1e-15 to 1e-5 in 19 cycles
+ * on the unfastened-anchor mast); with S_keep orthonormal the basis keeps its own level.
+ */
+function orthonormalColumns(s: Float64Array, m: number, k: number): Float64Array {
+  // two sweeps: column j minus its components along the columns before it, then normalized
+  for (let sweep = 0; sweep < 2; sweep++) {
+    for (let j = 0; j < k; j++) {
+      const cj = j * m;
+      for (let i = 0; i < j; i++) {
+        const ci = i * m;
+        let dot = 0;
+        for (let r = 0; r < m; r++) dot += s[ci + r] * s[cj + r];
+        for (let r = 0; r < m; r++) s[cj + r] -= dot * s[ci + r];
+      }
+      let norm = 0;
+      for (let r = 0; r < m; r++) norm += s[cj + r] * s[cj + r];
+      norm = Math.sqrt(norm);
+      if (norm > 0) for (let r = 0; r < m; r++) s[cj + r] /= norm;
+    }
+  }
+  return s;
 }
 
 /** Thick restart: V ← V S_keep, T ← S_keepᵀ T S_keep, coupling R (S_keep)_last; continue from Q. */
