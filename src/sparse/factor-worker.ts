@@ -73,13 +73,13 @@ function run(job: HelperJob): HelperResult {
       timesSmallInPlace(job.a, job.rows, job.p, job.s, job.q, job.rowFrom, job.rowTo);
       return { kind: 'done' };
     case 'forward': {
-      const f = { structure: job.structure, values: job.values, d: job.d };
-      forwardSweepRanges(f, job.x, job.columns, sweepWorkspace(f, job.columns), job.ranges, { index: job.index, count: job.count, acc: job.acc });
+      const f = { structure: job.structure, values: job.values, d: job.d, storage: job.storage };
+      forwardSweepRanges(f, job.x, job.columns, sweepWorkspace(f, job.columns, 1), job.ranges, { index: job.index, count: job.count, acc: job.acc });
       return { kind: 'done' };
     }
     case 'backward': {
-      const f = { structure: job.structure, values: job.values, d: job.d };
-      backwardSweepRanges(f, job.x, job.columns, sweepWorkspace(f, job.columns), job.ranges);
+      const f = { structure: job.structure, values: job.values, d: job.d, storage: job.storage };
+      backwardSweepRanges(f, job.x, job.columns, sweepWorkspace(f, job.columns, 1), job.ranges);
       return { kind: 'done' };
     }
   }

@@ -12,6 +12,7 @@
  *      then factored column by column.
  * Pivots go through PivotMonitor (inertia, tiny pivots, zero-pivot substitution).
  */
+import { factorStorage, KERNEL_RHS, type FactorStorage } from './simd-sweep-kernels.js';
 import { scaledRowsKMajor, updateLowerProduct, updateProduct } from './dense-block-kernels.js';
 import type { PivotMonitor } from './pivot-monitor.js';
 import type { SupernodalStructure } from './symbolic.js';
@@ -26,6 +27,17 @@ export interface SupernodalFactor {
   /** Supernode blocks, unit diagonal stored as 1. */
   values: Float64Array;
   d: Float64Array;
+  /** The WebAssembly memory holding `values`, when they live in one (the sweeps' SIMD kernels then read L in place). */
+  storage?: FactorStorage;
+}
+
+/**
+ * Zeroed storage for a factor's values: in a shared WebAssembly memory with room for the
+ * SIMD sweeps' scratch (simd-sweep-kernels.ts) when possible, else from `fallback`.
+ */
+export function allocateFactorValues(s: SupernodalStructure, fallback: (length: number) => Float64Array): { values: Float64Array; storage?: FactorStorage } {
+  const length = s.valuePtr[s.supernodes];
+  return factorStorage(length, s.maxRows * KERNEL_RHS) ?? { values: fallback(length) };
 }
 
 /** a_jj = k_jj − σ m_jj in pivot order. */
@@ -41,11 +53,11 @@ export function shiftedDiagonal(s: SupernodalStructure, shift: number): Float64A
 }
 
 export function supernodalLdlt(s: SupernodalStructure, shift: number, monitor: PivotMonitor): SupernodalFactor {
-  const values = new Float64Array(s.valuePtr[s.supernodes]);
+  const { values, storage } = allocateFactorValues(s, (length) => new Float64Array(length));
   const d = new Float64Array(s.n);
   const nextRow = new Int32Array(s.supernodes);
   factorSupernodes(s, shift, monitor, { values, d, nextRow }, [[0, s.supernodes - 1]]);
-  return { structure: s, values, d };
+  return { structure: s, values, d, ...(storage ? { storage } : {}) };
 }
 
 /** The arrays one factorization writes; shared between threads when the work is split. */

@@ -27,6 +27,7 @@ import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
 import { MessageChannel, Worker, receiveMessageOnPort, type MessagePort } from 'node:worker_threads';
 import {
+  allocateFactorValues,
   applyDescendant,
   factorSupernodes,
   panelUpdateRows,
@@ -38,6 +39,7 @@ import {
 import type { MonitorState, PivotMonitor } from './pivot-monitor.js';
 import type { SupernodalStructure } from './symbolic.js';
 import type { SubtreeSplit } from './subtree-split.js';
+import type { FactorStorage } from './simd-sweep-kernels.js';
 import type { WeightedGraph } from './ordering/coarsen-graph.js';
 import { symMultiplyColumns, type SymmetricCsc } from './csc.js';
 import { backwardSweepRanges, diagonalSolve, forwardSweepRanges, sweepWorkspace } from './triangular-solve.js';
@@ -63,6 +65,7 @@ export type JobBody =
       structure: SupernodalStructure;
       values: Float64Array;
       d: Float64Array;
+      storage?: FactorStorage;
       x: Float64Array;
       columns: number;
       ranges: [number, number][];
@@ -70,7 +73,7 @@ export type JobBody =
       count: number;
       acc: Float64Array;
     }
-  | { kind: 'backward'; structure: SupernodalStructure; values: Float64Array; d: Float64Array; x: Float64Array; columns: number; ranges: [number, number][] }
+  | { kind: 'backward'; structure: SupernodalStructure; values: Float64Array; d: Float64Array; storage?: FactorStorage; x: Float64Array; columns: number; ranges: [number, number][] }
   | BlockProductJob
   | {
       kind: 'descendants';
@@ -245,7 +248,7 @@ export function parallelSupernodalLdlt(s: SupernodalStructure, shift: number, mo
   if (h === null || split.parts.length !== 2) return null;
   // before the factor's large allocation: let both threads drop the shared arrays of earlier work
   alongside(h, { kind: 'collect' }, collectHere, 'done');
-  const values = sharedBlock(s.valuePtr[s.supernodes]);
+  const { values, storage } = allocateFactorValues(s, sharedBlock);
   const d = sharedBlock(s.n);
   const nextRow = sharedInt32(s.supernodes);
   const out = { values, d, nextRow };
@@ -253,7 +256,7 @@ export function parallelSupernodalLdlt(s: SupernodalStructure, shift: number, mo
   const theirs = alongside(h, job, () => factorSupernodes(s, shift, monitor, out, split.parts[0]), 'factored');
   monitor.merge(theirs.monitor);
   factorSupernodes(s, shift, monitor, out, split.top, [...split.parts[0], ...split.parts[1]], cooperation(h, s, values, d));
-  return { structure: s, values, d };
+  return { structure: s, values, d, ...(storage ? { storage } : {}) };
 }
 
 /** Supernodes of the top with at least this many rows and columns share their work (our choice). */
@@ -385,7 +388,7 @@ export function splitSolveInPlace(f: SupernodalFactor, x: Float64Array, k: numbe
   const ws = sweepWorkspace(f, k);
   const mine = new Float64Array(count * k);
   const theirs = plan.helperAcc(count * k).fill(0);
-  const common = { structure: f.structure, values: f.values, d: f.d, x, columns: k };
+  const common = { structure: f.structure, values: f.values, d: f.d, storage: f.storage, x, columns: k };
   alongside(h, { ...common, kind: 'forward', ranges: split.parts[1], index, count, acc: theirs }, () => {
     forwardSweepRanges(f, x, k, ws, split.parts[0], { index, count, acc: mine });
   }, 'done');

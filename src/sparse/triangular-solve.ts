@@ -13,15 +13,17 @@
  */
 import { subtractTransposedProduct, updateProduct } from './dense-block-kernels.js';
 import type { SupernodalFactor } from './numeric-ldlt.js';
+import { KERNEL_RHS, sweepKernels, type FactorStorage, type SweepKernels } from './simd-sweep-kernels.js';
 
 /** Right-hand sides from which the rows below each supernode go through dense products. */
 const BLOCK_PATH_MIN_K = 4;
 
 /** X ← (L D Lᵀ)⁻¹ X over the whole tree. */
 export function supernodalSolveInPlace(f: SupernodalFactor, x: Float64Array, k: number, ws: SweepWorkspace = sweepWorkspace(f, k)): void {
-  forwardSweep(f, x, k, ws.y, ws.w, ws.z);
+  const all: [number, number][] = [[0, f.structure.supernodes - 1]];
+  forwardSweepRanges(f, x, k, ws, all);
   diagonalSolve(f, x, k);
-  backwardSweep(f, x, k, ws.y, ws.w);
+  backwardSweepRanges(f, x, k, ws, all);
 }
 
 /**
@@ -39,23 +41,49 @@ export interface SweepWorkspace {
   y: Float64Array;
   w: Float64Array;
   z: Float64Array;
+  /** SIMD kernels over the factor's memory and this thread's scratch region there, when the factor lives in one. */
+  simd: { kernels: SweepKernels; scratch: number } | null;
 }
 
-/** Gathered rows of X for one supernode (y, z) and its k-major copy (w): maxRows × k each. */
-export function sweepWorkspace(f: SupernodalFactor, k: number): SweepWorkspace {
+/** This thread's kernels per factor memory (the main thread reuses them from solve to solve). */
+const kernelsOf = new WeakMap<FactorStorage, SweepKernels | null>();
+
+/**
+ * Gathered rows of X for one supernode (y, z) and its k-major copy (w): maxRows × k each; with
+ * the SIMD kernels, scratch region `region` of the factor's memory instead (0 for the main
+ * thread, 1 for the helper).
+ */
+export function sweepWorkspace(f: SupernodalFactor, k: number, region: 0 | 1 = 0): SweepWorkspace {
+  if (f.storage) {
+    let kernels = kernelsOf.get(f.storage);
+    if (kernels === undefined) {
+      kernels = sweepKernels(f.storage);
+      kernelsOf.set(f.storage, kernels);
+    }
+    if (kernels !== null) {
+      const none = new Float64Array(0);
+      return { y: none, w: none, z: none, simd: { kernels, scratch: region * f.storage.scratchDoubles } };
+    }
+  }
   const m = f.structure.maxRows * k;
   const work = new Float64Array(3 * m + 1);
-  return { y: work.subarray(0, m), w: work.subarray(m, 2 * m), z: work.subarray(2 * m, 3 * m) };
+  return { y: work.subarray(0, m), w: work.subarray(m, 2 * m), z: work.subarray(2 * m, 3 * m), simd: null };
 }
 
 /** Forward sweep L Z = X over supernode ranges (inclusive, ascending); all supernodes by default. */
 export function forwardSweepRanges(f: SupernodalFactor, x: Float64Array, k: number, ws: SweepWorkspace, ranges: [number, number][], redirect?: RowRedirect): void {
-  for (const [lo, hi] of ranges) forwardSweep(f, x, k, ws.y, ws.w, ws.z, lo, hi + 1, redirect);
+  for (const [lo, hi] of ranges) {
+    if (ws.simd) forwardSweepSimd(f, x, k, ws.simd.kernels, ws.simd.scratch, lo, hi + 1, redirect);
+    else forwardSweep(f, x, k, ws.y, ws.w, ws.z, lo, hi + 1, redirect);
+  }
 }
 
 /** Backward sweep Lᵀ X = W over supernode ranges, visited in descending order. */
 export function backwardSweepRanges(f: SupernodalFactor, x: Float64Array, k: number, ws: SweepWorkspace, ranges: [number, number][]): void {
-  for (let r = ranges.length - 1; r >= 0; r--) backwardSweep(f, x, k, ws.y, ws.w, ranges[r][0], ranges[r][1] + 1);
+  for (let r = ranges.length - 1; r >= 0; r--) {
+    if (ws.simd) backwardSweepSimd(f, x, k, ws.simd.kernels, ws.simd.scratch, ranges[r][0], ranges[r][1] + 1);
+    else backwardSweep(f, x, k, ws.y, ws.w, ranges[r][0], ranges[r][1] + 1);
+  }
 }
 
 /** X ← D⁻¹ X on all rows. */
@@ -260,5 +288,173 @@ function backwardColumns(values: Float64Array, v0: number, nr: number, nc: numbe
     y[yo + j + 1] = y1;
     y[yo + j + 2] = y2;
     y[yo + j + 3] = y3;
+  }
+}
+
+/** Columns of L11 per panel in the SIMD sweeps: a scalar triangle, then a kernel call for the rows below it. */
+const SIMD_PANEL = 8;
+/** Columns of L per call of the columns kernel (its strips walk across them; our choice by measurement). */
+const SIMD_COLUMN_BLOCK = 8;
+
+/**
+ * Forward sweep with the SIMD kernels, g ≤ KERNEL_RHS right-hand sides at a time. Per supernode,
+ * Y = [X(f..l−1, ·); 0] (nr × g, in this thread's scratch region); for each panel of L11,
+ * the unit triangle in scalar code and  Y(rows below in L11) −= L(·, panel) Y(panel);  then
+ * Y(below) −= L21 Y(own) in one call, and Y(below) is added into X (or its redirect).
+ */
+function forwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern: SweepKernels, yb: number, from: number, to: number, redirect?: RowRedirect): void {
+  const { structure: s, values } = f;
+  const { n, superStart, rowPtr, rows, valuePtr } = s;
+  const heap = kern.heap;
+  const lBase = kern.storage.valuesOffset;
+  const index = redirect?.index;
+  // supernodes in elimination order, right-hand sides in groups of up to KERNEL_RHS
+  for (let sn = from; sn < to; sn++) {
+    const f0 = superStart[sn];
+    const nc = superStart[sn + 1] - f0;
+    const r0 = rowPtr[sn];
+    const nr = rowPtr[sn + 1] - r0;
+    const v0 = valuePtr[sn];
+    const nb = nr - nc;
+    for (let c0 = 0; c0 < k; c0 += KERNEL_RHS) {
+      const g = Math.min(KERNEL_RHS, k - c0);
+      // Y(:, c) = [X(f..l−1, c0 + c); 0]
+      for (let c = 0; c < g; c++) {
+        const yo = yb + c * nr;
+        const xo = (c0 + c) * n + f0;
+        for (let i = 0; i < nc; i++) heap[yo + i] = x[xo + i];
+        heap.fill(0, yo + nc, yo + nr);
+      }
+      // L11 panel by panel
+      for (let j = 0; j < nc; j += SIMD_PANEL) {
+        const pw = Math.min(SIMD_PANEL, nc - j);
+        // unit triangle of the panel, column by column
+        for (let jj = 0; jj < pw; jj++) {
+          const q = v0 + (j + jj) * nr + j;
+          for (let c = 0; c < g; c++) {
+            const yo = yb + c * nr + j;
+            const yv = heap[yo + jj];
+            if (yv !== 0) for (let i = jj + 1; i < pw; i++) heap[yo + i] -= values[q + i] * yv;
+          }
+        }
+        if (nc - j - pw > 0) columnsProduct(kern, g, nc - j - pw, pw, lBase + v0 + j * nr + j + pw, nr, yb + j, yb + j + pw);
+      }
+      if (nb > 0) columnsProduct(kern, g, nb, nc, lBase + v0 + nc, nr, yb, yb + nc);
+      // own rows back into X, rows below accumulate
+      for (let c = 0; c < g; c++) {
+        const yo = yb + c * nr;
+        const col = c0 + c;
+        const xo = col * n;
+        for (let i = 0; i < nc; i++) x[xo + f0 + i] = heap[yo + i];
+        if (index) {
+          const { acc, count } = redirect!;
+          for (let i = 0; i < nb; i++) {
+            const r = rows[r0 + nc + i];
+            const t = index[r];
+            if (t >= 0) acc[col * count + t] += heap[yo + nc + i];
+            else x[xo + r] += heap[yo + nc + i];
+          }
+        } else {
+          for (let i = 0; i < nb; i++) x[xo + rows[r0 + nc + i]] += heap[yo + nc + i];
+        }
+      }
+    }
+  }
+}
+
+/**
+ * Backward sweep with the SIMD kernels: Y = X(R, ·) gathered; Y(own) −= L21ᵀ Y(below); then the
+ * panels of L11 last first: Y(panel) −= L(rows below in L11, panel)ᵀ Y(those rows) and the
+ * transposed unit triangle in scalar code; Y(own) back into X.
+ */
+function backwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern: SweepKernels, yb: number, from: number, to: number): void {
+  const { structure: s, values } = f;
+  const { n, superStart, rowPtr, rows, valuePtr } = s;
+  const heap = kern.heap;
+  const lBase = kern.storage.valuesOffset;
+  // supernodes in reverse elimination order, right-hand sides in groups
+  for (let sn = to - 1; sn >= from; sn--) {
+    const f0 = superStart[sn];
+    const nc = superStart[sn + 1] - f0;
+    const r0 = rowPtr[sn];
+    const nr = rowPtr[sn + 1] - r0;
+    const v0 = valuePtr[sn];
+    const nb = nr - nc;
+    for (let c0 = 0; c0 < k; c0 += KERNEL_RHS) {
+      const g = Math.min(KERNEL_RHS, k - c0);
+      // Y(:, c) = X(R, c0 + c)
+      for (let c = 0; c < g; c++) {
+        const yo = yb + c * nr;
+        const xo = (c0 + c) * n;
+        for (let i = 0; i < nc; i++) heap[yo + i] = x[xo + f0 + i];
+        for (let i = nc; i < nr; i++) heap[yo + i] = x[xo + rows[r0 + i]];
+      }
+      if (nb > 0) dotsProduct(kern, g, nb, nc, lBase + v0 + nc, nr, yb + nc, yb);
+      // L11 panels, last first
+      for (let j = Math.floor((nc - 1) / SIMD_PANEL) * SIMD_PANEL; j >= 0; j -= SIMD_PANEL) {
+        const pw = Math.min(SIMD_PANEL, nc - j);
+        if (nc - j - pw > 0) dotsProduct(kern, g, nc - j - pw, pw, lBase + v0 + j * nr + j + pw, nr, yb + j + pw, yb + j);
+        // transposed unit triangle, last column first
+        for (let jj = pw - 1; jj >= 0; jj--) {
+          const q = v0 + (j + jj) * nr + j;
+          for (let c = 0; c < g; c++) {
+            const yo = yb + c * nr + j;
+            let sum = 0;
+            for (let i = jj + 1; i < pw; i++) sum += values[q + i] * heap[yo + i];
+            heap[yo + jj] -= sum;
+          }
+        }
+      }
+      // own rows back into X
+      for (let c = 0; c < g; c++) {
+        const yo = yb + c * nr;
+        const xo = (c0 + c) * n + f0;
+        for (let i = 0; i < nc; i++) x[xo + i] = heap[yo + i];
+      }
+    }
+  }
+}
+
+/**
+ * heap[y + i + c·ld] −= Σ_{t<cols} heap[l + i + t·ld] · heap[xo + t + c·ld] for i < rows, c < g:
+ * strips of four rows in the kernel, the last rows here.
+ */
+function columnsProduct(kern: SweepKernels, g: number, rows: number, cols: number, l: number, ld: number, xo: number, y: number): void {
+  const strips = rows >> 2;
+  const heap = kern.heap;
+  // a few columns of L per call, so one strip's loads touch few pages and every column streams
+  if (strips > 0) {
+    for (let t0 = 0; t0 < cols; t0 += SIMD_COLUMN_BLOCK) {
+      const w = Math.min(SIMD_COLUMN_BLOCK, cols - t0);
+      kern.columns[g](8 * (l + t0 * ld), 8 * ld, strips, w, 8 * (xo + t0), 8 * ld, 8 * y, 8 * ld);
+    }
+  }
+  // the rows after the last strip
+  for (let i = 4 * strips; i < rows; i++) {
+    for (let c = 0; c < g; c++) {
+      let sum = 0;
+      for (let t = 0; t < cols; t++) sum += heap[l + i + t * ld] * heap[xo + c * ld + t];
+      heap[y + c * ld + i] -= sum;
+    }
+  }
+}
+
+/**
+ * heap[y + t + c·ld] −= Σ_{i<rows} heap[l + i + t·ld] · heap[gOff + i + c·ld] for t < cols, c < g:
+ * pairs of columns (and a last single one) in the kernels over row pairs, an odd last row here.
+ */
+function dotsProduct(kern: SweepKernels, g: number, rows: number, cols: number, l: number, ld: number, gOff: number, y: number): void {
+  const pairs = rows >> 1;
+  const heap = kern.heap;
+  const colPairs = cols >> 1;
+  if (colPairs > 0) kern.dots2[g](8 * l, 8 * ld, pairs, colPairs, 8 * gOff, 8 * ld, 8 * y, 8 * ld);
+  if (cols & 1) kern.dots1[g](8 * (l + (cols - 1) * ld), 8 * ld, pairs, 1, 8 * gOff, 8 * ld, 8 * (y + cols - 1), 8 * ld);
+  if (rows & 1) {
+    const i = rows - 1;
+    // the last row's share of every dot product
+    for (let t = 0; t < cols; t++) {
+      const lv = heap[l + i + t * ld];
+      for (let c = 0; c < g; c++) heap[y + c * ld + t] -= lv * heap[gOff + c * ld + i];
+    }
   }
 }
