@@ -3,9 +3,10 @@
  * that dominate the dense work of block Lanczos — P = VᵀX, X ← X + α V S and the restart
  * V ← V S in place — split by rows between this thread and the helper thread of the sparse
  * layer (src/sparse/parallel-factor.ts), when V lives in shared memory (basisBlock) and the
- * product is large enough to pay for the hand-over. The small operands are copied into shared staging blocks; each thread sums its rows,
- * the two partial P are added (fixed order), the helper's rows of X are copied back. Otherwise
- * the plain kernels of src/dense/block-ops.ts run here.
+ * product is large enough to pay for the hand-over. The small operands are copied into shared staging blocks (unless they are
+ * in shared memory already, as basisOperand's blocks are); each thread sums its rows, the two
+ * partial P are added (fixed order), the helper's rows of X are copied back. Otherwise the plain
+ * kernels of src/dense/block-ops.ts run here.
  */
 import { addTimesSmall, timesSmallInPlace, transposeTimes } from '../dense/block-ops.js';
 import { SPLIT_MIN_WORK, availableThreads, inSharedMemory, runSplit, sharedBlock, sharedScratch } from '../sparse/parallel-factor.js';
@@ -13,10 +14,24 @@ import { SPLIT_MIN_WORK, availableThreads, inSharedMemory, runSplit, sharedBlock
 /** Shared staging blocks for the small operands, reused from call to call. */
 const stage = sharedScratch();
 const stageOut = sharedScratch();
+/** The block behind basisOperand. */
+const operand = sharedScratch();
 
 /** An n×m basis block, in shared memory when a helper thread may work on it. */
 export function basisBlock(length: number): Float64Array {
   return availableThreads() >= 2 ? sharedBlock(length) : new Float64Array(length);
+}
+
+/**
+ * A copy of the first `length` entries of X to be projected against the basis (X ← X − V S after
+ * P = VᵀX): in a shared block reused from call to call when a helper thread may take half of
+ * those products, so neither has to stage X (a full copy for VᵀX, half of X in and out for
+ * X − V S); a plain copy otherwise. Valid until the next call.
+ */
+export function basisOperand(x: Float64Array, length: number): Float64Array {
+  const copy = availableThreads() >= 2 ? operand(length) : new Float64Array(length);
+  copy.set(x.subarray(0, length));
+  return copy;
 }
 
 function splittable(a: Float64Array, work: number): boolean {
