@@ -203,8 +203,8 @@ function extend(cycle: Cycle, locked: LockedSet, search: EigenSearch, wanted: nu
     const from = cycle.size;
     const width = cycle.qCount;
     appendBlock(cycle, n);
-    // W = C Q_j, then its projections onto [locked, V] and the next block
-    const w = op.apply(cycle.q, width);
+    // W = C Q_j = (K − σM)⁻¹ (M Q_j) with M Q_j from the orthonormalization, then its projections onto [locked, V] and the next block
+    const w = op.solve(cycle.mq, width);
     const basis: MassBasis = { vectors: cycle.v.subarray(0, cycle.size * n), massVectors: cycle.mv.subarray(0, cycle.size * n), count: cycle.size };
     const against = [...fixedBlocks(search, locked), basis];
     const next = mOrthonormalize(w, width, n, op.massTimes, { against });
