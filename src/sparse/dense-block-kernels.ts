@@ -48,7 +48,7 @@ export function updateLowerProduct(
 
 /** Rows of A and depth steps per packed block (packed A block: 128 × 128 doubles = 128 KiB). */
 const PACK_ROWS = 128;
-const PACK_DEPTH = 128;
+const PACK_DEPTH = 256;
 /** Packed operands live in the SIMD kernel's memory when it is available (offsets in doubles). */
 const simdKernel = createTileKernel();
 let simdEnabled = true;

@@ -45,7 +45,7 @@ function name(s: string): number[] {
   return [...leb(s.length), ...Array.from(s, (ch) => ch.charCodeAt(0))];
 }
 
-const PAGES = 16;
+const PAGES = 32;
 
 /** Function body: locals 4 (end, i32), 5–12 (accumulators), 13–14 (A halves), 15 (W broadcast). */
 function tileBody(): number[] {
