@@ -6,7 +6,8 @@
  * With `ordering: 'auto'` every applicable candidate (natural, approximate minimum degree,
  * graph nested dissection with multilevel separators, and coordinate bisection when
  * coordinates are given) is computed
- * and the one with the smallest predicted nnz(L) — exact symbolic count, no numeric work — wins.
+ * and the one with the smallest predicted nnz(L) — exact symbolic count, no numeric work, read
+ * straight off the DOF graph (fill-count.ts) — wins.
  * The factor's storage and, roughly, the flop count (Σ colcount²) follow nnz(L), so the
  * prediction is the cost model; the orderings themselves cost far less than one factorization.
  *
@@ -14,13 +15,13 @@
  */
 import type { SymmetricCsc } from '../csc.js';
 import type { OrderingCandidate, OrderingName } from '../factor-types.js';
-import { countFactorNonzeros } from '../column-counts.js';
 import { adjacencyOfPencil, type AdjacencyGraph } from './adjacency-graph.js';
 import { expandOrdering, findSupervariables, type Supervariables } from './supervariables.js';
 import { approximateMinimumDegree } from './minimum-degree.js';
 import { multilevelNestedDissection } from './multilevel-bisection.js';
 import { graphNestedDissection } from './nested-dissection.js';
 import { coordinateBisection } from './coordinate-bisection.js';
+import { factorNonzerosOfGraph } from './fill-count.js';
 
 export interface ChooseOrderingOptions {
   ordering?: 'auto' | OrderingName;
@@ -137,15 +138,12 @@ export function chooseOrdering(
   const graph = adjacencyOfPencil(stiffness, mass);
   const sv = findSupervariables(graph, { nodeOfVertex: options.nodeOfDof, coordinates: options.coordinates });
   const graphMs = performance.now() - t0;
-  let count = options.predictNnzL;
-  if (!count) {
-    const pattern = patternOfGraph(graph);
-    count = (perm) => countFactorNonzeros(pattern, perm);
-  }
+  // exact count straight off the DOF graph (fill-count.ts): no permuted copy of the pattern
+  const count = options.predictNnzL ?? ((perm: Int32Array) => factorNonzerosOfGraph(graph, perm));
   const counted = new Map<Int32Array, number>();
   // each permutation is counted once, however often it is compared
   const predict = (perm: Int32Array): number => {
-    if (!counted.has(perm)) counted.set(perm, count!(perm));
+    if (!counted.has(perm)) counted.set(perm, count(perm));
     return counted.get(perm)!;
   };
   const names: OrderingName[] =

@@ -29,7 +29,9 @@ export interface CoarseLevel {
 
 /** Deterministic pseudo-random permutation of 0..n−1 (xorshift-driven Fisher–Yates). */
 export function shuffled(n: number, seed: number): Int32Array {
-  const order = Int32Array.from({ length: n }, (_, k) => k);
+  const order = new Int32Array(n);
+  // the identity, then shuffled
+  for (let k = 0; k < n; k++) order[k] = k;
   let s = (seed * 2654435761) >>> 0 || 1;
   // swap each position with a random earlier one
   for (let k = n - 1; k > 0; k--) {
@@ -92,20 +94,24 @@ export function coarsen(g: WeightedGraph, seed: number, maxVertexWeight: number)
   const cAdj = new Int32Array(ptr[n]);
   const cEdge = new Int32Array(ptr[n]);
   const cWeight = new Int32Array(nc);
-  const slot = new Int32Array(nc).fill(-1); // position of coarse neighbour c in the current list
+  // slot[cu] = position of coarse neighbour cu in the list being built; positions of earlier
+  // lists are below that list's start, so `slot[cu] >= start` alone says "already listed"
+  const slot = new Int32Array(nc).fill(-1);
   let fill = 0;
   let c = 0;
-  // build each coarse vertex's list from the lists of its one or two fine vertices
+  // build each coarse vertex's list from the lists of its one or two fine vertices (v, then its mate)
   for (let v = 0; v < n; v++) {
     if (coarseOf[v] !== c) continue;
     const start = fill;
-    const pair = mate[v] === v ? [v] : [v, mate[v]];
-    for (const x of pair) {
+    const members = mate[v] === v ? 1 : 2;
+    for (let r = 0; r < members; r++) {
+      const x = r === 0 ? v : mate[v];
       cWeight[c] += vertexWeight[x];
       for (let p = ptr[x]; p < ptr[x + 1]; p++) {
         const cu = coarseOf[adj[p]];
         if (cu === c) continue;
-        if (slot[cu] >= start && slot[cu] < fill && cAdj[slot[cu]] === cu) cEdge[slot[cu]] += edgeWeight[p];
+        const at = slot[cu];
+        if (at >= start) cEdge[at] += edgeWeight[p];
         else {
           slot[cu] = fill;
           cAdj[fill] = cu;
@@ -118,8 +124,8 @@ export function coarsen(g: WeightedGraph, seed: number, maxVertexWeight: number)
   const graph: WeightedGraph = {
     n: nc,
     ptr: cPtr,
-    adj: cAdj.slice(0, fill),
-    edgeWeight: cEdge.slice(0, fill),
+    adj: cAdj.subarray(0, fill),
+    edgeWeight: cEdge.subarray(0, fill),
     vertexWeight: cWeight,
     totalWeight: g.totalWeight,
   };

@@ -13,13 +13,19 @@
  * those cuts cost 0.6 % more fill than the median plane. On a structured hexahedral grid this cuts along one
  * node plane, the separator shape nested dissection needs for O(n^{4/3}) fill in 3D.
  *
+ * The boundary of a cut needs no pass over the edges: with hi_a(v) / lo_a(v) the largest and
+ * smallest coordinate a among v's neighbours in the part (one pass for all three axes), a vertex
+ * of A = {a < c} touches B iff hi_a(v) ≥ c, a vertex of B touches A iff lo_a(v) < c. Only the
+ * pruning of each candidate separator looks at edges, those of its vertices.
+ *
  * Coordinates are per graph vertex, interleaved x, y, z (length 3·n).
  * Result: perm[k] = vertex eliminated k-th.
  */
 import type { AdjacencyGraph } from './adjacency-graph.js';
-import { nestedDissectionWith, separatorFromTwoSides, SIDE_A, SIDE_B, type DissectionOptions } from './dissection-driver.js';
+import { nestedDissectionWith, pruneSeparator, SEPARATOR, SIDE_A, SIDE_B, type DissectionOptions } from './dissection-driver.js';
 
 const OUTSIDE = 255;
+const IN_PART = 3;
 
 /** Coordinate nested dissection ordering of the graph's vertices (perm[k] = k-th pivot). */
 export function coordinateBisection(
@@ -49,10 +55,45 @@ function splitAtBestMedian(
   side: Uint8Array,
   where: Uint8Array,
 ): boolean {
+  const { ptr, adj } = graph;
   const m = vertices.length;
   const trial = new Uint8Array(m);
   const keys = new Float64Array(m);
+  // per axis, the largest and smallest coordinate among each vertex's neighbours in the part
+  const highest = [new Float64Array(m), new Float64Array(m), new Float64Array(m)];
+  const lowest = [new Float64Array(m), new Float64Array(m), new Float64Array(m)];
   let bestWeight = Infinity;
+  // mark the part
+  for (let k = 0; k < m; k++) where[vertices[k]] = IN_PART;
+  // one pass over the part's edges gives the neighbour ranges of all three axes
+  for (let k = 0; k < m; k++) {
+    const v = vertices[k];
+    let hx = -Infinity;
+    let hy = -Infinity;
+    let hz = -Infinity;
+    let lx = Infinity;
+    let ly = Infinity;
+    let lz = Infinity;
+    for (let p = ptr[v]; p < ptr[v + 1]; p++) {
+      const u = adj[p];
+      if (where[u] === OUTSIDE) continue;
+      const x = coordinates[3 * u];
+      const y = coordinates[3 * u + 1];
+      const z = coordinates[3 * u + 2];
+      if (x > hx) hx = x;
+      if (x < lx) lx = x;
+      if (y > hy) hy = y;
+      if (y < ly) ly = y;
+      if (z > hz) hz = z;
+      if (z < lz) lz = z;
+    }
+    highest[0][k] = hx;
+    highest[1][k] = hy;
+    highest[2][k] = hz;
+    lowest[0][k] = lx;
+    lowest[1][k] = ly;
+    lowest[2][k] = lz;
+  }
   // candidate cuts along each axis
   for (let axis = 0; axis < 3; axis++) {
     for (let k = 0; k < m; k++) keys[k] = coordinates[3 * vertices[k] + axis];
@@ -64,8 +105,9 @@ function splitAtBestMedian(
       tried.add(cut);
       // A below the cut, B at or above it
       for (let k = 0; k < m; k++) trial[k] = keys[k] < cut ? SIDE_A : SIDE_B;
-      const sepWeight = separatorFromTwoSides(graph, weights, vertices, trial, where);
-      for (let k = 0; k < m; k++) where[vertices[k]] = OUTSIDE;
+      const sepWeight = separatorAtCut(graph, weights, vertices, trial, where, keys, highest[axis], lowest[axis], cut);
+      // back to plain part marks for the next cut
+      for (let k = 0; k < m; k++) where[vertices[k]] = IN_PART;
       // an empty off-median separator only splits off a component: the median split does better
       if (sepWeight === 0 && quantile !== 0.5) continue;
       const score = sepWeight * (1 + 4 * Math.abs(quantile - 0.5));
@@ -75,7 +117,47 @@ function splitAtBestMedian(
       }
     }
   }
+  // unmark the part
+  for (let k = 0; k < m; k++) where[vertices[k]] = OUTSIDE;
   return bestWeight < Infinity;
+}
+
+/**
+ * separatorFromTwoSides for the cut A = {key < cut}: a vertex of A lies on the boundary when
+ * its largest neighbour key reaches the cut, one of B when its smallest is below it, so the
+ * boundary needs no pass over the edges. Returns the separator's weight.
+ */
+function separatorAtCut(
+  graph: AdjacencyGraph,
+  weights: Int32Array | undefined,
+  vertices: Int32Array,
+  side: Uint8Array,
+  where: Uint8Array,
+  keys: Float64Array,
+  highest: Float64Array,
+  lowest: Float64Array,
+  cut: number,
+): number {
+  const m = vertices.length;
+  const boundaryWeight = [0, 0];
+  // publish the sides globally for the pruning; weigh both boundaries
+  for (let k = 0; k < m; k++) {
+    where[vertices[k]] = side[k];
+    const onBoundary = keys[k] < cut ? highest[k] >= cut : lowest[k] < cut;
+    if (onBoundary) boundaryWeight[side[k]] += weights ? weights[vertices[k]] : 1;
+  }
+  const sepSide = boundaryWeight[SIDE_A] <= boundaryWeight[SIDE_B] ? SIDE_A : SIDE_B;
+  // the lighter boundary becomes the separator
+  for (let k = 0; k < m; k++) {
+    if (side[k] !== sepSide || !(sepSide === SIDE_A ? highest[k] >= cut : lowest[k] < cut)) continue;
+    side[k] = SEPARATOR;
+    where[vertices[k]] = SEPARATOR;
+  }
+  pruneSeparator(graph, vertices, side, where);
+  let sepWeight = 0;
+  // weight of what is left in the separator
+  for (let k = 0; k < m; k++) if (side[k] === SEPARATOR) sepWeight += weights ? weights[vertices[k]] : 1;
+  return sepWeight;
 }
 
 /**

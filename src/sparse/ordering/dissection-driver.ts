@@ -7,6 +7,10 @@
  * Recursing on A and B down to small parts, and ordering those by minimum degree, gives
  * nnz(L) = O(n log n) on 2D meshes and O(n^{4/3}) on 3D meshes when separators are O(√n) / O(n^{2/3}).
  *
+ * The tree is built one level at a time — every part of a level is split before the next level
+ * starts — so a splitter may spread a level's independent parts over threads; the ordering is
+ * then read off the tree depth-first, exactly as a recursive dissection would emit it.
+ *
  * Result: perm[k] = vertex eliminated k-th.
  */
 import { inducedSubgraph, type AdjacencyGraph } from './adjacency-graph.js';
@@ -23,6 +27,13 @@ export const SEPARATOR = 2;
  * Returns false when it found no useful split (the part is then ordered as a leaf).
  */
 export type PartSplitter = (vertices: Int32Array, side: Uint8Array) => boolean;
+
+/**
+ * Splits every part of one level of the dissection tree at once (parts[i] → its side labels as
+ * for PartSplitter, or null for "no useful split"). The parts are disjoint, so a splitter may
+ * hand some of them to another thread. `depth` is the level: 0 for the whole graph.
+ */
+export type LevelSplitter = (parts: Int32Array[], depth: number) => (Uint8Array | null)[];
 
 export interface DissectionOptions {
   /** Parts with at most this many vertices are ordered by minimum degree (default 64). */
@@ -41,8 +52,60 @@ export interface DissectionOptions {
 
 /** Nested dissection ordering of the whole graph with the given splitter. */
 export function nestedDissectionWith(graph: AdjacencyGraph, split: PartSplitter, options: DissectionOptions = {}): Int32Array {
+  const splitLevel: LevelSplitter = (parts) =>
+    parts.map((vertices) => {
+      const side = new Uint8Array(vertices.length);
+      return split(vertices, side) ? side : null;
+    });
+  return nestedDissectionByLevels(graph, splitLevel, options);
+}
+
+/** A node of the dissection tree: a leaf part, or a split part (its separator and two children). */
+interface TreeNode {
+  vertices: Int32Array; // the leaf's vertices, or the separator of a split part
+  a: number; // child indices, −1 for a leaf
+  b: number;
+}
+
+/**
+ * Nested dissection ordering, the tree built one level at a time (all parts of a level split
+ * together), then ordered depth-first: A's subtree, B's subtree, the separator. The order does
+ * not depend on how the levels were computed.
+ */
+export function nestedDissectionByLevels(graph: AdjacencyGraph, splitLevel: LevelSplitter, options: DissectionOptions = {}): Int32Array {
   const n = graph.n;
   const leafSize = Math.max(2, options.leafSize ?? 64);
+  const all = new Int32Array(n);
+  // the whole graph is the root part
+  for (let v = 0; v < n; v++) all[v] = v;
+  const nodes: TreeNode[] = [{ vertices: all, a: -1, b: -1 }];
+  let level = [0];
+  // split the parts of each level; their sides become the next level
+  for (let depth = 0; level.length > 0; depth++) {
+    const open = depth <= 64 ? level.filter((i) => nodes[i].vertices.length > leafSize) : [];
+    const sides = open.length > 0 ? splitLevel(open.map((i) => nodes[i].vertices), depth) : [];
+    const next: number[] = [];
+    for (let t = 0; t < open.length; t++) {
+      const node = nodes[open[t]];
+      const side = sides[t];
+      if (!side) continue;
+      const counts = [0, 0, 0];
+      for (let k = 0; k < side.length; k++) counts[side[k]]++;
+      if (counts[SIDE_A] === 0 || counts[SIDE_B] === 0) continue;
+      const parts = [new Int32Array(counts[0]), new Int32Array(counts[1]), new Int32Array(counts[2])];
+      const fill = [0, 0, 0];
+      // distribute the vertices by side, keeping their relative order
+      for (let k = 0; k < side.length; k++) parts[side[k]][fill[side[k]]++] = node.vertices[k];
+      node.a = nodes.length;
+      nodes.push({ vertices: parts[SIDE_A], a: -1, b: -1 });
+      node.b = nodes.length;
+      nodes.push({ vertices: parts[SIDE_B], a: -1, b: -1 });
+      node.vertices = parts[SEPARATOR];
+      next.push(node.a, node.b);
+    }
+    level = next;
+  }
+
   const perm = new Int32Array(n);
   const local = new Int32Array(n).fill(-1);
   const inPart = new Uint8Array(n);
@@ -57,58 +120,71 @@ export function nestedDissectionWith(graph: AdjacencyGraph, split: PartSplitter,
     const withHalo = partWithHalo(graph, vertices, inPart);
     const sub = inducedSubgraph(graph, withHalo, local);
     const halo = new Uint8Array(withHalo.length).fill(1, vertices.length);
-    const weights = options.weights ? Int32Array.from(withHalo, (v) => options.weights![v]) : undefined;
+    const weights = options.weights ? gather(options.weights, withHalo) : undefined;
     const order = approximateMinimumDegree(sub, { weights, halo });
     // translate local pivots back to global vertices
     for (let k = 0; k < order.length; k++) perm[out++] = vertices[order[k]];
   };
 
-  /** Orders a part: A and B recursively, then the separator; returns the part's tree height. */
-  const orderPart = (vertices: Int32Array, depth: number): number => {
-    if (vertices.length <= leafSize || depth > 64) return orderLeaf(vertices), 0;
-    const side = new Uint8Array(vertices.length);
-    if (!split(vertices, side)) return orderLeaf(vertices), 0;
-    const counts = [0, 0, 0];
-    for (let k = 0; k < side.length; k++) counts[side[k]]++;
-    if (counts[SIDE_A] === 0 || counts[SIDE_B] === 0) return orderLeaf(vertices), 0;
-    const parts = [new Int32Array(counts[0]), new Int32Array(counts[1]), new Int32Array(counts[2])];
-    const fill = [0, 0, 0];
-    // distribute the vertices by side, keeping their relative order
-    for (let k = 0; k < side.length; k++) parts[side[k]][fill[side[k]]++] = vertices[k];
-    const h = 1 + Math.max(orderPart(parts[SIDE_A], depth + 1), orderPart(parts[SIDE_B], depth + 1));
-    orderSeparator(parts[SEPARATOR]);
-    for (const v of parts[SEPARATOR]) height[v] = h;
-    return parts[SEPARATOR].length > 0 ? h : h - 1;
+  /** Orders a subtree: A and B, then the separator (its block is dense, its inner order free); returns its height. */
+  const orderNode = (i: number): number => {
+    const node = nodes[i];
+    if (node.a < 0) return orderLeaf(node.vertices), 0;
+    const h = 1 + Math.max(orderNode(node.a), orderNode(node.b));
+    const separator = node.vertices;
+    // the separator after both sides, in its stored order
+    for (let k = 0; k < separator.length; k++) {
+      perm[out++] = separator[k];
+      height[separator[k]] = h;
+    }
+    return separator.length > 0 ? h : h - 1;
   };
 
-  /** The separator's own block is dense after A and B are eliminated: its inner order is free. */
-  const orderSeparator = (vertices: Int32Array): void => {
-    for (let k = 0; k < vertices.length; k++) perm[out++] = vertices[k];
-  };
-
-  orderPart(Int32Array.from({ length: n }, (_, v) => v), 0);
+  orderNode(0);
   if (!options.constrainedReorder) return perm;
   return approximateMinimumDegree(graph, { weights: options.weights, constraint: height, denseThreshold: n });
+}
+
+/** values[list[k]] for every k. */
+function gather(values: Int32Array, list: Int32Array): Int32Array {
+  const out = new Int32Array(list.length);
+  // one value per list entry
+  for (let k = 0; k < list.length; k++) out[k] = values[list[k]];
+  return out;
 }
 
 /** The part's vertices followed by its outside neighbours (`inPart` is an n-long zeroed workspace). */
 function partWithHalo(graph: AdjacencyGraph, vertices: Int32Array, inPart: Uint8Array): Int32Array {
   const { ptr, adj } = graph;
-  for (let k = 0; k < vertices.length; k++) inPart[vertices[k]] = 1;
-  const list: number[] = Array.from(vertices);
-  // each outside neighbour once (flag 2 marks it as taken)
-  for (let k = 0; k < vertices.length; k++) {
+  const m = vertices.length;
+  let size = m;
+  // flag the part
+  for (let k = 0; k < m; k++) inPart[vertices[k]] = 1;
+  // count each outside neighbour once (flag 2 marks it as counted)
+  for (let k = 0; k < m; k++) {
     const v = vertices[k];
     for (let p = ptr[v]; p < ptr[v + 1]; p++) {
-      const u = adj[p];
-      if (inPart[u] === 0) {
-        inPart[u] = 2;
-        list.push(u);
+      if (inPart[adj[p]] === 0) {
+        inPart[adj[p]] = 2;
+        size++;
       }
     }
   }
-  for (const v of list) inPart[v] = 0;
-  return Int32Array.from(list);
+  const list = new Int32Array(size);
+  list.set(vertices);
+  // list them in the order first met (flag 3 marks a listed one)
+  for (let k = 0, t = m; k < m; k++) {
+    const v = vertices[k];
+    for (let p = ptr[v]; p < ptr[v + 1]; p++) {
+      if (inPart[adj[p]] === 2) {
+        inPart[adj[p]] = 3;
+        list[t++] = adj[p];
+      }
+    }
+  }
+  // clear the flags
+  for (let k = 0; k < size; k++) inPart[list[k]] = 0;
+  return list;
 }
 
 /**

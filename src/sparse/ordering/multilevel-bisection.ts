@@ -7,19 +7,38 @@
  * coarsest graph several bisections are grown greedily by cut gain from different seeds (the
  * first from a pseudo-peripheral vertex) and refined by edge-cut FM (coarse-bisection.ts); each
  * becomes a vertex separator — the lighter of the two boundary layers — refined by
- * vertex-separator FM (separator-refinement.ts); the lightest wins. Parts of LARGE_PART or more
- * vertices take the lightest of RUNS_ON_LARGE_PARTS independent multilevel runs, parts of
- * HUGE_PART or more of RUNS_ON_HUGE_PARTS: the top separators decide most of the fill (on the
- * 40×32×30 hex solid 8 runs at the top gave 3 % less fill than 3). The separator is then carried back level by level (a fine vertex takes its coarse
- * vertex's label, which keeps A and B apart because a fine A–B edge would be a coarse one) and
- * refined again at every level, where the finer graph offers smaller moves.
+ * vertex-separator FM (separator-refinement.ts); the lightest wins. The separator is then
+ * carried back level by level (a fine vertex takes its coarse vertex's label, which keeps A and
+ * B apart because a fine A–B edge would be a coarse one) and refined again at every level, where
+ * the finer graph offers smaller moves.
+ *
+ * Repeated runs. Parts of LARGE_PART or more vertices take the lightest of RUNS_ON_LARGE_PARTS
+ * runs, parts of HUGE_PART or more of RUNS_ON_HUGE_PARTS, the whole graph of RUNS_ON_ROOT: the
+ * top separators decide most of the fill (on the 40×32×30 hex solid 8 runs at the top gave 3 %
+ * less fill than 3). Coarsening is four fifths of a run, and its first three levels (nine tenths
+ * of the coarsening work) hardly differ between seeds, so the runs of a part share them: every
+ * run with seed ⌊seed / RUN_SLOTS⌋ = s on the same graph starts from the part coarsened
+ * SHARED_LEVELS times with seed s (computed once per graph and thread), coarsens on with its own
+ * seed, and carries its separator back through all levels, refining at each. A further run then
+ * costs 14 ms instead of 67 ms on the 127k-DOF hex solid. Only finished separators are compared:
+ * keeping the better half at each shared level instead cost 2 % fill. Parts of one run (below
+ * LARGE_PART) grow SMALL_PART_TRIES bisections on their coarsest graph instead of INITIAL_TRIES,
+ * and every trial separator gets TRIAL_SEPARATOR_PASSES FM passes (the chosen one is refined
+ * again on every finer level). Together with the 16 runs at the root this kept the fill of the
+ * bench solids' dissections within ±1 % (mean over four seeds) at less than half the time.
+ *
+ * Threads. The dissection tree is built one level at a time (dissection-driver.ts); a level's
+ * work — its single-run parts and the halves of its large parts' runs — is dealt in pairs of
+ * similar cost, one to the helper thread (parallel-factor.ts, one job in flight at a time) and
+ * one done here. Every separator is a function of its part's graph and its seed alone, so the
+ * ordering is the same with one thread or two.
  *
  * Result of the ordering: perm[k] = vertex eliminated k-th.
  */
-import { inducedSubgraph, type AdjacencyGraph } from './adjacency-graph.js';
+import type { AdjacencyGraph } from './adjacency-graph.js';
 import { coarsen, shuffled, type CoarseLevel, type WeightedGraph } from './coarsen-graph.js';
 import { startSeparatorRuns } from '../parallel-factor.js';
-import { nestedDissectionWith, type DissectionOptions } from './dissection-driver.js';
+import { nestedDissectionByLevels, type DissectionOptions, type LevelSplitter } from './dissection-driver.js';
 import { partWeights, PART_A, PART_B, PART_S, refineSeparator } from './separator-refinement.js';
 import { greedyGrownBisection, refineEdgeCut } from './coarse-bisection.js';
 
@@ -35,8 +54,18 @@ const RUNS_ON_LARGE_PARTS = 3;
 /** Parts with at least this many vertices (the top few levels) get RUNS_ON_HUGE_PARTS runs. */
 const HUGE_PART = 8000;
 const RUNS_ON_HUGE_PARTS = 8;
-/** Bisections grown on the coarsest graph. */
+/** Runs on the whole graph when it is a huge part: its separator decides the most fill. */
+const RUNS_ON_ROOT = 16;
+/** Coarsening levels the runs of one part share. */
+const SHARED_LEVELS = 3;
+/** Bisections grown on the coarsest graph of a part with several runs. */
 const INITIAL_TRIES = 6;
+/** Bisections grown on the coarsest graph of a part below LARGE_PART vertices (one run). */
+const SMALL_PART_TRIES = 3;
+/** Separator FM passes on each grown bisection's separator (the winner is refined again on every finer level). */
+const TRIAL_SEPARATOR_PASSES = 2;
+/** Seeds of one part's runs are partSeed · RUN_SLOTS + r, r < RUN_SLOTS. */
+const RUN_SLOTS = 64;
 
 export interface MultilevelOptions extends DissectionOptions {
   /** Seed of the matchings' visiting order (default 1): the result is deterministic. */
@@ -45,44 +74,137 @@ export interface MultilevelOptions extends DissectionOptions {
   threads?: number;
 }
 
+/** One part of a level being split: its graph, its runs' seeds and their separators. */
+interface PartWork {
+  g: WeightedGraph;
+  seeds: number[];
+  wheres: Uint8Array[];
+}
+
+/** A batch of runs on one graph: one part's seeds (all, or one half of a large part's). */
+interface RunTask {
+  part: number;
+  from: number;
+  to: number;
+  cost: number;
+}
+
 /** Nested dissection ordering with multilevel vertex separators (perm[k] = k-th pivot). */
 export function multilevelNestedDissection(graph: AdjacencyGraph, options: MultilevelOptions = {}): Int32Array {
   const local = new Int32Array(graph.n).fill(-1);
   const affinity = sharedNeighbourWeights(graph);
+  const threads = options.threads ?? 1;
+  const baseSeed = options.seed ?? 1;
   let calls = 0;
-  const split = (vertices: Int32Array, side: Uint8Array): boolean => {
-    const sub = inducedSubgraph(graph, vertices, local);
-    const g: WeightedGraph = {
-      ...sub,
-      edgeWeight: subgraphEdgeWeights(graph, affinity, vertices, local),
-      vertexWeight: options.weights ? Int32Array.from(vertices, (v) => options.weights![v]) : new Int32Array(sub.n).fill(1),
-      totalWeight: 0,
-    };
-    for (let k = 0; k < g.n; k++) g.totalWeight += g.vertexWeight[k];
-    const runs = g.n >= HUGE_PART ? RUNS_ON_HUGE_PARTS : g.n >= LARGE_PART ? RUNS_ON_LARGE_PARTS : 1;
-    const seeds = Array.from({ length: runs }, (_, r) => (options.seed ?? 1) + 7919 * (calls + r));
-    calls += runs;
-    // the later half of the runs on the helper thread, when there is one
-    const half = runs >> 1;
-    const theirs = runs > 1 ? startSeparatorRuns(g, seeds.slice(half), options.threads ?? 1) : null;
-    const wheres: Uint8Array[] = [];
-    for (let r = 0; r < (theirs ? half : runs); r++) wheres.push(multilevelSeparator(g, seeds[r]));
-    if (theirs) wheres.push(...theirs());
-    let bestScore = Infinity;
-    // independent multilevel runs on large parts; the lightest balanced separator wins, the
-    // earlier run on a tie (a side above the balance bound counts its excess as separator weight)
-    for (let r = 0; r < runs; r++) {
-      const where = wheres[r];
-      const [a, b, s] = partWeights(g, where);
-      const score = s + Math.max(0, Math.max(a, b) - MAX_SIDE_FRACTION * g.totalWeight);
-      if (score < bestScore) {
-        bestScore = score;
-        side.set(where);
+  const splitLevel: LevelSplitter = (parts, depth) => {
+    // every part's weighted subgraph and run seeds (parts numbered in level order)
+    const work: PartWork[] = parts.map((vertices) => {
+      const g = weightedSubgraph(graph, affinity, options.weights, vertices, local);
+      const huge = depth === 0 ? RUNS_ON_ROOT : RUNS_ON_HUGE_PARTS;
+      const runs = g.n >= HUGE_PART ? huge : g.n >= LARGE_PART ? RUNS_ON_LARGE_PARTS : 1;
+      const partSeed = baseSeed + 7919 * calls++;
+      const seeds = Array.from({ length: runs }, (_, r) => partSeed * RUN_SLOTS + r);
+      return { g, seeds, wheres: new Array<Uint8Array>(runs) };
+    });
+    runTasks(work, threads);
+    // the lightest balanced separator of each part, the earlier run on a tie (a side above
+    // the balance bound counts its excess as separator weight)
+    return work.map((w) => {
+      const maxSide = MAX_SIDE_FRACTION * w.g.totalWeight;
+      let best: Uint8Array | null = null;
+      let bestScore = Infinity;
+      // score every run's separator
+      for (let r = 0; r < w.wheres.length; r++) {
+        const [a, b, s] = partWeights(w.g, w.wheres[r]);
+        const score = s + Math.max(0, Math.max(a, b) - maxSide);
+        if (score < bestScore) {
+          bestScore = score;
+          best = w.wheres[r];
+        }
       }
-    }
-    return true;
+      return best;
+    });
   };
-  return nestedDissectionWith(graph, split, options);
+  return nestedDissectionByLevels(graph, splitLevel, options);
+}
+
+/**
+ * Computes every run of the level's parts. Tasks — a single run, or one half of a large part's
+ * runs — go out in decreasing cost, in pairs: the first of a pair to the helper thread, the
+ * second computed here meanwhile, then the helper's result collected (the helper takes one job
+ * at a time). Without a helper every task runs here.
+ */
+function runTasks(work: PartWork[], threads: number): void {
+  const tasks: RunTask[] = [];
+  // a large part's runs in two halves, a single run as one task; cost ~ entries × runs
+  for (let i = 0; i < work.length; i++) {
+    const runs = work[i].seeds.length;
+    const cost = work[i].g.adj.length + work[i].g.n;
+    const half = runs >> 1;
+    if (runs > 1) tasks.push({ part: i, from: 0, to: half, cost: cost * half }, { part: i, from: half, to: runs, cost: cost * (runs - half) });
+    else tasks.push({ part: i, from: 0, to: 1, cost });
+  }
+  tasks.sort((x, y) => y.cost - x.cost || x.part - y.part || x.from - y.from);
+  const runHere = (t: RunTask): void => {
+    const w = work[t.part];
+    // the task's runs, one separator each
+    for (let r = t.from; r < t.to; r++) w.wheres[r] = multilevelSeparator(w.g, w.seeds[r]);
+  };
+  // pairs: the helper's task is posted, this thread's computed, then the helper's collected
+  for (let k = 0; k < tasks.length; k += 2) {
+    if (k + 1 === tasks.length) {
+      runHere(tasks[k]);
+      break;
+    }
+    const theirs = tasks[k];
+    const w = work[theirs.part];
+    const wait = startSeparatorRuns(w.g, w.seeds.slice(theirs.from, theirs.to), threads);
+    runHere(tasks[k + 1]);
+    if (!wait) {
+      runHere(theirs);
+      continue;
+    }
+    const got = wait();
+    for (let r = theirs.from; r < theirs.to; r++) w.wheres[r] = got[r - theirs.from];
+  }
+}
+
+/** Per part graph: the levels shared by the runs of its latest shared seed (dropped with the graph). */
+const sharedCache = new WeakMap<WeightedGraph, { seed: number; levels: CoarseLevel[] }>();
+
+/** Up to SHARED_LEVELS coarsenings of g (stopping where the multilevel run would stop), cached per graph. */
+function sharedLevels(g: WeightedGraph, seed: number): CoarseLevel[] {
+  const cached = sharedCache.get(g);
+  if (cached && cached.seed === seed) return cached.levels;
+  const levels: CoarseLevel[] = [];
+  const maxVertexWeight = Math.max(1.5 * (g.totalWeight / COARSEST_SIZE), 1);
+  let coarse = g;
+  // the same rule as multilevelSeparator's coarsening loop
+  while (levels.length < SHARED_LEVELS && coarse.n > COARSEST_SIZE) {
+    const level = coarsen(coarse, seed + 104729 * (levels.length + 1), maxVertexWeight);
+    if (level.graph.n > (1 - MIN_REDUCTION) * coarse.n) break;
+    levels.push(level);
+    coarse = level.graph;
+  }
+  sharedCache.set(g, { seed, levels });
+  return levels;
+}
+
+/**
+ * Carries a separator of levels[count − 1].graph back to g (levels[l] coarsens
+ * levels[l − 1].graph, levels[0] coarsens g), refining it at every finer level.
+ */
+function projectAndRefine(levels: CoarseLevel[], g: WeightedGraph, where: Uint8Array, maxSide: number, count: number): Uint8Array {
+  // from the coarsest level to g
+  for (let l = count - 1; l >= 0; l--) {
+    const fine = l === 0 ? g : levels[l - 1].graph;
+    const coarseOf = levels[l].coarseOf;
+    const projected = new Uint8Array(fine.n);
+    for (let v = 0; v < fine.n; v++) projected[v] = where[coarseOf[v]];
+    refineSeparator(fine, projected, maxSide);
+    where = projected;
+  }
+  return where;
 }
 
 /**
@@ -108,57 +230,86 @@ function sharedNeighbourWeights(graph: AdjacencyGraph): Int32Array {
   return weight;
 }
 
-/** The edge weights of the subgraph induced by vertices, in inducedSubgraph's order. */
-function subgraphEdgeWeights(graph: AdjacencyGraph, weight: Int32Array, vertices: Int32Array, local: Int32Array): Int32Array {
-  const out: number[] = [];
-  for (let k = 0; k < vertices.length; k++) local[vertices[k]] = k;
-  // the same scan as inducedSubgraph: neighbours inside the part, in list order
-  for (let k = 0; k < vertices.length; k++) {
+/**
+ * The weighted subgraph induced by vertices (local index = position in the list), edges in the
+ * order of graph's lists. `local` is an n-long workspace holding −1, restored before return.
+ */
+function weightedSubgraph(
+  graph: AdjacencyGraph,
+  affinity: Int32Array,
+  weights: Int32Array | undefined,
+  vertices: Int32Array,
+  local: Int32Array,
+): WeightedGraph {
+  const m = vertices.length;
+  // number the part's vertices locally
+  for (let k = 0; k < m; k++) local[vertices[k]] = k;
+  const ptr = new Int32Array(m + 1);
+  // count the neighbours inside the part
+  for (let k = 0; k < m; k++) {
     const v = vertices[k];
-    for (let p = graph.ptr[v]; p < graph.ptr[v + 1]; p++) if (local[graph.adj[p]] >= 0) out.push(weight[p]);
+    let c = 0;
+    for (let p = graph.ptr[v]; p < graph.ptr[v + 1]; p++) if (local[graph.adj[p]] >= 0) c++;
+    ptr[k + 1] = ptr[k] + c;
   }
-  for (let k = 0; k < vertices.length; k++) local[vertices[k]] = -1;
-  return Int32Array.from(out);
+  const adj = new Int32Array(ptr[m]);
+  const edgeWeight = new Int32Array(ptr[m]);
+  // copy them in local numbering with their edge weights
+  for (let k = 0, t = 0; k < m; k++) {
+    const v = vertices[k];
+    for (let p = graph.ptr[v]; p < graph.ptr[v + 1]; p++) {
+      const u = local[graph.adj[p]];
+      if (u < 0) continue;
+      adj[t] = u;
+      edgeWeight[t++] = affinity[p];
+    }
+  }
+  const vertexWeight = new Int32Array(m);
+  let totalWeight = 0;
+  // vertex weights (1 without supervariable weights)
+  for (let k = 0; k < m; k++) {
+    vertexWeight[k] = weights ? weights[vertices[k]] : 1;
+    totalWeight += vertexWeight[k];
+  }
+  // restore the workspace
+  for (let k = 0; k < m; k++) local[vertices[k]] = -1;
+  return { n: m, ptr, adj, edgeWeight, vertexWeight, totalWeight };
 }
 
-/** A/B/S labelling (PART_A, PART_B, PART_S) of g's vertices with no edge between A and B. */
+/**
+ * A/B/S labelling (PART_A, PART_B, PART_S) of g's vertices with no edge between A and B. On a
+ * graph of LARGE_PART or more vertices the first levels are those shared by every seed with the
+ * same ⌊seed / RUN_SLOTS⌋ (the runs of one part), computed once per graph.
+ */
 export function multilevelSeparator(g: WeightedGraph, seed = 1): Uint8Array {
   const maxSide = MAX_SIDE_FRACTION * g.totalWeight;
-  const levels: CoarseLevel[] = [];
-  let coarse = g;
+  const levels = g.n >= LARGE_PART ? sharedLevels(g, Math.floor(seed / RUN_SLOTS)).slice() : [];
+  const maxVertexWeight = Math.max(1.5 * (g.totalWeight / COARSEST_SIZE), 1);
+  let coarse = levels.length > 0 ? levels[levels.length - 1].graph : g;
   // coarsen while the graph is large and matching still shrinks it
   while (coarse.n > COARSEST_SIZE) {
-    const maxVertexWeight = Math.max(1.5 * (g.totalWeight / COARSEST_SIZE), 1);
     const level = coarsen(coarse, seed + levels.length, maxVertexWeight);
     if (level.graph.n > (1 - MIN_REDUCTION) * coarse.n) break;
     levels.push(level);
     coarse = level.graph;
   }
-  let where = initialSeparator(coarse, maxSide, seed);
-  // carry the separator back to each finer level and refine it there
-  for (let l = levels.length - 1; l >= 0; l--) {
-    const fine = l === 0 ? g : levels[l - 1].graph;
-    const coarseOf = levels[l].coarseOf;
-    const projected = new Uint8Array(fine.n);
-    for (let v = 0; v < fine.n; v++) projected[v] = where[coarseOf[v]];
-    refineSeparator(fine, projected, maxSide);
-    where = projected;
-  }
-  return where;
+  const tries = g.n >= LARGE_PART ? INITIAL_TRIES : SMALL_PART_TRIES;
+  const where = initialSeparator(coarse, maxSide, seed, tries);
+  return projectAndRefine(levels, g, where, maxSide, levels.length);
 }
 
-/** The best of INITIAL_TRIES grown bisections, each turned into a refined vertex separator. */
-function initialSeparator(g: WeightedGraph, maxSide: number, seed: number): Uint8Array {
+/** The best of `tries` grown bisections, each turned into a refined vertex separator. */
+function initialSeparator(g: WeightedGraph, maxSide: number, seed: number, tries: number): Uint8Array {
   let best: Uint8Array | undefined;
   let bestScore = Infinity;
   const seeds = shuffled(g.n, seed);
   // one grown bisection per seed; the first grows from a pseudo-peripheral vertex
-  for (let t = 0; t < Math.min(INITIAL_TRIES, g.n); t++) {
+  for (let t = 0; t < Math.min(tries, g.n); t++) {
     const start = t === 0 ? farthestFrom(g, seeds[0]) : seeds[t];
     const where = greedyGrownBisection(g, start);
     refineEdgeCut(g, where, maxSide);
     boundaryToSeparator(g, where);
-    const [a, b, s] = refineSeparator(g, where, maxSide);
+    const [a, b, s] = refineSeparator(g, where, maxSide, TRIAL_SEPARATOR_PASSES);
     // a separator leaving a side empty is useless; over-heavy sides are penalised
     const score = a === 0 || b === 0 ? Infinity : s + Math.max(0, Math.max(a, b) - maxSide);
     if (score < bestScore || !best) {
@@ -221,4 +372,3 @@ function boundaryToSeparator(g: WeightedGraph, where: Uint8Array): void {
   const layer = boundaryWeight[PART_A] <= boundaryWeight[PART_B] ? PART_A : PART_B;
   for (let v = 0; v < n; v++) if (onBoundary[v] && where[v] === layer) where[v] = PART_S;
 }
-

@@ -3,10 +3,10 @@
  *
  * For a part, a pseudo-peripheral vertex r is found by repeated breadth-first search (restart
  * from a least-degree vertex of the last level while the eccentricity grows; Gibbs, Poole &
- * Stockmeyer, SIAM J. Numer. Anal. 13(2), 1976). Every level Lℓ of the structure rooted at r
- * separates L<ℓ from L>ℓ; the lightest level among those leaving at least `minSideFraction` of
- * the weight on each side is taken, pruned to the vertices that touch L>ℓ, and improved by
- * greedy single-vertex moves: moving separator vertex v to side A pulls its B-neighbours N_B(v)
+ * Stockmeyer, SIAM J. Numer. Anal. 13(2), 1976; the last round's search is reused as r's).
+ * Every level Lℓ of the structure rooted at r separates L<ℓ from L>ℓ; the lightest level among
+ * those leaving at least `minSideFraction` of the weight on each side is taken, pruned to the
+ * vertices that touch L>ℓ, and improved by greedy single-vertex moves: moving separator vertex v to side A pulls its B-neighbours N_B(v)
  * into the separator, which pays when w(N_B(v)) < w(v) and the sides stay balanced.
  * A part that breadth-first search does not cover is split into reached / unreached with no
  * separator at all.
@@ -80,8 +80,12 @@ function breadthFirst(ws: Workspace, vertices: Int32Array, root: number): number
   return tail;
 }
 
-/** A root of (nearly) maximal eccentricity in the start vertex's component. */
-function pseudoPeripheral(ws: Workspace, vertices: Int32Array): number {
+/**
+ * A root of (nearly) maximal eccentricity in the start vertex's component, and the number of
+ * vertices its breadth-first search reached when level[] and queue[] already hold that search
+ * (the usual case: the last round's root is returned), else −1.
+ */
+function pseudoPeripheral(ws: Workspace, vertices: Int32Array): [number, number] {
   const { graph, level, queue } = ws;
   let root = vertices[0];
   let eccentricity = -1;
@@ -89,7 +93,7 @@ function pseudoPeripheral(ws: Workspace, vertices: Int32Array): number {
   for (let round = 0; round < 8; round++) {
     const reached = breadthFirst(ws, vertices, root);
     const depth = level[queue[reached - 1]];
-    if (depth <= eccentricity) break;
+    if (depth <= eccentricity) return [root, reached];
     eccentricity = depth;
     let best = queue[reached - 1];
     for (let t = reached - 1; t >= 0 && level[queue[t]] === depth; t--) {
@@ -98,7 +102,7 @@ function pseudoPeripheral(ws: Workspace, vertices: Int32Array): number {
     }
     root = best;
   }
-  return root;
+  return [root, -1];
 }
 
 /**
@@ -114,18 +118,22 @@ function splitByLevels(ws: Workspace, vertices: Int32Array, side: Uint8Array): b
   };
   enterPart();
   for (let k = 0; k < m; k++) ws.position[vertices[k]] = k;
-  const r1 = pseudoPeripheral(ws, vertices);
-  const reached = breadthFirst(ws, vertices, r1);
+  const [r1, searched] = pseudoPeripheral(ws, vertices);
+  const reached = searched >= 0 ? searched : breadthFirst(ws, vertices, r1);
   if (reached < m) {
     // disconnected part: the root's component against the rest, nothing to separate
     for (let k = 0; k < m; k++) side[k] = level[vertices[k]] >= 0 ? SIDE_A : SIDE_B;
     for (let k = 0; k < m; k++) where[vertices[k]] = OUTSIDE;
     return true;
   }
-  const d1 = Int32Array.from(vertices, (v) => level[v]);
+  const d1 = new Int32Array(m);
+  // distance of each vertex from r₁
+  for (let k = 0; k < m; k++) d1[k] = level[vertices[k]];
   const r2 = queue[reached - 1];
   breadthFirst(ws, vertices, r2);
-  const d2 = Int32Array.from(vertices, (v) => level[v]);
+  const d2 = new Int32Array(m);
+  // distance of each vertex from r₂
+  for (let k = 0; k < m; k++) d2[k] = level[vertices[k]];
   const trial = new Uint8Array(m);
   let best = Infinity;
   /** Refines the trial labelling, keeps it if its separator is the lightest so far. */

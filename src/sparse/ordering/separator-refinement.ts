@@ -38,8 +38,10 @@ export function refineSeparator(
 ): [number, number, number] {
   const { n, ptr, adj, vertexWeight: vw } = g;
   const weight = partWeights(g, where);
-  const toSide = [new GainHeap(n), new GainHeap(n)];
-  const neighbourWeight = [new Float64Array(n), new Float64Array(n)]; // w(N_A(v)), w(N_B(v)) for v in S
+  const toA = new GainHeap(n); // separator vertices by gain of a move to A
+  const toB = new GainHeap(n);
+  const weightInA = new Float64Array(n); // w(N_A(v)) for v in S
+  const weightInB = new Float64Array(n); // w(N_B(v)) for v in S
   const locked = new Uint8Array(n);
   const movedVertex = new Int32Array(n);
   const pulledPtr = new Int32Array(n + 1);
@@ -50,33 +52,40 @@ export function refineSeparator(
     let a = 0;
     let b = 0;
     for (let p = ptr[v]; p < ptr[v + 1]; p++) {
-      const s = where[adj[p]];
-      if (s === PART_A) a += vw[adj[p]];
-      else if (s === PART_B) b += vw[adj[p]];
+      const u = adj[p];
+      const s = where[u];
+      if (s === PART_A) a += vw[u];
+      else if (s === PART_B) b += vw[u];
     }
-    neighbourWeight[PART_A][v] = a;
-    neighbourWeight[PART_B][v] = b;
+    weightInA[v] = a;
+    weightInB[v] = b;
     if (locked[v]) return;
-    toSide[PART_A].set(v, vw[v] - b);
-    toSide[PART_B].set(v, vw[v] - a);
+    toA.set(v, vw[v] - b);
+    toB.set(v, vw[v] - a);
   };
-  /** Separator neighbours of y see y's weight enter (sign +1) or leave (−1) side s. */
-  const shiftNeighbours = (y: number, s: number, sign: number): void => {
-    const other = 1 - s;
+  /** Separator neighbours of y see y's weight enter (delta = +w(y)) or leave (−w(y)) side A. */
+  const shiftA = (y: number, delta: number): void => {
     for (let p = ptr[y]; p < ptr[y + 1]; p++) {
       const x = adj[p];
       if (where[x] !== PART_S) continue;
-      neighbourWeight[s][x] += sign * vw[y];
-      if (!locked[x]) toSide[other].set(x, vw[x] - neighbourWeight[s][x]);
+      const w = (weightInA[x] += delta);
+      if (!locked[x]) toB.set(x, vw[x] - w);
     }
   };
-  const feasible = (v: number, t: number): boolean =>
-    weight[t] + vw[v] <= maxSideWeight || weight[t] + vw[v] <= weight[1 - t];
+  /** The same for side B. */
+  const shiftB = (y: number, delta: number): void => {
+    for (let p = ptr[y]; p < ptr[y + 1]; p++) {
+      const x = adj[p];
+      if (where[x] !== PART_S) continue;
+      const w = (weightInB[x] += delta);
+      if (!locked[x]) toA.set(x, vw[x] - w);
+    }
+  };
 
   for (let pass = 0; pass < maxPasses; pass++) {
     locked.fill(0);
-    toSide[0].clear();
-    toSide[1].clear();
+    toA.clear();
+    toB.clear();
     // queue every separator vertex with its two gains
     for (let v = 0; v < n; v++) if (where[v] === PART_S) enqueue(v);
     let moves = 0;
@@ -85,31 +94,26 @@ export function refineSeparator(
     let bestImbalance = Math.abs(weight[PART_A] - weight[PART_B]);
     // best feasible move each step, until the queues empty or too many moves were fruitless
     while (moves - bestMoves < MAX_FRUITLESS_MOVES) {
-      let t = -1;
-      let v = -1;
-      for (const s of [PART_A, PART_B]) {
-        const c = toSide[s].top();
-        if (c < 0 || !feasible(c, s)) continue;
-        const better =
-          t < 0 ||
-          toSide[s].gainOf(c) > toSide[t].gainOf(v) ||
-          (toSide[s].gainOf(c) === toSide[t].gainOf(v) && weight[s] < weight[t]);
-        if (better) {
-          t = s;
-          v = c;
-        }
-      }
-      if (t < 0) break;
+      // the top of each queue, if its side can take it (within the bound, or lighter than the other)
+      const a = toA.top();
+      const b = toB.top();
+      const okA = a >= 0 && (weight[PART_A] + vw[a] <= maxSideWeight || weight[PART_A] + vw[a] <= weight[PART_B]);
+      const okB = b >= 0 && (weight[PART_B] + vw[b] <= maxSideWeight || weight[PART_B] + vw[b] <= weight[PART_A]);
+      if (!okA && !okB) break;
+      // the larger gain wins; on equal gains the lighter side
+      const t = !okB || (okA && (toA.gainOf(a) > toB.gainOf(b) || (toA.gainOf(a) === toB.gainOf(b) && weight[PART_A] <= weight[PART_B]))) ? PART_A : PART_B;
+      const v = t === PART_A ? a : b;
       const other = 1 - t;
-      toSide[0].remove(v);
-      toSide[1].remove(v);
+      toA.remove(v);
+      toB.remove(v);
       locked[v] = 1;
       movedVertex[moves] = v;
       pulledPtr[moves + 1] = pulledPtr[moves];
       where[v] = t;
       weight[t] += vw[v];
       weight[PART_S] -= vw[v];
-      shiftNeighbours(v, t, +1);
+      if (t === PART_A) shiftA(v, vw[v]);
+      else shiftB(v, vw[v]);
       // v's neighbours on the other side join the separator
       for (let p = ptr[v]; p < ptr[v + 1]; p++) {
         const u = adj[p];
@@ -118,7 +122,8 @@ export function refineSeparator(
         weight[other] -= vw[u];
         weight[PART_S] += vw[u];
         pulled[pulledPtr[moves + 1]++] = u;
-        shiftNeighbours(u, other, -1);
+        if (other === PART_A) shiftA(u, -vw[u]);
+        else shiftB(u, -vw[u]);
         enqueue(u);
       }
       moves++;
