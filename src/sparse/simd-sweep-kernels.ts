@@ -23,6 +23,8 @@
  * not fit in 4 GiB; the sweeps then use the plain TypeScript loops.
  */
 
+import { leb, name, section, sleb } from './wasm-bytes.js';
+
 /** The few WebAssembly names used here (the project's lib settings do not include them). */
 declare const WebAssembly: {
   Module: new (bytes: Uint8Array) => object;
@@ -58,33 +60,6 @@ export interface SweepKernels {
   columns: Kernel[];
   dots2: Kernel[];
   dots1: Kernel[];
-}
-
-function leb(n: number): number[] {
-  const out: number[] = [];
-  // seven bits per byte, high bit = more follows
-  do {
-    let b = n & 0x7f;
-    n >>>= 7;
-    if (n) b |= 0x80;
-    out.push(b);
-  } while (n);
-  return out;
-}
-
-/** Signed LEB128 of a small non-negative constant. */
-function sleb(n: number): number[] {
-  const out: number[] = [];
-  // as leb, but the last byte's bit 6 must be clear (non-negative)
-  for (;;) {
-    const b = n & 0x7f;
-    n >>= 7;
-    if (n === 0 && (b & 0x40) === 0) {
-      out.push(b);
-      return out;
-    }
-    out.push(b | 0x80);
-  }
 }
 
 const get = (i: number) => [0x20, ...leb(i)];
@@ -174,14 +149,6 @@ function dotsBody(g: number, width: 1 | 2): number[] {
   group.push(...addTo(0, get(1)), ...(width === 2 ? addTo(0, get(1)) : []), ...addTo(6, i32(8 * width)));
   code.push(...countdown(3, group), 0x0b);
   return [2, ...leb(5 + 2 * g), 0x7f, ...leb(width * g + 3), 0x7b, ...code];
-}
-
-function name(s: string): number[] {
-  return [...leb(s.length), ...Array.from(s, (ch) => ch.charCodeAt(0))];
-}
-
-function section(id: number, body: number[]): number[] {
-  return [id, ...leb(body.length), ...body];
 }
 
 function moduleBytes(): Uint8Array {

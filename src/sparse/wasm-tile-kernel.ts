@@ -12,6 +12,8 @@
  * SIMD) is unavailable; callers then use the plain TypeScript kernel.
  */
 
+import { leb, name, section } from './wasm-bytes.js';
+
 /** The few WebAssembly names used here (the project's lib settings do not include them). */
 declare const WebAssembly: {
   Module: new (bytes: Uint8Array) => object;
@@ -22,27 +24,6 @@ export interface TileKernel {
   /** Float64 view of the module's memory. */
   memory: Float64Array;
   tile: (pa: number, pw: number, kb: number, out: number) => void;
-}
-
-/** Unsigned LEB128. */
-function leb(n: number): number[] {
-  const out: number[] = [];
-  // seven bits per byte, high bit = more follows
-  do {
-    let b = n & 0x7f;
-    n >>>= 7;
-    if (n) b |= 0x80;
-    out.push(b);
-  } while (n);
-  return out;
-}
-
-function section(id: number, body: number[]): number[] {
-  return [id, ...leb(body.length), ...body];
-}
-
-function name(s: string): number[] {
-  return [...leb(s.length), ...Array.from(s, (ch) => ch.charCodeAt(0))];
 }
 
 const PAGES = 32;

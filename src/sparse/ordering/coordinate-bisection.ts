@@ -22,7 +22,7 @@
  * Result: perm[k] = vertex eliminated k-th.
  */
 import type { AdjacencyGraph } from './adjacency-graph.js';
-import { nestedDissectionWith, pruneSeparator, SEPARATOR, SIDE_A, SIDE_B, type DissectionOptions } from './dissection-driver.js';
+import { lighterBoundaryToSeparator, nestedDissectionWith, SIDE_A, SIDE_B, type DissectionOptions } from './dissection-driver.js';
 
 const OUTSIDE = 255;
 const IN_PART = 3;
@@ -140,24 +140,16 @@ function separatorAtCut(
 ): number {
   const m = vertices.length;
   const boundaryWeight = [0, 0];
-  // publish the sides globally for the pruning; weigh both boundaries
+  const boundary = new Uint8Array(m);
+  // publish the sides globally for the pruning; mark and weigh both boundaries
   for (let k = 0; k < m; k++) {
     where[vertices[k]] = side[k];
-    const onBoundary = keys[k] < cut ? highest[k] >= cut : lowest[k] < cut;
-    if (onBoundary) boundaryWeight[side[k]] += weights ? weights[vertices[k]] : 1;
+    if (keys[k] < cut ? highest[k] >= cut : lowest[k] < cut) {
+      boundary[k] = 1;
+      boundaryWeight[side[k]] += weights ? weights[vertices[k]] : 1;
+    }
   }
-  const sepSide = boundaryWeight[SIDE_A] <= boundaryWeight[SIDE_B] ? SIDE_A : SIDE_B;
-  // the lighter boundary becomes the separator
-  for (let k = 0; k < m; k++) {
-    if (side[k] !== sepSide || !(sepSide === SIDE_A ? highest[k] >= cut : lowest[k] < cut)) continue;
-    side[k] = SEPARATOR;
-    where[vertices[k]] = SEPARATOR;
-  }
-  pruneSeparator(graph, vertices, side, where);
-  let sepWeight = 0;
-  // weight of what is left in the separator
-  for (let k = 0; k < m; k++) if (side[k] === SEPARATOR) sepWeight += weights ? weights[vertices[k]] : 1;
-  return sepWeight;
+  return lighterBoundaryToSeparator(graph, weights, vertices, side, where, boundary, boundaryWeight);
 }
 
 /**

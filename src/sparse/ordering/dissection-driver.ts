@@ -245,6 +245,23 @@ export function separatorFromTwoSides(
       }
     }
   }
+  return lighterBoundaryToSeparator(graph, weights, vertices, side, where, boundary, boundaryWeight);
+}
+
+/**
+ * The boundary vertices (boundary[k] = 1) of the side whose boundary weighs less become the
+ * separator, which is then pruned; returns the separator's weight. `where` must hold the sides.
+ */
+export function lighterBoundaryToSeparator(
+  graph: AdjacencyGraph,
+  weights: Int32Array | undefined,
+  vertices: Int32Array,
+  side: Uint8Array,
+  where: Uint8Array,
+  boundary: Uint8Array,
+  boundaryWeight: number[],
+): number {
+  const m = vertices.length;
   const sepSide = boundaryWeight[SIDE_A] <= boundaryWeight[SIDE_B] ? SIDE_A : SIDE_B;
   // the lighter boundary becomes the separator
   for (let k = 0; k < m; k++) {

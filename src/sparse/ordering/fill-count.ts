@@ -27,6 +27,7 @@
  * nodes of the 127k-DOF hex solid — so the DOF graph is counted.)
  */
 import type { AdjacencyGraph } from './adjacency-graph.js';
+import { postorderTree } from '../postorder.js';
 
 /** Exact nnz(L), unit diagonal included, of P A Pᵀ with A of the graph's pattern (perm[k] = k-th pivot). */
 export function factorNonzerosOfGraph(graph: AdjacencyGraph, perm: Int32Array): number {
@@ -53,7 +54,7 @@ export function factorNonzerosOfGraph(graph: AdjacencyGraph, perm: Int32Array): 
       }
     }
   }
-  const post = postorder(parent);
+  const post = postorderTree(parent);
   const delta = new Int32Array(n);
   const first = new Int32Array(n).fill(-1);
   // first[j] = postorder position of j's first descendant; a tree leaf starts with its own row
@@ -102,39 +103,4 @@ export function factorNonzerosOfGraph(graph: AdjacencyGraph, perm: Int32Array): 
     nnz += delta[j];
   }
   return nnz;
-}
-
-/** Postorder of the forest (post[k] = k-th node), children in increasing order, no recursion. */
-function postorder(parent: Int32Array): Int32Array {
-  const n = parent.length;
-  const head = new Int32Array(n).fill(-1);
-  const next = new Int32Array(n);
-  const stack = new Int32Array(n);
-  const post = new Int32Array(n);
-  // child lists, built backwards so each runs in increasing order
-  for (let j = n - 1; j >= 0; j--) {
-    const p = parent[j];
-    if (p === -1) continue;
-    next[j] = head[p];
-    head[p] = j;
-  }
-  let k = 0;
-  // depth-first from each root; a node is numbered when its last child is done
-  for (let root = 0; root < n; root++) {
-    if (parent[root] !== -1) continue;
-    let top = 0;
-    stack[0] = root;
-    while (top >= 0) {
-      const p = stack[top];
-      const child = head[p];
-      if (child === -1) {
-        top--;
-        post[k++] = p;
-      } else {
-        head[p] = next[child];
-        stack[++top] = child;
-      }
-    }
-  }
-  return post;
 }
