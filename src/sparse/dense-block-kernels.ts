@@ -107,16 +107,14 @@ function packedProduct(
       for (let j = 0; j < nb; j += 4) {
         const itStart = lower && j > i0 ? (j - i0) >> 2 : 0;
         const pw = PACKED_W + (j >> 2) * kb * 4;
+        const nc = Math.min(4, n - j);
+        // the column of tiles in one SIMD call (sums side by side at TILE_OUT), or tile by tile
+        if (simd !== null && mt > itStart) simd.tiles(8 * itStart * kb * 4, 8 * pw, kb, 8 * TILE_OUT, mt - itStart);
         for (let it = itStart; it < mt; it++) {
           const q = cOff + i0 + 4 * it + j * ldc;
           const mr = Math.min(4, rowsHere - 4 * it);
-          const nc = Math.min(4, n - j);
-          if (simd !== null) {
-            simd.tile(8 * it * kb * 4, 8 * pw, kb, 8 * TILE_OUT);
-            subtractTile(buf, TILE_OUT, c, q, ldc, mr, nc);
-          } else {
-            tile4x4(buf, it * kb * 4, buf, pw, kb, c, q, ldc, mr, nc);
-          }
+          if (simd !== null) subtractTile(buf, TILE_OUT + 16 * (it - itStart), c, q, ldc, mr, nc);
+          else tile4x4(buf, it * kb * 4, buf, pw, kb, c, q, ldc, mr, nc);
         }
       }
     }
