@@ -26,6 +26,7 @@ import type { EigenSearch, EigenSearchResult } from './search-types.js';
 import { LockedSet } from './locked-set.js';
 import { currentEstimates, fixedBlocks, nearestFirst, relativeResiduals } from './subspace-iteration.js';
 import { timesSmall, transposeTimes } from '../dense/block-ops.js';
+import { thinQr } from '../dense/householder-qr.js';
 import { basisBlock, basisTimesSmall, basisTimesSmallInPlace } from './shared-block-products.js';
 import { columns, randomBlock } from './thin-block.js';
 
@@ -128,8 +129,7 @@ export function blockLanczos(search: EigenSearch): EigenSearchResult {
       const picture = locked.estimates(extraValues, extraVectors, extraValues.length);
       const width = Math.min(picture.estimateCount, Math.max(p, b));
       const nearest = nearestFirst(picture.estimates, sigma).slice(0, width);
-      const start = new Float64Array(n * width);
-      nearest.forEach((i, t) => start.set(picture.estimateVectors.subarray(i * n, (i + 1) * n), t * n));
+      const start = pickColumns(picture.estimateVectors, n, nearest);
       locked = new LockedSet(n);
       cycle = newCycle(n, capacityFor(), op.massTimes, start, op.apply, fixedBlocks(search, locked));
       rebuilt = true;
@@ -324,29 +324,13 @@ function keepColumns(sz: Float64Array, keepZ: number[], s: Float64Array, others:
 }
 
 /**
- * The columns of S (m×k) made orthonormal by modified Gram–Schmidt, twice. The Ritz rotation G
- * behind S_z is only as orthogonal as the basis is M-orthonormal, and V ← V S_keep would carry
- * that error forward, roughly tripled at each restart (it grew from 1e-15 to 1e-5 in 19 cycles
- * on the unfastened-anchor mast); with S_keep orthonormal the basis keeps its own level.
+ * The columns of S (m×k) made orthonormal (the Q of its Householder QR: same leading spans). The
+ * Ritz rotation G behind S_z is only as orthogonal as the basis is M-orthonormal, and V ← V S_keep
+ * would carry that error forward, roughly tripled at each restart (it grew from 1e-15 to 1e-5 in
+ * 19 cycles on the unfastened-anchor mast); with S_keep orthonormal the basis keeps its own level.
  */
 function orthonormalColumns(s: Float64Array, m: number, k: number): Float64Array {
-  // two sweeps: column j minus its components along the columns before it, then normalized
-  for (let sweep = 0; sweep < 2; sweep++) {
-    for (let j = 0; j < k; j++) {
-      const cj = j * m;
-      for (let i = 0; i < j; i++) {
-        const ci = i * m;
-        let dot = 0;
-        for (let r = 0; r < m; r++) dot += s[ci + r] * s[cj + r];
-        for (let r = 0; r < m; r++) s[cj + r] -= dot * s[ci + r];
-      }
-      let norm = 0;
-      for (let r = 0; r < m; r++) norm += s[cj + r] * s[cj + r];
-      norm = Math.sqrt(norm);
-      if (norm > 0) for (let r = 0; r < m; r++) s[cj + r] /= norm;
-    }
-  }
-  return s;
+  return k === 0 ? s : thinQr(s, m, k).q;
 }
 
 /** Thick restart: V ← V S_keep, T ← S_keepᵀ T S_keep, coupling R (S_keep)_last; continue from Q. */

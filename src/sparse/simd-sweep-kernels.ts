@@ -23,7 +23,7 @@
  * not fit in 4 GiB; the sweeps then use the plain TypeScript loops.
  */
 
-import { leb, name, section, sleb } from './wasm-bytes.js';
+import { leb, name, op, section } from './wasm-bytes.js';
 
 /** The few WebAssembly names used here (the project's lib settings do not include them). */
 declare const WebAssembly: {
@@ -62,21 +62,12 @@ export interface SweepKernels {
   dots1: Kernel[];
 }
 
-const get = (i: number) => [0x20, ...leb(i)];
-const set = (i: number) => [0x21, ...leb(i)];
-const i32 = (v: number) => [0x41, ...sleb(v)];
+const { localGet: get, localSet: set, i32Const: i32, simd } = op;
 const ADD = 0x6a;
 const SUB = 0x6b;
 const MUL = 0x6c;
 const EQZ = 0x45;
-const simd = (op: number, ...rest: number[]) => [0xfd, ...leb(op), ...rest];
-const vload = (off: number) => simd(0, 3, ...leb(off));
-const vsplat = (off: number) => simd(10, 3, ...leb(off));
-const vstore = (off: number) => simd(11, 3, ...leb(off));
-const vzero = simd(12, ...new Array<number>(16).fill(0));
-const vadd = simd(240);
-const vsub = simd(241);
-const vmul = simd(242);
+const { v128Load: vload, v128Splat64: vsplat, v128Store: vstore, v128Zero: vzero, f64x2Add: vadd, f64x2Sub: vsub, f64x2Mul: vmul } = op;
 const lane = (l: number) => simd(33, l);
 const fload = (off: number) => [0x2b, 3, ...leb(off)];
 const fstore = (off: number) => [0x39, 3, ...leb(off)];

@@ -347,13 +347,7 @@ function forwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern:
         const xo = col * n;
         for (let i = 0; i < nc; i++) x[xo + f0 + i] = heap[yo + i];
         if (index) {
-          const { acc, count } = redirect!;
-          for (let i = 0; i < nb; i++) {
-            const r = rows[r0 + nc + i];
-            const t = index[r];
-            if (t >= 0) acc[col * count + t] += heap[yo + nc + i];
-            else x[xo + r] += heap[yo + nc + i];
-          }
+          scatterRedirected(x.subarray(xo), n, 1, heap.subarray(yo + nc, yo + nr), nb, rows, r0 + nc, redirect!, col);
         } else {
           for (let i = 0; i < nb; i++) x[xo + rows[r0 + nc + i]] += heap[yo + nc + i];
         }

@@ -41,3 +41,19 @@ export function section(id: number, body: number[]): number[] {
 export function name(s: string): number[] {
   return [...leb(s.length), ...Array.from(s, (ch) => ch.charCodeAt(0))];
 }
+
+/** Instruction encodings used by both modules (Core Specification §5.4; SIMD opcodes after the 0xfd prefix). */
+export const op = {
+  localGet: (i: number) => [0x20, ...leb(i)],
+  localSet: (i: number) => [0x21, ...leb(i)],
+  i32Const: (v: number) => [0x41, ...sleb(v)],
+  simd: (code: number, ...rest: number[]) => [0xfd, ...leb(code), ...rest],
+  /** v128.load / v128.load64_splat / v128.store with 8-byte alignment at a constant offset. */
+  v128Load: (off: number) => [0xfd, 0, 3, ...leb(off)],
+  v128Splat64: (off: number) => [0xfd, 10, 3, ...leb(off)],
+  v128Store: (off: number) => [0xfd, 11, 3, ...leb(off)],
+  v128Zero: [0xfd, 12, ...new Array<number>(16).fill(0)],
+  f64x2Add: [0xfd, ...leb(240)],
+  f64x2Sub: [0xfd, ...leb(241)],
+  f64x2Mul: [0xfd, ...leb(242)],
+};

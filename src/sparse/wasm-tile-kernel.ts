@@ -14,7 +14,7 @@
  * SIMD) is unavailable; callers then use the plain TypeScript kernel.
  */
 
-import { leb, name, section } from './wasm-bytes.js';
+import { leb, name, op, section } from './wasm-bytes.js';
 
 /** The few WebAssembly names used here (the project's lib settings do not include them). */
 declare const WebAssembly: {
@@ -37,15 +37,7 @@ const PAGES = 32;
  * Params 0–4; locals 5 (end), 6 (W start), 7–14 (accumulators), 15–16 (A halves), 17 (W broadcast).
  */
 function tilesBody(): number[] {
-  const get = (i: number) => [0x20, i];
-  const set = (i: number) => [0x21, i];
-  const simd = (op: number, ...rest: number[]) => [0xfd, ...leb(op), ...rest];
-  const load = (off: number) => simd(0, 3, ...leb(off));
-  const splat = (off: number) => simd(10, 3, ...leb(off));
-  const store = (off: number) => simd(11, 3, ...leb(off));
-  const zero = simd(12, ...new Array<number>(16).fill(0));
-  const add = simd(240);
-  const mul = simd(242);
+  const { localGet: get, localSet: set, v128Load: load, v128Splat64: splat, v128Store: store, v128Zero: zero, f64x2Add: add, f64x2Mul: mul } = op;
   const b: number[] = [];
   b.push(...get(1), ...set(6));
   // block { loop { if count = 0 break; one tile; count −= 1 } }

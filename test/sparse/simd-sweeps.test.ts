@@ -42,7 +42,7 @@ describe('SIMD triangular sweeps', () => {
           size = Math.max(size, Math.abs(xp[i]));
         }
         expect(diff / size).toBeLessThan(1e-12);
-        // each column against K − σM itself (the residual measure of test/sparse/residual.ts)
+        // each column against K − σM itself: normwise relative residual of test/sparse/residual.ts (common practice)
         for (let c = 0; c < k; c++) {
           const col = (a: Float64Array) => a.subarray(c * n, (c + 1) * n);
           expect(shiftedResidual(pair.stiffness, pair.mass, shift, col(xs), col(b))).toBeLessThan(1e-12);
