@@ -9,7 +9,7 @@
  * blocked 4 rows × 4 columns: per step over t, 4 loads of A's column t and 4 of W's row t feed
  * 16 multiply-adds into local accumulators, so the inner loop is arithmetic, not memory traffic.
  */
-import { createTileKernel } from './wasm-tile-kernel.js';
+import { createTileKernel, type StripKernels } from './wasm-tile-kernel.js';
 
 const ROW_BLOCK = 256;
 const DEPTH_BLOCK = 128;
@@ -397,5 +397,116 @@ export function scaledRowsKMajor(
     const src = aOff + t * lda;
     const dst = t * n;
     for (let j = 0; j < n; j++) w[dst + j] = a[src + j] * dt;
+  }
+}
+
+/**
+ * W in 4-column panels for the in-place kernels: w[wOff + (jt·k + t)·4 + jj] = A[r + 4jt + jj, t]·d_t
+ * for the n rows r0 … r0+n−1 (A[i, t] = a[aOff + i + t·lda] from row r0 = 0), zero past n.
+ * Panel jt is the k steps of columns 4jt … 4jt+3 of Wᵀ, read in order by the strip kernels.
+ */
+export function scaledRowsPanels(
+  n: number,
+  k: number,
+  a: Float64Array,
+  aOff: number,
+  lda: number,
+  d: Float64Array,
+  dOff: number,
+  w: Float64Array,
+  wOff: number,
+): void {
+  const full = n >> 2;
+  const rest = n - 4 * full;
+  const stride = 4 * k;
+  // each column t of the block, scaled by its pivot, into step t of every panel
+  for (let t = 0; t < k; t++) {
+    const dt = d[dOff + t];
+    let src = aOff + t * lda;
+    let q = wOff + 4 * t;
+    for (let p = 0; p < full; p++, src += 4, q += stride) {
+      w[q] = a[src] * dt;
+      w[q + 1] = a[src + 1] * dt;
+      w[q + 2] = a[src + 2] * dt;
+      w[q + 3] = a[src + 3] * dt;
+    }
+    if (rest > 0) for (let r = 0; r < 4; r++) w[q + r] = r < rest ? a[src + r] * dt : 0;
+  }
+}
+
+/** Rows per block and steps per depth block of the in-place products (A's block ≈ 128 × 256 doubles in cache). */
+const STRIP_ROWS = 128;
+const STRIP_DEPTH = 256;
+
+/**
+ * C −= A Wᵀ (or, with `put`, C ← −A Wᵀ) by the in-place strip kernels, everything in the
+ * kernels' memory and addressed in bytes: A m×k column-major at pA (column stride lda), W as
+ * panels from scaledRowsPanels at pW, C at pC (column stride ldc). With `lower`, only the
+ * 4×4 tiles on or below the diagonal (a few entries just above it are written too).
+ * Rows go in strips of 4 and columns in panels of 4: when m or n is not a multiple of 4 the
+ * last strip reads A's rows past m and writes C's rows past m, and the last panel writes C's
+ * columns past n — only for scratch C with that room (inPlaceUpdate handles C inside a block).
+ */
+export function stripUpdate(
+  kern: StripKernels,
+  lower: boolean,
+  put: boolean,
+  m: number,
+  n: number,
+  k: number,
+  pA: number,
+  lda: number,
+  pW: number,
+  pC: number,
+  ldc: number,
+): void {
+  // depth blocks, then row blocks, then the column panels against one row block of A
+  for (let t0 = 0; t0 < k; t0 += STRIP_DEPTH) {
+    const kb = Math.min(STRIP_DEPTH, k - t0);
+    const strips = put && t0 === 0 ? kern.putStrips : kern.subStrips;
+    for (let i0 = 0; i0 < m; i0 += STRIP_ROWS) {
+      const i1 = Math.min(m, i0 + STRIP_ROWS);
+      const count = (i1 - i0 + 3) >> 2;
+      const nb = lower ? Math.min(n, i1) : n;
+      for (let j = 0; j < nb; j += 4) {
+        const first = lower && j > i0 ? (j - i0) >> 2 : 0;
+        const r = i0 + 4 * first;
+        strips(pA + 8 * r + t0 * lda, lda, kb, pW + 32 * ((j >> 2) * k + t0), pC + 8 * r + j * ldc, ldc, count - first);
+      }
+    }
+  }
+}
+
+/**
+ * C −= A Wᵀ with C inside a factor block (nothing past its m rows and n columns may be
+ * written): the whole strips and panels by the kernels, the last m mod 4 rows and n mod 4
+ * columns here. A, W, C as for stripUpdate, but given as doubles of `heap` (the kernels' whole
+ * memory) at aOff, wOff, cOff with strides lda, ldc in doubles.
+ */
+export function inPlaceUpdate(
+  kern: StripKernels,
+  heap: Float64Array,
+  lower: boolean,
+  m: number,
+  n: number,
+  k: number,
+  aOff: number,
+  lda: number,
+  wOff: number,
+  cOff: number,
+  ldc: number,
+): void {
+  const m4 = m & ~3;
+  const n4 = n & ~3;
+  if (m4 > 0 && n4 > 0) stripUpdate(kern, lower, false, m4, n4, k, 8 * aOff, 8 * lda, 8 * wOff, 8 * cOff, 8 * ldc);
+  // the edge: rows m4… for every column (from its diagonal when lower), and columns n4… for rows above m4
+  for (let j = 0; j < n; j++) {
+    const from = j < n4 ? m4 : lower ? j : 0;
+    const pw = wOff + 4 * (j >> 2) * k + (j & 3);
+    for (let i = from; i < m; i++) {
+      let sum = 0;
+      for (let t = 0, pa = aOff + i, q = pw; t < k; t++, pa += lda, q += 4) sum += heap[pa] * heap[q];
+      heap[cOff + i + j * ldc] -= sum;
+    }
   }
 }

@@ -16,6 +16,7 @@ import { PivotMonitor } from './pivot-monitor.js';
 import { backwardSweepRanges, forwardSweepRanges, sweepWorkspace } from './triangular-solve.js';
 import { helperDescendants, helperPanel, type HelperJob, type HelperResult } from './parallel-factor.js';
 import type { SupernodalStructure } from './symbolic.js';
+import type { FactorStorage } from './simd-sweep-kernels.js';
 
 const port = (workerData as { port: MessagePort }).port;
 
@@ -30,11 +31,18 @@ const collect = runInNewContext('gc') as () => void;
 /** Workspaces kept between jobs (a shared supernode sends one job per panel). */
 let map = new Int32Array(0);
 let work: UpdateWorkspace | null = null;
+let workFor = -1;
 
-function workspaces(s: SupernodalStructure): { map: Int32Array; work: UpdateWorkspace } {
+/** This thread's workspaces for a job's factor (scratch region 1 of its memory when it lives in one). */
+function workspaces(job: { structure: SupernodalStructure; storage?: FactorStorage }): { map: Int32Array; work: UpdateWorkspace } {
+  const s = job.structure;
   if (map.length < s.n) map = new Int32Array(s.n);
-  // the workspace is sized by the structure's largest row count
-  if (work === null || work.rel.length < s.maxRows) work = updateWorkspace(s);
+  // a shared supernode sends one job per panel: the workspace is kept while the factor is the same
+  const id = job.storage?.id ?? 0;
+  if (work === null || id !== workFor || work.rel.length < s.maxRows) {
+    work = updateWorkspace(s, job.storage, 1);
+    workFor = id;
+  }
   return { map, work };
 }
 
@@ -49,16 +57,17 @@ function run(job: HelperJob): HelperResult {
       return { kind: 'done' };
     case 'factor': {
       const monitor = new PivotMonitor(job.tolerance, job.diagonalScale);
-      factorSupernodes(job.structure, job.shift, monitor, { values: job.values, d: job.d, nextRow: job.nextRow }, job.ranges);
+      const out = { values: job.values, d: job.d, nextRow: job.nextRow, ...(job.storage ? { storage: job.storage } : {}) };
+      factorSupernodes(job.structure, job.shift, monitor, out, job.ranges, [], undefined, 1);
       return { kind: 'factored', monitor: monitor.state() };
     }
     case 'descendants': {
-      const ws = workspaces(job.structure);
+      const ws = workspaces(job);
       helperDescendants(job, ws.map, ws.work);
       return { kind: 'done' };
     }
     case 'panel':
-      helperPanel(job, workspaces(job.structure).work.w);
+      helperPanel(job, workspaces(job).work);
       return { kind: 'done' };
     case 'transposeTimes':
       transposeTimes(job.a, job.b, job.rows, job.p, job.q, job.out, job.rowFrom, job.rowTo);

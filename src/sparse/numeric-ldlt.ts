@@ -11,9 +11,13 @@
  *      each panel is first updated by the panels left of it (same dense product, in place),
  *      then factored column by column.
  * Pivots go through PivotMonitor (inertia, tiny pivots, zero-pivot substitution).
+ * When the factor's values live in a WebAssembly memory (simd-sweep-kernels.ts), the products
+ * of steps 2 and 3 read L where it is and write into this thread's scratch region there or
+ * into the block itself (wasm-tile-kernel.ts strips), with no packing copies.
  */
 import { factorStorage, KERNEL_RHS, type FactorStorage } from './simd-sweep-kernels.js';
-import { scaledRowsKMajor, updateLowerProduct, updateProduct } from './dense-block-kernels.js';
+import { inPlaceUpdate, scaledRowsKMajor, scaledRowsPanels, stripUpdate, updateLowerProduct, updateProduct } from './dense-block-kernels.js';
+import { stripKernels, type StripKernels } from './wasm-tile-kernel.js';
 import type { PivotMonitor } from './pivot-monitor.js';
 import type { SupernodalStructure } from './symbolic.js';
 
@@ -21,6 +25,8 @@ import type { SupernodalStructure } from './symbolic.js';
 const PANEL = 48;
 /** Target columns per dense product when a descendant updates a supernode (bounds the workspace). */
 const CHUNK = 64;
+/** Columns a panel's strip products treat together inside the panel (one strip panel wide). */
+const GROUP = 4;
 
 export interface SupernodalFactor {
   structure: SupernodalStructure;
@@ -37,7 +43,25 @@ export interface SupernodalFactor {
  */
 export function allocateFactorValues(s: SupernodalStructure, fallback: (length: number) => Float64Array): { values: Float64Array; storage?: FactorStorage } {
   const length = s.valuePtr[s.supernodes];
-  return factorStorage(length, s.maxRows * KERNEL_RHS) ?? { values: fallback(length) };
+  return factorStorage(length, Math.max(s.maxRows * KERNEL_RHS, inPlaceScratchDoubles(s))) ?? { values: fallback(length) };
+}
+
+/** Widest target chunk or panel, rounded up to whole 4-column panels. */
+const SCRATCH_COLUMNS = Math.ceil(Math.max(CHUNK, PANEL) / 4) * 4;
+
+/** Most columns of one supernode. */
+function maxColumns(s: SupernodalStructure): number {
+  let m = 0;
+  for (let sn = 0; sn < s.supernodes; sn++) m = Math.max(m, s.superStart[sn + 1] - s.superStart[sn]);
+  return m;
+}
+
+/**
+ * One thread's scratch for the in-place products: W panels (SCRATCH_COLUMNS × a supernode's
+ * columns) and C (SCRATCH_COLUMNS columns of the largest row count rounded up to 4).
+ */
+function inPlaceScratchDoubles(s: SupernodalStructure): number {
+  return SCRATCH_COLUMNS * (maxColumns(s) + s.maxRows + 4);
 }
 
 /** a_jj = k_jj − σ m_jj in pivot order. */
@@ -56,7 +80,7 @@ export function supernodalLdlt(s: SupernodalStructure, shift: number, monitor: P
   const { values, storage } = allocateFactorValues(s, (length) => new Float64Array(length));
   const d = new Float64Array(s.n);
   const nextRow = new Int32Array(s.supernodes);
-  factorSupernodes(s, shift, monitor, { values, d, nextRow }, [[0, s.supernodes - 1]]);
+  factorSupernodes(s, shift, monitor, { values, d, nextRow, ...(storage ? { storage } : {}) }, [[0, s.supernodes - 1]]);
   return { structure: s, values, d, ...(storage ? { storage } : {}) };
 }
 
@@ -64,6 +88,8 @@ export function supernodalLdlt(s: SupernodalStructure, shift: number, monitor: P
 export interface FactorArrays {
   values: Float64Array;
   d: Float64Array;
+  /** The WebAssembly memory holding `values`, when they live in one. */
+  storage?: FactorStorage;
   /**
    * nextRow[sn]: position in sn's row list of its first row not yet applied to an ancestor.
    * After a subtree is factored, its supernodes' entries point at the ancestors outside it.
@@ -76,7 +102,8 @@ export interface FactorArrays {
  * descendants — a postordered subtree or forest — or ancestor-closed "top" supernodes), in order.
  * Descendants in earlier-factored supernodes outside the ranges (other threads' subtrees) are
  * found through their `nextRow` entries when `pendingFrom` lists them; a supernode queues itself
- * only on ancestors inside the ranges.
+ * only on ancestors inside the ranges. `region` is this thread's scratch region of the factor's
+ * memory (0 main thread, 1 helper).
  */
 export function factorSupernodes(
   s: SupernodalStructure,
@@ -86,12 +113,13 @@ export function factorSupernodes(
   ranges: [number, number][],
   pendingFrom: [number, number][] = [],
   cooperation?: SupernodeCooperation,
+  region: 0 | 1 = 0,
 ): void {
   const { n, supernodes: ns, superStart, superOf, rowPtr, rows, valuePtr, pair } = s;
   const { values, d, nextRow } = out;
   const diag = shiftedDiagonal(s, shift);
   const map = new Int32Array(n);
-  const work = updateWorkspace(s);
+  const work = updateWorkspace(s, out.storage, region);
   let list: Int32Array = new Int32Array(0);
   const head = new Int32Array(ns).fill(-1);
   const link = new Int32Array(ns).fill(-1);
@@ -151,7 +179,7 @@ export function factorSupernodes(
       if (shared) cooperation!.descendants(sn, list, count, map, work);
       // queue each descendant on the next supernode its remaining rows touch
       for (let t = 0; t < count; t++) enqueue(list[3 * t]);
-      factorBlock(values, v0, nr, nc, f, d, diag, monitor, work.w, shared ? (c0, c1) => cooperation!.panel(sn, c0, c1, work.w) : undefined);
+      factorBlock(values, v0, nr, nc, f, d, diag, monitor, work, shared ? (c0, c1) => cooperation!.panel(sn, c0, c1, work) : undefined);
       // S's own first row below its columns
       nextRow[sn] = nc;
       enqueue(sn);
@@ -194,7 +222,7 @@ export function applyDescendant(
   to = stop - start,
 ): void {
   const { superStart, rowPtr, rows, valuePtr } = s;
-  const { rel, w, c } = work;
+  const { rel, w, c, inPlace } = work;
   const f = superStart[sn];
   const nrS = rowPtr[sn + 1] - rowPtr[sn];
   const vS = valuePtr[sn];
@@ -210,6 +238,19 @@ export function applyDescendant(
   for (let j0 = from; j0 < to; j0 += CHUNK) {
     const bw = Math.min(CHUNK, to - j0);
     const mr = m2 - j0;
+    if (inPlace) {
+      // C ← −L_D(chunk:) W in scratch (rows padded to whole strips), then scattered
+      const { kernels, heap, wOff, cOff } = inPlace;
+      const ldc = (mr + 3) & ~3;
+      scaledRowsPanels(bw, ncd, values, vd + j0, nrd, d, fd, heap, wOff);
+      stripUpdate(kernels, true, true, mr, bw, ncd, values.byteOffset + 8 * (vd + j0), 8 * nrd, 8 * wOff, 8 * cOff, 8 * ldc);
+      for (let j = 0; j < bw; j++) {
+        const base = vS + (rows[rd + start + j0 + j] - f) * nrS;
+        const cj = cOff + j * ldc;
+        for (let i = j; i < mr; i++) values[base + rel[j0 + i]] += heap[cj + i];
+      }
+      continue;
+    }
     scaledRowsKMajor(bw, ncd, values, vd + j0, nrd, d, fd, w);
     c.fill(0, 0, mr * bw);
     updateLowerProduct(mr, bw, ncd, values, vd + j0, nrd, w, c, 0, mr);
@@ -227,11 +268,24 @@ export interface UpdateWorkspace {
   rel: Int32Array;
   w: Float64Array;
   c: Float64Array;
+  /**
+   * With the factor in a WebAssembly memory: this thread's strip kernels over it, the memory
+   * as doubles, and where W and C sit in this thread's scratch region (w and c are then unused).
+   */
+  inPlace?: { kernels: StripKernels; heap: Float64Array; wOff: number; cOff: number };
 }
 
-export function updateWorkspace(s: SupernodalStructure): UpdateWorkspace {
+/** Scratch for one thread; with `storage`, in scratch region `region` of the factor's memory. */
+export function updateWorkspace(s: SupernodalStructure, storage?: FactorStorage, region: 0 | 1 = 0): UpdateWorkspace {
+  const rel = new Int32Array(s.maxRows);
+  const kernels = storage && storage.scratchDoubles >= inPlaceScratchDoubles(s) ? stripKernels(storage.memory) : null;
+  if (storage && kernels) {
+    const wOff = region * storage.scratchDoubles;
+    const none = new Float64Array(0);
+    return { rel, w: none, c: none, inPlace: { kernels, heap: new Float64Array(storage.memory.buffer), wOff, cOff: wOff + SCRATCH_COLUMNS * maxColumns(s) } };
+  }
   return {
-    rel: new Int32Array(s.maxRows),
+    rel,
     w: new Float64Array(Math.max(CHUNK, PANEL) * s.maxRows + 1),
     c: new Float64Array(CHUNK * s.maxRows + 1),
   };
@@ -246,13 +300,22 @@ export function panelUpdateRows(
   c1: number,
   f: number,
   d: Float64Array,
-  w: Float64Array,
+  work: UpdateWorkspace,
   from: number,
   to: number,
 ): void {
   const bw = c1 - c0;
-  scaledRowsKMajor(bw, c0, values, v0 + c0, nr, d, f, w);
   const r0 = c0 + from;
+  const ip = work.inPlace;
+  if (ip) {
+    // in place: W panels in scratch, C is the block itself
+    const base = values.byteOffset / 8;
+    scaledRowsPanels(bw, c0, values, v0 + c0, nr, d, f, ip.heap, ip.wOff);
+    inPlaceUpdate(ip.kernels, ip.heap, from === 0, to - from, bw, c0, base + v0 + r0, nr, ip.wOff, base + v0 + r0 + c0 * nr, nr);
+    return;
+  }
+  const w = work.w;
+  scaledRowsKMajor(bw, c0, values, v0 + c0, nr, d, f, w);
   // the rows starting at the panel's diagonal hold its lower triangle; rows further down are whole
   if (from === 0) updateLowerProduct(to - from, bw, c0, values, v0 + r0, nr, w, values, v0 + r0 + c0 * nr, nr);
   else updateProduct(to - from, bw, c0, values, v0 + r0, nr, w, values, v0 + r0 + c0 * nr, nr);
@@ -268,7 +331,7 @@ export interface SupernodeCooperation {
   /** Apply every (dn, start, stop) of `list` (flattened) to S; both threads' shares done on return. */
   descendants(sn: number, list: Int32Array, count: number, map: Int32Array, work: UpdateWorkspace): void;
   /** The update of panel c0..c1 of S; both threads' shares done on return. */
-  panel(sn: number, c0: number, c1: number, w: Float64Array): void;
+  panel(sn: number, c0: number, c1: number, work: UpdateWorkspace): void;
 }
 
 /**
@@ -285,7 +348,7 @@ function factorBlock(
   d: Float64Array,
   diag: Float64Array,
   monitor: PivotMonitor,
-  w: Float64Array,
+  work: UpdateWorkspace,
   panelUpdate?: (c0: number, c1: number) => void,
 ): void {
   // panels left to right
@@ -294,13 +357,18 @@ function factorBlock(
     if (c0 > 0) {
       // B(c0:, c0:c1) −= L(c0:, 0:c0) D L(c0:c1, 0:c0)ᵀ
       if (panelUpdate) panelUpdate(c0, c1);
-      else panelUpdateRows(values, v0, nr, c0, c1, f, d, w, 0, nr - c0);
+      else panelUpdateRows(values, v0, nr, c0, c1, f, d, work, 0, nr - c0);
     }
-    factorPanel(values, v0, nr, c0, c1, f, d, diag, monitor);
+    factorPanel(values, v0, nr, c0, c1, f, d, diag, monitor, work);
   }
 }
 
-/** Columns c0..c1−1 of a block whose columns left of c0 are already applied: left-looking inside the panel. */
+/**
+ * Columns c0..c1−1 of a block whose columns left of c0 are already applied: left-looking inside
+ * the panel. With the in-place kernels the panel goes in groups of GROUP columns: a group is
+ * first updated by the panel's columns left of it with one strip product (B(g:, g) −=
+ * L(g:, c0:g) D L(g, c0:g)ᵀ), so the column loop below only applies the group's own columns.
+ */
 function factorPanel(
   values: Float64Array,
   v0: number,
@@ -311,8 +379,34 @@ function factorPanel(
   d: Float64Array,
   diag: Float64Array,
   monitor: PivotMonitor,
+  work: UpdateWorkspace,
 ): void {
-  // each column j: apply the panel's earlier columns, take the pivot, scale
+  const ip = work.inPlace;
+  const group = ip ? GROUP : c1 - c0;
+  for (let g0 = c0; g0 < c1; g0 += group) {
+    const g1 = Math.min(c1, g0 + group);
+    if (ip && g0 > c0) {
+      const base = values.byteOffset / 8;
+      scaledRowsPanels(g1 - g0, g0 - c0, values, v0 + g0 + c0 * nr, nr, d, f + c0, ip.heap, ip.wOff);
+      inPlaceUpdate(ip.kernels, ip.heap, true, nr - g0, g1 - g0, g0 - c0, base + v0 + g0 + c0 * nr, nr, ip.wOff, base + v0 + g0 + g0 * nr, nr);
+    }
+    factorColumns(values, v0, nr, g0, g1, f, d, diag, monitor);
+  }
+}
+
+/** Columns c0..c1−1, each updated by the ones left of it from c0 on, then pivoted and scaled. */
+function factorColumns(
+  values: Float64Array,
+  v0: number,
+  nr: number,
+  c0: number,
+  c1: number,
+  f: number,
+  d: Float64Array,
+  diag: Float64Array,
+  monitor: PivotMonitor,
+): void {
+  // each column j: apply the earlier columns, take the pivot, scale
   for (let j = c0; j < c1; j++) {
     const cj = v0 + j * nr;
     let t = c0;

@@ -57,6 +57,7 @@ export type JobBody =
       diagonalScale: number;
       values: Float64Array;
       d: Float64Array;
+      storage?: FactorStorage;
       nextRow: Int32Array;
       ranges: [number, number][];
     }
@@ -80,13 +81,14 @@ export type JobBody =
       structure: SupernodalStructure;
       values: Float64Array;
       d: Float64Array;
+      storage?: FactorStorage;
       sn: number;
       /** (dn, start, stop) triples. */
       list: Int32Array;
       /** The helper's share: target columns ≥ fromColumn. */
       fromColumn: number;
     }
-  | { kind: 'panel'; structure: SupernodalStructure; values: Float64Array; d: Float64Array; sn: number; c0: number; c1: number; from: number; to: number };
+  | { kind: 'panel'; structure: SupernodalStructure; values: Float64Array; d: Float64Array; storage?: FactorStorage; sn: number; c0: number; c1: number; from: number; to: number };
 
 /** A job as posted: its body, the shared flag and the id the helper writes into it when done. */
 export type HelperJob = JobBody & { flag: Int32Array; id: number };
@@ -251,11 +253,11 @@ export function parallelSupernodalLdlt(s: SupernodalStructure, shift: number, mo
   const { values, storage } = allocateFactorValues(s, sharedBlock);
   const d = sharedBlock(s.n);
   const nextRow = sharedInt32(s.supernodes);
-  const out = { values, d, nextRow };
-  const job: JobBody = { kind: 'factor', structure: s, shift, tolerance: monitor.tolerance, diagonalScale: monitor.diagonalScale, values, d, nextRow, ranges: split.parts[1] };
+  const out = { values, d, nextRow, ...(storage ? { storage } : {}) };
+  const job: JobBody = { kind: 'factor', structure: s, shift, tolerance: monitor.tolerance, diagonalScale: monitor.diagonalScale, ...out, ranges: split.parts[1] };
   const theirs = alongside(h, job, () => factorSupernodes(s, shift, monitor, out, split.parts[0]), 'factored');
   monitor.merge(theirs.monitor);
-  factorSupernodes(s, shift, monitor, out, split.top, [...split.parts[0], ...split.parts[1]], cooperation(h, s, values, d));
+  factorSupernodes(s, shift, monitor, out, split.top, [...split.parts[0], ...split.parts[1]], cooperation(h, s, values, d, storage));
   return { structure: s, values, d, ...(storage ? { storage } : {}) };
 }
 
@@ -270,7 +272,8 @@ const SHARE_MIN_PANEL_ROWS = 256;
  * where the estimated work (per target column: the updating rows at and below it times the
  * descendant's columns) is halved, panel updates split by rows.
  */
-function cooperation(h: Helper, s: SupernodalStructure, values: Float64Array, d: Float64Array): SupernodeCooperation {
+function cooperation(h: Helper, s: SupernodalStructure, values: Float64Array, d: Float64Array, storage: FactorStorage | undefined): SupernodeCooperation {
+  const inMemory = storage ? { storage } : {};
   const { superStart, rowPtr, valuePtr } = s;
   return {
     wants: (sn) => rowPtr[sn + 1] - rowPtr[sn] >= SHARE_MIN_ROWS && superStart[sn + 1] - superStart[sn] >= SHARE_MIN_COLUMNS,
@@ -296,7 +299,7 @@ function cooperation(h: Helper, s: SupernodalStructure, values: Float64Array, d:
       for (let acc = 0; mid < nc && acc + perColumn[mid] <= total / 2; mid++) acc += perColumn[mid];
       const fromColumn = f + mid;
       const triples = list.slice(0, 3 * count);
-      const job: JobBody = { kind: 'descendants', structure: s, values, d, sn, list: triples, fromColumn };
+      const job: JobBody = { kind: 'descendants', structure: s, values, d, ...inMemory, sn, list: triples, fromColumn };
       alongside(h, job, () => {
         // this thread: target columns before fromColumn
         for (let t = 0; t < count; t++) {
@@ -307,19 +310,19 @@ function cooperation(h: Helper, s: SupernodalStructure, values: Float64Array, d:
         }
       }, 'done');
     },
-    panel(sn, c0, c1, w) {
+    panel(sn, c0, c1, work) {
       const f = superStart[sn];
       const nr = rowPtr[sn + 1] - rowPtr[sn];
       const v0 = valuePtr[sn];
       const rows = nr - c0;
       if (rows < SHARE_MIN_PANEL_ROWS) {
-        panelUpdateRows(values, v0, nr, c0, c1, f, d, w, 0, rows);
+        panelUpdateRows(values, v0, nr, c0, c1, f, d, work, 0, rows);
         return;
       }
       // this thread: the top half with the panel's diagonal block; the helper: the rows below
       const split = Math.max(c1 - c0, rows >> 1);
-      const job: JobBody = { kind: 'panel', structure: s, values, d, sn, c0, c1, from: split, to: rows };
-      alongside(h, job, () => panelUpdateRows(values, v0, nr, c0, c1, f, d, w, 0, split), 'done');
+      const job: JobBody = { kind: 'panel', structure: s, values, d, ...inMemory, sn, c0, c1, from: split, to: rows };
+      alongside(h, job, () => panelUpdateRows(values, v0, nr, c0, c1, f, d, work, 0, split), 'done');
     },
   };
 }
@@ -342,10 +345,10 @@ export function helperDescendants(job: Extract<JobBody, { kind: 'descendants' }>
 }
 
 /** The helper's share of a panel update (called in the helper). */
-export function helperPanel(job: Extract<JobBody, { kind: 'panel' }>, w: Float64Array): void {
+export function helperPanel(job: Extract<JobBody, { kind: 'panel' }>, work: UpdateWorkspace): void {
   const s = job.structure;
   const nr = s.rowPtr[job.sn + 1] - s.rowPtr[job.sn];
-  panelUpdateRows(job.values, s.valuePtr[job.sn], nr, job.c0, job.c1, s.superStart[job.sn], job.d, w, job.from, job.to);
+  panelUpdateRows(job.values, s.valuePtr[job.sn], nr, job.c0, job.c1, s.superStart[job.sn], job.d, work, job.from, job.to);
 }
 
 /** A split of the tree prepared for solves: the top's columns numbered 0…count−1. */

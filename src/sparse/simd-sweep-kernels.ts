@@ -23,7 +23,7 @@
  * not fit in 4 GiB; the sweeps then use the plain TypeScript loops.
  */
 
-import { leb, name, op, section } from './wasm-bytes.js';
+import { addTo, countdown, leb, name, op, section } from './wasm-bytes.js';
 
 /** The few WebAssembly names used here (the project's lib settings do not include them). */
 declare const WebAssembly: {
@@ -46,6 +46,8 @@ type Kernel = (pL: number, ld: number, count: number, cols: number, pX: number, 
 /** Where a factor's values sit in its memory, and the two scratch regions before them. */
 export interface FactorStorage {
   memory: WasmMemory;
+  /** Tells factors apart in a helper thread, where each job brings a fresh copy of this object. */
+  id: number;
   /** Doubles per scratch region (region r starts at double r · scratchDoubles). */
   scratchDoubles: number;
   /** First double of the values. */
@@ -64,18 +66,13 @@ export interface SweepKernels {
 
 const { localGet: get, localSet: set, i32Const: i32, simd } = op;
 const ADD = 0x6a;
-const SUB = 0x6b;
 const MUL = 0x6c;
-const EQZ = 0x45;
 const { v128Load: vload, v128Splat64: vsplat, v128Store: vstore, v128Zero: vzero, f64x2Add: vadd, f64x2Sub: vsub, f64x2Mul: vmul } = op;
 const lane = (l: number) => simd(33, l);
 const fload = (off: number) => [0x2b, 3, ...leb(off)];
 const fstore = (off: number) => [0x39, 3, ...leb(off)];
 const F_ADD = 0xa0;
 const F_SUB = 0xa1;
-/** block { loop { if (local == 0) break; body; br loop } } */
-const countdown = (counter: number, body: number[]) => [0x02, 0x40, 0x03, 0x40, ...get(counter), EQZ, 0x0d, 1, ...body, ...get(counter), ...i32(1), SUB, ...set(counter), 0x0c, 0, 0x0b, 0x0b];
-const addTo = (local: number, by: number[]) => [...get(local), ...by, ADD, ...set(local)];
 
 /** acc ← acc + a·b on v128 locals. */
 const fma = (acc: number, a: number, b: number) => [...get(acc), ...get(a), ...get(b), ...vmul, ...vadd, ...set(acc)];
@@ -164,6 +161,7 @@ function moduleBytes(): Uint8Array {
 }
 
 let compiled: object | null | undefined;
+let storageCount = 0;
 let enabled = true;
 
 function compiledModule(): object | null {
@@ -195,11 +193,12 @@ export function useSimdSweepKernels(on: boolean): boolean {
 export function factorStorage(length: number, scratchDoubles: number): { values: Float64Array; storage: FactorStorage } | null {
   if (!enabled || compiledModule() === null) return null;
   const scratch = Math.ceil(scratchDoubles / 8) * 8;
-  const pages = Math.ceil((8 * (2 * scratch + length)) / PAGE_BYTES);
+  // a few doubles past the values: the factor's strip kernels may read a whole strip of 4 rows at the end
+  const pages = Math.ceil((8 * (2 * scratch + length + 4)) / PAGE_BYTES);
   if (pages > MAX_PAGES - 1) return null;
   try {
     const memory = new WebAssembly.Memory({ initial: Math.max(1, pages), maximum: Math.max(1, pages), shared: true });
-    const storage = { memory, scratchDoubles: scratch, valuesOffset: 2 * scratch };
+    const storage = { memory, id: ++storageCount + Math.random(), scratchDoubles: scratch, valuesOffset: 2 * scratch };
     return { values: new Float64Array(memory.buffer, 8 * storage.valuesOffset, length), storage };
   } catch {
     return null;

@@ -56,4 +56,15 @@ export const op = {
   f64x2Add: [0xfd, ...leb(240)],
   f64x2Sub: [0xfd, ...leb(241)],
   f64x2Mul: [0xfd, ...leb(242)],
+  f64x2Neg: [0xfd, ...leb(237)],
 };
+
+/** block { loop { if (local `counter` = 0) break; body; counter −= 1; continue } } */
+export function countdown(counter: number, body: number[]): number[] {
+  return [0x02, 0x40, 0x03, 0x40, ...op.localGet(counter), 0x45, 0x0d, 1, ...body, ...op.localGet(counter), ...op.i32Const(1), 0x6b, ...op.localSet(counter), 0x0c, 0, 0x0b, 0x0b];
+}
+
+/** local ← local + (the i32 the instructions `by` push). */
+export function addTo(local: number, by: number[]): number[] {
+  return [...op.localGet(local), ...by, 0x6a, ...op.localSet(local)];
+}
