@@ -65,6 +65,8 @@ export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request:
   let wanted = request.count ?? 0;
   if (request.maxHz !== undefined) {
     const f = factorAt(eigenvalueFromFrequencyHz(request.maxHz));
+    // only its count and shift are needed from here on
+    f.release();
     cutoff = { factor: f, count: f.inertia.negative };
     wanted = f.inertia.negative;
   }
@@ -163,6 +165,7 @@ function solveAtGoodShift(
   let solves = op.counts.solves;
   if (first.abandoned) {
     warnings.push(`shift ${sigma.toPrecision(3)} was badly placed for this spectrum; solved again at ${better.toPrecision(3)}`);
+    factor.release();
     factor = belowEverything(factorAt, better, warnings);
     op = createShiftInvertOperator(stiffness, mass, factor);
     result = run(method, { ...base(op), start: first.estimateVectors, startCount: first.estimateCount }, clock);
@@ -209,6 +212,7 @@ function sliceOnward(
   // one slice per pass until every wanted mode is found
   while (values.length < wanted) {
     const placement = placeSturmShift(Float64Array.from(values), beyond);
+    factor.release();
     factor = factorAt(placement.shift);
     if (factor.inertia.negative !== values.length) {
       warnings.push(`slice check: ${factor.inertia.negative} eigenvalues below ${factor.shift.toPrecision(8)} but ${values.length} found`);
@@ -263,6 +267,7 @@ function belowEverything(factorAt: (sigma: number) => ShiftedFactor, sigma: numb
   while (f.inertia.negative > 0 && tries < 6) {
     if (tries === 0) warnings.push(`${f.inertia.negative} eigenvalue(s) below ${sigma.toPrecision(3)}: K is not positive semidefinite`);
     sigma = sigma * 100 - 1e-300;
+    f.release();
     f = factorAt(sigma);
     tries++;
   }
@@ -302,6 +307,7 @@ function factorWithMove(
     const moved = sigma - 1e-3 * Math.max(Math.abs(sigma), 1e-12 * scale.minRatio) * (tries + 1);
     warnings.push(`shift ${sigma.toPrecision(6)} met ${f.diagnostics.tinyPivots.length} tiny pivot(s); moved to ${moved.toPrecision(6)}`);
     sigma = moved;
+    f.release();
     f = solver.factor(sigma);
   }
   shifts.push(f.shift);
@@ -313,6 +319,7 @@ function factorWithMove(
 /** The solution without its factorization (only the factor's diagnostics are kept). */
 function withoutFactor(s: Solved): { found: Omit<Solved, 'factor'>; diagnostics: FactorDiagnostics } {
   const { factor, ...found } = s;
+  factor.release();
   return { found, diagnostics: factor.diagnostics };
 }
 
@@ -321,10 +328,14 @@ function gapSturm(solved: Omit<Solved, 'factor'>, factorAt: (sigma: number) => S
   const count = solved.values.length;
   const placement = placeSturmShift(solved.values, solved.beyond);
   let f = factorAt(placement.shift);
+  f.release();
   const last = solved.values[count - 1];
   if (f.inertia.negative > placement.expectedBelow) {
     const closer = last + 0.01 * (placement.shift - last);
-    if (closer > last) f = factorAt(closer);
+    if (closer > last) {
+      f = factorAt(closer);
+      f.release();
+    }
   }
   const ok = f.inertia.negative === placement.expectedBelow;
   if (placement.note) warnings.push(placement.note);

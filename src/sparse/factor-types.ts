@@ -71,6 +71,12 @@ export interface ShiftedFactor {
   solve(b: Float64Array, x?: Float64Array): Float64Array;
   /** X = A⁻¹ B for a column-major n×k block. `x` may be `b`. */
   solveBlock(b: Float64Array, k: number, x?: Float64Array): Float64Array;
+  /**
+   * Hands the factor's memory back to its solver, which fills it with the next factorization
+   * instead of allocating (and first touching) as much again. Shift, inertia and diagnostics
+   * stay readable; solving afterwards throws. Calling it twice does nothing.
+   */
+  release(): void;
 }
 
 export interface ShiftedSolverOptions {

@@ -53,11 +53,14 @@ function run(job: HelperJob): HelperResult {
     case 'separatorRuns':
       return { kind: 'separators', wheres: job.seeds.map((seed) => multilevelSeparator(job.graph, seed)) };
     case 'collect':
+      // the kept workspace may view an earlier factor's memory: drop it so that memory can go
+      work = null;
+      workFor = -1;
       collect();
       return { kind: 'done' };
     case 'factor': {
       const monitor = new PivotMonitor(job.tolerance, job.diagonalScale);
-      const out = { values: job.values, d: job.d, nextRow: job.nextRow, ...(job.storage ? { storage: job.storage } : {}) };
+      const out = { values: job.values, d: job.d, nextRow: job.nextRow, dirty: job.dirty, ...(job.storage ? { storage: job.storage } : {}) };
       factorSupernodes(job.structure, job.shift, monitor, out, job.ranges, [], undefined, 1);
       return { kind: 'factored', monitor: monitor.state() };
     }

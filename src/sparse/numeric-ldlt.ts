@@ -76,11 +76,23 @@ export function shiftedDiagonal(s: SupernodalStructure, shift: number): Float64A
   return diag;
 }
 
-export function supernodalLdlt(s: SupernodalStructure, shift: number, monitor: PivotMonitor): SupernodalFactor {
-  const { values, storage } = allocateFactorValues(s, (length) => new Float64Array(length));
+/** A released factor's values (and their memory), handed to the next factorization on the same structure. */
+export interface RecycledValues {
+  values: Float64Array;
+  storage?: FactorStorage;
+}
+
+/** The values of a new factor: `recycled` when given (marked for zeroing), else fresh zeroed storage. */
+export function factorValues(s: SupernodalStructure, recycled: RecycledValues | undefined, fallback: (length: number) => Float64Array): RecycledValues & { dirty: boolean } {
+  if (recycled && recycled.values.length === s.valuePtr[s.supernodes]) return { ...recycled, dirty: true };
+  return { ...allocateFactorValues(s, fallback), dirty: false };
+}
+
+export function supernodalLdlt(s: SupernodalStructure, shift: number, monitor: PivotMonitor, recycled?: RecycledValues): SupernodalFactor {
+  const { values, storage, dirty } = factorValues(s, recycled, (length) => new Float64Array(length));
   const d = new Float64Array(s.n);
   const nextRow = new Int32Array(s.supernodes);
-  factorSupernodes(s, shift, monitor, { values, d, nextRow, ...(storage ? { storage } : {}) }, [[0, s.supernodes - 1]]);
+  factorSupernodes(s, shift, monitor, { values, d, nextRow, dirty, ...(storage ? { storage } : {}) }, [[0, s.supernodes - 1]]);
   return { structure: s, values, d, ...(storage ? { storage } : {}) };
 }
 
@@ -90,6 +102,8 @@ export interface FactorArrays {
   d: Float64Array;
   /** The WebAssembly memory holding `values`, when they live in one. */
   storage?: FactorStorage;
+  /** `values` hold an earlier factor: each supernode's block is zeroed before it is assembled. */
+  dirty?: boolean;
   /**
    * nextRow[sn]: position in sn's row list of its first row not yet applied to an ancestor.
    * After a subtree is factored, its supernodes' entries point at the ancestors outside it.
@@ -147,6 +161,7 @@ export function factorSupernodes(
       const v0 = valuePtr[sn];
       // local position of each row of S
       for (let i = 0; i < nr; i++) map[rows[r0 + i]] = i;
+      if (out.dirty) values.fill(0, v0, v0 + nr * nc);
       // B ← A(R, f..l−1) = K − σM
       for (let j = f; j < l; j++) {
         const base = v0 + (j - f) * nr;

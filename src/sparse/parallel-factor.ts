@@ -27,11 +27,12 @@ import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
 import { MessageChannel, Worker, receiveMessageOnPort, type MessagePort } from 'node:worker_threads';
 import {
-  allocateFactorValues,
   applyDescendant,
   factorSupernodes,
+  factorValues,
   panelUpdateRows,
   rowsBefore,
+  type RecycledValues,
   type SupernodalFactor,
   type SupernodeCooperation,
   type UpdateWorkspace,
@@ -59,6 +60,7 @@ export type JobBody =
       d: Float64Array;
       storage?: FactorStorage;
       nextRow: Int32Array;
+      dirty: boolean;
       ranges: [number, number][];
     }
   | {
@@ -245,15 +247,15 @@ function failed(r: HelperResult | undefined): never {
  * LDLᵀ on two threads along `split` (two parts); null when no helper thread is available, so the
  * caller factors serially. `s` must come from shareStructure.
  */
-export function parallelSupernodalLdlt(s: SupernodalStructure, shift: number, monitor: PivotMonitor, split: SubtreeSplit): SupernodalFactor | null {
+export function parallelSupernodalLdlt(s: SupernodalStructure, shift: number, monitor: PivotMonitor, split: SubtreeSplit, recycled?: RecycledValues): SupernodalFactor | null {
   const h = startHelper();
   if (h === null || split.parts.length !== 2) return null;
   // before the factor's large allocation: let both threads drop the shared arrays of earlier work
   alongside(h, { kind: 'collect' }, collectHere, 'done');
-  const { values, storage } = allocateFactorValues(s, sharedBlock);
+  const { values, storage, dirty } = factorValues(s, recycled, sharedBlock);
   const d = sharedBlock(s.n);
   const nextRow = sharedInt32(s.supernodes);
-  const out = { values, d, nextRow, ...(storage ? { storage } : {}) };
+  const out = { values, d, nextRow, dirty, ...(storage ? { storage } : {}) };
   const job: JobBody = { kind: 'factor', structure: s, shift, tolerance: monitor.tolerance, diagonalScale: monitor.diagonalScale, ...out, ranges: split.parts[1] };
   const theirs = alongside(h, job, () => factorSupernodes(s, shift, monitor, out, split.parts[0]), 'factored');
   monitor.merge(theirs.monitor);

@@ -6,7 +6,7 @@
 import type { SymmetricCsc } from './csc.js';
 import type { FactorDiagnostics, ShiftedFactor, ShiftedSolver, ShiftedSolverOptions } from './factor-types.js';
 import { chooseOrdering } from './ordering/choose-ordering.js';
-import { supernodalLdlt, type SupernodalFactor } from './numeric-ldlt.js';
+import { supernodalLdlt, type RecycledValues, type SupernodalFactor } from './numeric-ldlt.js';
 import { PivotMonitor } from './pivot-monitor.js';
 import { analyzeShiftedPair, type SupernodalStructure } from './symbolic.js';
 import { supernodalSolveInPlace } from './triangular-solve.js';
@@ -62,12 +62,16 @@ export function createShiftedSolver(
   const solvePlan = split ? prepareSplitSolve(structure, split) : null;
   const t2 = performance.now();
   const { perm } = structure;
+  /** The values of the last released factor, for the next factorization. */
+  let spare: RecycledValues | undefined;
 
   function factor(shift: number): ShiftedFactor {
     const t3 = performance.now();
     const monitor = new PivotMonitor(tolerance, maxShiftedDiagonal(structure, shift));
-    const parallel = split ? parallelSupernodalLdlt(structure, shift, monitor, split) : null;
-    const f = parallel ?? supernodalLdlt(structure, shift, monitor);
+    const recycled = spare;
+    spare = undefined;
+    const parallel = split ? parallelSupernodalLdlt(structure, shift, monitor, split, recycled) : null;
+    const f = parallel ?? supernodalLdlt(structure, shift, monitor, recycled);
     const t4 = performance.now();
     const diagnostics: FactorDiagnostics = {
       ordering: order.name,
@@ -82,7 +86,9 @@ export function createShiftedSolver(
       tinyPivots: monitor.tinyPivots(perm),
       threads: parallel ? 2 : 1,
     };
-    return makeFactor(f, shift, monitor, diagnostics, parallel ? solvePlan : null);
+    return makeFactor(f, shift, monitor, diagnostics, parallel ? solvePlan : null, (values) => {
+      spare = values;
+    });
   }
 
   return { n, ordering: order.name, predictedNnzL: structure.nnzL, orderingCandidates: order.candidates, factor };
@@ -96,14 +102,23 @@ function factorBytes(f: SupernodalFactor): number {
   );
 }
 
-function makeFactor(f: SupernodalFactor, shift: number, monitor: PivotMonitor, diagnostics: FactorDiagnostics, plan: SplitSolve | null): ShiftedFactor {
+function makeFactor(
+  f: SupernodalFactor,
+  shift: number,
+  monitor: PivotMonitor,
+  diagnostics: FactorDiagnostics,
+  plan: SplitSolve | null,
+  giveBack: (values: RecycledValues) => void,
+): ShiftedFactor {
   const s = f.structure;
   const { n, perm } = s;
   const inertia = monitor.inertia();
   // one shared right-hand-side block per factor, reused
   const sharedWork = plan ? sharedScratch() : null;
+  let released = false;
 
   function solveBlock(b: Float64Array, k: number, x: Float64Array = new Float64Array(n * k)): Float64Array {
+    if (released) throw new Error(`the factor at shift ${shift} was released; factor again to solve`);
     if (b.length < n * k || x.length < n * k) throw new RangeError(`block of ${k} columns needs ${n * k} entries`);
     const work = sharedWork ? sharedWork(n * k) : new Float64Array(n * k);
     // gather into pivot order: work(q, c) = b(perm[q], c)
@@ -127,5 +142,10 @@ function makeFactor(f: SupernodalFactor, shift: number, monitor: PivotMonitor, d
     diagnostics,
     solve: (b, x) => solveBlock(b, 1, x),
     solveBlock,
+    release() {
+      if (released) return;
+      released = true;
+      giveBack({ values: f.values, ...(f.storage ? { storage: f.storage } : {}) });
+    },
   };
 }

@@ -54,6 +54,23 @@ describe.skipIf(!built)('two-thread LDLᵀ from the compiled modules', () => {
     expect(worst).toBeLessThan(1e-12);
     expect(diff).toBeLessThan(1e-6 * Math.max(...Array.from(xs, Math.abs)));
   });
+
+  it('refactors into a released factor\'s memory with the same result as a fresh two-thread factor', async () => {
+    const { createShiftedSolver } = (await import(pathToFileURL(path.join(dist, 'shifted-solver.js')).href)) as typeof import('../../src/sparse/shifted-solver.js');
+    const { stiffness, mass } = hexGridPair(14, 13, 12, 3);
+    const options = { ordering: 'nested-dissection', threads: 2 } as const;
+    const solver = createShiftedSolver(stiffness, mass, options);
+    const first = solver.factor(0);
+    expect(first.diagnostics.threads).toBe(2);
+    first.release();
+    const again = solver.factor(1e3);
+    const fresh = createShiftedSolver(stiffness, mass, options).factor(1e3);
+    const b = new Float64Array(stiffness.n).map((_, i) => Math.cos(0.11 * i));
+    const x1 = again.solve(b);
+    const x2 = fresh.solve(b);
+    for (let i = 0; i < x1.length; i++) expect(x1[i]).toBe(x2[i]);
+    expect(again.inertia).toEqual(fresh.inertia);
+  });
 });
 
 const eigenDist = path.resolve(import.meta.dirname, '../../dist/src/eigen/shared-block-products.js');

@@ -105,6 +105,25 @@ describe('createShiftedSolver on generated hexahedral grids', () => {
     expect(again.inertia).toEqual(fresh.inertia);
   });
 
+  it('a released factor refuses to solve, and its memory serves the next factorization with the same result as a fresh solver', () => {
+    const big = hexGridPair(7, 6, 6, 13);
+    const s = createShiftedSolver(big.stiffness, big.mass);
+    const first = s.factor(0.1);
+    const b = randomVector(big.stiffness.n, 21);
+    first.solve(b);
+    first.release();
+    first.release();
+    expect(() => first.solve(b)).toThrow(/released/);
+    expect(first.inertia.negative + first.inertia.zero + first.inertia.positive).toBe(big.stiffness.n);
+    // the refactor overwrites the old values (zeroed supernode by supernode): equal to a fresh factor bit for bit
+    const again = s.factor(0.9);
+    const fresh = createShiftedSolver(big.stiffness, big.mass).factor(0.9);
+    const x1 = again.solve(b);
+    const x2 = fresh.solve(b);
+    for (let i = 0; i < x1.length; i++) expect(x1[i]).toBe(x2[i]);
+    expect(again.inertia).toEqual(fresh.inertia);
+  });
+
   it('reports an exact zero pivot with its DOF, substitutes a finite value and counts it as zero', () => {
     // K = [[1, 1], [1, 1]] is singular: in natural order d_2 = 1 − 1·1 = 0 exactly (hand computation)
     const t = new TripletList(4);
