@@ -237,7 +237,7 @@ export function applyDescendant(
   to = stop - start,
 ): void {
   const { superStart, rowPtr, rows, valuePtr } = s;
-  const { rel, w, c, inPlace } = work;
+  const { rel, runAt, w, c, inPlace } = work;
   const f = superStart[sn];
   const nrS = rowPtr[sn + 1] - rowPtr[sn];
   const vS = valuePtr[sn];
@@ -247,8 +247,14 @@ export function applyDescendant(
   const nrd = rowPtr[dn + 1] - rd;
   const m2 = nrd - start; // dn's rows inside S's columns and all below
   const vd = valuePtr[dn] + start;
-  // relative positions in S of dn's rows
-  for (let i = from; i < m2; i++) rel[i] = map[rows[rd + start + i]];
+  // relative positions in S of dn's rows, and where they run on consecutively (runs r: rows runAt[r] … runAt[r+1]−1)
+  let runs = 0;
+  for (let i = from; i < m2; i++) {
+    rel[i] = map[rows[rd + start + i]];
+    if (i === from || rel[i] !== rel[i - 1] + 1) runAt[runs++] = i;
+  }
+  runAt[runs] = m2;
+  let run = 0;
   // target columns in chunks: W = L_1(chunk) D (k-major), C = L_D(chunk:) Wᵀ, scatter −C
   for (let j0 = from; j0 < to; j0 += CHUNK) {
     const bw = Math.min(CHUNK, to - j0);
@@ -259,10 +265,18 @@ export function applyDescendant(
       const ldc = (mr + 3) & ~3;
       scaledRowsPanels(bw, ncd, values, vd + j0, nrd, d, fd, heap, wOff);
       stripUpdate(kernels, true, true, mr, bw, ncd, values.byteOffset + 8 * (vd + j0), 8 * nrd, 8 * wOff, 8 * cOff, 8 * ldc);
+      // column by column, from its diagonal down, one contiguous add per run of rows
       for (let j = 0; j < bw; j++) {
-        const base = vS + (rows[rd + start + j0 + j] - f) * nrS;
-        const cj = cOff + j * ldc;
-        for (let i = j; i < mr; i++) values[base + rel[j0 + i]] += heap[cj + i];
+        const g = j0 + j;
+        while (runAt[run + 1] <= g) run++;
+        const base = vS + (rows[rd + start + g] - f) * nrS;
+        const cj = cOff + j * ldc - j0;
+        for (let r = run; r < runs; r++) {
+          const a = runAt[r];
+          const b = runAt[r + 1];
+          const off = base + rel[a] - a;
+          for (let i = r === run ? g : a; i < b; i++) values[off + i] += heap[cj + i];
+        }
       }
       continue;
     }
@@ -281,6 +295,8 @@ export function applyDescendant(
 /** Scratch arrays of the update kernels, one set per thread. */
 export interface UpdateWorkspace {
   rel: Int32Array;
+  /** Starts of the runs of consecutive positions in `rel` (applyDescendant), and one past the last. */
+  runAt: Int32Array;
   w: Float64Array;
   c: Float64Array;
   /**
@@ -293,14 +309,16 @@ export interface UpdateWorkspace {
 /** Scratch for one thread; with `storage`, in scratch region `region` of the factor's memory. */
 export function updateWorkspace(s: SupernodalStructure, storage?: FactorStorage, region: 0 | 1 = 0): UpdateWorkspace {
   const rel = new Int32Array(s.maxRows);
+  const runAt = new Int32Array(s.maxRows + 1);
   const kernels = storage && storage.scratchDoubles >= inPlaceScratchDoubles(s) ? stripKernels(storage.memory) : null;
   if (storage && kernels) {
     const wOff = region * storage.scratchDoubles;
     const none = new Float64Array(0);
-    return { rel, w: none, c: none, inPlace: { kernels, heap: new Float64Array(storage.memory.buffer), wOff, cOff: wOff + SCRATCH_COLUMNS * maxColumns(s) } };
+    return { rel, runAt, w: none, c: none, inPlace: { kernels, heap: new Float64Array(storage.memory.buffer), wOff, cOff: wOff + SCRATCH_COLUMNS * maxColumns(s) } };
   }
   return {
     rel,
+    runAt,
     w: new Float64Array(Math.max(CHUNK, PANEL) * s.maxRows + 1),
     c: new Float64Array(CHUNK * s.maxRows + 1),
   };
