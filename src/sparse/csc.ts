@@ -75,29 +75,88 @@ export function symMultiplyBlock(
   return y;
 }
 
+/** This thread's row-major copies of X and Y for symMultiplyColumns (grown on demand, reused). */
+let rowMajor = new Float64Array(0);
+
 /**
  * Y += (the part of A X carried by the stored columns [colFrom, colTo)): each stored a_ij of those
  * columns adds a_ij x_j to y_i and, off the diagonal, a_ij x_i to y_j. Two calls on disjoint
- * column ranges into two outputs sum to A X.
+ * column ranges into two outputs sum to A X. Only rows from colFrom on are touched (lower storage).
+ * The k columns are worked on row-major (x_i's k entries side by side) and three at a time, so
+ * each stored entry reads and writes short contiguous runs, and x_j's three entries and y_j's
+ * running sums stay in locals across column j (about twice as fast as column-major on the hex
+ * solids' K and M for k = 6).
  */
 export function symMultiplyColumns(a: SymmetricCsc, x: Float64Array, k: number, y: Float64Array, colFrom: number, colTo: number): void {
-  const { n, colPtr, rowIdx, values } = a;
-  const sum = new Float64Array(k);
+  const n = a.n;
+  const rows = n - colFrom;
+  if (rowMajor.length < 2 * rows * k) rowMajor = new Float64Array(2 * rows * k);
+  const xr = rowMajor;
+  const yr = rowMajor.subarray(rows * k, 2 * rows * k);
+  yr.fill(0);
+  // xr[(i − colFrom)·k + c] = X(i, c)
+  for (let c = 0; c < k; c++) for (let i = colFrom, o = c * n + colFrom, q = c; i < n; i++, o++, q += k) xr[q] = x[o];
+  const shift = colFrom * k;
+  const full = k - (k % 3);
+  for (let c = 0; c < full; c += 3) threeColumns(a, xr, yr, k, shift, c, colFrom, colTo);
+  if (full < k) leftoverColumns(a, xr, yr, k, shift, full, colFrom, colTo);
+  // Y(i, c) += yr
+  for (let c = 0; c < k; c++) for (let i = colFrom, o = c * n + colFrom, q = c; i < n; i++, o++, q += k) y[o] += yr[q];
+}
+
+/** Columns c, c+1, c+2 of the row-major product (entry (i, c) at i·k − shift + c). */
+function threeColumns(a: SymmetricCsc, xr: Float64Array, yr: Float64Array, k: number, shift: number, c: number, colFrom: number, colTo: number): void {
+  const { colPtr, rowIdx, values } = a;
   for (let j = colFrom; j < colTo; j++) {
-    sum.fill(0);
+    const jo = j * k - shift + c;
+    const x0 = xr[jo];
+    const x1 = xr[jo + 1];
+    const x2 = xr[jo + 2];
+    let s0 = 0;
+    let s1 = 0;
+    let s2 = 0;
     for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
       const i = rowIdx[p];
       const v = values[p];
       if (i === j) {
-        for (let c = 0, o = j; c < k; c++, o += n) sum[c] += v * x[o];
+        s0 += v * x0;
+        s1 += v * x1;
+        s2 += v * x2;
       } else {
-        for (let c = 0, o = 0; c < k; c++, o += n) {
-          y[o + i] += v * x[o + j];
-          sum[c] += v * x[o + i];
+        // y_i += a_ij x_j and the mirrored y_j += a_ij x_i
+        const io = i * k - shift + c;
+        yr[io] += v * x0;
+        yr[io + 1] += v * x1;
+        yr[io + 2] += v * x2;
+        s0 += v * xr[io];
+        s1 += v * xr[io + 1];
+        s2 += v * xr[io + 2];
+      }
+    }
+    yr[jo] += s0;
+    yr[jo + 1] += s1;
+    yr[jo + 2] += s2;
+  }
+}
+
+/** Columns from..k−1 (one or two) of the row-major product, in one pass over A. */
+function leftoverColumns(a: SymmetricCsc, xr: Float64Array, yr: Float64Array, k: number, shift: number, from: number, colFrom: number, colTo: number): void {
+  const { colPtr, rowIdx, values } = a;
+  for (let j = colFrom; j < colTo; j++) {
+    const jo = j * k - shift;
+    for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+      const i = rowIdx[p];
+      const v = values[p];
+      if (i === j) {
+        for (let c = from; c < k; c++) yr[jo + c] += v * xr[jo + c];
+      } else {
+        const io = i * k - shift;
+        for (let c = from; c < k; c++) {
+          yr[io + c] += v * xr[jo + c];
+          yr[jo + c] += v * xr[io + c];
         }
       }
     }
-    for (let c = 0, o = j; c < k; c++, o += n) y[o] += sum[c];
   }
 }
 
