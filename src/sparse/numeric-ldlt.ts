@@ -423,50 +423,35 @@ function factorPanel(
       scaledRowsPanels(g1 - g0, g0 - c0, values, v0 + g0 + c0 * nr, nr, d, f + c0, ip.heap, ip.wOff);
       inPlaceUpdate(ip.kernels, ip.heap, true, nr - g0, g1 - g0, g0 - c0, base + v0 + g0 + c0 * nr, nr, ip.wOff, base + v0 + g0 + g0 * nr, nr);
     }
-    factorColumns(values, v0, nr, g0, g1, f, d, diag, monitor);
-  }
-}
-
-/** Columns c0..c1−1, each updated by the ones left of it from c0 on, then pivoted and scaled. */
-function factorColumns(
-  values: Float64Array,
-  v0: number,
-  nr: number,
-  c0: number,
-  c1: number,
-  f: number,
-  d: Float64Array,
-  diag: Float64Array,
-  monitor: PivotMonitor,
-): void {
-  // each column j: apply the earlier columns, take the pivot, scale
-  for (let j = c0; j < c1; j++) {
-    const cj = v0 + j * nr;
-    let t = c0;
-    // L(j:, j) −= Σ_t L(j:, t) d_t L(j, t), four columns t at a time
-    for (; t + 4 <= j; t += 4) {
-      const q0 = v0 + t * nr;
-      const q1 = q0 + nr;
-      const q2 = q1 + nr;
-      const q3 = q2 + nr;
-      const a0 = values[q0 + j] * d[f + t];
-      const a1 = values[q1 + j] * d[f + t + 1];
-      const a2 = values[q2 + j] * d[f + t + 2];
-      const a3 = values[q3 + j] * d[f + t + 3];
-      for (let i = j; i < nr; i++) {
-        values[cj + i] -= a0 * values[q0 + i] + a1 * values[q1 + i] + a2 * values[q2 + i] + a3 * values[q3 + i];
+    // each column j of the group: apply the group's earlier columns, take the pivot, scale
+    for (let j = g0; j < g1; j++) {
+      const cj = v0 + j * nr;
+      let t = g0;
+      // L(j:, j) −= Σ_t L(j:, t) d_t L(j, t), four columns t at a time
+      for (; t + 4 <= j; t += 4) {
+        const q0 = v0 + t * nr;
+        const q1 = q0 + nr;
+        const q2 = q1 + nr;
+        const q3 = q2 + nr;
+        const a0 = values[q0 + j] * d[f + t];
+        const a1 = values[q1 + j] * d[f + t + 1];
+        const a2 = values[q2 + j] * d[f + t + 2];
+        const a3 = values[q3 + j] * d[f + t + 3];
+        for (let i = j; i < nr; i++) {
+          values[cj + i] -= a0 * values[q0 + i] + a1 * values[q1 + i] + a2 * values[q2 + i] + a3 * values[q3 + i];
+        }
       }
+      for (; t < j; t++) {
+        const q0 = v0 + t * nr;
+        const a0 = values[q0 + j] * d[f + t];
+        for (let i = j; i < nr; i++) values[cj + i] -= a0 * values[q0 + i];
+      }
+      const pivot = monitor.accept(f + j, values[cj + j], diag[f + j]);
+      d[f + j] = pivot;
+      values[cj + j] = 1;
+      const inv = 1 / pivot;
+      // L(j+1:, j) = B(j+1:, j) / d_j
+      for (let i = j + 1; i < nr; i++) values[cj + i] *= inv;
     }
-    for (; t < j; t++) {
-      const q0 = v0 + t * nr;
-      const a0 = values[q0 + j] * d[f + t];
-      for (let i = j; i < nr; i++) values[cj + i] -= a0 * values[q0 + i];
-    }
-    const pivot = monitor.accept(f + j, values[cj + j], diag[f + j]);
-    d[f + j] = pivot;
-    values[cj + j] = 1;
-    const inv = 1 / pivot;
-    // L(j+1:, j) = B(j+1:, j) / d_j
-    for (let i = j + 1; i < nr; i++) values[cj + i] *= inv;
   }
 }

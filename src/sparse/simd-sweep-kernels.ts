@@ -23,7 +23,7 @@
  * not fit in 4 GiB; the sweeps then use the plain TypeScript loops.
  */
 
-import { addTo, countdown, leb, name, op, section } from './wasm-bytes.js';
+import { addTo, compileOnce, countdown, leb, name, op, section } from './wasm-bytes.js';
 
 /** The few WebAssembly names used here (the project's lib settings do not include them). */
 declare const WebAssembly: {
@@ -160,20 +160,9 @@ function moduleBytes(): Uint8Array {
   ]);
 }
 
-let compiled: object | null | undefined;
+const compiledModule = compileOnce(moduleBytes);
 let storageCount = 0;
 let enabled = true;
-
-function compiledModule(): object | null {
-  if (compiled === undefined) {
-    try {
-      compiled = new WebAssembly.Module(moduleBytes());
-    } catch {
-      compiled = null;
-    }
-  }
-  return compiled;
-}
 
 /**
  * Turns the SIMD sweep kernels on or off for factors allocated from now on (default on where

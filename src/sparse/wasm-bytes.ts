@@ -4,6 +4,27 @@
  * binary format (WebAssembly Core Specification, §5 "Binary Format").
  */
 
+/** The one WebAssembly name used here (the project's lib settings do not include it). */
+declare const WebAssembly: { Module: new (bytes: Uint8Array) => object };
+
+/**
+ * The compiled module of `bytes`, compiled on first use and kept; null where WebAssembly, or a
+ * feature the bytes use (SIMD, shared memory), is missing.
+ */
+export function compileOnce(bytes: () => Uint8Array): () => object | null {
+  let compiled: object | null | undefined;
+  return () => {
+    if (compiled === undefined) {
+      try {
+        compiled = new WebAssembly.Module(bytes());
+      } catch {
+        compiled = null;
+      }
+    }
+    return compiled;
+  };
+}
+
 /** Unsigned LEB128. */
 export function leb(n: number): number[] {
   const out: number[] = [];

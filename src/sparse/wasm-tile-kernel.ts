@@ -22,7 +22,7 @@
  * the plain TypeScript kernels.
  */
 
-import { addTo, countdown, leb, name, op, section } from './wasm-bytes.js';
+import { addTo, compileOnce, countdown, leb, name, op, section } from './wasm-bytes.js';
 
 /** The few WebAssembly names used here (the project's lib settings do not include them). */
 declare const WebAssembly: {
@@ -124,18 +124,7 @@ function moduleBytes(): Uint8Array {
   ]);
 }
 
-let compiled: object | null | undefined;
-
-function compiledModule(): object | null {
-  if (compiled === undefined) {
-    try {
-      compiled = new WebAssembly.Module(moduleBytes());
-    } catch {
-      compiled = null;
-    }
-  }
-  return compiled;
-}
+const compiledModule = compileOnce(moduleBytes);
 
 function instantiate(memory: { buffer: ArrayBuffer | SharedArrayBuffer }): Record<string, unknown> | null {
   const mod = compiledModule();
