@@ -295,6 +295,18 @@ function backwardColumns(values: Float64Array, v0: number, nr: number, nc: numbe
 const SIMD_PANEL = 8;
 /** Columns of L per call of the columns kernel (its strips walk across them; our choice by measurement). */
 const SIMD_COLUMN_BLOCK = 8;
+/** Column pairs of L per round of the dots kernels when the right-hand sides go in two groups (≈ 16 columns stay in cache). */
+const SIMD_PAIR_BLOCK = 8;
+
+/**
+ * Right-hand sides per kernel call: five or six go as 3 + 2 or 3 + 3 over the same block of L
+ * (still in cache for the second group). With five or six at once the kernels need more vector
+ * registers than the 15 the runtime leaves them and spill every step: measured on cache-resident
+ * blocks, 5.2–6.4 G multiply-adds/s against 9–9.7 for three or four.
+ */
+function rhsGroups(g: number): number[] {
+  return g <= 4 ? [g] : [3, g - 3];
+}
 
 /**
  * Forward sweep with the SIMD kernels, g ≤ KERNEL_RHS right-hand sides at a time. Per supernode,
@@ -418,9 +430,13 @@ function columnsProduct(kern: SweepKernels, g: number, rows: number, cols: numbe
   const heap = kern.heap;
   // a few columns of L per call, so one strip's loads touch few pages and every column streams
   if (strips > 0) {
+    const groups = rhsGroups(g);
     for (let t0 = 0; t0 < cols; t0 += SIMD_COLUMN_BLOCK) {
       const w = Math.min(SIMD_COLUMN_BLOCK, cols - t0);
-      kern.columns[g](8 * (l + t0 * ld), 8 * ld, strips, w, 8 * (xo + t0), 8 * ld, 8 * y, 8 * ld);
+      // each group of right-hand sides over the same columns of L
+      for (let c = 0, q = 0; q < groups.length; c += groups[q], q++) {
+        kern.columns[groups[q]](8 * (l + t0 * ld), 8 * ld, strips, w, 8 * (xo + t0 + c * ld), 8 * ld, 8 * (y + c * ld), 8 * ld);
+      }
     }
   }
   // the rows after the last strip
@@ -441,8 +457,20 @@ function dotsProduct(kern: SweepKernels, g: number, rows: number, cols: number, 
   const pairs = rows >> 1;
   const heap = kern.heap;
   const colPairs = cols >> 1;
-  if (colPairs > 0) kern.dots2[g](8 * l, 8 * ld, pairs, colPairs, 8 * gOff, 8 * ld, 8 * y, 8 * ld);
-  if (cols & 1) kern.dots1[g](8 * (l + (cols - 1) * ld), 8 * ld, pairs, 1, 8 * gOff, 8 * ld, 8 * (y + cols - 1), 8 * ld);
+  const groups = rhsGroups(g);
+  // one group: every column pair in one call; two groups: blocks of pairs, each group over the block
+  const block = groups.length === 1 ? colPairs : SIMD_PAIR_BLOCK;
+  for (let p0 = 0; p0 < colPairs; p0 += block) {
+    const count = Math.min(block, colPairs - p0);
+    for (let c = 0, q = 0; q < groups.length; c += groups[q], q++) {
+      kern.dots2[groups[q]](8 * (l + 2 * p0 * ld), 8 * ld, pairs, count, 8 * (gOff + c * ld), 8 * ld, 8 * (y + 2 * p0 + c * ld), 8 * ld);
+    }
+  }
+  if (cols & 1) {
+    for (let c = 0, q = 0; q < groups.length; c += groups[q], q++) {
+      kern.dots1[groups[q]](8 * (l + (cols - 1) * ld), 8 * ld, pairs, 1, 8 * (gOff + c * ld), 8 * ld, 8 * (y + cols - 1 + c * ld), 8 * ld);
+    }
+  }
   if (rows & 1) {
     const i = rows - 1;
     // the last row's share of every dot product
