@@ -77,6 +77,12 @@ export function symMultiplyBlock(
 
 /** This thread's row-major copies of X and Y for symMultiplyColumns (grown on demand, reused). */
 let rowMajor = new Float64Array(0);
+/**
+ * Columns of X per row-major copy: wider blocks go in slices of this many, which bounds the kept
+ * copies at 2 · n · 6 doubles per thread (a Rayleigh–Ritz product of 60 columns would otherwise
+ * keep 120 n doubles alive for the rest of the run). A is streamed once per three columns anyway.
+ */
+const ROW_MAJOR_COLUMNS = 6;
 
 /**
  * Y += (the part of A X carried by the stored columns [colFrom, colTo)): each stored a_ij of those
@@ -89,6 +95,14 @@ let rowMajor = new Float64Array(0);
  */
 export function symMultiplyColumns(a: SymmetricCsc, x: Float64Array, k: number, y: Float64Array, colFrom: number, colTo: number): void {
   const n = a.n;
+  if (k > ROW_MAJOR_COLUMNS) {
+    // slices of columns, each its own row-major product
+    for (let c0 = 0; c0 < k; c0 += ROW_MAJOR_COLUMNS) {
+      const w = Math.min(ROW_MAJOR_COLUMNS, k - c0);
+      symMultiplyColumns(a, x.subarray(c0 * n, (c0 + w) * n), w, y.subarray(c0 * n, (c0 + w) * n), colFrom, colTo);
+    }
+    return;
+  }
   const rows = n - colFrom;
   if (rowMajor.length < 2 * rows * k) rowMajor = new Float64Array(2 * rows * k);
   const xr = rowMajor;
