@@ -300,9 +300,9 @@ const SIMD_PAIR_BLOCK = 8;
 
 /**
  * Right-hand sides per kernel call: five or six go as 3 + 2 or 3 + 3 over the same block of L
- * (still in cache for the second group). With five or six at once the kernels need more vector
- * registers than the 15 the runtime leaves them and spill every step: measured on cache-resident
- * blocks, 5.2–6.4 G multiply-adds/s against 9–9.7 for three or four.
+ * (still in cache for the second group). Five or six at once keep 14–16 vector values live and
+ * ran, on cache-resident blocks, at 5.2–6.4 G multiply-adds/s against 9–9.7 for three or four
+ * (our measurement; as if spilling every step).
  */
 function rhsGroups(g: number): number[] {
   return g <= 4 ? [g] : [3, g - 3];
