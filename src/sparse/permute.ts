@@ -26,7 +26,7 @@ export interface Pattern {
  * Upper triangle of C = P A Pᵀ by columns (equivalently: the lower triangle by rows), rows in
  * each column unsorted. `src[q]` is the stored index in `a` of the entry that went to slot q.
  */
-export function permutedUpper(a: SymmetricCsc, pinv: Int32Array): { upper: Pattern; src: Int32Array } {
+export function permutedUpper(a: Pattern, pinv: Int32Array): { upper: Pattern; src: Int32Array } {
   const { n, colPtr, rowIdx } = a;
   const nnz = colPtr[n];
   const ptr = new Int32Array(n + 1);
@@ -106,21 +106,24 @@ export interface PermutedPair {
   mass: Float64Array;
 }
 
-export function permutePair(stiffness: SymmetricCsc, mass: SymmetricCsc, perm: Int32Array): PermutedPair {
-  const k = permuteSymmetric(stiffness, perm);
-  const m = permuteSymmetric(mass, perm);
-  const n = k.n;
+/**
+ * K and M on the union of their patterns in their own numbering: per column, the two sorted row
+ * lists merged, each matrix's value carried (zero where it has no entry). FE mass patterns
+ * usually lie inside the stiffness pattern, so the union is about K's size.
+ */
+export function unionPair(stiffness: SymmetricCsc, mass: SymmetricCsc): PermutedPair {
+  const n = stiffness.n;
   const colPtr = new Int32Array(n + 1);
   // size of the union of the two sorted row lists of each column
   for (let j = 0; j < n; j++) {
-    let p = k.colPtr[j];
-    let q = m.colPtr[j];
-    const pe = k.colPtr[j + 1];
-    const qe = m.colPtr[j + 1];
+    let p = stiffness.colPtr[j];
+    let q = mass.colPtr[j];
+    const pe = stiffness.colPtr[j + 1];
+    const qe = mass.colPtr[j + 1];
     let c = 0;
     while (p < pe || q < qe) {
-      const rk = p < pe ? k.rowIdx[p] : n;
-      const rm = q < qe ? m.rowIdx[q] : n;
+      const rk = p < pe ? stiffness.rowIdx[p] : n;
+      const rm = q < qe ? mass.rowIdx[q] : n;
       if (rk <= rm) p++;
       if (rm <= rk) q++;
       c++;
@@ -133,20 +136,46 @@ export function permutePair(stiffness: SymmetricCsc, mass: SymmetricCsc, perm: I
   const mv = new Float64Array(nnz);
   // merge the two sorted row lists of each column, carrying each matrix's value
   for (let j = 0; j < n; j++) {
-    let p = k.colPtr[j];
-    let q = m.colPtr[j];
-    const pe = k.colPtr[j + 1];
-    const qe = m.colPtr[j + 1];
+    let p = stiffness.colPtr[j];
+    let q = mass.colPtr[j];
+    const pe = stiffness.colPtr[j + 1];
+    const qe = mass.colPtr[j + 1];
     let o = colPtr[j];
     while (p < pe || q < qe) {
-      const rk = p < pe ? k.rowIdx[p] : n;
-      const rm = q < qe ? m.rowIdx[q] : n;
-      if (rk <= rm) kv[o] = k.values[p++];
-      if (rm <= rk) mv[o] = m.values[q++];
+      const rk = p < pe ? stiffness.rowIdx[p] : n;
+      const rm = q < qe ? mass.rowIdx[q] : n;
+      if (rk <= rm) kv[o] = stiffness.values[p++];
+      if (rm <= rk) mv[o] = mass.values[q++];
       rowIdx[o++] = rk < rm ? rk : rm;
     }
   }
   return { n, colPtr, rowIdx, stiffness: kv, mass: mv };
+}
+
+/** Lower triangle of P A Pᵀ with sorted rows for the pattern of `a` only (no values moved). */
+export function permutePattern(a: Pattern, perm: Int32Array): Pattern {
+  const { upper } = permutedUpper(a, inversePermutation(perm));
+  return transposePattern(upper).lower;
+}
+
+/** The union pair (unionPair) permuted symmetrically, rows sorted, both value arrays carried along. */
+export function permuteUnion(u: PermutedPair, perm: Int32Array): PermutedPair {
+  const { upper, src } = permutedUpper(u, inversePermutation(perm));
+  const { lower, map } = transposePattern(upper);
+  const kv = new Float64Array(map.length);
+  const mv = new Float64Array(map.length);
+  // values follow their entries through both passes
+  for (let q = 0; q < map.length; q++) {
+    const from = src[map[q]];
+    kv[q] = u.stiffness[from];
+    mv[q] = u.mass[from];
+  }
+  return { n: u.n, colPtr: lower.colPtr, rowIdx: lower.rowIdx, stiffness: kv, mass: mv };
+}
+
+/** permuteUnion of unionPair: the pair in pivot order on its union pattern. */
+export function permutePair(stiffness: SymmetricCsc, mass: SymmetricCsc, perm: Int32Array): PermutedPair {
+  return permuteUnion(unionPair(stiffness, mass), perm);
 }
 
 /**

@@ -12,7 +12,7 @@
 import type { SymmetricCsc } from './csc.js';
 import { columnCounts } from './column-counts.js';
 import { eliminationTree } from './etree.js';
-import { permutePair, transposePattern, type PermutedPair } from './permute.js';
+import { permutePattern, permuteUnion, transposePattern, unionPair, type Pattern, type PermutedPair } from './permute.js';
 import { postorderTree, relabelTree } from './postorder.js';
 import { fundamentalSupernodes, relaxSupernodes } from './supernodes.js';
 
@@ -44,8 +44,8 @@ export interface SupernodalStructure {
   maxRows: number;
 }
 
-/** Etree, postorder, counts of the permuted pattern (rows of `pair` need not carry values). */
-function treeAndCounts(pair: PermutedPair) {
+/** Etree, postorder, counts of the permuted pattern (lower triangle, rows sorted). */
+function treeAndCounts(pair: Pattern) {
   const { lower: upper } = transposePattern(pair);
   const parent = eliminationTree(upper);
   const post = postorderTree(parent);
@@ -55,7 +55,9 @@ function treeAndCounts(pair: PermutedPair) {
 
 export function analyzeShiftedPair(stiffness: SymmetricCsc, mass: SymmetricCsc, order: Int32Array): SupernodalStructure {
   const n = stiffness.n;
-  const first = treeAndCounts(permutePair(stiffness, mass, order));
+  // K and M merged once; the first permutation moves the pattern only
+  const union = unionPair(stiffness, mass);
+  const first = treeAndCounts(permutePattern(union, order));
   const perm = new Int32Array(n);
   const counts = new Int32Array(n);
   let nnzL = 0;
@@ -66,7 +68,7 @@ export function analyzeShiftedPair(stiffness: SymmetricCsc, mass: SymmetricCsc, 
     nnzL += counts[k];
   }
   const parent = relabelTree(first.parent, first.post);
-  const pair = permutePair(stiffness, mass, perm);
+  const pair = permuteUnion(union, perm);
   const fundamental = fundamentalSupernodes(parent, counts);
   const fundamentalRows = supernodeRows(pair, fundamental, superOfColumns(fundamental, n), parent);
   const superStart = relaxSupernodes(fundamental, parent, fundamentalRows.rowPtr, fundamentalRows.rows);
