@@ -53,10 +53,11 @@ function run(job: HelperJob): HelperResult {
     case 'separatorRuns':
       return { kind: 'separators', wheres: job.seeds.map((seed) => multilevelSeparator(job.graph, seed)) };
     case 'collect':
+    case 'dropWorkspace':
       // the kept workspace may view an earlier factor's memory: drop it so that memory can go
       work = null;
       workFor = -1;
-      collect();
+      if (job.kind === 'collect') collect();
       return { kind: 'done' };
     case 'factor': {
       const monitor = new PivotMonitor(job.tolerance, job.diagonalScale);

@@ -49,6 +49,8 @@ import { backwardSweepRanges, diagonalSolve, forwardSweepRanges, sweepWorkspace 
 export type JobBody =
   | { kind: 'ping' }
   | { kind: 'collect' }
+  /** Drop the workspace kept for the jobs of one factorization (it views that factor's memory). */
+  | { kind: 'dropWorkspace' }
   | { kind: 'separatorRuns'; graph: WeightedGraph; seeds: number[] }
   | {
       kind: 'factor';
@@ -260,6 +262,8 @@ export function parallelSupernodalLdlt(s: SupernodalStructure, shift: number, mo
   const theirs = alongside(h, job, () => factorSupernodes(s, shift, monitor, out, split.parts[0]), 'factored');
   monitor.merge(theirs.monitor);
   factorSupernodes(s, shift, monitor, out, split.top, [...split.parts[0], ...split.parts[1]], cooperation(h, s, values, d, storage));
+  // the helper lets go of this factor's memory, so a released factor is not kept alive by it
+  alongside(h, { kind: 'dropWorkspace' }, () => {}, 'done');
   return { structure: s, values, d, ...(storage ? { storage } : {}) };
 }
 
