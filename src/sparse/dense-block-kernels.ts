@@ -4,10 +4,15 @@
  * A supernode's block holds nr rows × nc columns, column-major with leading dimension nr; its
  * top nc×nc part is the diagonal block (lower triangle used), the rest the rows below.
  *
- * The work is in `updateLowerProduct`: C −= A Wᵀ with A (m×k, column-major) and W (n×k, stored
- * k-major: W[t·n + j]), only for the blocks of C on or below the diagonal. It is register
- * blocked 4 rows × 4 columns: per step over t, 4 loads of A's column t and 4 of W's row t feed
- * 16 multiply-adds into local accumulators, so the inner loop is arithmetic, not memory traffic.
+ * The work is C −= A Wᵀ (A m×k column-major, W n×k), often only for the blocks of C on or below
+ * the diagonal, register blocked 4 rows × 4 columns: per step over t, 4 entries of A's column t
+ * and 4 of W's row t feed 16 multiply-adds into local accumulators, so the inner loop is
+ * arithmetic, not memory traffic. Two paths:
+ *  - `stripUpdate` / `inPlaceUpdate` (the factor lives in a WebAssembly memory): A is read where
+ *    it is by the strip kernels of wasm-tile-kernel.ts, W is packed in 4-column panels
+ *    (`scaledRowsPanels`), C is the block itself or scratch in the same memory;
+ *  - `updateLowerProduct` / `updateProduct` (plain Float64Arrays, W stored k-major: W[t·n + j]):
+ *    packed copies through the kernel's private memory, or the TypeScript tiles.
  */
 import { createTileKernel, type StripKernels } from './wasm-tile-kernel.js';
 
