@@ -1,11 +1,12 @@
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { CholeskyDecomposition, EigenvalueDecomposition, Matrix } from 'ml-matrix';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, onTestFinished } from 'vitest';
 import { TripletList, assembleSymmetric } from '../../src/sparse/assemble.js';
 import { countFactorNonzeros } from '../../src/sparse/column-counts.js';
 import { permuteSymmetric } from '../../src/sparse/permute.js';
 import { createShiftedSolver } from '../../src/sparse/shifted-solver.js';
+import { useSimdSweepKernels } from '../../src/sparse/simd-sweep-kernels.js';
 import { denseOf, denseShifted, hexGridPair, seededRandom } from './fe-like-matrices.js';
 import { readMatrixMarket } from '../../src/io/matrix-market-reader.js';
 import { shiftedResidual } from './residual.js';
@@ -105,7 +106,14 @@ describe('createShiftedSolver on generated hexahedral grids', () => {
     expect(again.inertia).toEqual(fresh.inertia);
   });
 
-  it('a released factor refuses to solve, and its memory serves the next factorization with the same result as a fresh solver', () => {
+  it.each([
+    ['in WebAssembly memory', true],
+    ['in plain arrays', false],
+  ])('a released factor (values %s) refuses to solve, and its memory serves the next factorization with the same result as a fresh solver', (_label, simd) => {
+    useSimdSweepKernels(simd);
+    onTestFinished(() => {
+      useSimdSweepKernels(true);
+    });
     const big = hexGridPair(7, 6, 6, 13);
     const s = createShiftedSolver(big.stiffness, big.mass);
     const first = s.factor(0.1);
