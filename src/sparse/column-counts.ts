@@ -72,7 +72,7 @@ export interface FactorStructureCounts {
   nnzL: number;
 }
 
-export function factorStructureCounts(a: SymmetricCsc, perm: Int32Array): FactorStructureCounts {
+export function factorStructureCounts(a: Pattern, perm: Int32Array): FactorStructureCounts {
   const pinv = inversePermutation(perm);
   const { upper } = permutedUpper(a, pinv);
   const parent = eliminationTree(upper);

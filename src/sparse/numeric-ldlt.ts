@@ -49,19 +49,12 @@ export function allocateFactorValues(s: SupernodalStructure, fallback: (length: 
 /** Widest target chunk or panel, rounded up to whole 4-column panels. */
 const SCRATCH_COLUMNS = Math.ceil(Math.max(CHUNK, PANEL) / 4) * 4;
 
-/** Most columns of one supernode. */
-function maxColumns(s: SupernodalStructure): number {
-  let m = 0;
-  for (let sn = 0; sn < s.supernodes; sn++) m = Math.max(m, s.superStart[sn + 1] - s.superStart[sn]);
-  return m;
-}
-
 /**
  * One thread's scratch for the in-place products: W panels (SCRATCH_COLUMNS × a supernode's
  * columns) and C (SCRATCH_COLUMNS columns of the largest row count rounded up to 4).
  */
 function inPlaceScratchDoubles(s: SupernodalStructure): number {
-  return SCRATCH_COLUMNS * (maxColumns(s) + s.maxRows + 4);
+  return SCRATCH_COLUMNS * (s.maxColumns + s.maxRows + 4);
 }
 
 /** a_jj = k_jj − σ m_jj in pivot order. */
@@ -314,7 +307,7 @@ export function updateWorkspace(s: SupernodalStructure, storage?: FactorStorage,
   if (storage && kernels) {
     const wOff = region * storage.scratchDoubles;
     const none = new Float64Array(0);
-    return { rel, runAt, w: none, c: none, inPlace: { kernels, heap: new Float64Array(storage.memory.buffer), wOff, cOff: wOff + SCRATCH_COLUMNS * maxColumns(s) } };
+    return { rel, runAt, w: none, c: none, inPlace: { kernels, heap: new Float64Array(storage.memory.buffer), wOff, cOff: wOff + SCRATCH_COLUMNS * s.maxColumns } };
   }
   return {
     rel,

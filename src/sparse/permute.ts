@@ -152,12 +152,6 @@ export function unionPair(stiffness: SymmetricCsc, mass: SymmetricCsc): Permuted
   return { n, colPtr, rowIdx, stiffness: kv, mass: mv };
 }
 
-/** Lower triangle of P A Pᵀ with sorted rows for the pattern of `a` only (no values moved). */
-export function permutePattern(a: Pattern, perm: Int32Array): Pattern {
-  const { upper } = permutedUpper(a, inversePermutation(perm));
-  return transposePattern(upper).lower;
-}
-
 /** The union pair (unionPair) permuted symmetrically, rows sorted, both value arrays carried along. */
 export function permuteUnion(u: PermutedPair, perm: Int32Array): PermutedPair {
   const { upper, src } = permutedUpper(u, inversePermutation(perm));

@@ -10,10 +10,9 @@
  * 5. value offsets of the dense blocks and the workspace sizes the numeric phase needs.
  */
 import type { SymmetricCsc } from './csc.js';
-import { columnCounts } from './column-counts.js';
-import { eliminationTree } from './etree.js';
-import { permutePattern, permuteUnion, transposePattern, unionPair, type Pattern, type PermutedPair } from './permute.js';
-import { postorderTree, relabelTree } from './postorder.js';
+import { factorStructureCounts } from './column-counts.js';
+import { permuteUnion, unionPair, type PermutedPair } from './permute.js';
+import { relabelTree } from './postorder.js';
 import { fundamentalSupernodes, relaxSupernodes } from './supernodes.js';
 
 export interface SupernodalStructure {
@@ -39,25 +38,17 @@ export interface SupernodalStructure {
   valuePtr: Float64Array;
   /** Largest update block (rows × columns) one supernode sends to another. */
   maxUpdateEntries: number;
-  /** Largest nr · nc over supernodes and largest nr. */
+  /** Largest nr · nc over supernodes, largest nr and largest nc. */
   maxBlockEntries: number;
   maxRows: number;
-}
-
-/** Etree, postorder, counts of the permuted pattern (lower triangle, rows sorted). */
-function treeAndCounts(pair: Pattern) {
-  const { lower: upper } = transposePattern(pair);
-  const parent = eliminationTree(upper);
-  const post = postorderTree(parent);
-  const counts = columnCounts(pair, parent, post);
-  return { parent, post, counts };
+  maxColumns: number;
 }
 
 export function analyzeShiftedPair(stiffness: SymmetricCsc, mass: SymmetricCsc, order: Int32Array): SupernodalStructure {
   const n = stiffness.n;
-  // K and M merged once; the first permutation moves the pattern only
+  // K and M merged once; the tree and counts of the first order need its pattern only
   const union = unionPair(stiffness, mass);
-  const first = treeAndCounts(permutePattern(union, order));
+  const first = factorStructureCounts(union, order);
   const perm = new Int32Array(n);
   const counts = new Int32Array(n);
   let nnzL = 0;
@@ -151,6 +142,7 @@ function blockSizes(superStart: Int32Array, superOf: Int32Array, rowPtr: Int32Ar
   let maxUpdateEntries = 0;
   let maxBlockEntries = 0;
   let maxRows = 0;
+  let maxColumns = 0;
   // each supernode: block size, flops of its columns, sizes of the updates it sends
   for (let s = 0; s < ns; s++) {
     const nc = superStart[s + 1] - superStart[s];
@@ -158,6 +150,7 @@ function blockSizes(superStart: Int32Array, superOf: Int32Array, rowPtr: Int32Ar
     valuePtr[s + 1] = valuePtr[s] + nr * nc;
     maxBlockEntries = Math.max(maxBlockEntries, nr * nc);
     maxRows = Math.max(maxRows, nr);
+    maxColumns = Math.max(maxColumns, nc);
     // column c has r = nr − c − 1 rows below its diagonal: r divisions, r(r+1)/2 multiply-adds
     for (let c = 0; c < nc; c++) {
       const r = nr - c - 1;
@@ -172,5 +165,5 @@ function blockSizes(superStart: Int32Array, superOf: Int32Array, rowPtr: Int32Ar
       p = q;
     }
   }
-  return { valuePtr, storedEntries: valuePtr[ns], flops, maxUpdateEntries, maxBlockEntries, maxRows };
+  return { valuePtr, storedEntries: valuePtr[ns], flops, maxUpdateEntries, maxBlockEntries, maxRows, maxColumns };
 }

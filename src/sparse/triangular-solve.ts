@@ -304,8 +304,9 @@ const SIMD_PAIR_BLOCK = 8;
  * ran, on cache-resident blocks, at 5.2–6.4 G multiply-adds/s against 9–9.7 for three or four
  * (our measurement; as if spilling every step).
  */
-function rhsGroups(g: number): number[] {
-  return g <= 4 ? [g] : [3, g - 3];
+const RHS_GROUPS: readonly (readonly number[])[] = [[], [1], [2], [3], [4], [3, 2], [3, 3]];
+function rhsGroups(g: number): readonly number[] {
+  return RHS_GROUPS[g];
 }
 
 /**

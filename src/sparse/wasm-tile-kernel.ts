@@ -7,7 +7,8 @@
  * Every product is of a 4-row panel of A and a 4-column panel of W, both entering 4 doubles
  * per step t; the 16 sums are C(ii, jj) = Σ_{t<kb} A(ii, t) · W(jj, t). Per step: two 2-wide
  * loads of A, four broadcasts of W, eight 2-wide multiplies and adds into eight accumulators
- * (column jj rows 0–1 and rows 2–3) — 11 vector registers, so nothing spills.
+ * (column jj rows 0–1 and rows 2–3): 12 live vector values with each product's temporary,
+ * within what runs without spilling (DEVELOPERS.md, SIMD).
  *
  *   tiles(pa, pw, kb, out, count)   A packed: the panel's step t at pa + 32t; `count` panels in
  *                                   a row (each 32·kb bytes on); sums column-major at out + 128·i
@@ -26,7 +27,6 @@ import { addTo, compileOnce, countdown, leb, name, op, section } from './wasm-by
 
 /** The few WebAssembly names used here (the project's lib settings do not include them). */
 declare const WebAssembly: {
-  Module: new (bytes: Uint8Array) => object;
   Instance: new (module: object, imports: Record<string, Record<string, unknown>>) => { exports: Record<string, unknown> };
   Memory: new (descriptor: { initial: number; maximum: number; shared: boolean }) => { buffer: ArrayBuffer | SharedArrayBuffer };
 };
