@@ -43,9 +43,15 @@ export function refineSeparator(
   const weightInA = new Float64Array(n); // w(N_A(v)) for v in S
   const weightInB = new Float64Array(n); // w(N_B(v)) for v in S
   const locked = new Uint8Array(n);
+  // Move log of one pass. Every move locks its vertex, so a pass makes at most n moves; a move of
+  // v pulls at most deg(v) vertices into S, and as the moved vertices are distinct the pulls of a
+  // pass number at most Σ deg = adj.length. A vertex can be pulled more than once in a pass (it
+  // may be moved out of S again, and even a locked vertex is pulled when a neighbour moves to the
+  // other side), so the side a vertex was moved to is logged, never re-read at rollback.
   const movedVertex = new Int32Array(n);
+  const movedTo = new Uint8Array(n);
   const pulledPtr = new Int32Array(n + 1);
-  const pulled = new Int32Array(n);
+  const pulled = new Int32Array(Math.max(1, adj.length));
 
   /** Recomputes v's neighbour weights and its two gains. */
   const enqueue = (v: number): void => {
@@ -107,7 +113,9 @@ export function refineSeparator(
       toA.remove(v);
       toB.remove(v);
       locked[v] = 1;
+      if (moves >= n) throw new Error('separator refinement: more moves than vertices in one pass');
       movedVertex[moves] = v;
+      movedTo[moves] = t;
       pulledPtr[moves + 1] = pulledPtr[moves];
       where[v] = t;
       weight[t] += vw[v];
@@ -121,6 +129,7 @@ export function refineSeparator(
         where[u] = PART_S;
         weight[other] -= vw[u];
         weight[PART_S] += vw[u];
+        if (pulledPtr[moves + 1] >= pulled.length) throw new Error('separator refinement: pull log overflow');
         pulled[pulledPtr[moves + 1]++] = u;
         if (other === PART_A) shiftA(u, -vw[u]);
         else shiftB(u, -vw[u]);
@@ -134,10 +143,11 @@ export function refineSeparator(
         bestMoves = moves;
       }
     }
-    // undo the moves after the best state, newest first
+    // undo the moves after the best state, newest first: each undo restores exactly the labels
+    // its move changed (v from S to t, its pulled neighbours from 1 − t to S)
     for (let m = moves - 1; m >= bestMoves; m--) {
       const v = movedVertex[m];
-      const t = where[v];
+      const t = movedTo[m];
       for (let q = pulledPtr[m]; q < pulledPtr[m + 1]; q++) {
         const u = pulled[q];
         where[u] = 1 - t;
