@@ -5,7 +5,7 @@
  * mode counts of fixtures/demo/scenario.json: the mast with anchor 902 left unfastened has
  * one near-zero (mechanism) mode more than the fastened guyed mast; the free-free mast has 6.
  */
-import { existsSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { readStiffnessAndMass } from '../../src/io/matrix-market-reader.js';
@@ -14,8 +14,6 @@ import { solveModes } from '../../src/eigen/solve-modes.js';
 const demo = path.resolve(import.meta.dirname, '../../fixtures/demo');
 const refFile = path.join(demo, 'reference-frequencies.json');
 const scenarioFile = path.join(demo, 'scenario.json');
-const present = existsSync(refFile) && existsSync(scenarioFile);
-if (!present) console.warn('skipping the demo-model eigen checks: fixtures/demo reference files are absent');
 
 interface DemoRef {
   eigenvalues: number[];
@@ -27,8 +25,8 @@ interface ScenarioModel {
   nearZeroModes: number;
 }
 
-const refs: Record<string, DemoRef> = present ? JSON.parse(readFileSync(refFile, 'utf8')).models : {};
-const scenario: Record<string, ScenarioModel> = present ? JSON.parse(readFileSync(scenarioFile, 'utf8')).models : {};
+const refs: Record<string, DemoRef> = JSON.parse(readFileSync(refFile, 'utf8')).models;
+const scenario: Record<string, ScenarioModel> = JSON.parse(readFileSync(scenarioFile, 'utf8')).models;
 
 async function solveDemo(name: string, count: number) {
   const m = scenario[name];
@@ -42,7 +40,7 @@ function nearZero(values: Float64Array): number {
   return Array.from(values).filter((v) => Math.abs(v) < 1e-6 * top).length;
 }
 
-describe.skipIf(!present)('demo models vs SciPy dense eigh (fixtures/demo/reference-frequencies.json)', () => {
+describe('demo models vs SciPy dense eigh (fixtures/demo/reference-frequencies.json)', () => {
   for (const name of ['mast', 'mast-free', 'mast-guyed', 'mast-guyed-loose-anchor', 'bracket']) {
     it(`${name}: lowest 12 eigenvalues within 1e-9, near-zero count per scenario.json, verified`, async () => {
       const r = await solveDemo(name, 12);

@@ -1,36 +1,22 @@
 /**
  * The lowest 20 eigenvalues of the Harwell–Boeing BCSSTRUC structural pairs (NIST Matrix
  * Market; BCSSTK/BCSSTM 01, 08, 11, 26) against the reference values in
- * ../shared/reference/structural/reference-eigenvalues.json, computed there with SciPy's ARPACK
- * `eigsh` in shift-invert mode and cross-checked with dense LAPACK (see that folder's README).
+ * test/reference/structural/reference-eigenvalues.json.gz, computed with SciPy's ARPACK `eigsh` in
+ * shift-invert mode and cross-checked with dense LAPACK (see test/reference/README.md).
  * BCSSTM01 is singular (24 massless DOFs, 24 finite eigenvalues); BCSSTM26 is badly scaled.
  */
-import { existsSync, readFileSync } from 'node:fs';
-import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { readMatrixMarket } from '../../src/io/matrix-market-reader.js';
 import { solveModes } from '../../src/eigen/solve-modes.js';
+import { structuralFile, structuralPairs } from '../reference/reference-data.js';
 
-const repoRoot = path.resolve(import.meta.dirname, '../..');
-const dir = path.resolve(repoRoot, '../shared/reference/structural');
-const refFile = path.join(dir, 'reference-eigenvalues.json');
-const present = existsSync(refFile);
-if (!present) console.warn(`skipping the BCSSTRUC eigenvalue checks: ${refFile} is absent`);
+const pairs = structuralPairs();
 
-interface RefPair {
-  name: string;
-  K_file: string;
-  M_file: string;
-  eigenvalues: number[];
-}
-
-const pairs: RefPair[] = present ? (JSON.parse(readFileSync(refFile, 'utf8')) as { pairs: RefPair[] }).pairs : [];
-
-describe.skipIf(!present)('BCSSTRUC pairs vs SciPy ARPACK eigsh reference (../shared/reference/structural)', () => {
+describe('BCSSTRUC pairs vs SciPy ARPACK eigsh reference (test/reference/structural)', () => {
   for (const pair of pairs) {
     it(`${pair.name}: lowest 20 within 1e-9 relative, Sturm count, residuals, M-orthonormality`, async () => {
-      const stiffness = (await readMatrixMarket(path.join(dir, pair.K_file))).matrix;
-      const mass = (await readMatrixMarket(path.join(dir, pair.M_file))).matrix;
+      const stiffness = (await readMatrixMarket(structuralFile(pair.K_file))).matrix;
+      const mass = (await readMatrixMarket(structuralFile(pair.M_file))).matrix;
       const r = solveModes(stiffness, mass, { count: 20, method: 'lanczos' });
       expect(r.eigenvalues.length).toBe(20);
       // source: reference-eigenvalues.json (SciPy ARPACK eigsh, shift-invert)
@@ -47,8 +33,8 @@ describe.skipIf(!present)('BCSSTRUC pairs vs SciPy ARPACK eigsh reference (../sh
 
   it('BCSSTK01/M01 (singular M) with subspace iteration agrees with the reference', async () => {
     for (const pair of pairs.filter((p) => /01/.test(p.name))) {
-      const stiffness = (await readMatrixMarket(path.join(dir, pair.K_file))).matrix;
-      const mass = (await readMatrixMarket(path.join(dir, pair.M_file))).matrix;
+      const stiffness = (await readMatrixMarket(structuralFile(pair.K_file))).matrix;
+      const mass = (await readMatrixMarket(structuralFile(pair.M_file))).matrix;
       const r = solveModes(stiffness, mass, { count: 20, method: 'subspace' });
       // source: reference-eigenvalues.json (SciPy ARPACK eigsh, shift-invert)
       for (let i = 0; i < 20; i++) expect(Math.abs(r.eigenvalues[i] - pair.eigenvalues[i]) / pair.eigenvalues[i]).toBeLessThan(1e-9);
@@ -58,7 +44,7 @@ describe.skipIf(!present)('BCSSTRUC pairs vs SciPy ARPACK eigsh reference (../sh
 
   it('BCSSTK01/M01: asking for more modes than rank(M) returns the 24 finite ones and says so', async () => {
     const pair = pairs.find((p) => p.name.includes('01'))!;
-    const r = solveModes((await readMatrixMarket(path.join(dir, pair.K_file))).matrix, (await readMatrixMarket(path.join(dir, pair.M_file))).matrix, { count: 30 });
+    const r = solveModes((await readMatrixMarket(structuralFile(pair.K_file))).matrix, (await readMatrixMarket(structuralFile(pair.M_file))).matrix, { count: 30 });
     expect(r.eigenvalues.length).toBe(24);
     expect(r.warnings.join(' ')).toMatch(/rank/);
     expect(r.sturm.ok).toBe(true);

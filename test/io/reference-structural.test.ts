@@ -1,20 +1,17 @@
 /**
- * Reads every Harwell–Boeing BCSSTRUC matrix in ../shared/reference/structural (NIST Matrix
- * Market edition). Expected sizes and stored nonzero counts: the table in that directory's
- * README.md (computed there with scipy.io.mmread). Skipped with a message when absent.
+ * Reads every Harwell–Boeing BCSSTRUC matrix in test/reference/structural (NIST Matrix Market
+ * edition, gzipped). Expected sizes and stored nonzero counts: the table in test/reference/README.md
+ * (computed with scipy.io.mmread).
  */
 import { describe, expect, it } from 'vitest';
-import { existsSync, readdirSync } from 'node:fs';
-import { dirname, join, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { readdirSync } from 'node:fs';
+import { join } from 'node:path';
 import { readMatrixMarket, readStiffnessAndMass } from '../../src/io/matrix-market-reader.js';
+import { structuralDir } from '../reference/reference-data.js';
 
-const repoRoot = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
-const dir = join(resolve(repoRoot, '../shared'), 'reference/structural');
-const present = existsSync(dir);
-if (!present) console.warn(`skipping BCSSTRUC reader checks: ${dir} is absent`);
+const dir = structuralDir;
 
-// source: ../shared/reference/structural/README.md table (n, nnz stored, nnz full)
+// source: test/reference/README.md table (n, nnz stored, nnz full)
 const table: Record<string, [number, number, number]> = {
   bcsstk01: [48, 224, 400],
   bcsstm01: [48, 24, 24],
@@ -26,14 +23,14 @@ const table: Record<string, [number, number, number]> = {
   bcsstm26: [1922, 1922, 1922],
 };
 
-describe.skipIf(!present)('BCSSTRUC reference matrices', () => {
+describe('BCSSTRUC reference matrices', () => {
   it('every .mtx file in the directory is in the README table', () => {
-    const files = readdirSync(dir).filter((f) => f.endsWith('.mtx')).map((f) => f.replace(/\.mtx$/, ''));
+    const files = readdirSync(dir).filter((f) => f.endsWith('.mtx.gz')).map((f) => f.replace(/\.mtx\.gz$/, ''));
     expect(files.sort()).toEqual(Object.keys(table).sort());
   });
 
   it.each(Object.entries(table))('%s: size and nonzero counts match the README', async (name, [n, stored, full]) => {
-    const { matrix, summary } = await readMatrixMarket(join(dir, `${name}.mtx`));
+    const { matrix, summary } = await readMatrixMarket(join(dir, `${name}.mtx.gz`));
     expect(matrix.n).toBe(n);
     expect(summary.storedNonzeros).toBe(stored);
     expect(summary.entriesInFile).toBe(stored);
@@ -43,19 +40,19 @@ describe.skipIf(!present)('BCSSTRUC reference matrices', () => {
   });
 
   it('BCSSTM01 has 24 zero diagonal entries (README: singular mass, 24 of 48 zero)', async () => {
-    const { summary } = await readMatrixMarket(join(dir, 'bcsstm01.mtx'));
+    const { summary } = await readMatrixMarket(join(dir, 'bcsstm01.mtx.gz'));
     expect(summary.field).toBe('integer');
     expect(summary.zeroDiagonalCount).toBe(24);
   });
 
   it('BCSSTM08 diagonal range 0.175 .. 1.44e6 (README)', async () => {
-    const { summary } = await readMatrixMarket(join(dir, 'bcsstm08.mtx'));
+    const { summary } = await readMatrixMarket(join(dir, 'bcsstm08.mtx.gz'));
     expect(summary.diagonalMin).toBeCloseTo(0.175, 3);
     expect(summary.diagonalMax / 1.44e6).toBeCloseTo(1, 2);
   });
 
   it('K/M pairs have matching sizes', async () => {
-    const { stiffness, mass } = await readStiffnessAndMass(join(dir, 'bcsstk26.mtx'), join(dir, 'bcsstm26.mtx'));
+    const { stiffness, mass } = await readStiffnessAndMass(join(dir, 'bcsstk26.mtx.gz'), join(dir, 'bcsstm26.mtx.gz'));
     expect(stiffness.matrix.n).toBe(mass.matrix.n);
   });
 });

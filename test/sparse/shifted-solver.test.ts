@@ -1,5 +1,3 @@
-import { existsSync, readFileSync } from 'node:fs';
-import path from 'node:path';
 import { CholeskyDecomposition, EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { describe, expect, it, onTestFinished } from 'vitest';
 import { TripletList, assembleSymmetric } from '../../src/sparse/assemble.js';
@@ -10,11 +8,8 @@ import { useSimdSweepKernels } from '../../src/sparse/simd-sweep-kernels.js';
 import { denseOf, denseShifted, hexGridPair, seededRandom } from './fe-like-matrices.js';
 import { readMatrixMarket } from '../../src/io/matrix-market-reader.js';
 import { shiftedResidual } from './residual.js';
+import { structuralFile, structuralPairs } from '../reference/reference-data.js';
 
-const repoRoot = path.resolve(import.meta.dirname, '../..');
-const refDir = path.resolve(repoRoot, '../shared/reference/structural');
-const haveRef = existsSync(path.join(refDir, 'reference-eigenvalues.json'));
-if (!haveRef) console.warn(`skipping reference-matrix LDLᵀ tests: ${refDir} not found`);
 
 function randomVector(n: number, seed: number): Float64Array {
   const r = seededRandom(seed);
@@ -159,13 +154,12 @@ interface ReferencePair {
   [key: string]: unknown;
 }
 
-describe.skipIf(!haveRef)('reference structural matrices (Harwell-Boeing BCSSTRUC, ../shared/reference)', () => {
-  const json = haveRef ? JSON.parse(readFileSync(path.join(refDir, 'reference-eigenvalues.json'), 'utf8')) : { pairs: [] };
-  const pairs = json.pairs as ReferencePair[];
+describe('reference structural matrices (Harwell-Boeing BCSSTRUC, test/reference/structural)', () => {
+  const pairs = structuralPairs() as ReferencePair[];
 
   it.each(pairs.map((p) => [p.name, p] as const))('%s: residual ≤ 1e-12 and inertia matches reference eigenvalue counts', async (_name, p) => {
-    const stiffness = (await readMatrixMarket(path.join(refDir, p.K_file))).matrix;
-    const mass = (await readMatrixMarket(path.join(refDir, p.M_file))).matrix;
+    const stiffness = (await readMatrixMarket(structuralFile(p.K_file))).matrix;
+    const mass = (await readMatrixMarket(structuralFile(p.M_file))).matrix;
     const solver = createShiftedSolver(stiffness, mass);
     // residual of K x = b (σ = 0)
     const f0 = solver.factor(0);
