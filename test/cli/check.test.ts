@@ -24,10 +24,10 @@ beforeAll(() => {
 });
 afterAll(() => rmSync(work, { recursive: true, force: true }));
 
-function junitOf(path: string): string {
+async function junitOf(path: string): Promise<string> {
   const xml = readFileSync(path, 'utf8');
   expect(structuralProblems(xml)).toEqual([]);
-  const lint = xmllintValidate(xml); // junit-10.xsd (jenkinsci/xunit-plugin, MIT)
+  const lint = await xmllintValidate(xml); // junit-10.xsd (jenkinsci/xunit-plugin, MIT)
   expect(lint.ok, lint.output).toBe(true);
   return xml;
 }
@@ -37,7 +37,7 @@ describe('modalgate check', () => {
     const r = await runCli(['check'], join(work, 'good'));
     expect(r.code, r.stderr).toBe(1);
     expect(r.stdout).toMatch(/tiny-free\s+rigid-body-modes\s+FAIL\s+0 modes below 0.005 Hz, expected 6/);
-    const xml = junitOf(join(work, 'good/out/junit.xml'));
+    const xml = await junitOf(join(work, 'good/out/junit.xml'));
     expect(xml).toMatch(/<testsuites name="modalgate" tests="24" failures="1" errors="0"/);
     const json = JSON.parse(readFileSync(join(work, 'good/out/report.json'), 'utf8'));
     expect(json.verdict).toBe('fail');
@@ -49,7 +49,7 @@ describe('modalgate check', () => {
     const r = await runCli(['check', '--config', 'good/modalgate.yaml', '--model', 'tiny', '--junit', 'cli/j.xml', '--quiet'], work);
     expect(r.code, r.stderr).toBe(0);
     expect(r.stdout.trim()).toBe('modalgate: PASS — 1 model(s) checked, every error-severity rule passed.');
-    expect(junitOf(join(work, 'cli/j.xml'))).toContain('tests="10" failures="0" errors="0"');
+    expect(await junitOf(join(work, 'cli/j.xml'))).toContain('tests="10" failures="0" errors="0"');
   });
   it('exits 2 on an unknown --model name', async () => {
     const r = await runCli(['check', '--config', 'good/modalgate.yaml', '--model', 'nope'], work);
@@ -66,7 +66,7 @@ describe('modalgate check', () => {
     expect(r.code).toBe(2);
     expect(r.stdout).toMatch(/✔ pass\s+ok/);
     expect(r.stdout).toMatch(/broken\s+model-input\s+error\s+.*broken\.mass\.mtx:4/);
-    const xml = junitOf(join(work, 'broken/j.xml'));
+    const xml = await junitOf(join(work, 'broken/j.xml'));
     expect(xml).toContain('<testcase name="model-input" classname="modalgate.broken"');
     expect(xml).toContain('type="input-error"');
   });
@@ -76,7 +76,7 @@ describe('modalgate check', () => {
     expect(r.code).toBe(2);
     expect(r.stderr.trim().split('\n')).toHaveLength(1);
     expect(r.stderr).toContain(join(work, 'good/typo.yaml'));
-    const xml = junitOf(join(work, 'good/typo/junit.xml'));
+    const xml = await junitOf(join(work, 'good/typo/junit.xml'));
     expect(xml).toContain('did you mean &quot;eigen-residual&quot;?');
   });
   it('the bad-config corpus exits 2 with one error line naming the config file, and a JUnit <error>', async () => {

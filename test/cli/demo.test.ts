@@ -31,10 +31,10 @@ describe('modalgate demo', () => {
     for (const m of ['mast', 'mast-free', 'mast-guyed', 'mast-thin-brace', 'bracket']) expect(run.stdout).toMatch(new RegExp(`✔ pass\\s+${m}\\s`));
   });
 
-  it('writes ./modalgate-report/junit.xml with the expected counts, valid against junit-10.xsd', () => {
+  it('writes ./modalgate-report/junit.xml with the expected counts, valid against junit-10.xsd', async () => {
     const xml = readFileSync(join(cwd, 'modalgate-report/junit.xml'), 'utf8');
     expect(structuralProblems(xml)).toEqual([]);
-    const lint = xmllintValidate(xml);
+    const lint = await xmllintValidate(xml);
     expect(lint.ok, lint.output).toBe(true);
     const doc = new XMLParser({ ignoreAttributes: false, attributeNamePrefix: '', isArray: (n) => ['testsuite', 'testcase'].includes(n) }).parse(xml);
     const suites = doc.testsuites.testsuite as { name: string; failures: string; errors: string; testcase: { name: string; failure?: { type: string; message: string } }[] }[];

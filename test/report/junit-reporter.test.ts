@@ -55,21 +55,24 @@ describe('JUnit reporter', () => {
     expect(structuralProblems(xml)).toEqual([]);
     expect(structuralProblems(xml.replace('<testsuites ', '<testsuites skipped="1" '))).toContain('testsuites@skipped is not allowed');
   });
-  it('validates against junit-10.xsd with xmllint', () => {
-    const r = xmllintValidate(xml);
+  it('validates against junit-10.xsd with xmllint', async () => {
+    const r = await xmllintValidate(xml);
     expect(r.output).toContain('validates');
     expect(r.ok).toBe(true);
+    // the validator is live: an element the schema does not have is refused
+    expect((await xmllintValidate(xml.replace('<testsuites ', '<testsuites><bogus/></testsuites><testsuites '))).ok).toBe(false);
+    expect((await xmllintValidate('<testsuites><bogus/></testsuites>')).ok).toBe(false);
   });
 });
 
 describe('JUnit reporter for a run that could not start', () => {
-  it('writes a config testcase with <error>', () => {
+  it('writes a config testcase with <error>', async () => {
     const report = { ...sampleReport(), models: [], problem: { kind: 'input' as const, message: '/x/modalgate.yaml: models[0].count: must be a whole number', file: '/x/modalgate.yaml', where: 'models[0].count' } };
     const out = formatJunit(report);
     expect(structuralProblems(out)).toEqual([]);
     expect(out).toContain('<testcase name="config" classname="modalgate.config"');
     expect(out).toContain('models[0].count: must be a whole number');
-    const r = xmllintValidate(out);
+    const r = await xmllintValidate(out);
     expect(r.ok, r.output).toBe(true);
   });
 });

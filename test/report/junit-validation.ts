@@ -1,41 +1,25 @@
 /**
  * Validation of JUnit XML against the lenient JUnit schema junit-10.xsd (source: repository
  * jenkinsci/xunit-plugin, MIT; committed in test/reference/junit, see test/reference/README.md):
- * with xmllint (Debian libxml2-utils, installed by .ci/run) when it is present, and always with a structural check written from that XSD (allowed elements and
- * attributes, required attributes, the SUREFIRE_TIME decimal pattern) plus the emission profile
- * of CRITERIA.md §5 (properties first, timestamp without zone).
+ * with libxml2's xmllint (as WebAssembly, npm xmllint-wasm), and with a structural check written
+ * from that XSD (allowed elements and attributes, required attributes, the SUREFIRE_TIME decimal
+ * pattern) plus our emission profile (properties first, timestamp without zone; docs/sources.md).
  */
-import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { XMLParser } from 'fast-xml-parser';
+import { validateXML } from 'xmllint-wasm';
 
 export const repoRoot = resolve(import.meta.dirname, '../..');
 export const junitXsd = join(repoRoot, 'test', 'reference', 'junit', 'junit-10.xsd');
 
-export function hasXmllint(): boolean {
-  try {
-    execFileSync('xmllint', ['--version'], { stdio: 'ignore' });
-    return true;
-  } catch {
-    return false;
-  }
-}
-
-/** xmllint --schema junit-10.xsd. xmllint is required (Debian libxml2-utils; .ci/run installs it). */
-export function xmllintValidate(xml: string): { ok: boolean; output: string } {
-  if (!existsSync(junitXsd)) throw new Error(`${junitXsd} is missing`);
-  if (!hasXmllint()) throw new Error('xmllint is not installed: apt-get install libxml2-utils (Debian), as .ci/run does');
-  const dir = mkdtempSync(join(tmpdir(), 'modalgate-junit-'));
-  try {
-    const file = join(dir, 'junit.xml');
-    writeFileSync(file, xml);
-    const r = spawnSync('xmllint', ['--noout', '--schema', junitXsd, file], { encoding: 'utf8' });
-    return { ok: r.status === 0, output: `${r.stdout}${r.stderr}` };
-  } finally {
-    rmSync(dir, { recursive: true, force: true });
-  }
+/**
+ * `xmllint --schema junit-10.xsd`, run by libxml2's own xmllint compiled to WebAssembly (npm
+ * package xmllint-wasm, a devDependency), so the check runs the same on every machine.
+ */
+export async function xmllintValidate(xml: string): Promise<{ ok: boolean; output: string }> {
+  const r = await validateXML({ xml: [{ fileName: 'junit.xml', contents: xml }], schema: [{ fileName: 'junit-10.xsd', contents: readFileSync(junitXsd, 'utf8') }] });
+  return { ok: r.valid, output: r.rawOutput };
 }
 
 // junit-10.xsd: simpleType SUREFIRE_TIME
