@@ -1,17 +1,10 @@
 /**
  * Dense kernels at the sizes the eigen solvers hand them: projected eigenproblems of order
- * 100 … 1000 (symmetricEigen, values only and with vectors; symmetricEigenRange with 20 vectors;
- * generalizedSymmetricEigen), block-tridiagonal Lanczos matrices of order 500 … 2000 with
- * block size 8 (bandedEigen, all values and 20 vectors), and the
- * thin-block products for a 120k-row block of 40 columns (transposeTimes, gram, timesSmall).
+ * 100 … 1000 (symmetricEigen, values only and with vectors) and the thin-block products for a 120k-row block of 40 columns (transposeTimes, gram, timesSmall).
  * Prints wall-clock times (best of a few runs) and the achieved Gflop/s for the block products.
  */
-import { generalizedSymmetricEigen } from '../../src/dense/generalized-eigen.js';
 import { symmetricEigen, symmetricEigenvalues } from '../../src/dense/symmetric-eigen.js';
 import { gram, timesSmall, transposeTimes } from '../../src/dense/block-ops.js';
-import { bandedEigen } from '../../src/dense/banded-eigen.js';
-import { symmetricEigenRange } from '../../src/dense/selected-eigen.js';
-import { bandFromDense } from '../../src/dense/symmetric-band.js';
 
 function random(seed: number): () => number {
   let s = seed >>> 0;
@@ -21,12 +14,11 @@ function random(seed: number): () => number {
   };
 }
 
-function symmetric(n: number, seed: number, diagShift = 0): Float64Array {
+function symmetric(n: number, seed: number): Float64Array {
   const r = random(seed);
   const a = new Float64Array(n * n);
   for (let j = 0; j < n; j++) {
     for (let i = j; i < n; i++) a[j * n + i] = a[i * n + j] = r();
-    a[j * n + j] += diagShift;
   }
   return a;
 }
@@ -48,23 +40,7 @@ export default async function denseBench(): Promise<void> {
     const runs = n <= 200 ? 3 : 1;
     const values = best(runs, () => symmetricEigenvalues(a, n));
     const full = best(runs, () => symmetricEigen(a, n));
-    const range = best(runs, () => symmetricEigenRange(a, n, n - 20, 20));
-    const m = symmetric(n, n + 1, n); // diagonally dominant: SPD
-    const gen = best(runs, () => generalizedSymmetricEigen(a, m, n, { method: 'cholesky' }));
-    console.log(
-      `n = ${n}: eigenvalues ${values.toFixed(0)} ms, with all vectors ${full.toFixed(0)} ms, ` +
-        `with 20 vectors ${range.toFixed(0)} ms, generalized (Cholesky) ${gen.toFixed(0)} ms`,
-    );
-  }
-  const bandSizes = (process.env.DENSE_BENCH_BAND_SIZES ?? '500,1000,2000').split(',').map(Number);
-  for (const n of bandSizes) {
-    const b = 8;
-    const a = symmetric(n, 7 * n);
-    // keep only the band |i − j| ≤ b
-    for (let j = 0; j < n; j++) for (let i = 0; i < n; i++) if (Math.abs(i - j) > b) a[j * n + i] = 0;
-    const band = bandFromDense(a, n, b);
-    const t = best(1, () => bandedEigen(band, n - 20, 20));
-    console.log(`band n = ${n}, b = ${b}: all values + 20 vectors ${t.toFixed(0)} ms`);
+    console.log(`n = ${n}: eigenvalues ${values.toFixed(0)} ms, with all vectors ${full.toFixed(0)} ms`);
   }
   const rows = 120_000;
   const p = 40;

@@ -8,7 +8,6 @@ import {
   solveLowerTransposed,
   solveRightLowerTransposed,
 } from '../../src/dense/cholesky.js';
-import { choleskyOrthonormalize } from '../../src/dense/cholesky-qr.js';
 import { svqbOrthonormalize } from '../../src/dense/svqb.js';
 import { maxAbs, multiply, orthogonalityError, randomBlock, toMatrix, transposed } from './helpers.js';
 
@@ -69,35 +68,6 @@ describe('cholesky', () => {
   });
 });
 
-describe('choleskyOrthonormalize', () => {
-  it('makes a block B-orthonormal (twice for full accuracy)', () => {
-    // Reference: definition XᵀBX = I, checked by explicit products.
-    const rows = 60;
-    const k = 7;
-    const b = randomSpd(rows, 8);
-    const x = randomBlock(rows, k, 9);
-    for (let pass = 0; pass < 2; pass++) {
-      const bx = multiply(b, x, rows, rows, k);
-      expect(choleskyOrthonormalize(x, bx, rows, k).ok).toBe(true);
-    }
-    expect(orthogonalityError(x, rows, k, b)).toBeLessThan(1e-13 * rows);
-    const plain = randomBlock(rows, k, 10);
-    choleskyOrthonormalize(plain, null, rows, k);
-    choleskyOrthonormalize(plain, null, rows, k);
-    expect(orthogonalityError(plain, rows, k)).toBeLessThan(1e-13 * rows);
-  });
-
-  it('reports a dependent column and leaves the block unchanged', () => {
-    const rows = 20;
-    const x = randomBlock(rows, 3, 11);
-    for (let i = 0; i < rows; i++) x[2 * rows + i] = 2 * x[i];
-    const copy = Float64Array.from(x);
-    const r = choleskyOrthonormalize(x, null, rows, 3);
-    expect(r.ok).toBe(false);
-    if (!r.ok) expect(r.failedColumn).toBe(2);
-    expect(Array.from(x)).toEqual(Array.from(copy));
-  });
-});
 
 describe('svqbOrthonormalize', () => {
   it('keeps the rank of a block with a dependent column and a B-null column', () => {
