@@ -5,14 +5,14 @@
  * (with an <error>) whenever its path is known from the options or the config.
  */
 import { existsSync, statSync } from 'node:fs';
-import { resolve } from 'node:path';
+import { dirname, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { findConfig, loadConfig, checkWritableTarget, readStructuredFile } from '../io/config-loader.js';
 import type { LoadedConfig, ModelJob } from '../io/config-types.js';
 import { InputError } from '../io/errors.js';
-import { writeFileAtomic } from '../io/atomic-write.js';
+import { removeTempFiles, writeFileAtomic } from '../io/atomic-write.js';
 import { packageVersion } from '../io/package-root.js';
-import { analyzeModel, currentHostname, problemOf } from '../model/analyze-model.js';
+import { currentHostname, problemOf } from '../model/analyze-model.js';
 import { CAUTION, junitTimestamp, runVerdict, type CheckReport, type ModelReport, type ProblemReport } from '../report/report-types.js';
 import { formatJunit } from '../report/junit-reporter.js';
 import { formatJson } from '../report/json-reporter.js';
@@ -20,6 +20,10 @@ import { formatConsole } from '../report/console-reporter.js';
 import { formatMarkdown } from '../report/markdown.js';
 import { formatHtml } from '../report/html-reporter.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, runAction } from './run-action.js';
+import { ModelRunner, type RunningModel } from './model-runner.js';
+
+/** Exit codes after SIGINT and SIGTERM (128 + the signal's number, the shells' convention). */
+export const EXIT_INTERRUPTED: Record<'SIGINT' | 'SIGTERM', number> = { SIGINT: 130, SIGTERM: 143 };
 
 export interface CheckOptions {
   config?: string;
@@ -43,6 +47,10 @@ export interface CheckOptions {
   print?: (text: string) => void;
   /** Where the one-line error goes when the check cannot run (default: stderr). */
   printError?: (line: string) => void;
+  /** Wall-clock limit per model, seconds (--time-limit); a model over it becomes a JUnit <error>. */
+  timeLimit?: number;
+  /** Answer SIGINT/SIGTERM: stop the model, write the reports with an <error>, exit 130/143. */
+  handleSignals?: boolean;
 }
 
 export interface CheckOutcome {
@@ -65,7 +73,14 @@ export function registerCheck(program: Command): void {
     .option('--html <file>', 'write an HTML report with plots here (overrides reports.html of the config)')
     .option('--markdown-all', 'Markdown: list every mode of the baseline comparison, not only the flagged ones')
     .option('-q, --quiet', 'print only failures, errors and the verdict')
-    .action(runAction(async (opts: CheckOptions) => (await runCheck(opts)).code));
+    .option('--time-limit <seconds>', 'stop a model that runs longer than this (it becomes an <error>; the other models go on)', parseSeconds)
+    .action(runAction(async (opts: CheckOptions) => (await runCheck({ ...opts, handleSignals: true })).code));
+}
+
+function parseSeconds(value: string): number {
+  const v = Number(value);
+  if (!Number.isFinite(v) || v <= 0) throw new InputError('--time-limit', `"${value}" is not a positive number of seconds`);
+  return v;
 }
 
 export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
@@ -78,19 +93,28 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   let config: LoadedConfig | undefined;
   let problem: ProblemReport | undefined;
   const models: ModelReport[] = [];
+  const signals = opts.handleSignals ? watchSignals() : undefined;
+  let runner: ModelRunner | undefined;
   try {
     for (const p of [cliPaths.junit, cliPaths.json, cliPaths.markdown, cliPaths.html]) if (p) checkWritableTarget(p, p);
     checkBaselineDirs(baselineDirs);
     configPath = findConfig(opts.config, cwd);
     config = loadConfig(configPath, baselineDirs);
+    runner = new ModelRunner(configPath, baselineDirs);
     for (const job of selectModels(config, opts.model)) {
+      if (signals?.received) break;
       const onProgress = progressPrinter(job.name);
-      models.push(await analyzeModel(job, { onProgress }));
+      const running = runner.run(job, { timeLimitMs: opts.timeLimit !== undefined ? opts.timeLimit * 1000 : undefined, onProgress });
+      if (signals) signals.current = running;
+      models.push(await running.report);
+      if (signals) signals.current = undefined;
       if (onProgress) process.stderr.write('\r\x1b[K');
     }
   } catch (e) {
     problem = problemOf(e);
   }
+  await runner?.close();
+  if (signals?.received) problem = interruptedProblem(signals.received, models.length, config?.models.length);
   const report: CheckReport = {
     tool: { name: 'modalgate', version: packageVersion() },
     configPath,
@@ -108,15 +132,65 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
     markdown: cliPaths.markdown,
     html: cliPaths.html ?? config?.reports.html,
   };
+  // temporary files of a stopped worker (it may have been writing a baseline), and of runs killed outright
+  removeTempFiles(outputDirs(targets, baselineDirs), process.pid);
   const print = opts.print ?? ((t: string) => process.stdout.write(t));
   print(formatConsole(report, { quiet: opts.quiet }));
-  const written = writeReports(report, targets, opts.markdownAll);
+  let { written, failures } = writeReports(report, targets, opts.markdownAll);
+  if (signals?.received && !report.problem) {
+    // the signal came while the reports were written: write them again, saying so
+    report.problem = problem = interruptedProblem(signals.received, models.length, models.length);
+    report.verdict = 'error';
+    ({ written, failures } = writeReports(report, targets, opts.markdownAll));
+  }
+  signals?.dispose();
   const labels: Record<string, string> = { junit: 'JUnit XML', json: 'JSON report', markdown: 'Markdown summary', html: 'HTML report' };
   for (const [kind, p] of Object.entries(written)) if (!opts.quiet) print(`${labels[kind]}: ${p}\n`);
   for (const m of models) if (m.baselineSaved && !opts.quiet) print(`baseline of ${m.name} saved: ${m.baselineSaved.json}\n`);
-  if (problem) (opts.printError ?? ((l: string) => process.stderr.write(l)))(`modalgate: ${problem.message}\n`);
-  const code = report.verdict === 'pass' ? EXIT_PASS : report.verdict === 'fail' ? EXIT_RULE_FAILED : EXIT_BAD_INPUT;
+  const printError = opts.printError ?? ((l: string) => process.stderr.write(l));
+  if (problem) printError(`modalgate: ${problem.message}\n`);
+  else if (failures.length > 0) printError(`modalgate: ${failures.map((f) => f.message).join('; ')}\n`);
+  let code = report.verdict === 'pass' ? EXIT_PASS : report.verdict === 'fail' ? EXIT_RULE_FAILED : EXIT_BAD_INPUT;
+  if (failures.length > 0) code = EXIT_BAD_INPUT;
+  if (signals?.received) code = EXIT_INTERRUPTED[signals.received];
   return { code, report, written };
+}
+
+function interruptedProblem(signal: 'SIGINT' | 'SIGTERM', finished: number, total: number | undefined): ProblemReport {
+  const of = total !== undefined ? ` of ${total}` : '';
+  return { kind: 'interrupted', message: `interrupted by ${signal}: ${finished}${of} model(s) finished; the reports hold those and this error` };
+}
+
+interface SignalWatch {
+  received?: 'SIGINT' | 'SIGTERM';
+  current?: RunningModel;
+  dispose(): void;
+}
+
+/** SIGINT/SIGTERM stop the running model at once; a second signal ends the process. */
+function watchSignals(): SignalWatch {
+  const watch: SignalWatch = { dispose: () => {} };
+  const on = (signal: 'SIGINT' | 'SIGTERM') => (): void => {
+    if (watch.received) process.exit(EXIT_INTERRUPTED[signal]);
+    watch.received = signal;
+    watch.current?.stop({ kind: 'interrupted', message: `stopped by ${signal} while it was being checked` });
+  };
+  const onInt = on('SIGINT');
+  const onTerm = on('SIGTERM');
+  process.on('SIGINT', onInt);
+  process.on('SIGTERM', onTerm);
+  watch.dispose = () => {
+    process.off('SIGINT', onInt);
+    process.off('SIGTERM', onTerm);
+  };
+  return watch;
+}
+
+/** Every directory a run writes into (reports, baselines), for removing a stopped run's temporary files. */
+function outputDirs(targets: CheckOutcome['written'], baselineDirs: { saveBaselineDir?: string }): string[] {
+  const dirs = Object.values(targets).filter((p): p is string => typeof p === 'string').map((p) => dirname(p));
+  if (baselineDirs.saveBaselineDir) dirs.push(baselineDirs.saveBaselineDir);
+  return [...new Set(dirs)];
 }
 
 function selectModels(config: LoadedConfig, names: string[] | undefined): ModelJob[] {
@@ -143,25 +217,48 @@ function bestEffortReportPath(configPath: string | undefined, kind: 'junit' | 'j
   }
 }
 
-function writeReports(report: CheckReport, targets: CheckOutcome['written'], markdownAll = false): CheckOutcome['written'] {
+/**
+ * Writes every report it can. A report that cannot be written (a full disk, a read-only folder)
+ * is named with its cause; the others still stand, and the run exits 2.
+ */
+function writeReports(report: CheckReport, targets: CheckOutcome['written'], markdownAll = false): { written: CheckOutcome['written']; failures: ProblemReport[] } {
   const written: CheckOutcome['written'] = {};
-  if (targets.junit) {
-    writeFileAtomic(targets.junit, formatJunit(report));
-    written.junit = targets.junit;
+  const failures: ProblemReport[] = [];
+  const formats: Record<keyof CheckOutcome['written'], () => string> = {
+    junit: () => formatJunit(report),
+    json: () => formatJson(report),
+    markdown: () => formatMarkdown(report, { allModes: markdownAll }),
+    html: () => formatHtml(report),
+  };
+  for (const kind of ['junit', 'json', 'markdown', 'html'] as const) {
+    const path = targets[kind];
+    if (!path) continue;
+    try {
+      writeFileAtomic(path, formats[kind]());
+      written[kind] = path;
+    } catch (e) {
+      failures.push({ kind: 'write', file: path, message: writeFailureMessage(path, e) });
+    }
   }
-  if (targets.json) {
-    writeFileAtomic(targets.json, formatJson(report));
-    written.json = targets.json;
-  }
-  if (targets.markdown) {
-    writeFileAtomic(targets.markdown, formatMarkdown(report, { allModes: markdownAll }));
-    written.markdown = targets.markdown;
-  }
-  if (targets.html) {
-    writeFileAtomic(targets.html, formatHtml(report));
-    written.html = targets.html;
-  }
-  return written;
+  return { written, failures };
+}
+
+/** "cannot write /x/junit.xml: ENOSPC (no space left on device)" */
+export function writeFailureMessage(path: string, e: unknown): string {
+  const code = (e as NodeJS.ErrnoException).code;
+  const causes: Record<string, string> = {
+    ENOSPC: 'no space left on device',
+    EROFS: 'read-only file system',
+    EACCES: 'permission denied',
+    EPERM: 'operation not permitted',
+    EDQUOT: 'disk quota exceeded',
+    ENOENT: 'a folder on the path does not exist',
+    ENOTDIR: 'a part of the path is a file, not a folder',
+    EISDIR: 'the path is a folder',
+    EIO: 'input/output error',
+  };
+  const cause = code ? `${code} (${causes[code] ?? (e as Error).message})` : (e as Error).message;
+  return `cannot write ${path}: ${cause}`;
 }
 
 /** --baseline must name an existing directory; --save-baseline must not name a file. */

@@ -1,4 +1,4 @@
-import { mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readdirSync, renameSync, rmSync, writeFileSync, type Dirent } from 'node:fs';
 import { dirname, join, basename } from 'node:path';
 
 /**
@@ -15,5 +15,41 @@ export function writeFileAtomic(path: string, data: string | Uint8Array): void {
   } catch (e) {
     rmSync(tmp, { force: true });
     throw e;
+  }
+}
+
+/** The temporary sibling's name pattern of writeFileAtomic / writeChunksAtomic: `.<name>.<pid>.<ms>.tmp`. */
+const TEMP_NAME = /^\..+\.(\d+)\.\d+\.tmp$/;
+
+/**
+ * Removes the temporary files this process (`pid`) left in `dirs` (and one level of
+ * subfolders) when a write was cut short, and those of processes that no longer run (a run
+ * killed outright leaves its temporary files for the next run to clear).
+ */
+export function removeTempFiles(dirs: string[], pid: number): void {
+  const visit = (dir: string, depth: number): void => {
+    let entries: Dirent[];
+    try {
+      entries = readdirSync(dir, { withFileTypes: true });
+    } catch {
+      return;
+    }
+    for (const e of entries) {
+      if (e.isDirectory() && depth > 0) visit(join(dir, e.name), depth - 1);
+      const m = TEMP_NAME.exec(e.name);
+      if (!m || !e.isFile()) continue;
+      const owner = Number(m[1]);
+      if (owner === pid || !processRuns(owner)) rmSync(join(dir, e.name), { force: true });
+    }
+  };
+  for (const d of dirs) visit(d, 1);
+}
+
+function processRuns(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (e) {
+    return (e as NodeJS.ErrnoException).code === 'EPERM';
   }
 }

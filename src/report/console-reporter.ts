@@ -74,7 +74,7 @@ function firstElastic(m: ModelReport): number | null {
 
 function table(rows: { m: ModelReport; r: RuleResult }[], problems: ModelReport[], c: ChalkInstance): string[] {
   const cells = [
-    ...problems.map((m) => [m.name, 'model-input', 'error', m.problem!.message]),
+    ...problems.map((m) => [m.name, m.problem!.kind === 'input' ? 'model-input' : `model-${m.problem!.kind}`, 'error', m.problem!.message]),
     ...rows.map(({ m, r }) => [m.name, r.ruleId, r.severity === 'warning' ? 'warning' : r.status === 'error' ? 'error' : 'FAIL', r.message]),
   ];
   const w0 = Math.max(5, ...cells.map((x) => x[0].length));

@@ -52,7 +52,7 @@ export function formatJunit(report: CheckReport): string {
 function modelSuite(m: ModelReport, hostname: string): XmlNode {
   const classname = `modalgate.${m.name}`;
   const cases = m.rules.map((r) => ruleCase(r, classname));
-  if (m.problem) cases.unshift(problemCase('model-input', classname, m.problem));
+  if (m.problem) cases.unshift(problemCase(m.problem.kind === 'input' ? 'model-input' : `model-${m.problem.kind}`, classname, m.problem));
   const failures = cases.filter((c) => 'failure' in c).length;
   const errors = cases.filter((c) => 'error' in c).length;
   const skipped = cases.filter((c) => 'skipped' in c).length;
@@ -118,7 +118,7 @@ function show(v: number | string): string {
 function problemCase(name: string, classname: string, p: ProblemReport): XmlNode {
   const where = [p.file, p.line !== undefined ? `line ${p.line}` : undefined, p.where].filter(Boolean).join(', ');
   const text = where ? `${p.message}\nat: ${where}` : p.message;
-  return { '@_name': name, '@_classname': classname, '@_time': '0.000', error: { '@_message': xmlAttribute(p.message), '@_type': p.kind === 'input' ? 'input-error' : 'internal-error', '#text': xmlSafe(text) } };
+  return { '@_name': name, '@_classname': classname, '@_time': '0.000', error: { '@_message': xmlAttribute(p.message), '@_type': `${p.kind}-error`, '#text': xmlSafe(text) } };
 }
 
 function problemSuite(report: CheckReport, p: ProblemReport): XmlNode {
@@ -131,7 +131,7 @@ function problemSuite(report: CheckReport, p: ProblemReport): XmlNode {
     '@_time': junitSeconds(report.timeMs),
     '@_timestamp': report.timestamp,
     '@_hostname': xmlAttribute(report.hostname),
-    testcase: [problemCase('config', 'modalgate.config', p)],
+    testcase: [p.kind === 'interrupted' || p.kind === 'write' ? problemCase(p.kind === 'write' ? 'reports' : 'run', 'modalgate.run', p) : problemCase('config', 'modalgate.config', p)],
     'system-out': CAUTION,
   };
 }

@@ -12,8 +12,12 @@ export type Verdict = 'pass' | 'fail' | 'error';
 
 /** A defect that stopped a model (or the whole run) before its rules could run. */
 export interface ProblemReport {
-  /** 'input' for bad files/config (InputError), 'internal' for anything else. */
-  kind: 'input' | 'internal';
+  /**
+   * 'input' for bad files/config (InputError), 'limit' for a model stopped at a time or memory
+   * limit, 'interrupted' for a run ended by SIGINT/SIGTERM, 'write' for a report or baseline that
+   * could not be written, 'internal' for anything else.
+   */
+  kind: 'input' | 'limit' | 'interrupted' | 'write' | 'internal';
   message: string;
   file?: string;
   line?: number;

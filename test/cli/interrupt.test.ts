@@ -1,0 +1,139 @@
+/**
+ * End to end, on the built CLI: a run stopped by SIGINT or SIGTERM exits 130/143 with one line and
+ * still writes its JUnit file with an <error>; a run killed outright leaves its temporary files
+ * only until the next run; a model over --time-limit becomes an <error> and the others go on; a
+ * report that cannot be written is named with its cause while the others stand (exit 2).
+ * 130 = 128 + SIGINT (2) and 143 = 128 + SIGTERM (15): the shells' convention (common practice).
+ */
+import { spawn, spawnSync } from 'node:child_process';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { buildHexBox, STEEL, writeGeneratedModel } from '../../fixtures/generator/index.js';
+import { ensureBuilt, mainJs, runCli } from './built-cli.js';
+
+let work: string;
+
+/** Every `*.tmp` file under `dir` (any depth). */
+function tempFiles(dir: string): string[] {
+  if (!existsSync(dir)) return [];
+  return readdirSync(dir, { recursive: true, encoding: 'utf8' }).filter((f) => f.endsWith('.tmp'));
+}
+
+/** Starts `check` and sends `signal` after `afterMs`; resolves with the exit code and output. */
+function checkWithSignal(args: string[], signal: NodeJS.Signals, afterMs: number): Promise<{ code: number | null; signal: NodeJS.Signals | null; stderr: string }> {
+  return new Promise((done) => {
+    const child = spawn(process.execPath, [mainJs, 'check', ...args], { cwd: work, env: { ...process.env, NO_COLOR: '1', MODALGATE_DEBUG: '' } });
+    let stderr = '';
+    child.stderr.on('data', (d) => (stderr += String(d)));
+    const timer = setTimeout(() => child.kill(signal), afterMs);
+    child.on('exit', (code, sig) => {
+      clearTimeout(timer);
+      done({ code, signal: sig, stderr });
+    });
+  });
+}
+
+beforeAll(async () => {
+  ensureBuilt();
+  work = mkdtempSync(join(tmpdir(), 'modalgate-interrupt-'));
+  // a free-free steel block of about 8,600 DOFs: a few seconds per model on this machine class
+  const block = buildHexBox({ sizeM: [0.8, 0.6, 0.6], elements: [16, 12, 12], material: STEEL });
+  await writeGeneratedModel(block, work, 'block');
+  const model = (name: string): string => `  - name: ${name}\n    stiffness: block.stiffness.mtx\n    mass: block.mass.mtx\n    dofs: block.dofs.csv\n    ruleSets: [free-free]\n`;
+  writeFileSync(join(work, 'many.yaml'), `reports: { junit: out/junit.xml, json: out/report.json }\ndefaults: { count: 12 }\nmodels:\n${Array.from({ length: 8 }, (_, i) => model(`block-${i + 1}`)).join('')}`);
+  writeFileSync(join(work, 'two.yaml'), `defaults: { count: 12 }\nmodels:\n${model('first')}${model('second')}`);
+}, 120_000);
+
+afterAll(() => rmSync(work, { recursive: true, force: true }));
+
+describe('interruption', () => {
+  it.each([
+    ['SIGINT', 130],
+    ['SIGTERM', 143],
+  ] as const)('%s: exit %i, one stderr line, JUnit with an <error>, no temporary file', async (signal, exitCode) => {
+    rmSync(join(work, 'out'), { recursive: true, force: true });
+    const r = await checkWithSignal(['-c', 'many.yaml', '-q'], signal, 2500);
+    expect(r.code, r.stderr).toBe(exitCode);
+    const lines = r.stderr.trim().split('\n');
+    expect(lines).toHaveLength(1);
+    expect(lines[0]).toMatch(new RegExp(`^modalgate: interrupted by ${signal}: \\d+ of 8 model\\(s\\) finished`));
+    const junit = readFileSync(join(work, 'out/junit.xml'), 'utf8');
+    expect(junit).toContain('type="interrupted-error"');
+    expect(JSON.parse(readFileSync(join(work, 'out/report.json'), 'utf8')).problem.kind).toBe('interrupted');
+    expect(tempFiles(join(work, 'out'))).toEqual([]);
+  }, 120_000);
+
+  it('SIGKILL while saving baselines: every file left is complete, and the next run clears the temporary files', async () => {
+    const baselines = join(work, 'kill-baselines');
+    rmSync(baselines, { recursive: true, force: true });
+    for (const afterMs of [1500, 3500]) {
+      const r = await checkWithSignal(['-c', 'many.yaml', '-q', '--save-baseline', 'kill-baselines', '--junit', 'kill/junit.xml'], 'SIGKILL', afterMs);
+      expect(r.signal).toBe('SIGKILL');
+      // whatever was written is whole: every JSON file parses
+      const files = existsSync(baselines) ? readdirSync(baselines, { recursive: true, encoding: 'utf8' }) : [];
+      for (const f of files.filter((f) => f.endsWith('.json'))) {
+        expect(() => JSON.parse(readFileSync(join(baselines, f), 'utf8')), f).not.toThrow();
+      }
+    }
+    // the next run (one model) removes what the killed runs left
+    const next = await runCli(['check', '-c', 'many.yaml', '-q', '-m', 'block-1', '--save-baseline', 'kill-baselines', '--junit', 'kill/junit.xml'], work);
+    expect([0, 1], next.stderr).toContain(next.code);
+    expect(tempFiles(baselines)).toEqual([]);
+    expect(tempFiles(join(work, 'kill'))).toEqual([]);
+  }, 240_000);
+});
+
+describe('--time-limit', () => {
+  it('a model over the limit is an <error> naming the limit; the next model still runs', async () => {
+    const r = await runCli(['check', '-c', 'two.yaml', '--time-limit', '0.2', '--junit', 'limit/junit.xml', '--json', 'limit/report.json'], work);
+    expect(r.code, r.stderr).toBe(2);
+    const report = JSON.parse(readFileSync(join(work, 'limit/report.json'), 'utf8'));
+    expect(report.models.map((m: { name: string }) => m.name)).toEqual(['first', 'second']);
+    for (const m of report.models) {
+      expect(m.verdict).toBe('error');
+      expect(m.problem.kind).toBe('limit');
+      expect(m.problem.message).toMatch(/stopped at the time limit of 0\.2 s \(--time-limit\)/);
+    }
+    const junit = readFileSync(join(work, 'limit/junit.xml'), 'utf8');
+    expect(junit.match(/<testcase name="model-limit"/g)).toHaveLength(2);
+    expect(tempFiles(join(work, 'limit'))).toEqual([]);
+  }, 120_000);
+
+  it('refuses a limit that is not a positive number', async () => {
+    const r = await runCli(['check', '-c', 'two.yaml', '--time-limit', 'soon'], work);
+    expect(r.code).toBe(2);
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+    expect(r.stderr).toContain('--time-limit');
+  }, 60_000);
+});
+
+/** A 64 KiB tmpfs, where this machine allows mounting one (root on Linux). */
+function smallTmpfs(dir: string): boolean {
+  mkdirSync(dir, { recursive: true });
+  return spawnSync('mount', ['-t', 'tmpfs', '-o', 'size=64k', 'tmpfs', dir]).status === 0;
+}
+
+describe('a report that cannot be written', () => {
+  const full = join(tmpdir(), `modalgate-full-${process.pid}`);
+  const mounted = process.platform === 'linux' && smallTmpfs(full);
+  if (!mounted) console.warn('no tmpfs could be mounted here: the ENOSPC case is not run');
+  afterAll(() => {
+    if (mounted) spawnSync('umount', [full]);
+    rmSync(full, { recursive: true, force: true });
+  });
+
+  it.runIf(mounted)('a full disk (ENOSPC) is named with the file; the JUnit file written elsewhere keeps the rule results; exit 2', async () => {
+    // fill the small tmpfs so that the HTML report cannot fit
+    writeFileSync(join(full, 'filler'), Buffer.alloc(60 * 1024));
+    const r = await runCli(['check', '-c', 'two.yaml', '-m', 'first', '--junit', 'nospace/junit.xml', '--html', join(full, 'report.html')], work);
+    expect(r.code, r.stderr).toBe(2);
+    const lines = r.stderr.trim().split('\n');
+    expect(lines).toHaveLength(1);
+    expect(lines[0]).toContain(`cannot write ${join(full, 'report.html')}: ENOSPC (no space left on device)`);
+    const junit = readFileSync(join(work, 'nospace/junit.xml'), 'utf8');
+    expect(junit).toContain('rigid-body-modes');
+    expect(tempFiles(full)).toEqual([]);
+  }, 120_000);
+});
