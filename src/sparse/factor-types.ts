@@ -87,6 +87,12 @@ export interface ShiftedSolverOptions {
   zeroPivotTolerance?: number;
   /** Most threads the numeric factorization and block solves may use (default: 2 when available). */
   threads?: number;
+  /**
+   * Refuse (MemoryLimitError) before any numeric work when the factor, plus `extraBytes` the
+   * caller keeps beside it, is predicted to need more than this many bytes.
+   */
+  memoryLimitBytes?: number;
+  extraBytes?: number;
 }
 
 /**

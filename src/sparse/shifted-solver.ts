@@ -12,6 +12,7 @@ import { analyzeShiftedPair, type SupernodalStructure } from './symbolic.js';
 import { supernodalSolveInPlace } from './triangular-solve.js';
 import { availableThreads, parallelSupernodalLdlt, prepareSplitSolve, shareStructure, sharedScratch, splitSolveInPlace, type SplitSolve } from './parallel-factor.js';
 import { splitSubtrees } from './subtree-split.js';
+import { MemoryLimitError, predictedFactorBytes } from './memory-limit.js';
 
 /**
  * Factorizations of fewer flops stay on one thread (our choice: about a tenth of a second of
@@ -55,6 +56,10 @@ export function createShiftedSolver(
   const order = chooseOrdering(stiffness, mass, { ordering: options.ordering ?? 'auto', coordinates: options.coordinates, threads });
   const t1 = performance.now();
   const analyzed = analyzeShiftedPair(stiffness, mass, order.perm);
+  if (options.memoryLimitBytes !== undefined) {
+    const predicted = predictedFactorBytes(analyzed, threads) + (options.extraBytes ?? 0);
+    if (predicted > options.memoryLimitBytes) throw new MemoryLimitError(predicted, options.memoryLimitBytes, analyzed.nnzL);
+  }
   const candidate = threads >= 2 && analyzed.flops >= PARALLEL_MIN_FLOPS ? splitSubtrees(analyzed, 2) : null;
   const split = candidate !== null && candidate.timeRatio <= PARALLEL_MAX_TIME_RATIO ? candidate : null;
   // shared memory lets the helper thread read the structure without a copy

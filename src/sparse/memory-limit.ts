@@ -1,0 +1,37 @@
+/**
+ * The memory a solve will need, predicted from the symbolic analysis before any numeric work,
+ * and the error raised when it exceeds the limit a CI administrator set (`--max-memory`).
+ *
+ * One factor at a time is alive (factors are recycled), so the numeric phase holds
+ *   8 · (stored entries of the supernode blocks) + 8 n (D) + 4 · (row indices)
+ * plus, per thread, the largest update block and the largest supernode block as scratch;
+ * the caller adds what it keeps beside the factor (an iteration basis, the mode shapes).
+ */
+import type { SupernodalStructure } from './symbolic.js';
+
+export function predictedFactorBytes(s: SupernodalStructure, threads: number): number {
+  return 8 * s.storedEntries + 8 * s.n + 4 * s.rows.length + threads * 8 * (s.maxUpdateEntries + s.maxBlockEntries);
+}
+
+export class MemoryLimitError extends Error {
+  constructor(
+    readonly predictedBytes: number,
+    readonly limitBytes: number,
+    readonly nnzL: number,
+  ) {
+    super(`the solve would need about ${formatBytes(predictedBytes)} (a factor with ${nnzL.toExponential(2)} nonzeros, predicted before any numeric work), above the memory limit of ${formatBytes(limitBytes)} (--max-memory)`);
+    this.name = 'MemoryLimitError';
+  }
+}
+
+/** 1536 → "1.5 KiB", 3.2e9 → "3.0 GiB". */
+export function formatBytes(bytes: number): string {
+  const units = ['B', 'KiB', 'MiB', 'GiB', 'TiB'];
+  let v = bytes;
+  let u = 0;
+  while (v >= 1024 && u < units.length - 1) {
+    v /= 1024;
+    u++;
+  }
+  return u === 0 ? `${v} B` : `${v.toFixed(1)} ${units[u]}`;
+}
