@@ -53,6 +53,7 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
       stiffnessSummary: input.stiffnessSummary,
       massSummary: input.massSummary,
       dofMap: constrained.dofMap,
+      keptDofs: constrained.reduced?.keptDofs,
     };
     const unavailable: UnavailableInputs = {};
     const blocker = screeningBlocker(input.stiffnessSummary, input.massSummary);
