@@ -97,5 +97,9 @@ function verdictLine(report: CheckReport, c: ChalkInstance): string {
   const errored = report.models.filter((m) => m.verdict === 'error').length;
   if (report.verdict === 'pass') return c.green.bold(`modalgate: PASS — ${n} model(s) checked, every error-severity rule passed.`);
   if (report.verdict === 'fail') return c.red.bold(`modalgate: FAIL — ${failed} of ${n} model(s) failed a rule.`);
-  return c.red.bold(`modalgate: ERROR — ${report.problem ? 'the check could not run (the reason follows on stderr)' : `${errored} of ${n} model(s) could not be checked`}.`);
+  if (report.problem) return c.red.bold('modalgate: ERROR — the check could not run (the reason follows on stderr).');
+  // every model is counted: an error elsewhere does not hide a failed rule
+  const passed = n - failed - errored;
+  const parts = [passed > 0 ? `${passed} passed` : '', failed > 0 ? `${failed} failed` : '', `${errored} error (could not be checked)`].filter((x) => x !== '');
+  return c.red.bold(`modalgate: ERROR — ${n} model(s): ${parts.join(', ')}.`);
 }
