@@ -47,7 +47,7 @@ function notable(r: RuleResult): boolean {
 function modelLine(m: ModelReport, c: ChalkInstance): string {
   const mark = m.verdict === 'pass' ? c.green('✔ pass ') : m.verdict === 'fail' ? c.red('✖ FAIL ') : c.red.bold('✖ ERROR');
   const parts = [`${mark} ${c.bold(m.name)}`];
-  if (m.stats) parts.push(`${m.stats.dofs} DOFs`);
+  if (m.stats) parts.push(m.stats.solvedDofs === undefined || m.stats.solvedDofs === m.stats.dofs ? `${m.stats.dofs} DOFs` : `${m.stats.dofs} DOFs exported, ${m.stats.solvedDofs} solved`);
   if (m.solve) parts.push(`${m.solve.modesReturned} modes`);
   const first = firstElastic(m);
   if (first !== null) parts.push(`first elastic ${formatNumber(first)} Hz`);
