@@ -90,6 +90,7 @@ export function loadConfig(path: string, overrides: ConfigOverrides = {}): Loade
   };
   checkUniqueNames(config.models, path);
   const models = config.models.map((m, i) => resolveModel(config, m, i, path, dir, overrides));
+  checkEveryModelHasRules(config, models, path);
   return { path, dir, reports, models };
 }
 
@@ -144,7 +145,7 @@ function resolveModel(config: RawConfig, m: RawModelConfig, i: number, file: str
   ruleSets.forEach((name, k) => layers.push(...loadRuleSetLayers(name, dir, file, `${ruleSetWhere}[${k}]`)));
   if (d.rules) layers.push(...overrideLayers(d.rules, file, 'defaults.rules'));
   if (m.rules) layers.push(...overrideLayers(m.rules, file, `${where}.rules`));
-  return {
+  const job: ModelJob = {
     name: m.name,
     stiffnessPath: existingFile(m.stiffness, dir, file, `${where}.stiffness`),
     massPath: existingFile(m.mass, dir, file, `${where}.mass`),
@@ -165,6 +166,21 @@ function resolveModel(config: RawConfig, m: RawModelConfig, i: number, file: str
     }),
     baseline,
   };
+  return job;
+}
+
+/** A model that runs no rule would pass with "0/0 rules passed": refuse it instead. */
+function checkEveryModelHasRules(config: RawConfig, models: ModelJob[], file: string): void {
+  models.forEach((job, i) => {
+    if (job.rules.length > 0) return;
+    const listsSome = job.ruleSets.length > 0 || config.models[i].rules !== undefined || config.defaults?.rules !== undefined;
+    throw new InputError(file, noRulesReason(job.name, listsSome), { where: job.where });
+  });
+}
+
+function noRulesReason(model: string, listsSome: boolean): string {
+  const why = listsSome ? 'its rule sets and rules leave every rule off' : 'it lists no rule sets and no rules (and defaults gives none)';
+  return `model "${model}" has no rule to run: ${why}; a check without rules proves nothing, so add ruleSets (e.g. [supported] or [free-free]) or rules to it or to defaults`;
 }
 
 /** Top-level `baseline` merged with the model's own, paths resolved; command-line directories win. */

@@ -37,6 +37,7 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
     const input = await readModelInput(job);
     report.stats = {
       dofs: input.stiffness.n,
+      solvedDofs: input.stiffness.n,
       stiffnessNonzeros: fullNonzeros(input.stiffness),
       massNonzeros: fullNonzeros(input.mass),
       stiffnessFile: job.stiffnessPath,
@@ -46,6 +47,7 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
     };
     // constraint sets from the model entry reduce K, M and the DOF map before the solve
     const constrained = applyConstraintStep(job, input);
+    report.stats.solvedDofs = constrained.stiffness.n;
     const context: RuleContext = {
       modelName: job.name,
       stiffness: constrained.stiffness,
@@ -53,6 +55,7 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
       stiffnessSummary: input.stiffnessSummary,
       massSummary: input.massSummary,
       dofMap: constrained.dofMap,
+      keptDofs: constrained.reduced?.keptDofs,
     };
     const unavailable: UnavailableInputs = {};
     const blocker = screeningBlocker(input.stiffnessSummary, input.massSummary);

@@ -76,6 +76,7 @@ export function computeGeometry(input: GeometryInput): GeometryFacts {
     nearZeroModes: nearZero,
     supported: supportedReason(input.constraints, nearZero, input.expectedRigidBodyModes),
     constraints: input.constraints ?? null,
+    keptMass: whole ? { translationalMass: own.translationalMass, totalMass: own.totalMass } : null,
     participation: modes ? modalParticipation(modes, massTimesR, gDiagonal) : null,
     mechanisms:
       modes && nearZero !== null

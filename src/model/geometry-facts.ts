@@ -40,6 +40,11 @@ export interface GeometryFacts {
   supported: { reason: string } | null;
   /** Set when constraint sets removed DOFs before solving; DOF numbers in facts are original. */
   constraints: ConstraintFacts | null;
+  /**
+   * Mass on the kept (solved) DOFs, when constraint sets removed some: what participation is
+   * relative to. `massProperties` then describes the whole export.
+   */
+  keptMass: { translationalMass: [number, number, number]; totalMass: number } | null;
   /** Present when modes were solved. */
   participation: Participation | null;
   /** Present when modes were solved (mechanisms = 0 when every near-zero mode is rigid). */

@@ -47,7 +47,7 @@ function notable(r: RuleResult): boolean {
 function modelLine(m: ModelReport, c: ChalkInstance): string {
   const mark = m.verdict === 'pass' ? c.green('✔ pass ') : m.verdict === 'fail' ? c.red('✖ FAIL ') : c.red.bold('✖ ERROR');
   const parts = [`${mark} ${c.bold(m.name)}`];
-  if (m.stats) parts.push(`${m.stats.dofs} DOFs`);
+  if (m.stats) parts.push(m.stats.solvedDofs === undefined || m.stats.solvedDofs === m.stats.dofs ? `${m.stats.dofs} DOFs` : `${m.stats.dofs} DOFs exported, ${m.stats.solvedDofs} solved`);
   if (m.solve) parts.push(`${m.solve.modesReturned} modes`);
   const first = firstElastic(m);
   if (first !== null) parts.push(`first elastic ${formatNumber(first)} Hz`);
@@ -97,5 +97,9 @@ function verdictLine(report: CheckReport, c: ChalkInstance): string {
   const errored = report.models.filter((m) => m.verdict === 'error').length;
   if (report.verdict === 'pass') return c.green.bold(`modalgate: PASS — ${n} model(s) checked, every error-severity rule passed.`);
   if (report.verdict === 'fail') return c.red.bold(`modalgate: FAIL — ${failed} of ${n} model(s) failed a rule.`);
-  return c.red.bold(`modalgate: ERROR — ${report.problem ? 'the check could not run (the reason follows on stderr)' : `${errored} of ${n} model(s) could not be checked`}.`);
+  if (report.problem) return c.red.bold('modalgate: ERROR — the check could not run (the reason follows on stderr).');
+  // every model is counted: an error elsewhere does not hide a failed rule
+  const passed = n - failed - errored;
+  const parts = [passed > 0 ? `${passed} passed` : '', failed > 0 ? `${failed} failed` : '', `${errored} error (could not be checked)`].filter((x) => x !== '');
+  return c.red.bold(`modalgate: ERROR — ${n} model(s): ${parts.join(', ')}.`);
 }

@@ -77,7 +77,7 @@ function modelSection(m: ModelReport, i: number): string {
 function keyFacts(m: ModelReport): string[][] {
   const f: string[][] = [];
   if (m.stats) {
-    f.push(['DOFs', String(m.stats.dofs)]);
+    f.push(['DOFs', m.stats.solvedDofs === undefined || m.stats.solvedDofs === m.stats.dofs ? String(m.stats.dofs) : `${m.stats.dofs} exported, ${m.stats.solvedDofs} solved`]);
     if (m.stats.nodes !== undefined) f.push(['nodes', String(m.stats.nodes)]);
     f.push(['nonzeros', `K ${m.stats.stiffnessNonzeros}, M ${m.stats.massNonzeros}`]);
     f.push(['files', [m.stats.stiffnessFile, m.stats.massFile, m.stats.dofsFile].filter(Boolean).join(', ')]);
@@ -129,7 +129,8 @@ function geometrySection(g: GeometryFacts): string {
   const mp = g.massProperties;
   const c = mp.centerOfMass;
   const items: string[][] = [
-    ['total mass', formatNumber(mp.totalMass)],
+    ['total mass', `${formatNumber(mp.totalMass)} (the whole export; mass at DOFs removed before export is not in the files)`],
+    ...(g.keptMass ? [['mass on the kept DOFs', `${formatNumber(g.keptMass.totalMass)} (what mass participation is relative to)`]] : []),
     ['translational mass x, y, z', mp.translationalMass.map(formatNumber).join(', ')],
     ['centre of mass', `(${c.map(formatNumber).join(', ')})`],
     ['principal moments', mp.principalMoments.map(formatNumber).join(', ')],

@@ -25,7 +25,10 @@ export interface ProblemReport {
 }
 
 export interface ModelStats {
+  /** DOFs in the exported matrices. */
   dofs: number;
+  /** DOFs solved: the exported ones less those constraint sets removed. */
+  solvedDofs?: number;
   stiffnessNonzeros: number;
   massNonzeros: number;
   stiffnessFile: string;

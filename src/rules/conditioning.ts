@@ -1,40 +1,49 @@
 /**
- * conditioning: the largest ratio of a matrix diagonal to its LDLᵀ pivot, max_j |a_jj / d_j|,
- * stays below a limit. About log10(ratio) digits are lost in the factorization ([CP]); a limit
- * of 1e7 is often quoted for this check (ECSS-E-ST-32-03C, value from memory — [M] CRITERIA.md §1a).
- * The ratio is measured on the solver's last factor of K − σM.
+ * conditioning: how far elimination shrinks a diagonal. For each DOF j, the pivot drop is
+ * |a_jj / d_j|, the stiffness diagonal (of K − σM) divided by the pivot d_j the LDLᵀ factor
+ * leaves for it; the largest over all DOFs must stay at or below maxPivotDrop. A diagonal that
+ * shrinks by 10^k loses about k digits there ([CP]): the DOF is weakly connected or badly scaled.
+ * A limit of 1e7 is often quoted for this check (ECSS-E-ST-32-03C, value from memory — [M]
+ * CRITERIA.md §1a). The drop is measured on the solver's last factor of K − σM.
  */
 import type { RuleDefinition } from './rule-types.js';
 import { describeDof } from '../io/dof-map.js';
 import { outcome } from './outcome.js';
 
 export interface ConditioningOptions {
-  maxRatio: number;
+  /** Largest allowed |a_jj / d_j|: diagonal before elimination over the pivot after it. */
+  maxPivotDrop: number;
 }
 
 const messages = {
-  pass: 'largest diagonal-to-pivot ratio {{measured}} at {{where}}, below {{maxRatio}}.',
-  fail: 'diagonal-to-pivot ratio {{measured}} at {{where}} exceeds {{maxRatio}}: about {{digits}} digits are lost there (a weakly connected or badly scaled DOF).',
+  pass: 'largest pivot drop (diagonal / pivot) {{measured}} at {{where}}, within maxPivotDrop {{maxPivotDrop}}.',
+  fail: 'pivot drop (diagonal / pivot) {{measured}} at {{where}} exceeds maxPivotDrop {{maxPivotDrop}}: about {{digits}} digits are lost there (a weakly connected or badly scaled DOF).',
 };
 
 export const conditioning: RuleDefinition<ConditioningOptions> = {
   id: 'conditioning',
-  description: 'The largest diagonal-to-pivot ratio of the LDLᵀ factor, max |a_jj / d_j|, is below maxRatio.',
+  description: 'No diagonal shrinks by more than maxPivotDrop during LDLᵀ elimination: max over DOFs of |diagonal / pivot|.',
   optionsSchema: {
     type: 'object',
-    properties: { maxRatio: { type: 'number', exclusiveMinimum: 1 } },
+    properties: {
+      maxPivotDrop: {
+        type: 'number',
+        exclusiveMinimum: 1,
+        description: 'largest allowed ratio of a DOF\'s diagonal before elimination to its pivot after it, |a_jj / d_j|; a drop of 10^k loses about k digits',
+      },
+    },
     additionalProperties: false,
   },
-  defaults: { maxRatio: 1e7 },
+  defaults: { maxPivotDrop: 1e7 },
   messages,
   needs: ['modes'],
   evaluate(context, o) {
     const f = context.modes!.factor;
-    const ratio = f.maxDiagonalToPivotRatio;
+    const drop = f.maxDiagonalToPivotRatio;
     const where = describeDof(context.dofMap, f.maxRatioDof);
-    const values = { measured: ratio, where, maxRatio: o.maxRatio, digits: Math.round(Math.log10(Math.max(ratio, 1))) };
-    const details = { dof: f.maxRatioDof + 1, where };
-    const ok = ratio <= o.maxRatio;
-    return outcome(ok ? 'pass' : 'fail', ok ? messages.pass : messages.fail, values, ratio, o.maxRatio, details);
+    const values = { measured: drop, where, maxPivotDrop: o.maxPivotDrop, digits: Math.round(Math.log10(Math.max(drop, 1))) };
+    const details = { dof: f.maxRatioDof + 1, where, pivotDrop: drop };
+    const ok = drop <= o.maxPivotDrop;
+    return outcome(ok ? 'pass' : 'fail', ok ? messages.pass : messages.fail, values, drop, o.maxPivotDrop, details);
   },
 };

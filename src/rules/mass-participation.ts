@@ -6,12 +6,13 @@
  * orthogonal horizontal direction ([S]: quoted in a software vendor's help page on ASCE 7-16
  * §12.9.1, not read in the standard itself). Directions are global axes; list the ones that are
  * horizontal in your model.
- * The fraction is relative to the mass on the model's free DOFs; on a free-free model the
+ * The fraction is relative to the mass on the solved (kept) DOFs: with constraint sets that is
+ * less than the export's total mass, and the message says both. On a free-free model the
  * rigid-body modes carry all of it, so the rule skips models with free rigid motions.
  */
 import type { RuleDefinition } from './rule-types.js';
 import { outcome } from './outcome.js';
-import { formatList } from './message.js';
+import { formatList, formatMessage } from './message.js';
 import { geometryOrSkip, isOutcome } from './geometry-common.js';
 import { RIGID_BODY_DIRECTIONS, type RigidBodyDirection } from '../model/rigid-body-vectors.js';
 
@@ -22,8 +23,9 @@ export interface MassParticipationOptions {
 }
 
 const messages = {
-  pass: 'effective mass reaches {{reached}} within {{span}} (required {{minFraction}}).',
-  fail: 'effective mass within {{span}} is short of {{minFraction}}: {{short}}; solve more modes or check where the mass is.',
+  pass: 'effective mass reaches {{reached}} within {{span}} (required {{minFraction}}){{basis}}.',
+  fail: 'effective mass within {{span}} is short of {{minFraction}}: {{short}}; solve more modes or check where the mass is{{basis}}.',
+  basis: ' (fractions of the mass on the {{keptDofs}} solved DOFs, {{keptMass}}; the whole export of {{exportedDofs}} DOFs has {{exportMass}})',
   free: 'not evaluated: the model has {{free}} free rigid-body motion(s), whose modes carry all the mass; participation is for supported models.',
   noMass: 'not evaluated: the listed directions carry no mass in this model ({{directions}}).',
 };
@@ -64,8 +66,13 @@ export const massParticipation: RuleDefinition<MassParticipationOptions> = {
     if (rows.length === 0) return outcome('skip', messages.noMass, { directions: o.directions.join(', ') });
     const short = rows.filter((r) => r.fraction < o.minFraction);
     const worst = rows.reduce((a, b) => (b.fraction < a.fraction ? b : a));
-    const details = { modesConsidered: last + 1, directions: rows, rigidBodyMass: p.rigidBodyMass };
+    const exportMass = g.massProperties.totalMass;
+    const keptMass = g.keptMass?.totalMass ?? exportMass;
+    const keptDofs = g.constraints?.keptDofs ?? context.stiffness.n;
+    const basis = g.keptMass ? formatMessage(messages.basis, { keptMass, keptDofs, exportedDofs: context.stiffnessSummary.n, exportMass }) : '';
+    const details = { modesConsidered: last + 1, directions: rows, rigidBodyMass: p.rigidBodyMass, keptMass, keptDofs, exportMass, exportedDofs: context.stiffnessSummary.n };
     const values = {
+      basis,
       span,
       minFraction: o.minFraction,
       reached: formatList(rows.map((r) => `${r.direction} ${r.fraction.toFixed(3)}`)),

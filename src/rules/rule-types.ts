@@ -29,6 +29,8 @@ export interface RuleContext {
   stiffnessSummary: MatrixSummary;
   massSummary: MatrixSummary;
   dofMap?: DofMap;
+  /** Solved DOF r is exported DOF keptDofs[r] (0-based), when constraint sets removed DOFs. */
+  keptDofs?: Int32Array;
   modes?: ModesResult;
   geometry?: GeometryFacts;
   comparison?: ComparisonFacts;

@@ -4,9 +4,13 @@
  * unit (kg for SI models, t for N-mm-t models). The tolerance comes from the project's budget;
  * the default 1 % is our choice (the ECSS mass-property tolerance was not recovered, [M]
  * CRITERIA.md §1a).
+ * The mass is that of the whole export (constraint sets do not change it); when constraint sets
+ * removed DOFs, the mass on the kept DOFs, which mass participation is relative to, is stated
+ * beside it. Mass at DOFs the FE program removed before export is in neither.
  */
 import type { RuleDefinition } from './rule-types.js';
 import { outcome } from './outcome.js';
+import { formatMessage } from './message.js';
 import { geometryOrSkip, isOutcome } from './geometry-common.js';
 
 export interface TotalMassOptions {
@@ -15,8 +19,10 @@ export interface TotalMassOptions {
 }
 
 const messages = {
-  pass: 'total mass {{mass}} is within {{tolerancePercent}} % of the expected {{expected}} ({{deviation}} %).',
-  fail: 'total mass {{mass}} differs from the expected {{expected}} by {{deviation}} % (allowed {{tolerancePercent}} %).',
+  pass: 'total mass {{mass}} of the export{{kept}} is within {{tolerancePercent}} % of the expected {{expected}} ({{deviation}} %); {{note}}.',
+  fail: 'total mass {{mass}} of the export{{kept}} differs from the expected {{expected}} by {{deviation}} % (allowed {{tolerancePercent}} %); {{note}}.',
+  kept: ' ({{keptMass}} on the {{keptDofs}} solved DOFs, which mass participation uses)',
+  note: 'mass at DOFs removed before export is not counted',
 };
 
 export const totalMass: RuleDefinition<TotalMassOptions> = {
@@ -39,8 +45,17 @@ export const totalMass: RuleDefinition<TotalMassOptions> = {
     if (isOutcome(g)) return g;
     const mp = g.massProperties;
     const deviation = (100 * (mp.totalMass - o.expected)) / o.expected;
-    const values = { mass: mp.totalMass, expected: o.expected, deviation, tolerancePercent: o.tolerancePercent };
-    const details = { totalMass: mp.totalMass, translationalMass: mp.translationalMass, deviationPercent: deviation };
+    const kept = g.keptMass && g.constraints ? formatMessage(messages.kept, { keptMass: g.keptMass.totalMass, keptDofs: g.constraints.keptDofs }) : '';
+    const values = { mass: mp.totalMass, kept, expected: o.expected, deviation, tolerancePercent: o.tolerancePercent, note: messages.note };
+    const details = {
+      totalMass: mp.totalMass,
+      translationalMass: mp.translationalMass,
+      deviationPercent: deviation,
+      keptMass: g.keptMass?.totalMass ?? mp.totalMass,
+      keptDofs: g.constraints?.keptDofs ?? context.stiffness.n,
+      exportedDofs: context.stiffnessSummary.n,
+      note: messages.note,
+    };
     const status = Math.abs(deviation) <= o.tolerancePercent ? 'pass' : 'fail';
     return outcome(status, status === 'pass' ? messages.pass : messages.fail, values, mp.totalMass, `${o.expected} ± ${o.tolerancePercent} %`, details);
   },

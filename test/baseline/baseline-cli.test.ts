@@ -37,7 +37,7 @@ async function independentHz(base: string): Promise<Float64Array> {
 beforeAll(async () => {
   ensureBuilt();
   work = mkdtempSync(join(tmpdir(), 'modalgate-baseline-'));
-  const saved = await runCli(['check', '-c', config('mast.yaml', 'mast'), '--save-baseline', join(work, 'base')]);
+  const saved = await runCli(['check', '-c', config('mast.yaml', 'mast', ', rules: { matrix-finite: error }'), '--save-baseline', join(work, 'base')]);
   expect(saved.code, saved.stderr + saved.stdout).toBe(0);
   expect(saved.stdout).toContain(`baseline of mast saved: ${join(work, 'base/mast.baseline.json')}`);
 });

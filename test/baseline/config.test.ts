@@ -39,14 +39,17 @@ describe('baseline config', () => {
     expect(two.rules.map((r) => [r.rule.id, r.severity])).toEqual([['mode-shape-match', 'error'], ['mode-swap', 'warning'], ['new-or-lost-modes', 'error']]);
   });
   it('leaves the regression rules off without a baseline, and the command line can give one', () => {
-    const p = write('b.yaml', `models:\n${model('one')}`);
-    expect(loadConfig(p).models[0].rules).toEqual([]);
+    const p = write('b.yaml', `models:\n${model('one', ', rules: { matrix-finite: error }')}`);
+    expect(loadConfig(p).models[0].rules.map((r) => r.rule.id)).toEqual(['matrix-finite']);
     expect(loadConfig(p).models[0].baseline).toBeUndefined();
     const withCli = loadConfig(p, { baselineDir: join(work, 'base'), saveBaselineDir: join(work, 'new') }).models[0];
     expect(withCli.baseline).toMatchObject({ compareDir: join(work, 'base'), saveDir: join(work, 'new') });
-    expect(withCli.rules.map((r) => r.rule.id)).toEqual(regression);
+    expect(withCli.rules.map((r) => r.rule.id).filter((id) => id !== 'matrix-finite')).toEqual(regression);
     // saving alone compares with nothing: no regression rules
-    expect(loadConfig(p, { saveBaselineDir: join(work, 'new') }).models[0].rules).toEqual([]);
+    expect(loadConfig(p, { saveBaselineDir: join(work, 'new') }).models[0].rules.map((r) => r.rule.id)).toEqual(['matrix-finite']);
+    // and a model left with no rule at all is refused (a check without rules proves nothing)
+    const bare = write('b2.yaml', `models:\n${model('one')}`);
+    expect(() => loadConfig(bare, { saveBaselineDir: join(work, 'new') })).toThrow(/models\[0\]: model "one" has no rule to run/);
   });
   it('rejects a missing directory (unless this run saves into it) and bad settings', () => {
     const p = write('c.yaml', `baseline: { dir: nowhere }\nmodels:\n${model('one')}`);

@@ -110,7 +110,7 @@ describe('modalgate rules and init', () => {
     const text = formatRules();
     for (const id of ['rigid-body-modes', 'first-elastic-frequency', 'conditioning', 'diagonal-sanity']) expect(text).toContain(`\n${id}\n`);
     expect(text).toMatch(/cutoffHz\s+number > 0\s+default 0.005/);
-    expect(text).toMatch(/maxRatio\s+number > 1\s+default 1e7/);
+    expect(text).toMatch(/maxPivotDrop\s+number > 1\s+default 1e7/);
     expect(text).toMatch(/handoff-audit\s+Strict/);
     const j = await runCli(['rules', '--json']);
     expect(j.code).toBe(0);

@@ -30,6 +30,7 @@ beforeAll(async () => {
 models:
   - name: mast
     ${files('mast')}
+    rules: { matrix-finite: error }
   - name: mast-free-clamped
     ${files('mast-free')}
     constraints:

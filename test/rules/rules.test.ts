@@ -12,7 +12,7 @@ import { matrixFinite } from '../../src/rules/matrix-finite.js';
 import { diagonalSanity } from '../../src/rules/diagonal-sanity.js';
 import { conditioning } from '../../src/rules/conditioning.js';
 import { cutoffDefaults, splitRigidBodyModes } from '../../src/rules/rigid-body-split.js';
-import { chainContext, cleanSummary, exactModes, lineDofMap, modesWithFrequencies, springChain } from './fake-model.js';
+import { chainContext, cleanSummary, exactModes, lineDofMap, modesWithFrequencies, sparseFromDense, springChain } from './fake-model.js';
 
 const k = 1000;
 const m = 2;
@@ -166,22 +166,25 @@ describe('matrix rules', () => {
     expect(matrixFinite.evaluate(ctx, {})).toMatchObject({ status: 'fail', measured: 2 });
   });
   it('diagonal-sanity names DOFs by node and component when a DOF map is given', () => {
-    const ctx = chainContext(chain, undefined, lineDofMap(6));
-    ctx.stiffnessSummary = cleanSummary('K.mtx', 6, { zeroDiagonalCount: 1, zeroDiagonalDofs: [5] });
-    ctx.massSummary = cleanSummary('M.mtx', 6, { zeroDiagonalCount: 2, zeroDiagonalDofs: [3, 4] });
-    const o = diagonalSanity.evaluate(ctx, { allowMasslessDofs: false, listLimit: 5 });
+    // DOF 6 has mass but no stiffness; DOFs 4 and 5 have stiffness but no mass
+    const k6 = springChain(5, k, [1, 1, 1, 1, 1]).denseK.map((row) => [...row, 0]);
+    k6.push([0, 0, 0, 0, 0, 0]);
+    const masses = [1, 1, 1, 0, 0, 1];
+    const ctx = chainContext({ stiffness: sparseFromDense(k6), mass: sparseFromDense(masses.map((v, i) => masses.map((_, j) => (i === j ? v : 0)))), denseK: k6, masses }, undefined, lineDofMap(6));
+    const o = diagonalSanity.evaluate(ctx, diagonalSanity.defaults);
     expect(o.status).toBe('fail');
     expect(o.message).toContain('1 DOF(s) with zero stiffness diagonal: node 2 uz (dof 6)');
-    expect(o.message).toContain('2 massless DOF(s): node 2 ux (dof 4) and node 2 uy (dof 5)');
-    const noMap = diagonalSanity.evaluate({ ...ctx, dofMap: undefined }, { allowMasslessDofs: true, listLimit: 5 });
-    expect(noMap.message).toBe('1 DOF(s) with zero stiffness diagonal: dof 6.');
+    expect(o.message).toContain('2 massless translational DOF(s): node 2 ux (dof 4) and node 2 uy (dof 5)');
+    // no map, 6 DOFs: 6 per node assumed, so DOFs 4 and 5 are rx and ry (allowed by default)
+    const noMap = diagonalSanity.evaluate({ ...ctx, dofMap: undefined }, diagonalSanity.defaults);
+    expect(noMap.message).toBe('1 DOF(s) with zero stiffness diagonal: dof 6 (no DOF map: assumed 6 DOFs per node in the order ux uy uz rx ry rz).');
   });
-  it('conditioning compares the diagonal-to-pivot ratio with 1e7 ([M])', () => {
+  it('conditioning compares the pivot drop |diagonal / pivot| with 1e7 ([M])', () => {
     const modes = exactModes(chain);
     const ctx = chainContext(chain, modes, lineDofMap(6));
-    expect(conditioning.evaluate(ctx, { maxRatio: 1e7 }).status).toBe('pass');
+    expect(conditioning.evaluate(ctx, { maxPivotDrop: 1e7 }).status).toBe('pass');
     modes.factor = { ...modes.factor, maxDiagonalToPivotRatio: 3e9, maxRatioDof: 2 };
-    const o = conditioning.evaluate(ctx, { maxRatio: 1e7 });
+    const o = conditioning.evaluate(ctx, { maxPivotDrop: 1e7 });
     expect(o.status).toBe('fail');
     expect(o.message).toContain('node 1 uz (dof 3)');
     expect(o.message).toContain('about 9 digits');
