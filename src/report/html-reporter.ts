@@ -228,7 +228,7 @@ function residualPlot(m: ModelReport): Figure | null {
   const lines = limit !== undefined ? [{ value: limit, label: `limit ${formatNumber(limit)}` }] : [];
   const svg = stemChart({ title: fromRule ? 'Relative residual per mode' : 'Solver residual per mode', yLabel: 'residual', modes: residuals.length, values, y, lines, stems: false, floorLabel: 'exactly 0' });
   const notFinite = residuals.filter((r) => !Number.isFinite(r)).length;
-  const what = fromRule ? 'Relative residual ‖Kφ − λMφ‖ / ((‖K‖ + |λ|‖M‖)‖φ‖) of each mode, as eigen-residual measured it' : 'Residual of each mode as the solver reported it (eigen-residual did not run)';
+  const what = fromRule ? 'Eigenpair residual ‖Kφ − λMφ‖ / (‖Kφ‖ + |λ|‖Mφ‖) of each mode (rigid-body floor), as eigen-residual read it' : 'Residual of each mode as the solver reported it (eigen-residual did not run)';
   const parts = [what];
   if (limit !== undefined) parts.push(`dashed: its limit ${formatNumber(limit)}`);
   if (notFinite > 0) parts.push(`${notFinite} residual(s) not finite, not drawn`);
