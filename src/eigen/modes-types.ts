@@ -100,3 +100,19 @@ export function eigenvalueFromFrequencyHz(hz: number): number {
   const w = 2 * Math.PI * hz;
   return w * w;
 }
+
+/**
+ * The solve met a vector x with xᵀMx < 0 beyond rounding: M is not positive semi-definite, so
+ * K φ = λ M φ is not a vibration problem and no Sturm count means anything. Thrown by the
+ * eigen layer; the CLI turns it into bad input naming the mass file (exit 2).
+ */
+export class IndefiniteMassError extends Error {
+  /** xᵀMx / (‖x‖ ‖Mx‖) of the vector found, a negative cosine. */
+  readonly cosine: number;
+
+  constructor(cosine: number) {
+    super(`M is not positive semi-definite: the solve met a motion with negative kinetic energy (xᵀMx = ${cosine.toPrecision(3)}·‖x‖‖Mx‖)`);
+    this.name = 'IndefiniteMassError';
+    this.cosine = cosine;
+  }
+}

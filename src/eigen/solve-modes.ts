@@ -34,6 +34,7 @@ import { blockLanczos } from './block-lanczos.js';
 import { subspaceIteration } from './subspace-iteration.js';
 import { mOrthonormalize } from './m-orthonormalize.js';
 import { rayleighRitz } from './rayleigh-ritz.js';
+import { EIGENPAIR_RESIDUAL_LIMIT } from './residual-measure.js';
 import { checkShapes, CLUSTER_RELATIVE_TOLERANCE, placeSturmShift } from './verification.js';
 import { diagonalScale, firstShiftGuess, judgeShift, RIGID_BODY_FRACTION, type DiagonalScale } from './shift-placement.js';
 import type { EigenSearch, EigenSearchResult } from './search-types.js';
@@ -114,10 +115,17 @@ export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request:
     ? cutoffSturm(cutoff.factor, solved.values, warnings)
     : gapSturm(solved, factorAt, zero, clusterExtension, warnings);
   clock.verifyMs += performance.now() - t0 - (clock.factorMs - factorBefore);
+  const shortfall = incompleteness(solved.values, wanted, sturm.shift);
+  if (shortfall) {
+    // fewer modes than exist, or numbers that are not numbers, are never "complete"
+    sturm.ok = false;
+    sturm.note = sturm.note ? `${sturm.note}; ${shortfall}` : shortfall;
+    warnings.push(shortfall);
+  }
   if (!solved.converged) warnings.push(...solved.warnings);
   else warnings.push(...solved.warnings.filter((w) => !w.includes('stopped')));
   const worst = Math.max(0, ...Array.from(checks.residuals));
-  if (worst > 1e-8) warnings.push(`largest relative residual ${worst.toExponential(2)} is above 1e-8`);
+  if (!(worst <= EIGENPAIR_RESIDUAL_LIMIT)) warnings.push(`largest eigenpair residual ${worst.toExponential(2)} is above ${EIGENPAIR_RESIDUAL_LIMIT}`);
   return {
     n,
     eigenvalues: solved.values,
@@ -389,6 +397,7 @@ function gapSturm(
   warnings: string[],
 ): SturmCheck {
   const count = solved.values.length;
+  if (count === 0) return { shift: NaN, countBelow: 0, modesReturned: 0, ok: false };
   const placement = placeSturmShift(solved.values, solved.beyond, zero);
   let f = factorAt(placement.shift);
   f.release();
@@ -425,6 +434,18 @@ export function clusterNote(e: ClusterExtension): string {
     ? `mode ${e.requested} is a rigid-body (zero) mode, so ${extra} more rigid-body mode(s) were returned`
     : `mode ${e.requested} (${Number(hz.toPrecision(6))} Hz) is repeated, so ${extra} more mode(s) equal to it (relative ${e.relativeTolerance}) were returned`;
   return `${e.requested} mode(s) requested; ${what} to complete the cluster: ${e.returned} modes`;
+}
+
+/**
+ * Why a solution cannot be complete whatever the Sturm count says: fewer modes than asked (the
+ * request was already capped at the finite eigenvalues M allows), a non-finite eigenvalue, or
+ * a non-finite Sturm shift. Null when none applies.
+ */
+function incompleteness(values: Float64Array, wanted: number, shift: number): string | null {
+  if (values.length < wanted) return `only ${values.length} of ${wanted} modes were found`;
+  if (values.some((v) => !Number.isFinite(v))) return 'the solve produced non-finite eigenvalues';
+  if (!Number.isFinite(shift)) return 'the Sturm check shift is not a finite number';
+  return null;
 }
 
 /** Cutoff mode: the count at the cutoff must equal the modes returned, all of them below it. */
