@@ -441,7 +441,7 @@ export function clusterNote(e: ClusterExtension): string {
  * request was already capped at the finite eigenvalues M allows), a non-finite eigenvalue, or
  * a non-finite Sturm shift. Null when none applies.
  */
-function incompleteness(values: Float64Array, wanted: number, shift: number): string | null {
+export function incompleteness(values: Float64Array, wanted: number, shift: number): string | null {
   if (values.length < wanted) return `only ${values.length} of ${wanted} modes were found`;
   if (values.some((v) => !Number.isFinite(v))) return 'the solve produced non-finite eigenvalues';
   if (!Number.isFinite(shift)) return 'the Sturm check shift is not a finite number';
