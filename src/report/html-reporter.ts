@@ -87,7 +87,7 @@ function keyFacts(m: ModelReport): string[][] {
     const req = [s.requested.count !== undefined ? `${s.requested.count} modes` : '', s.requested.maxHz !== undefined ? `up to ${s.requested.maxHz} Hz` : ''].filter(Boolean).join(', ');
     f.push(['method', `${s.method}, ordering ${s.ordering}, ${s.shifts.length} shift(s), ${s.iterations} iteration(s)`]);
     f.push(['modes', `${s.modesReturned} returned${req ? ` (asked: ${req})` : ''}`]);
-    const sturm = `${s.sturm.ok ? 'ok' : 'NOT OK'}: ${s.sturm.countBelow} eigenvalues below σ = ${formatNumber(s.sturm.shift)}, ${s.sturm.modesReturned} modes returned`;
+    const sturm = `${s.sturm.ok ? 'ok' : 'NOT OK'}: ${s.sturm.countBelow} eigenvalues below σ = ${formatNumber(s.sturm.shift)}, ${s.sturm.modesReturned} modes returned${s.sturm.note ? ` (${s.sturm.note})` : ''}`;
     f.push(['Sturm check', sturm]);
     f.push(['factor', `${s.factorNonzeros} nonzeros, largest diagonal/pivot ratio ${formatNumber(s.maxDiagonalToPivotRatio)}`]);
     f.push(['solve time', `${formatNumber(s.timings.totalMs / 1000)} s`]);
