@@ -2,8 +2,15 @@
  * `modalgate modes --stiffness K.mtx --mass M.mtx [--count N | --max-hz F] ...`: solve the
  * lowest modes (src/eigen/solve-modes.ts) and print a table with the verification summary;
  * `--json` writes the numbers, `--shapes` the mass-normalized shapes as a Matrix Market array.
- * Exit 0 when the solution verifies, 1 when a verification check failed (Sturm count),
- * 2 on bad input (through runAction).
+ *
+ * Exit codes:
+ *   0  solved and verified: the Sturm count equals the modes returned (a cluster that straddles
+ *      the count is returned whole, and said), every eigenpair residual ≤ 1e-8;
+ *   1  solved but not verified: the count disagrees, fewer modes than asked were found, a
+ *      residual is above 1e-8 (the table is still printed and --json still written);
+ *   2  input that cannot be solved: unreadable files, bad options, a pencil the screening
+ *      refuses (src/model/screen-pencil.ts, the same as `check`), or an M the solver finds
+ *      indefinite — one line naming the file (through runAction).
  */
 import type { Command } from 'commander';
 import { readStiffnessAndMass } from '../io/matrix-market-reader.js';
@@ -11,8 +18,10 @@ import { writeDenseArray } from '../io/matrix-market-writer.js';
 import { readDofMap } from '../io/dof-map-reader.js';
 import { writeFileAtomic } from '../io/atomic-write.js';
 import { InputError } from '../io/errors.js';
-import type { ModesRequest, ModesResult } from '../eigen/modes-types.js';
+import { IndefiniteMassError, type ModesRequest, type ModesResult } from '../eigen/modes-types.js';
 import { solveModes } from '../eigen/solve-modes.js';
+import { EIGENPAIR_RESIDUAL_LIMIT, EIGENPAIR_RESIDUAL_NAME } from '../eigen/residual-measure.js';
+import { screenPencil } from '../model/screen-pencil.js';
 import { EXIT_PASS, EXIT_RULE_FAILED, runAction } from './run-action.js';
 
 interface ModesOptions {
@@ -69,6 +78,8 @@ async function modes(opts: ModesOptions): Promise<number> {
   const request = parseRequest(opts);
   const { stiffness, mass } = await readStiffnessAndMass(opts.stiffness, opts.mass);
   const n = stiffness.matrix.n;
+  const blocker = screenPencil(stiffness.summary, mass.summary, mass.matrix);
+  if (blocker) throw new InputError(blocker.file, `${blocker.reason}; the modes cannot be solved`);
   if (request.count !== undefined && request.count > n) {
     throw new InputError('--count', `asks for ${request.count} modes but the model has only ${n} DOFs`);
   }
@@ -84,7 +95,7 @@ async function modes(opts: ModesOptions): Promise<number> {
     request.coordinates = xyz;
   }
   request.onProgress = progressLine();
-  const result = solveModes(stiffness.matrix, mass.matrix, request);
+  const result = solveOrRefuse(stiffness.matrix, mass.matrix, request, opts.mass);
   if (process.stderr.isTTY) process.stderr.write('\r\x1b[K');
   process.stdout.write(formatModesTable(result));
   if (opts.json) await writeFileAtomic(opts.json, `${JSON.stringify(modesJson(result, opts), null, 2)}\n`);
@@ -94,7 +105,29 @@ async function modes(opts: ModesOptions): Promise<number> {
       gzip: opts.shapes.endsWith('.gz'),
     });
   }
-  return result.sturm.ok ? EXIT_PASS : EXIT_RULE_FAILED;
+  return verified(result) ? EXIT_PASS : EXIT_RULE_FAILED;
+}
+
+/** The solve; an M found indefinite on the way is bad input in the mass file. */
+function solveOrRefuse(stiffness: Parameters<typeof solveModes>[0], mass: Parameters<typeof solveModes>[1], request: ModesRequest, massFile: string): ModesResult {
+  try {
+    return solveModes(stiffness, mass, request);
+  } catch (e) {
+    if (e instanceof IndefiniteMassError) throw new InputError(massFile, e.message);
+    throw e;
+  }
+}
+
+/** Complete by the Sturm count and every eigenpair residual within the limit. */
+export function verified(r: ModesResult): boolean {
+  return r.sturm.ok && worstResidual(r) <= EIGENPAIR_RESIDUAL_LIMIT;
+}
+
+/** The largest eigenpair residual; NaN counts as the worst. */
+function worstResidual(r: ModesResult): number {
+  let worst = 0;
+  for (const x of r.residuals) if (!(x <= worst)) worst = Number.isNaN(x) ? Infinity : x;
+  return worst;
 }
 
 /** A throttled progress writer: only on a TTY, only after the solve has run about a second. */
@@ -127,8 +160,9 @@ export function formatModesTable(r: ModesResult): string {
   out += '\nverification\n';
   out += `  Sturm count at σ = ${num(s.shift, 10)}: ${s.countBelow} eigenvalue(s) below, ${s.modesReturned} mode(s) returned — ${s.ok ? 'complete' : 'NOT VERIFIED'}\n`;
   if (s.note) out += `  note: ${s.note}\n`;
-  const worst = r.residuals.length ? Math.max(...Array.from(r.residuals)) : 0;
-  out += `  largest relative residual ${worst.toExponential(2)}\n`;
+  const worst = worstResidual(r);
+  const residualVerdict = worst <= EIGENPAIR_RESIDUAL_LIMIT ? `within ${EIGENPAIR_RESIDUAL_LIMIT}` : `ABOVE ${EIGENPAIR_RESIDUAL_LIMIT}`;
+  out += `  largest ${EIGENPAIR_RESIDUAL_NAME}: ${worst.toExponential(2)}, ${residualVerdict}\n`;
   out += `  max |ΦᵀMΦ − I| ${r.orthogonality.massMaxDeviation.toExponential(2)},  max |ΦᵀKΦ − Λ| / |λ|max ${r.orthogonality.stiffnessMaxDeviation.toExponential(2)}\n`;
   out += `  ${r.method}, ${r.iterations} iteration(s), ${r.solves ?? 0} solves, ${r.shifts.length} factorization(s), ${(r.timings.totalMs / 1000).toFixed(2)} s\n`;
   for (const w of r.warnings) out += `  warning: ${w}\n`;
@@ -144,8 +178,11 @@ export function modesJson(r: ModesResult, opts: { stiffness: string; mass: strin
     method: r.method,
     eigenvalues: Array.from(r.eigenvalues),
     frequenciesHz: Array.from(r.frequenciesHz),
+    residualMeasure: EIGENPAIR_RESIDUAL_NAME,
     residuals: Array.from(r.residuals),
+    verified: verified(r),
     sturm: r.sturm,
+    ...(r.clusterExtension ? { clusterExtension: r.clusterExtension } : {}),
     orthogonality: r.orthogonality,
     shifts: r.shifts,
     iterations: r.iterations,
@@ -153,5 +190,6 @@ export function modesJson(r: ModesResult, opts: { stiffness: string; mass: strin
     timings: r.timings,
     factor: { ordering: r.factor.ordering, nnzL: r.factor.nnzL, factorBytes: r.factor.factorBytes },
     warnings: r.warnings,
+    diagnostics: r.diagnostics ?? [],
   };
 }

@@ -31,6 +31,26 @@
 import { svqbCoefficients } from '../dense/svqb.js';
 import { timesSmall, transposeTimes } from '../dense/block-ops.js';
 import { basisAddTimesSmall, basisOperand, basisTransposeTimes } from './shared-block-products.js';
+import { IndefiniteMassError } from './modes-types.js';
+
+/**
+ * |xᵀMx| ≤ ‖x‖‖Mx‖ (Cauchy–Schwarz) and the rounding of the product is about nε‖x‖‖Mx‖, so
+ * xᵀMx below −1e-8·‖x‖‖Mx‖ (ours: far past rounding for any n this tool meets) proves M is not
+ * positive semi-definite.
+ */
+const NEGATIVE_MASS_COSINE = 1e-8;
+
+function refuseNegativeMass(gjj: number, x: Float64Array, mx: Float64Array, j: number, n: number): void {
+  let xx = 0;
+  let mm = 0;
+  // ‖x_j‖², ‖Mx_j‖²
+  for (let r = j * n; r < (j + 1) * n; r++) {
+    xx += x[r] * x[r];
+    mm += mx[r] * mx[r];
+  }
+  const cosine = gjj / Math.sqrt(xx * mm);
+  if (cosine < -NEGATIVE_MASS_COSINE) throw new IndefiniteMassError(cosine);
+}
 
 /** An M-orthonormal block and its M-image MQ. */
 export interface MassBasis {
@@ -138,6 +158,7 @@ function onePass(
   // D = diag(G)^(−1/2), zero for dead columns (inside span(B), or M-null)
   for (let j = 0; j < k; j++) {
     const gjj = g[j + j * k];
+    if (gjj < 0) refuseNegativeMass(gjj, x, mx, j, n);
     const dead = !(gjj > deadTolerance * before[j]) || !(gjj > deadTolerance * maxBefore) || !(before[j] > 0);
     scale[j] = dead ? 0 : 1 / Math.sqrt(gjj);
   }

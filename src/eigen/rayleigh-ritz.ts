@@ -24,6 +24,8 @@ export interface RitzPairs {
   residualNorms: Float64Array;
   /** ‖K x_i‖₂. */
   stiffnessNorms: Float64Array;
+  /** |λ_i| ‖M x_i‖₂. */
+  inertiaNorms: Float64Array;
   /** ‖x_i‖₂. */
   vectorNorms: Float64Array;
 }
@@ -51,7 +53,7 @@ export function rayleighRitz(
   return { count: k, values, vectors: x, massVectors: mx, stiffnessVectors: kx, ...residualsOf(x, mx, kx, values, k, n) };
 }
 
-/** ‖Kx − λMx‖, ‖Kx‖, ‖x‖ per column. */
+/** ‖Kx − λMx‖, ‖Kx‖, |λ|‖Mx‖, ‖x‖ per column. */
 export function residualsOf(
   x: Float64Array,
   mx: Float64Array,
@@ -59,25 +61,29 @@ export function residualsOf(
   values: Float64Array,
   k: number,
   n: number,
-): { residualNorms: Float64Array; stiffnessNorms: Float64Array; vectorNorms: Float64Array } {
+): { residualNorms: Float64Array; stiffnessNorms: Float64Array; inertiaNorms: Float64Array; vectorNorms: Float64Array } {
   const residualNorms = new Float64Array(k);
   const stiffnessNorms = new Float64Array(k);
+  const inertiaNorms = new Float64Array(k);
   const vectorNorms = new Float64Array(k);
-  // per column: ‖Kx − λMx‖², ‖Kx‖², ‖x‖²
+  // per column: ‖Kx − λMx‖², ‖Kx‖², ‖Mx‖², ‖x‖²
   for (let j = 0; j < k; j++) {
     const lam = values[j];
     let rr = 0;
     let kk = 0;
+    let mm = 0;
     let xx = 0;
     for (let r = j * n; r < (j + 1) * n; r++) {
       const d = kx[r] - lam * mx[r];
       rr += d * d;
       kk += kx[r] * kx[r];
+      mm += mx[r] * mx[r];
       xx += x[r] * x[r];
     }
     residualNorms[j] = Math.sqrt(rr);
     stiffnessNorms[j] = Math.sqrt(kk);
+    inertiaNorms[j] = Math.abs(lam) * Math.sqrt(mm);
     vectorNorms[j] = Math.sqrt(xx);
   }
-  return { residualNorms, stiffnessNorms, vectorNorms };
+  return { residualNorms, stiffnessNorms, inertiaNorms, vectorNorms };
 }

@@ -9,7 +9,11 @@
  *   4. polish: one more step Φ ← (K − σM)⁻¹MΦ when M has massless DOFs (purifies the null(M)
  *      components, CRITERIA.md §8) or a residual is above 1e-11 (it sharpens them); then
  *      M-orthonormalize and a final Rayleigh–Ritz with K;
- *   5. verify: Sturm count in the gap after λ_N (or at the cutoff), residuals, orthogonality.
+ *   5. whole clusters: when λ_N is repeated (verification.ts, sameEigenvalue) and the count
+ *      ends inside its cluster, the rest of the cluster is solved for and returned too, and
+ *      `clusterExtension` says so — a count cannot prove "the lowest N" when λ_N = λ_{N+1};
+ *   6. verify: Sturm count in the gap after the last returned mode (or at the cutoff),
+ *      residuals, orthogonality.
  *
  * Whenever a shift meets a tiny pivot (it sits on an eigenvalue, or K − σM is singular) it is
  * moved and a warning says so.
@@ -17,14 +21,22 @@
 import { createShiftedSolver } from '../sparse/shifted-solver.js';
 import { symOneNorm, type SymmetricCsc } from '../sparse/csc.js';
 import type { FactorDiagnostics, ShiftedFactor, ShiftedSolver } from '../sparse/factor-types.js';
-import { frequencyHzFromEigenvalue, eigenvalueFromFrequencyHz, type ModesRequest, type ModesResult, type SturmCheck } from './modes-types.js';
+import {
+  frequencyHzFromEigenvalue,
+  eigenvalueFromFrequencyHz,
+  type ClusterExtension,
+  type ModesRequest,
+  type ModesResult,
+  type SturmCheck,
+} from './modes-types.js';
 import { createShiftInvertOperator, massRankBound, type ShiftInvertOperator } from './shift-invert-operator.js';
 import { blockLanczos } from './block-lanczos.js';
 import { subspaceIteration } from './subspace-iteration.js';
 import { mOrthonormalize } from './m-orthonormalize.js';
 import { rayleighRitz } from './rayleigh-ritz.js';
-import { checkShapes, placeSturmShift } from './verification.js';
-import { diagonalScale, firstShiftGuess, judgeShift, type DiagonalScale } from './shift-placement.js';
+import { EIGENPAIR_RESIDUAL_LIMIT } from './residual-measure.js';
+import { checkShapes, CLUSTER_RELATIVE_TOLERANCE, placeSturmShift } from './verification.js';
+import { diagonalScale, firstShiftGuess, judgeShift, RIGID_BODY_FRACTION, type DiagonalScale } from './shift-placement.js';
 import type { EigenSearch, EigenSearchResult } from './search-types.js';
 
 /** The method used when the request names none (block Lanczos: fewer solves in test/bench/modes-bench.ts). */
@@ -53,12 +65,15 @@ export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request:
   if (request.count === undefined && request.maxHz === undefined) throw new RangeError('ask for a mode count or a cutoff frequency');
   const method = request.method ?? DEFAULT_METHOD;
   const warnings: string[] = [];
+  const diagnostics: string[] = [];
   const clock: Clock = { factorMs: 0, iterateMs: 0, verifyMs: 0 };
   const shifts: number[] = [];
   const solver = createShiftedSolver(stiffness, mass, { coordinates: request.coordinates });
   const scale = diagonalScale(stiffness, mass);
   const stiffnessNorm = symOneNorm(stiffness);
   const rankM = massRankBound(mass);
+  // |λ| at or below this is a rigid-body (zero) eigenvalue for cluster purposes
+  const zero = RIGID_BODY_FRACTION * scale.maxRatio;
   const factorAt = (sigma: number) => factorWithMove(solver, sigma, scale, warnings, shifts, clock);
 
   let cutoff: { factor: ShiftedFactor; count: number } | undefined;
@@ -75,32 +90,50 @@ export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request:
     wanted = rankM;
   }
   if (wanted === 0) {
-    return emptyResult(n, method, cutoff, shifts, warnings, clock, start, solver);
+    return emptyResult(n, method, cutoff, shifts, warnings, diagnostics, clock, start, solver);
   }
   const firstChunk = Math.min(wanted, SLICE_SIZE);
   const solveAll = (): Solved => {
-    const lowest = solveAtGoodShift(stiffness, mass, solver, factorAt, scale, stiffnessNorm, rankM, firstChunk, method, request, warnings, clock);
-    return wanted > firstChunk ? sliceOnward(stiffness, mass, lowest, wanted, factorAt, stiffnessNorm, rankM, method, request, warnings, clock) : lowest;
+    const lowest = solveAtGoodShift(stiffness, mass, solver, factorAt, scale, stiffnessNorm, rankM, firstChunk, method, request, warnings, diagnostics, clock);
+    return wanted > firstChunk ? slice(lowest, wanted) : lowest;
   };
+  const slice = (from: Solved, upTo: number): Solved =>
+    sliceOnward(stiffness, mass, from, upTo, factorAt, stiffnessNorm, rankM, zero, method, request, warnings, clock);
+  let whole = solveAll();
+  let clusterExtension: ClusterExtension | undefined;
+  if (!cutoff) {
+    const extended = wholeCluster(whole, wanted, rankM, zero, slice);
+    whole = extended.solved;
+    clusterExtension = extended.extension;
+  }
   // the iteration's factor is let go here, before the Sturm check allocates another one
-  const { found: solved, diagnostics: factorDiagnostics } = withoutFactor(solveAll());
+  const { found: solved, diagnostics: factorDiagnostics } = withoutFactor(whole);
   const t0 = performance.now();
   const factorBefore = clock.factorMs;
   const checks = checkShapes(stiffness, mass, solved.values, solved.vectors, stiffnessNorm);
   const sturm = cutoff
     ? cutoffSturm(cutoff.factor, solved.values, warnings)
-    : gapSturm(solved, factorAt, warnings);
+    : gapSturm(solved, factorAt, zero, clusterExtension, warnings);
   clock.verifyMs += performance.now() - t0 - (clock.factorMs - factorBefore);
+  const shortfall = incompleteness(solved.values, wanted, sturm.shift);
+  if (shortfall) {
+    // fewer modes than exist, or numbers that are not numbers, are never "complete"
+    sturm.ok = false;
+    sturm.note = sturm.note ? `${sturm.note}; ${shortfall}` : shortfall;
+    warnings.push(shortfall);
+  }
   if (!solved.converged) warnings.push(...solved.warnings);
   else warnings.push(...solved.warnings.filter((w) => !w.includes('stopped')));
   const worst = Math.max(0, ...Array.from(checks.residuals));
-  if (worst > 1e-8) warnings.push(`largest relative residual ${worst.toExponential(2)} is above 1e-8`);
+  if (!(worst <= EIGENPAIR_RESIDUAL_LIMIT)) warnings.push(`largest eigenpair residual ${worst.toExponential(2)} is above ${EIGENPAIR_RESIDUAL_LIMIT}`);
   return {
     n,
     eigenvalues: solved.values,
     frequenciesHz: Float64Array.from(solved.values, frequencyHzFromEigenvalue),
     shapes: solved.vectors,
     residuals: checks.residuals,
+    projections: checks.projections,
+    ...(clusterExtension ? { clusterExtension } : {}),
     sturm,
     orthogonality: checks.orthogonality,
     method,
@@ -109,6 +142,7 @@ export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request:
     timings: { totalMs: performance.now() - start, factorMs: clock.factorMs, iterateMs: clock.iterateMs, verifyMs: Math.max(0, clock.verifyMs) },
     factor: factorDiagnostics,
     warnings,
+    diagnostics,
     solves: solved.solves,
     rankMassBound: rankM,
   };
@@ -137,6 +171,7 @@ function solveAtGoodShift(
   method: 'lanczos' | 'subspace',
   request: ModesRequest,
   warnings: string[],
+  diagnostics: string[],
   clock: Clock,
 ): Solved {
   let sigma = firstShiftGuess(scale);
@@ -164,7 +199,8 @@ function solveAtGoodShift(
   let result = first;
   let solves = op.counts.solves;
   if (first.abandoned) {
-    warnings.push(`shift ${sigma.toPrecision(3)} was badly placed for this spectrum; solved again at ${better.toPrecision(3)}`);
+    // the solve's own course, not a problem of the model: kept out of the warnings
+    diagnostics.push(`shift ${sigma.toPrecision(3)} was badly placed for this spectrum; solved again at ${better.toPrecision(3)}`);
     factor.release();
     factor = belowEverything(factorAt, better, warnings);
     op = createShiftInvertOperator(stiffness, mass, factor);
@@ -195,6 +231,7 @@ function sliceOnward(
   factorAt: (sigma: number) => ShiftedFactor,
   stiffnessNorm: number,
   rankM: number,
+  zero: number,
   method: 'lanczos' | 'subspace',
   request: ModesRequest,
   warnings: string[],
@@ -211,11 +248,12 @@ function sliceOnward(
   const notes: string[] = [...first.warnings];
   // one slice per pass until every wanted mode is found
   while (values.length < wanted) {
-    const placement = placeSturmShift(Float64Array.from(values), beyond);
+    const placement = placeSturmShift(Float64Array.from(values), beyond, zero);
     factor.release();
     factor = factorAt(placement.shift);
-    if (factor.inertia.negative !== values.length) {
-      warnings.push(`slice check: ${factor.inertia.negative} eigenvalues below ${factor.shift.toPrecision(8)} but ${values.length} found`);
+    // the shift lies past a cluster that straddles the slice's end: its rest is expected below
+    if (factor.inertia.negative !== placement.expectedBelow) {
+      warnings.push(`slice check: ${factor.inertia.negative} eigenvalues below ${factor.shift.toPrecision(8)} but ${placement.expectedBelow} expected`);
     }
     const op = createShiftInvertOperator(stiffness, mass, factor);
     const count = Math.min(SLICE_SIZE, wanted - values.length);
@@ -240,6 +278,33 @@ function sliceOnward(
     notes.push(...r.warnings);
   }
   return { values: Float64Array.from(values), vectors, beyond, iterations, converged, warnings: notes, factor, solves };
+}
+
+/**
+ * When the estimates beyond λ_N coincide with it (the count ends inside a cluster), solve for
+ * the rest of the cluster with one more slice past it and return those modes too (at most three
+ * rounds, for a cluster larger than the estimates first showed).
+ */
+function wholeCluster(
+  solved: Solved,
+  requested: number,
+  rankM: number,
+  zero: number,
+  slice: (from: Solved, upTo: number) => Solved,
+): { solved: Solved; extension?: ClusterExtension } {
+  const eigenvalue = solved.values[requested - 1];
+  // add the cluster's rest until the estimates past the last mode no longer coincide with it
+  for (let round = 0; round < 3; round++) {
+    const rest = placeSturmShift(solved.values, solved.beyond, zero).clusterRest;
+    const target = Math.min(rankM, solved.values.length + rest);
+    if (rest === 0 || target <= solved.values.length) break;
+    const before = solved.values.length;
+    solved = slice(solved, target);
+    if (solved.values.length === before) break;
+  }
+  if (solved.values.length <= requested || eigenvalue === undefined) return { solved };
+  const rigidBody = Math.abs(eigenvalue) <= zero;
+  return { solved, extension: { requested, returned: solved.values.length, eigenvalue, relativeTolerance: CLUSTER_RELATIVE_TOLERANCE, rigidBody } };
 }
 
 /** Found pairs plus a new slice's pairs, ascending. */
@@ -324,9 +389,16 @@ function withoutFactor(s: Solved): { found: Omit<Solved, 'factor'>; diagnostics:
 }
 
 /** Sturm count in the gap after λ_N; if it comes out high, once more closer to λ_N. */
-function gapSturm(solved: Omit<Solved, 'factor'>, factorAt: (sigma: number) => ShiftedFactor, warnings: string[]): SturmCheck & { note?: string } {
+function gapSturm(
+  solved: Omit<Solved, 'factor'>,
+  factorAt: (sigma: number) => ShiftedFactor,
+  zero: number,
+  extension: ClusterExtension | undefined,
+  warnings: string[],
+): SturmCheck {
   const count = solved.values.length;
-  const placement = placeSturmShift(solved.values, solved.beyond);
+  if (count === 0) return { shift: NaN, countBelow: 0, modesReturned: 0, ok: false };
+  const placement = placeSturmShift(solved.values, solved.beyond, zero);
   let f = factorAt(placement.shift);
   f.release();
   const last = solved.values[count - 1];
@@ -337,16 +409,43 @@ function gapSturm(solved: Omit<Solved, 'factor'>, factorAt: (sigma: number) => S
       f.release();
     }
   }
-  const ok = f.inertia.negative === placement.expectedBelow;
-  if (placement.note) warnings.push(placement.note);
+  // complete means: the count equals the modes returned (the same test as the modes-complete rule)
+  const ok = f.inertia.negative === count;
+  const notes: string[] = [];
+  if (extension) notes.push(clusterNote(extension));
+  if (placement.clusterRest > 0) {
+    notes.push(`the cluster at mode ${count} continues past the modes returned: ${placement.clusterRest} more estimate(s) equal to λ_${count} could not be returned`);
+  }
   if (!ok) {
     warnings.push(
-      f.inertia.negative > placement.expectedBelow
-        ? `Sturm count ${f.inertia.negative} at ${f.shift.toPrecision(8)} exceeds the ${placement.expectedBelow} eigenvalues found below it: ${f.inertia.negative - placement.expectedBelow} mode(s) were missed`
-        : `Sturm count ${f.inertia.negative} at ${f.shift.toPrecision(8)} is below the ${placement.expectedBelow} eigenvalues found below it`,
+      f.inertia.negative > count
+        ? `Sturm count ${f.inertia.negative} at ${f.shift.toPrecision(8)} exceeds the ${count} modes returned below it: ${f.inertia.negative - count} mode(s) were missed`
+        : `Sturm count ${f.inertia.negative} at ${f.shift.toPrecision(8)} is below the ${count} modes returned below it`,
     );
   }
-  return { shift: f.shift, countBelow: f.inertia.negative, modesReturned: count, ok, ...(placement.note ? { note: placement.note } : {}) };
+  return { shift: f.shift, countBelow: f.inertia.negative, modesReturned: count, ok, ...(notes.length ? { note: notes.join('; ') } : {}) };
+}
+
+/** One sentence for a cluster extension (shown by `modes` and in the reports' Sturm note). */
+export function clusterNote(e: ClusterExtension): string {
+  const extra = e.returned - e.requested;
+  const hz = frequencyHzFromEigenvalue(e.eigenvalue);
+  const what = e.rigidBody
+    ? `mode ${e.requested} is a rigid-body (zero) mode, so ${extra} more rigid-body mode(s) were returned`
+    : `mode ${e.requested} (${Number(hz.toPrecision(6))} Hz) is repeated, so ${extra} more mode(s) equal to it (relative ${e.relativeTolerance}) were returned`;
+  return `${e.requested} mode(s) requested; ${what} to complete the cluster: ${e.returned} modes`;
+}
+
+/**
+ * Why a solution cannot be complete whatever the Sturm count says: fewer modes than asked (the
+ * request was already capped at the finite eigenvalues M allows), a non-finite eigenvalue, or
+ * a non-finite Sturm shift. Null when none applies.
+ */
+export function incompleteness(values: Float64Array, wanted: number, shift: number): string | null {
+  if (values.length < wanted) return `only ${values.length} of ${wanted} modes were found`;
+  if (values.some((v) => !Number.isFinite(v))) return 'the solve produced non-finite eigenvalues';
+  if (!Number.isFinite(shift)) return 'the Sturm check shift is not a finite number';
+  return null;
 }
 
 /** Cutoff mode: the count at the cutoff must equal the modes returned, all of them below it. */
@@ -363,6 +462,7 @@ function emptyResult(
   cutoff: { factor: ShiftedFactor; count: number } | undefined,
   shifts: number[],
   warnings: string[],
+  diagnostics: string[],
   clock: Clock,
   start: number,
   solver: ShiftedSolver,
@@ -382,6 +482,7 @@ function emptyResult(
     timings: { totalMs: performance.now() - start, factorMs: clock.factorMs, iterateMs: 0, verifyMs: 0 },
     factor: factor.diagnostics,
     warnings,
+    diagnostics,
     solves: 0,
     rankMassBound: 0,
   };

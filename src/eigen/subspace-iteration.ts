@@ -108,7 +108,7 @@ export function relativeResiduals(ritz: RitzPairs, stiffnessNorm: number, _n: nu
   const out = new Float64Array(ritz.count);
   // ρ_i per residual-measure.ts
   for (let i = 0; i < ritz.count; i++) {
-    out[i] = relativeResidual(ritz.residualNorms[i], ritz.stiffnessNorms[i], ritz.vectorNorms[i], stiffnessNorm);
+    out[i] = relativeResidual(ritz.residualNorms[i], ritz.stiffnessNorms[i], ritz.inertiaNorms[i], ritz.vectorNorms[i], stiffnessNorm);
   }
   return out;
 }

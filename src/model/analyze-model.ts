@@ -15,7 +15,8 @@ import type { DofMap } from '../io/dof-map.js';
 import { readStiffnessAndMass } from '../io/matrix-market-reader.js';
 import { readDofMap } from '../io/dof-map-reader.js';
 import { solveModes } from '../eigen/solve-modes.js';
-import type { ModesRequest, ModesResult } from '../eigen/modes-types.js';
+import { IndefiniteMassError, type ModesRequest, type ModesResult } from '../eigen/modes-types.js';
+import { screenPencil } from './screen-pencil.js';
 import { fullNonzeros, type SymmetricCsc } from '../sparse/csc.js';
 import type { MatrixSummary } from './matrix-summary.js';
 import type { RuleContext } from '../rules/rule-types.js';
@@ -58,8 +59,8 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
       keptDofs: constrained.reduced?.keptDofs,
     };
     const unavailable: UnavailableInputs = {};
-    const blocker = screeningBlocker(input.stiffnessSummary, input.massSummary);
-    if (blocker) unavailable.modes = { status: 'error', reason: `not evaluated: the modes were not solved because ${blocker}.` };
+    const blocker = screenPencil(input.stiffnessSummary, input.massSummary, input.mass);
+    if (blocker) unavailable.modes = { status: 'error', reason: `not evaluated: the modes were not solved because ${blocker.file}: ${blocker.reason}.` };
     else solveInto(context, job, constrained.dofMap, unavailable, report, options);
     // geometry facts (rigid-body energy, mass properties, participation, mechanisms) need the DOF map
     const geometry = runGeometryStep(job, context, constrained);
@@ -98,14 +99,6 @@ async function readModelInput(job: ModelJob): Promise<ModelInput> {
   return input;
 }
 
-/** Why solving would be meaningless, or null. Matrix rules still run and say what is wrong. */
-function screeningBlocker(k: MatrixSummary, m: MatrixSummary): string | null {
-  if (k.nonFiniteCount > 0 || m.nonFiniteCount > 0) return 'K or M has non-finite entries';
-  if (m.negativeDiagonalCount > 0) return 'M has negative diagonal entries (it cannot be positive semi-definite)';
-  if (m.zeroDiagonalCount === m.n) return 'M is zero on every diagonal';
-  return null;
-}
-
 function solveInto(context: RuleContext, job: ModelJob, dofMap: DofMap | undefined, unavailable: UnavailableInputs, report: ModelReport, options: AnalyzeOptions): void {
   const request: ModesRequest = { ...job.solve, onProgress: options.onProgress };
   if (dofMap) request.coordinates = interleavedCoordinates(dofMap);
@@ -113,7 +106,7 @@ function solveInto(context: RuleContext, job: ModelJob, dofMap: DofMap | undefin
   try {
     modes = solveModes(context.stiffness, context.mass, request);
   } catch (e) {
-    const why = e instanceof InputError ? e.reason : oneLineMessage(e);
+    const why = e instanceof InputError ? e.reason : e instanceof IndefiniteMassError ? `${job.massPath}: ${e.message}` : oneLineMessage(e);
     unavailable.modes = { status: 'error', reason: `not evaluated: the eigensolver stopped: ${why}` };
     return;
   }
@@ -148,6 +141,8 @@ function solveReport(modes: ModesResult, job: ModelJob): SolveReport {
     massOrthogonality: modes.orthogonality.massMaxDeviation,
     stiffnessOrthogonality: modes.orthogonality.stiffnessMaxDeviation,
     warnings: modes.warnings,
+    ...(modes.diagnostics?.length ? { diagnostics: modes.diagnostics } : {}),
+    ...(modes.clusterExtension ? { clusterExtension: modes.clusterExtension } : {}),
   };
 }
 

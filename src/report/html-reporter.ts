@@ -87,7 +87,7 @@ function keyFacts(m: ModelReport): string[][] {
     const req = [s.requested.count !== undefined ? `${s.requested.count} modes` : '', s.requested.maxHz !== undefined ? `up to ${s.requested.maxHz} Hz` : ''].filter(Boolean).join(', ');
     f.push(['method', `${s.method}, ordering ${s.ordering}, ${s.shifts.length} shift(s), ${s.iterations} iteration(s)`]);
     f.push(['modes', `${s.modesReturned} returned${req ? ` (asked: ${req})` : ''}`]);
-    const sturm = `${s.sturm.ok ? 'ok' : 'NOT OK'}: ${s.sturm.countBelow} eigenvalues below σ = ${formatNumber(s.sturm.shift)}, ${s.sturm.modesReturned} modes returned`;
+    const sturm = `${s.sturm.ok ? 'ok' : 'NOT OK'}: ${s.sturm.countBelow} eigenvalues below σ = ${formatNumber(s.sturm.shift)}, ${s.sturm.modesReturned} modes returned${s.sturm.note ? ` (${s.sturm.note})` : ''}`;
     f.push(['Sturm check', sturm]);
     f.push(['factor', `${s.factorNonzeros} nonzeros, largest diagonal/pivot ratio ${formatNumber(s.maxDiagonalToPivotRatio)}`]);
     f.push(['solve time', `${formatNumber(s.timings.totalMs / 1000)} s`]);
@@ -229,7 +229,7 @@ function residualPlot(m: ModelReport): Figure | null {
   const lines = limit !== undefined ? [{ value: limit, label: `limit ${formatNumber(limit)}` }] : [];
   const svg = stemChart({ title: fromRule ? 'Relative residual per mode' : 'Solver residual per mode', yLabel: 'residual', modes: residuals.length, values, y, lines, stems: false, floorLabel: 'exactly 0' });
   const notFinite = residuals.filter((r) => !Number.isFinite(r)).length;
-  const what = fromRule ? 'Relative residual ‖Kφ − λMφ‖ / ((‖K‖ + |λ|‖M‖)‖φ‖) of each mode, as eigen-residual measured it' : 'Residual of each mode as the solver reported it (eigen-residual did not run)';
+  const what = fromRule ? 'Eigenpair residual ‖Kφ − λMφ‖ / (‖Kφ‖ + |λ|‖Mφ‖) of each mode (rigid-body floor), as eigen-residual read it' : 'Residual of each mode as the solver reported it (eigen-residual did not run)';
   const parts = [what];
   if (limit !== undefined) parts.push(`dashed: its limit ${formatNumber(limit)}`);
   if (notFinite > 0) parts.push(`${notFinite} residual(s) not finite, not drawn`);

@@ -3,7 +3,7 @@
  * already computed (by src/model and src/rules); reporters only format it.
  */
 import type { RuleResult } from '../rules/engine.js';
-import type { SturmCheck } from '../eigen/modes-types.js';
+import type { ClusterExtension, SturmCheck } from '../eigen/modes-types.js';
 
 export const CAUTION =
   'modalgate screens models and does not certify structures: its results support, never replace, review by a qualified engineer under the applicable codes.';
@@ -52,6 +52,10 @@ export interface SolveReport {
   massOrthogonality: number;
   stiffnessOrthogonality: number;
   warnings: string[];
+  /** The solve's own course (e.g. a shift abandoned and the solve restarted): detail, not warnings. */
+  diagnostics?: string[];
+  /** The count ended inside a cluster of equal eigenvalues and the whole cluster was returned. */
+  clusterExtension?: ClusterExtension;
 }
 
 export interface ModeRow {

@@ -1,15 +1,16 @@
 /**
- * Products of the solved mode shapes with K and M, shared by the verification rules:
+ * The verification figures of the solved modes, shared by the verification rules:
  *   P_M = Φᵀ M Φ   (should be I for mass-normalized, M-orthogonal modes),
  *   P_K = Φᵀ K Φ   (should be Λ = diag(λ)),
- *   r_i = ‖K φ_i − λ_i M φ_i‖₂ / ((‖K‖₁ + |λ_i| ‖M‖₁) ‖φ_i‖₂)   per mode.
- * The residual form follows the LAPACK test ratio (CRITERIA.md §6, [C] form, [CP] limit). The
- * norms ‖·‖₁ are the largest column sums of |A| (equal to ‖·‖∞ for symmetric A). Computed once
- * per ModesResult and cached, so the rules that read them stay cheap and pure.
+ *   ρ_i           the eigenpair residual of each mode (src/eigen/residual-measure.ts).
+ * They are formed once, by the solver's verification (src/eigen/verification.ts), and carried in
+ * the ModesResult; the rules read them from there, so `modes`, the rules and the reports show the
+ * same numbers. A result made without the verification (a hand-made or loaded one) gets them
+ * from the same function here, once, cached per result.
  */
-import { symMultiplyBlock, symOneNorm, type SymmetricCsc } from '../sparse/csc.js';
-import { transposeTimes } from '../dense/block-ops.js';
+import { symOneNorm, type SymmetricCsc } from '../sparse/csc.js';
 import type { ModesResult } from '../eigen/modes-types.js';
+import { checkShapes } from '../eigen/verification.js';
 
 export interface ModalProducts {
   modes: number;
@@ -17,7 +18,7 @@ export interface ModalProducts {
   massProjected: Float64Array;
   /** Φᵀ K Φ, column-major modes × modes. */
   stiffnessProjected: Float64Array;
-  /** Relative residual per mode (form above). */
+  /** Eigenpair residual per mode (residual-measure.ts). */
   relativeResiduals: Float64Array;
 }
 
@@ -26,30 +27,14 @@ const cache = new WeakMap<ModesResult, ModalProducts>();
 export function modalProducts(stiffness: SymmetricCsc, mass: SymmetricCsc, modes: ModesResult): ModalProducts {
   const hit = cache.get(modes);
   if (hit) return hit;
-  const n = modes.n;
   const m = modes.eigenvalues.length;
-  const phi = modes.shapes;
-  const kPhi = symMultiplyBlock(stiffness, phi, m);
-  const mPhi = symMultiplyBlock(mass, phi, m);
-  const massProjected = transposeTimes(phi, mPhi, n, m, m);
-  const stiffnessProjected = transposeTimes(phi, kPhi, n, m, m);
-  const normK = symOneNorm(stiffness);
-  const normM = symOneNorm(mass);
-  const relativeResiduals = new Float64Array(m);
-  // r_i = ‖Kφ_i − λ_i Mφ_i‖ / ((‖K‖ + |λ_i|‖M‖)‖φ_i‖)
-  for (let i = 0; i < m; i++) {
-    const lambda = modes.eigenvalues[i];
-    let rr = 0;
-    let pp = 0;
-    for (let r = 0, o = i * n; r < n; r++, o++) {
-      const d = kPhi[o] - lambda * mPhi[o];
-      rr += d * d;
-      pp += phi[o] * phi[o];
-    }
-    const scale = (normK + Math.abs(lambda) * normM) * Math.sqrt(pp);
-    relativeResiduals[i] = scale > 0 ? Math.sqrt(rr) / scale : Math.sqrt(rr);
+  let products: ModalProducts;
+  if (modes.projections && modes.projections.mass.length === m * m && modes.residuals.length === m) {
+    products = { modes: m, massProjected: modes.projections.mass, stiffnessProjected: modes.projections.stiffness, relativeResiduals: modes.residuals };
+  } else {
+    const checks = checkShapes(stiffness, mass, modes.eigenvalues, modes.shapes, symOneNorm(stiffness));
+    products = { modes: m, massProjected: checks.projections.mass, stiffnessProjected: checks.projections.stiffness, relativeResiduals: checks.residuals };
   }
-  const products = { modes: m, massProjected, stiffnessProjected, relativeResiduals };
   cache.set(modes, products);
   return products;
 }

@@ -3,12 +3,22 @@
  * inertia the negative pivots of LDLᵀ(K − σM) equal the eigenvalues below σ (Bai et al.,
  * Templates §4, [C] CRITERIA.md §3); with σ just above the last returned mode the count must
  * equal the number of modes returned.
+ *
+ * When the requested count ends inside a cluster of equal eigenvalues (a square tube's bending
+ * pair, a symmetric tower, the six rigid-body modes) no σ separates "the lowest N": the solver
+ * returns the whole cluster (ModesResult.clusterExtension) and the count past it must equal the
+ * modes returned, which this rule checks and its message says. The test is the solver's own
+ * (SturmCheck.ok), so `modalgate modes` and this rule agree.
  */
 import type { RuleDefinition } from './rule-types.js';
 import { outcome } from './outcome.js';
 
 const messages = {
   pass: 'Sturm count at σ = {{shift}} is {{countBelow}}, equal to the {{returned}} modes returned: no mode was missed.',
+  passCluster:
+    'Sturm count at σ = {{shift}} is {{countBelow}}, equal to the {{returned}} modes returned: no mode was missed ({{requested}} requested; mode {{requested}} at {{hz}} Hz is repeated, so {{added}} more mode(s) of its cluster were returned).',
+  passRigidBody:
+    'Sturm count at σ = {{shift}} is {{countBelow}}, equal to the {{returned}} modes returned: no mode was missed ({{requested}} requested; mode {{requested}} is a rigid-body mode, so {{added}} more rigid-body mode(s) were returned).',
   missed:
     'Sturm count at σ = {{shift}} is {{countBelow}} but {{returned}} modes were returned: {{difference}} mode(s) below the last returned mode were missed.',
   extra: 'Sturm count at σ = {{shift}} is {{countBelow}} but {{returned}} modes were returned: the solver returned modes it cannot account for.',
@@ -23,12 +33,23 @@ export const modesComplete: RuleDefinition<Record<string, never>> = {
   messages,
   needs: ['modes'],
   evaluate(context) {
-    const s = context.modes!.sturm;
-    const values = { shift: s.shift, countBelow: s.countBelow, returned: s.modesReturned, difference: s.countBelow - s.modesReturned };
-    const details = { shift: s.shift, countBelow: s.countBelow, modesReturned: s.modesReturned };
+    const modes = context.modes!;
+    const s = modes.sturm;
+    const c = modes.clusterExtension;
+    const values = {
+      shift: s.shift,
+      countBelow: s.countBelow,
+      returned: s.modesReturned,
+      difference: s.countBelow - s.modesReturned,
+      requested: c?.requested,
+      added: c ? c.returned - c.requested : 0,
+      hz: c ? modes.frequenciesHz[c.requested - 1] : undefined,
+    };
+    const details = { shift: s.shift, countBelow: s.countBelow, modesReturned: s.modesReturned, ...(c ? { clusterExtension: c } : {}) };
     if (s.countBelow > s.modesReturned) return outcome('fail', messages.missed, values, s.countBelow, s.modesReturned, details);
     if (s.countBelow < s.modesReturned) return outcome('fail', messages.extra, values, s.countBelow, s.modesReturned, details);
     if (!s.ok) return outcome('fail', messages.notOk, values, s.countBelow, s.modesReturned, details);
-    return outcome('pass', messages.pass, values, s.countBelow, s.modesReturned, details);
+    const pass = !c ? messages.pass : c.rigidBody ? messages.passRigidBody : messages.passCluster;
+    return outcome('pass', pass, values, s.countBelow, s.modesReturned, details);
   },
 };
