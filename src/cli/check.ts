@@ -21,6 +21,7 @@ import { formatMarkdown } from '../report/markdown.js';
 import { formatHtml } from '../report/html-reporter.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, runAction } from './run-action.js';
 import { ModelRunner, type RunningModel } from './model-runner.js';
+import { DEFAULT_MEMORY_SHARE, defaultMemoryLimitBytes, parseMemorySize, parseSeconds } from './limits.js';
 
 /** Exit codes after SIGINT and SIGTERM (128 + the signal's number, the shells' convention). */
 export const EXIT_INTERRUPTED: Record<'SIGINT' | 'SIGTERM', number> = { SIGINT: 130, SIGTERM: 143 };
@@ -49,6 +50,8 @@ export interface CheckOptions {
   printError?: (line: string) => void;
   /** Wall-clock limit per model, seconds (--time-limit); a model over it becomes a JUnit <error>. */
   timeLimit?: number;
+  /** Bytes a model's solve may be predicted to need (--max-memory); above it the model is an <error>. */
+  maxMemory?: number;
   /** Answer SIGINT/SIGTERM: stop the model, write the reports with an <error>, exit 130/143. */
   handleSignals?: boolean;
 }
@@ -74,13 +77,8 @@ export function registerCheck(program: Command): void {
     .option('--markdown-all', 'Markdown: list every mode of the baseline comparison, not only the flagged ones')
     .option('-q, --quiet', 'print only failures, errors and the verdict')
     .option('--time-limit <seconds>', 'stop a model that runs longer than this (it becomes an <error>; the other models go on)', parseSeconds)
-    .action(runAction(async (opts: CheckOptions) => (await runCheck({ ...opts, handleSignals: true })).code));
-}
-
-function parseSeconds(value: string): number {
-  const v = Number(value);
-  if (!Number.isFinite(v) || v <= 0) throw new InputError('--time-limit', `"${value}" is not a positive number of seconds`);
-  return v;
+    .option('--max-memory <size>', `refuse a model whose solve is predicted to need more memory (e.g. 6G; default ${DEFAULT_MEMORY_SHARE * 100} % of this machine's)`, parseMemorySize)
+    .action(runAction(async (opts: CheckOptions) => (await runCheck({ ...opts, handleSignals: true, maxMemory: opts.maxMemory ?? defaultMemoryLimitBytes() })).code));
 }
 
 export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
@@ -88,7 +86,7 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   const started = new Date();
   const t0 = performance.now();
   const cliPaths = { junit: opts.junit ? resolve(cwd, opts.junit) : undefined, json: opts.json ? resolve(cwd, opts.json) : undefined, markdown: opts.markdown ? resolve(cwd, opts.markdown) : undefined, html: opts.html ? resolve(cwd, opts.html) : undefined };
-  const baselineDirs = { baselineDir: opts.baseline ? resolve(cwd, opts.baseline) : undefined, saveBaselineDir: opts.saveBaseline ? resolve(cwd, opts.saveBaseline) : undefined };
+  const baselineDirs = { baselineDir: opts.baseline ? resolve(cwd, opts.baseline) : undefined, saveBaselineDir: opts.saveBaseline ? resolve(cwd, opts.saveBaseline) : undefined, memoryLimitBytes: opts.maxMemory };
   let configPath: string | undefined;
   let config: LoadedConfig | undefined;
   let problem: ProblemReport | undefined;

@@ -23,6 +23,8 @@ import { solveModes } from '../eigen/solve-modes.js';
 import { EIGENPAIR_RESIDUAL_LIMIT, EIGENPAIR_RESIDUAL_NAME } from '../eigen/residual-measure.js';
 import { screenPencil } from '../model/screen-pencil.js';
 import { EXIT_PASS, EXIT_RULE_FAILED, runAction } from './run-action.js';
+import { MemoryLimitError } from '../sparse/memory-limit.js';
+import { DEFAULT_MEMORY_SHARE, defaultMemoryLimitBytes, parseMemorySize } from './limits.js';
 
 interface ModesOptions {
   stiffness: string;
@@ -33,6 +35,7 @@ interface ModesOptions {
   dofs?: string;
   json?: string;
   shapes?: string;
+  maxMemory?: number;
 }
 
 export function registerModes(program: Command): void {
@@ -47,6 +50,7 @@ export function registerModes(program: Command): void {
     .option('--dofs <file>', 'DOF map CSV (dof,node,component,x,y,z); its coordinates guide the ordering')
     .option('--json <file>', 'write eigenvalues, frequencies, residuals and checks as JSON')
     .option('--shapes <file>', 'write the mass-normalized mode shapes as a Matrix Market array')
+    .option('--max-memory <size>', `refuse a solve predicted to need more memory (e.g. 6G; default ${DEFAULT_MEMORY_SHARE * 100} % of this machine's)`, parseMemorySize)
     .action(runAction(modes));
 }
 
@@ -76,6 +80,7 @@ function parseRequest(opts: ModesOptions): ModesRequest {
 
 async function modes(opts: ModesOptions): Promise<number> {
   const request = parseRequest(opts);
+  request.memoryLimitBytes = opts.maxMemory ?? defaultMemoryLimitBytes();
   const { stiffness, mass } = await readStiffnessAndMass(opts.stiffness, opts.mass);
   const n = stiffness.matrix.n;
   const blocker = screenPencil(stiffness.summary, mass.summary, mass.matrix);
@@ -95,7 +100,7 @@ async function modes(opts: ModesOptions): Promise<number> {
     request.coordinates = xyz;
   }
   request.onProgress = progressLine();
-  const result = solveOrRefuse(stiffness.matrix, mass.matrix, request, opts.mass);
+  const result = solveOrRefuse(stiffness.matrix, mass.matrix, request, opts.stiffness, opts.mass);
   if (process.stderr.isTTY) process.stderr.write('\r\x1b[K');
   process.stdout.write(formatModesTable(result));
   if (opts.json) await writeFileAtomic(opts.json, `${JSON.stringify(modesJson(result, opts), null, 2)}\n`);
@@ -109,11 +114,13 @@ async function modes(opts: ModesOptions): Promise<number> {
 }
 
 /** The solve; an M found indefinite on the way is bad input in the mass file. */
-function solveOrRefuse(stiffness: Parameters<typeof solveModes>[0], mass: Parameters<typeof solveModes>[1], request: ModesRequest, massFile: string): ModesResult {
+function solveOrRefuse(stiffness: Parameters<typeof solveModes>[0], mass: Parameters<typeof solveModes>[1], request: ModesRequest, stiffnessFile: string, massFile: string): ModesResult {
   try {
     return solveModes(stiffness, mass, request);
   } catch (e) {
     if (e instanceof IndefiniteMassError) throw new InputError(massFile, e.message);
+    // a model too large for the limit: the stiffness file names the model
+    if (e instanceof MemoryLimitError) throw new InputError(stiffnessFile, e.message);
     throw e;
   }
 }

@@ -2,6 +2,11 @@ import type { FactorDiagnostics } from '../sparse/factor-types.js';
 
 /** What to solve for: the lowest `count` modes, or every mode below `maxHz`. */
 export interface ModesRequest {
+  /**
+   * Refuse the solve (MemoryLimitError from src/sparse/memory-limit.ts) before any numeric work
+   * when the factor and the iteration's blocks are predicted to need more bytes than this.
+   */
+  memoryLimitBytes?: number;
   count?: number;
   maxHz?: number;
   method?: 'lanczos' | 'subspace';

@@ -68,7 +68,7 @@ export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request:
   const diagnostics: string[] = [];
   const clock: Clock = { factorMs: 0, iterateMs: 0, verifyMs: 0 };
   const shifts: number[] = [];
-  const solver = createShiftedSolver(stiffness, mass, { coordinates: request.coordinates });
+  const solver = createShiftedSolver(stiffness, mass, { coordinates: request.coordinates, memoryLimitBytes: request.memoryLimitBytes, extraBytes: besideFactorBytes(stiffness, mass, request) });
   const scale = diagonalScale(stiffness, mass);
   const stiffnessNorm = symOneNorm(stiffness);
   const rankM = massRankBound(mass);
@@ -486,4 +486,15 @@ function emptyResult(
     solves: 0,
     rankMassBound: 0,
   };
+}
+
+/**
+ * Bytes a solve keeps beside its factor, for the memory limit: K and M as read and their permuted
+ * copy (12 bytes a stored entry each), and the iteration's blocks (about six vectors per wanted
+ * mode of a slice, as the block Lanczos basis holds five per mode, plus the returned shapes).
+ */
+function besideFactorBytes(stiffness: SymmetricCsc, mass: SymmetricCsc, request: ModesRequest): number {
+  const stored = stiffness.rowIdx.length + mass.rowIdx.length;
+  const wanted = request.count ?? SLICE_SIZE;
+  return 2 * 12 * stored + 8 * stiffness.n * (6 * Math.min(wanted, SLICE_SIZE) + wanted);
 }

@@ -75,6 +75,8 @@ export function readStructuredFile(path: string): unknown {
 export interface ConfigOverrides {
   baselineDir?: string;
   saveBaselineDir?: string;
+  /** --max-memory, bytes, handed to every model's solve. */
+  memoryLimitBytes?: number;
 }
 
 /** Load, validate and resolve the config at `path`. */
@@ -155,6 +157,7 @@ function resolveModel(config: RawConfig, m: RawModelConfig, i: number, file: str
       maxHz,
       method: m.method ?? d.method,
       tolerance: m.tolerance ?? d.tolerance,
+      memoryLimitBytes: overrides.memoryLimitBytes,
     },
     rules: resolveRules(layers, file, `${where}.rules`),
     ruleSets,

@@ -95,6 +95,8 @@ export interface RawRuleSet {
 
 /** What to solve for one model (the eigen layer's ModesRequest without the callbacks). */
 export interface SolveSettings {
+  /** Set from the command line (--max-memory), not from the config file. */
+  memoryLimitBytes?: number;
   count?: number;
   maxHz?: number;
   method?: 'lanczos' | 'subspace';

@@ -15,6 +15,7 @@ import type { DofMap } from '../io/dof-map.js';
 import { readStiffnessAndMass } from '../io/matrix-market-reader.js';
 import { readDofMap } from '../io/dof-map-reader.js';
 import { solveModes } from '../eigen/solve-modes.js';
+import { MemoryLimitError } from '../sparse/memory-limit.js';
 import { IndefiniteMassError, type ModesRequest, type ModesResult } from '../eigen/modes-types.js';
 import { screenPencil } from './screen-pencil.js';
 import { fullNonzeros, type SymmetricCsc } from '../sparse/csc.js';
@@ -72,7 +73,8 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
     report.rules = runRules(context, job.rules, unavailable);
   } catch (e) {
     report.problem = problemOf(e);
-    report.rules = job.rules.map((r) => notEvaluated(r.rule.id, r.rule.description, r.severity, r.options));
+    const why = report.problem.kind === 'limit' ? 'the model was stopped at a resource limit' : "the model's input could not be read";
+    report.rules = job.rules.map((r) => notEvaluated(r.rule.id, r.rule.description, r.severity, r.options, why));
   }
   report.timeMs = performance.now() - t0;
   report.verdict = report.problem ? 'error' : verdictOf(report.rules);
@@ -106,6 +108,7 @@ function solveInto(context: RuleContext, job: ModelJob, dofMap: DofMap | undefin
   try {
     modes = solveModes(context.stiffness, context.mass, request);
   } catch (e) {
+    if (e instanceof MemoryLimitError) throw e;
     const why = e instanceof InputError ? e.reason : e instanceof IndefiniteMassError ? `${job.massPath}: ${e.message}` : oneLineMessage(e);
     unavailable.modes = { status: 'error', reason: `not evaluated: the eigensolver stopped: ${why}` };
     return;
@@ -152,11 +155,12 @@ function modeRows(modes: ModesResult): ModeRow[] {
 
 export function problemOf(e: unknown): ProblemReport {
   if (e instanceof InputError) return { kind: 'input', message: oneLineMessage(e), file: e.file, line: e.line, where: e.where };
+  if (e instanceof MemoryLimitError) return { kind: 'limit', message: e.message };
   return { kind: 'internal', message: oneLineMessage(e) };
 }
 
-function notEvaluated(ruleId: string, description: string, severity: RuleResult['severity'], options: Record<string, unknown>): RuleResult {
-  return { ruleId, description, severity, options, status: 'skip', message: "not evaluated: the model's input could not be read.", timeMs: 0 };
+function notEvaluated(ruleId: string, description: string, severity: RuleResult['severity'], options: Record<string, unknown>, why: string): RuleResult {
+  return { ruleId, description, severity, options, status: 'skip', message: `not evaluated: ${why}.`, timeMs: 0 };
 }
 
 export function currentHostname(): string {

@@ -101,12 +101,29 @@ describe('--time-limit', () => {
     expect(tempFiles(join(work, 'limit'))).toEqual([]);
   }, 120_000);
 
-  it('refuses a limit that is not a positive number', async () => {
+  it('refuses a limit that is not a positive number (a usage error: the first line says why, then the usage)', async () => {
     const r = await runCli(['check', '-c', 'two.yaml', '--time-limit', 'soon'], work);
     expect(r.code).toBe(2);
-    expect(r.stderr.trim().split('\n')).toHaveLength(1);
-    expect(r.stderr).toContain('--time-limit');
+    expect(r.stderr.split('\n')[0]).toContain("option '--time-limit <seconds>' argument 'soon' is invalid");
   }, 60_000);
+});
+
+describe('--max-memory', () => {
+  it('a model whose solve is predicted above the limit is an <error> with the figure, before any numeric work', async () => {
+    const r = await runCli(['check', '-c', 'two.yaml', '-m', 'first', '--max-memory', '4M', '--json', 'mem/report.json', '--junit', 'mem/junit.xml'], work);
+    expect(r.code, r.stderr).toBe(2);
+    const m = JSON.parse(readFileSync(join(work, 'mem/report.json'), 'utf8')).models[0];
+    expect(m.problem.kind).toBe('limit');
+    expect(m.problem.message).toMatch(/^the solve would need about [\d.]+ MiB \(a factor with .* nonzeros, predicted before any numeric work\), above the memory limit of 4\.0 MiB \(--max-memory\)$/);
+    expect(readFileSync(join(work, 'mem/junit.xml'), 'utf8')).toContain('<testcase name="model-limit"');
+  }, 120_000);
+
+  it('modes refuses the same way (exit 2, one line)', async () => {
+    const r = await runCli(['modes', '--stiffness', 'block.stiffness.mtx', '--mass', 'block.mass.mtx', '--count', '5', '--max-memory', '4M'], work);
+    expect(r.code).toBe(2);
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+    expect(r.stderr).toMatch(/^modalgate: block\.stiffness\.mtx: the solve would need about .* above the memory limit of 4\.0 MiB \(--max-memory\)\n$/);
+  }, 120_000);
 });
 
 /** A 64 KiB tmpfs, where this machine allows mounting one (root on Linux). */
