@@ -113,7 +113,11 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   const written = writeReports(report, targets, opts.markdownAll);
   const labels: Record<string, string> = { junit: 'JUnit XML', json: 'JSON report', markdown: 'Markdown summary', html: 'HTML report' };
   for (const [kind, p] of Object.entries(written)) if (!opts.quiet) print(`${labels[kind]}: ${p}\n`);
-  for (const m of models) if (m.baselineSaved && !opts.quiet) print(`baseline of ${m.name} saved: ${m.baselineSaved.json}\n`);
+  for (const m of models) {
+    if (m.baselineWarning) print(`warning: ${m.name}: ${m.baselineWarning}\n`);
+    if (m.baselineNotSaved) print(`warning: ${m.baselineNotSaved}\n`);
+    if (m.baselineSaved && !opts.quiet) print(`baseline of ${m.name} saved: ${m.baselineSaved.json}\n`);
+  }
   if (problem) (opts.printError ?? ((l: string) => process.stderr.write(l)))(`modalgate: ${problem.message}\n`);
   const code = report.verdict === 'pass' ? EXIT_PASS : report.verdict === 'fail' ? EXIT_RULE_FAILED : EXIT_BAD_INPUT;
   return { code, report, written };
@@ -164,10 +168,13 @@ function writeReports(report: CheckReport, targets: CheckOutcome['written'], mar
   return written;
 }
 
-/** --baseline must name an existing directory; --save-baseline must not name a file. */
+/**
+ * Neither directory may name a file. A missing --baseline directory is no error: the baseline
+ * rules skip with a warning (the first pull request of a new project has no baseline yet).
+ */
 function checkBaselineDirs(dirs: { baselineDir?: string; saveBaselineDir?: string }): void {
-  if (dirs.baselineDir !== undefined && (!existsSync(dirs.baselineDir) || !statSync(dirs.baselineDir).isDirectory())) {
-    throw new InputError(dirs.baselineDir, '--baseline: baseline directory not found');
+  if (dirs.baselineDir !== undefined && existsSync(dirs.baselineDir) && !statSync(dirs.baselineDir).isDirectory()) {
+    throw new InputError(dirs.baselineDir, '--baseline: is a file, not a directory');
   }
   if (dirs.saveBaselineDir !== undefined && existsSync(dirs.saveBaselineDir) && !statSync(dirs.saveBaselineDir).isDirectory()) {
     throw new InputError(dirs.saveBaselineDir, '--save-baseline: is a file, not a directory');
