@@ -71,7 +71,8 @@ export async function runBaselineSave(job: ModelJob, context: RuleContext, verdi
     return { saved: await save(job, settings, dir, context) };
   } catch (e) {
     if (e instanceof InputError) return { failure: e };
-    return { failure: new InputError(dir, `could not save the baseline of model "${job.name}": ${oneLineMessage(e)}`) };
+    const cause = e instanceof Error ? e.message.split('\n')[0] : oneLineMessage(e);
+    return { failure: new InputError(dir, `could not save the baseline of model "${job.name}": ${cause}`) };
   }
 }
 
