@@ -2,8 +2,10 @@
  * Compare a model's solved modes with its stored baseline (CRITERIA.md §2, mode-tracking
  * practice, [CP]):
  *
- *   1. match DOFs: by (node, component) when both sides carry a DOF map — a renumbered model
- *      compares as the same model, and added or removed DOFs only shrink the compared set —
+ *   1. match DOFs: by (node, component) when both sides carry a DOF map, or by (coordinates,
+ *      component) when that matches more DOFs (node ids renumbered too; coordinates compared
+ *      exactly, coincident nodes left out) — a renumbered model compares as the same model, and
+ *      added or removed DOFs only shrink the compared set —
  *      else by DOF index when the DOF counts agree; when neither works the shapes are not
  *      compared and modes are paired by frequency order (rigid-body with rigid-body, elastic
  *      with elastic), so frequency-drift still runs and the shape rules skip with the reason;
@@ -179,25 +181,18 @@ export function matchDofs(baseline: LoadedBaseline, current: CurrentModel): DofM
   const dofOfRow = (r: number): number => (baseline.dofs ? baseline.dofs[r] : r);
   const map = baseline.dofMap, now = current.dofMap;
   if (map && now) {
-    const indexNow = new Map<number, number>();
-    // (node, component) → current DOF
-    for (let d = 0; d < now.n; d++) indexNow.set(now.node[d] * 8 + now.component[d], d);
-    const toCurrent = new Int32Array(map.n).fill(-1);
-    let matched = 0, renumbered = map.n !== now.n;
-    // each baseline DOF's place in the model now
-    for (let d = 0; d < map.n; d++) {
-      const c = indexNow.get(map.node[d] * 8 + map.component[d]);
-      if (c === undefined) continue;
-      toCurrent[d] = c;
-      matched++;
-      if (c !== d) renumbered = true;
-    }
+    // by node id, and by position where node ids changed too; the one that matches more DOFs wins
+    const byNode = matchByKey(map, now, (m, d) => m.node[d] * 8 + m.component[d]);
+    const byPlace = matchByKey(map, now, (m, d) => `${m.x[d]} ${m.y[d]} ${m.z[d]} ${m.component[d]}`);
+    const [toCurrent, matched, matchedBy] = byPlace.matched > byNode.matched ? [byPlace.toCurrent, byPlace.matched, 'position and component' as const] : [byNode.toCurrent, byNode.matched, 'node and component' as const];
+    let renumbered = map.n !== now.n;
+    for (let d = 0; d < map.n && !renumbered; d++) if (toCurrent[d] >= 0 && toCurrent[d] !== d) renumbered = true;
     const rowsAndDofs: [number, number][] = [];
     for (let r = 0; r < stored; r++) if (toCurrent[dofOfRow(r)] >= 0) rowsAndDofs.push([r, toCurrent[dofOfRow(r)]]);
     rowsAndDofs.sort((a, b) => a[1] - b[1]);
-    const base = { matchedBy: 'node and component' as const, added: now.n - matched, removed: map.n - matched, renumbered };
+    const base = { matchedBy, added: now.n - matched, removed: map.n - matched, renumbered };
     if (rowsAndDofs.length === 0) {
-      return { ...base, matchedBy: 'none', baselineRows: null, currentDofs: null, compared: 0, reason: 'none of the DOFs stored with the baseline is in the model now (matched by node and component), so the shapes cannot be compared' };
+      return { ...base, matchedBy: 'none', baselineRows: null, currentDofs: null, compared: 0, reason: 'none of the DOFs stored with the baseline is in the model now (matched by node and component, or by position and component), so the shapes cannot be compared' };
     }
     const identity = rowsAndDofs.length === n && stored === n && rowsAndDofs.every(([r, c]) => r === c);
     return {
@@ -220,6 +215,32 @@ export function matchDofs(baseline: LoadedBaseline, current: CurrentModel): DofM
     renumbered: false,
     reason: `the baseline has ${s.dofCount} DOFs and the model now ${n}, and ${why}, so DOFs cannot be matched and the shapes cannot be compared`,
   };
+}
+
+/**
+ * toCurrent[d] = the current DOF with the same key as baseline DOF d, or −1. Keys held by more
+ * than one DOF on either side (coincident nodes, when matching by position) match nothing.
+ */
+function matchByKey<K>(map: DofMap, now: DofMap, key: (m: DofMap, d: number) => K): { toCurrent: Int32Array; matched: number } {
+  const indexNow = new Map<K, number>();
+  // key → current DOF (−1 when ambiguous)
+  for (let d = 0; d < now.n; d++) {
+    const k = key(now, d);
+    indexNow.set(k, indexNow.has(k) ? -1 : d);
+  }
+  const seen = new Map<K, number>();
+  for (let d = 0; d < map.n; d++) seen.set(key(map, d), (seen.get(key(map, d)) ?? 0) + 1);
+  const toCurrent = new Int32Array(map.n).fill(-1);
+  let matched = 0;
+  // each baseline DOF's place in the model now
+  for (let d = 0; d < map.n; d++) {
+    const k = key(map, d);
+    const c = indexNow.get(k);
+    if (c === undefined || c < 0 || seen.get(k)! > 1) continue;
+    toCurrent[d] = c;
+    matched++;
+  }
+  return { toCurrent, matched };
 }
 
 /** Rigid-body modes with rigid-body modes and elastic with elastic, each in frequency order. */

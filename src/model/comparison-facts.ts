@@ -23,7 +23,8 @@ export interface BaselineSource {
   dofsCompared: number;
   /**
    * How baseline DOFs were matched with the model's: by (node, component) when both sides carry
-   * a DOF map (a renumbering is not a change), by DOF index when the DOF counts agree and a map
+   * a DOF map (a renumbering is not a change), by (coordinates, component) when that matches
+   * more DOFs (node ids changed too), by DOF index when the DOF counts agree and a map
    * is missing, 'none' when neither works (shapes are not compared).
    */
   numberingCheck: DofMatching;
@@ -34,7 +35,7 @@ export interface BaselineSource {
   renumbered: boolean;
 }
 
-export type DofMatching = 'node and component' | 'dof index' | 'none';
+export type DofMatching = 'node and component' | 'position and component' | 'dof index' | 'none';
 
 /** A dense matrix as plain JSON: row-major, row = baseline mode, column = current mode. */
 export interface ModeMatrix {

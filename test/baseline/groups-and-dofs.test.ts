@@ -9,8 +9,9 @@
  *    new nor lost;
  *  - DOFs added without DOF maps: modes pair by frequency order, frequency-drift still runs and
  *    measures 100 (f₁ − f₀)/f₀ from the two exact solutions, the shape rules skip with the reason;
- *  - with DOF maps on both sides an added DOF (new node, other numbering) only shrinks the
- *    compared set.
+ *  - with DOF maps on both sides an added DOF (new node) only shrinks the compared set, and a
+ *    model whose DOFs are permuted (K, M and DOF map consistently) compares as the same model:
+ *    MAC 1 on the diagonal (definition), drift 0, matched by node and component.
  */
 import { afterAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, rmSync } from 'node:fs';
@@ -24,6 +25,7 @@ import { loadBaseline, saveBaseline } from '../../src/model/baseline-store.js';
 import { compareWithBaseline } from '../../src/model/compare-baseline.js';
 import type { ComparisonFacts } from '../../src/model/comparison-facts.js';
 import { principalAngleCosines, shapeProducts } from '../../src/model/mac.js';
+import { permuteSymmetric } from '../../src/sparse/permute.js';
 import { findRule } from '../../src/rules/registry.js';
 import { runRules, type ResolvedRule } from '../../src/rules/engine.js';
 
@@ -173,5 +175,22 @@ describe('added or removed DOFs', () => {
     expect(facts.baseline).toMatchObject({ numberingCheck: 'node and component', dofsCompared: 6, dofsAdded: 1, dofsRemoved: 0 });
     expect(facts.mac.values).toHaveLength(36);
     expect(run(after, facts, m1)['frequency-drift'].status).not.toBe('skip');
+  });
+  it('with DOF maps: a permuted numbering is not a change (MAC 1 on the diagonal, drift 0)', async () => {
+    const perm = Int32Array.from([3, 0, 5, 1, 4, 2]); // new DOF k = old DOF perm[k]
+    const dense = before.denseK.map((_r, i) => before.denseK.map((_c, j) => before.denseK[perm[i]][perm[j]]));
+    const masses = Array.from(perm, (p) => before.masses[p]);
+    const permuted: Chain = { stiffness: permuteSymmetric(before.stiffness, perm), mass: permuteSymmetric(before.mass, perm), denseK: dense, masses };
+    expect(Array.from(permuted.mass.values)).toEqual(masses); // the convention of permuteSymmetric, checked
+    const m2 = exactModes(permuted);
+    const facts = await compare('permuted', before, m0, m2, { afterMass: permuted.mass, beforeMap: chainMap([11, 12, 13, 14, 15, 16]), afterMap: chainMap(Array.from(perm, (p) => 11 + p)) });
+    expect(facts.baseline).toMatchObject({ numberingCheck: 'node and component', dofsCompared: 6, dofsAdded: 0, dofsRemoved: 0, renumbered: true });
+    for (const p of facts.pairs) {
+      expect(p.baselineMode).toBe(p.currentMode);
+      expect(p.mac!).toBeCloseTo(1, 12);
+      expect(p.changePercent!).toBeCloseTo(0, 10);
+    }
+    const byId = run(permuted, facts, m2);
+    for (const id of ['frequency-drift', 'mode-shape-match', 'mode-swap', 'new-or-lost-modes']) expect(byId[id].status).toBe('pass');
   });
 });
