@@ -133,6 +133,12 @@ describe('baselines that survive ordinary change', () => {
       if (p.group === null) expect(p.mac!).toBeGreaterThan(1 - 1e-8);
     }
     expect(kf.swaps).toEqual([]);
+    // every DOF stored and compared: off-pair mass-weighted MAC is (φ_iᵀMφ_j)² ≈ 0 (M-orthogonality)
+    expect(kf.baseline).toMatchObject({ selection: 'all', energyShareKept: 1 });
+    const grouped = new Set(kf.groupMatches.flatMap((g) => g.baselineModes));
+    let offPair = 0;
+    for (let i = 0; i < 12; i++) for (let j = 0; j < 12; j++) if (i !== j && !grouped.has(i + 1)) offPair = Math.max(offPair, kf.mac.values[i * 12 + j]);
+    expect(offPair).toBeLessThan(1e-6);
   });
   it('a missing baseline directory skips the baseline rules with a warning (exit 0)', async () => {
     const nowhere = join(work, 'nowhere');
