@@ -11,7 +11,8 @@
  *    K, M and DOF map consistently: DOFs match by node and component, MAC ≈ 1 on every pair and
  *    drift 0 — a renumbering is not a change (exit 0);
  *  - the free-free mast (18 more DOFs: the base node's) against the supported one: shapes are
- *    compared on the 666 DOFs both have, 18 added;
+ *    compared on the 666 DOFs both have, 18 added; without its DOF map the modes pair by
+ *    frequency order, frequency-drift still judges (exit 1) and the shape rules skip with the reason;
  *  - a missing baseline directory: exit 0, the baseline rules skip with the reason, a warning on
  *    the console and in the JSON report (`baselineWarning`);
  *  - a 20 % heavier mast (K and M both × 1.2: same frequencies, mass × 1.2 since rᵀ(1.2M)r =
@@ -84,10 +85,13 @@ afterAll(() => rmSync(work, { recursive: true, force: true }));
 describe('check --baseline on the demo mast and its thin-brace change', () => {
   it('reports drift per tracked mode that matches independent solves, and fails a tight limit', async () => {
     const base = join(work, 'base');
-    const [pass, tight, otherCount, renumbered] = await runMany([
+    const noMap = join(work, 'nomap.yaml');
+    writeFileSync(noMap, `models:\n  - { name: mast, stiffness: ${demo}/mast-free.stiffness.mtx, mass: ${demo}/mast-free.mass.mtx, count: 12 }\n`);
+    const [pass, tight, otherCount, withoutMap] = await runMany([
       ['check', '-c', config('thin.yaml', 'mast-thin-brace'), '--baseline', base, '--json', join(work, 'thin.json'), '--markdown', join(work, 'thin.md')],
       ['check', '-c', config('tight.yaml', 'mast-thin-brace', ', rules: { frequency-drift: { maxChangePercent: 0.3 } }'), '--baseline', base],
       ['check', '-c', config('free.yaml', 'mast-free'), '--baseline', base, '--json', join(work, 'free.json')],
+      ['check', '-c', noMap, '--baseline', base, '--json', join(work, 'nomap.json')],
     ], repoRoot, 2);
     expect(pass.code, pass.stderr + pass.stdout).toBe(0);
     const facts = JSON.parse(readFileSync(join(work, 'thin.json'), 'utf8')).models[0].comparison as ComparisonFacts;
@@ -115,6 +119,14 @@ describe('check --baseline on the demo mast and its thin-brace change', () => {
     expect(otherCount.code).not.toBe(2);
     expect(free.baseline).toMatchObject({ numberingCheck: 'node and component', dofsCompared: 666, dofsAdded: 18, dofsRemoved: 0 });
     expect(free.pairedBy).toBe('shapes');
+    // other DOF count and no DOF map now: pairs by frequency order, frequency-drift still judges (the free mast's frequencies moved: exit 1)
+    expect(withoutMap.code, withoutMap.stdout + withoutMap.stderr).toBe(1);
+    const reason = 'the baseline has 666 DOFs and the model now 684, and the model has no DOF map now, so DOFs cannot be matched and the shapes cannot be compared';
+    expect(withoutMap.stdout).toMatch(/mast\s+frequency-drift\s+FAIL\s+\d+ of \d+ paired modes changed by more than ± 5 %/);
+    expect(withoutMap.stdout).toContain(`Modes paired by frequency order: ${reason}.`);
+    const nm = JSON.parse(readFileSync(join(work, 'nomap.json'), 'utf8')).models[0];
+    expect(nm.comparison.pairedBy).toBe('frequency order');
+    expect(nm.rules.find((r: { ruleId: string }) => r.ruleId === 'mode-shape-match')).toMatchObject({ status: 'skip', message: `not evaluated: ${reason}.` });
   });
 });
 
