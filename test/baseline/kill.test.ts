@@ -1,6 +1,6 @@
 /**
  * A save interrupted by SIGTERM or SIGINT leaves nothing behind: a child process (the built
- * modules in dist/) starts saving a baseline large enough to take a while (100 000 DOFs × 5
+ * modules in dist/) starts saving a baseline large enough to take a while (50 000 DOFs × 5
  * modes) and signals itself 200 ms in. Expected: it ends by that signal, before the commit (no
  * JSON), and the directory holds no `.tmp` file, no lock and no data file of the killed save.
  */
@@ -23,7 +23,7 @@ function script(dir: string, signal: string): string {
   const store = pathToFileURL(join(repoRoot, 'dist/src/model/baseline-store.js')).href;
   return `
 import { saveBaseline } from ${JSON.stringify(store)};
-const n = 100000, m = 5;
+const n = 50000, m = 5;
 const shapes = new Float64Array(n * m).map((_v, k) => Math.sin(k));
 const eigenvalues = Float64Array.from([1, 2, 3, 4, 5]);
 const modes = { n, eigenvalues, frequenciesHz: eigenvalues.map((l) => Math.sqrt(l) / (2 * Math.PI)), shapes, residuals: new Float64Array(m),
