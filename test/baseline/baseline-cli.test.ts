@@ -130,7 +130,7 @@ describe('check --baseline on the demo mast and its thin-brace change', () => {
   });
 });
 
-describe('baselines that survive ordinary change', () => {
+describe.concurrent('baselines that survive ordinary change', () => {
   it('a renumbered mast (DOF order and node ids) compares as the same model: MAC ≈ 1, drift 0', async () => {
     const files = { stiffness: join(work, 'renum.stiffness.mtx'), mass: join(work, 'renum.mass.mtx'), dofs: join(work, 'renum.dofs.csv') };
     const run = await runCli(['check', '-c', configOf('renum.yaml', files), '--baseline', join(work, 'base'), '--json', join(work, 'renum.json')]);
