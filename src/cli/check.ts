@@ -144,7 +144,11 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   signals?.dispose();
   const labels: Record<string, string> = { junit: 'JUnit XML', json: 'JSON report', markdown: 'Markdown summary', html: 'HTML report' };
   for (const [kind, p] of Object.entries(written)) if (!opts.quiet) print(`${labels[kind]}: ${p}\n`);
-  for (const m of models) if (m.baselineSaved && !opts.quiet) print(`baseline of ${m.name} saved: ${m.baselineSaved.json}\n`);
+  for (const m of models) {
+    if (m.baselineWarning) print(`warning: ${m.name}: ${m.baselineWarning}\n`);
+    if (m.baselineNotSaved) print(`warning: ${m.baselineNotSaved}\n`);
+    if (m.baselineSaved && !opts.quiet) print(`baseline of ${m.name} saved: ${m.baselineSaved.json}\n`);
+  }
   const printError = opts.printError ?? ((l: string) => process.stderr.write(l));
   if (problem) printError(`modalgate: ${problem.message}\n`);
   else if (failures.length > 0) printError(`modalgate: ${failures.map((f) => f.message).join('; ')}\n`);
@@ -259,10 +263,13 @@ export function writeFailureMessage(path: string, e: unknown): string {
   return `cannot write ${path}: ${cause}`;
 }
 
-/** --baseline must name an existing directory; --save-baseline must not name a file. */
+/**
+ * Neither directory may name a file. A missing --baseline directory is no error: the baseline
+ * rules skip with a warning (the first pull request of a new project has no baseline yet).
+ */
 function checkBaselineDirs(dirs: { baselineDir?: string; saveBaselineDir?: string }): void {
-  if (dirs.baselineDir !== undefined && (!existsSync(dirs.baselineDir) || !statSync(dirs.baselineDir).isDirectory())) {
-    throw new InputError(dirs.baselineDir, '--baseline: baseline directory not found');
+  if (dirs.baselineDir !== undefined && existsSync(dirs.baselineDir) && !statSync(dirs.baselineDir).isDirectory()) {
+    throw new InputError(dirs.baselineDir, '--baseline: is a file, not a directory');
   }
   if (dirs.saveBaselineDir !== undefined && existsSync(dirs.saveBaselineDir) && !statSync(dirs.saveBaselineDir).isDirectory()) {
     throw new InputError(dirs.saveBaselineDir, '--save-baseline: is a file, not a directory');

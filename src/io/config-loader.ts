@@ -194,8 +194,8 @@ function resolveBaseline(config: RawConfig, m: RawModelConfig, where: string, fi
   let compareDir = overrides.baselineDir;
   if (compareDir === undefined && rawDir !== undefined) {
     compareDir = resolve(dir, rawDir);
-    const firstSave = compareDir === overrides.saveBaselineDir && !existsSync(compareDir);
-    if (!firstSave && (!existsSync(compareDir) || !statSync(compareDir).isDirectory())) throw new InputError(file, `baseline directory not found: ${compareDir}`, { where: at });
+    // a missing directory is no error (the baseline rules skip with a warning); a file is
+    if (existsSync(compareDir) && !statSync(compareDir).isDirectory()) throw new InputError(file, `baseline directory is a file: ${compareDir}`, { where: at });
   }
   return { ...settings, compareDir, saveDir: overrides.saveBaselineDir, where: m.baseline ? `${where}.baseline` : 'baseline' };
 }

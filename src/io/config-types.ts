@@ -56,7 +56,7 @@ export interface RawConfig {
 export interface RawBaselineConfig {
   /** Compare with `<dir>/<model>.baseline.json` (relative to the config). */
   dir?: string;
-  /** DOFs whose shape values a saved baseline keeps: `auto` (default), `all`, or listed nodes. */
+  /** DOFs whose shape values a saved baseline keeps: `all` (default), `auto`, or listed nodes. */
   shapes?: 'auto' | 'all' | { nodes: number[]; components?: string[] };
   /** Most DOFs of the automatic selection (default 2000). */
   maxDofs?: number;

@@ -24,7 +24,7 @@ import type { RuleContext } from '../rules/rule-types.js';
 import { runRules, verdictOf, type RuleResult, type UnavailableInputs } from '../rules/engine.js';
 import type { ModelReport, ModeRow, ProblemReport, SolveReport } from '../report/report-types.js';
 import { junitTimestamp } from '../report/report-types.js';
-import { runBaselineStep } from './baseline-step.js';
+import { runBaselineComparison, runBaselineSave } from './baseline-step.js';
 import { applyConstraintStep, runGeometryStep } from './geometry-step.js';
 
 export interface AnalyzeOptions {
@@ -66,11 +66,16 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
     // geometry facts (rigid-body energy, mass properties, participation, mechanisms) need the DOF map
     const geometry = runGeometryStep(job, context, constrained);
     if (geometry) report.geometry = geometry;
-    // baseline: compare with the stored snapshot (context.comparison), save one on --save-baseline
-    const baseline = await runBaselineStep(job, context, unavailable);
+    // baseline: compare with the stored snapshot (context.comparison) before the rules
+    const compared = await runBaselineComparison(job, context, unavailable);
     if (context.comparison) report.comparison = context.comparison;
-    if (baseline.saved) report.baselineSaved = baseline.saved;
+    if (compared.warning) report.baselineWarning = compared.warning;
     report.rules = runRules(context, job.rules, unavailable);
+    // --save-baseline after the rules; a failed save keeps the rule results and ends in exit 2
+    const saved = await runBaselineSave(job, context, verdictOf(report.rules));
+    if (saved.saved) report.baselineSaved = saved.saved;
+    if (saved.notSaved) report.baselineNotSaved = saved.notSaved;
+    if (saved.failure) report.problem = problemOf(saved.failure);
   } catch (e) {
     report.problem = problemOf(e);
     const why = report.problem.kind === 'limit' ? 'the model was stopped at a resource limit' : "the model's input could not be read";

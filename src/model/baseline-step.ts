@@ -1,53 +1,46 @@
 /**
- * The baseline stage of the per-model pipeline (after the solve and the geometry facts, before
- * the rules): compare the solved modes with the model's stored baseline when one is configured
- * (`baseline.dir` or `check --baseline`), then save this run's snapshot when asked
- * (`check --save-baseline`). A changed DOF numbering or a broken baseline file is an InputError
- * (the model ends with exit 2); a model with no baseline in the directory yet only makes the
- * regression rules skip, saying so.
+ * The baseline stages of the per-model pipeline.
+ *
+ * Before the rules: compare the solved modes with the model's stored baseline when one is
+ * configured (`baseline.dir` or `check --baseline`). A missing baseline directory (the first pull
+ * request of a new project) or a model without a baseline there yet only makes the baseline rules
+ * skip, each saying why, and leaves a warning on the model; a broken baseline unit is an
+ * InputError (the model ends with exit 2).
+ *
+ * After the rules: save this run's snapshot when asked (`check --save-baseline`), only when the
+ * model's verdict is not `error`. A failed save never throws away the rule results: it comes
+ * back as an InputError naming the directory and the cause, which the pipeline records as the
+ * model's problem (exit 2) beside the rules.
  */
-import { existsSync } from 'node:fs';
+import { existsSync, statSync } from 'node:fs';
 import type { BaselineJob, ModelJob } from '../io/config-types.js';
+import { InputError, oneLineMessage } from '../io/errors.js';
 import { packageVersion } from '../io/package-root.js';
-import type { ModesResult } from '../eigen/modes-types.js';
 import type { RuleContext } from '../rules/rule-types.js';
 import type { UnavailableInputs } from '../rules/engine.js';
-import { baselineFiles, loadBaseline, saveBaseline, type LoadedBaseline } from './baseline-store.js';
+import { baselineJsonFile, loadBaseline, saveBaseline, type SavedBaselineFiles } from './baseline-store.js';
 import { compareWithBaseline, defaultComparisonSettings } from './compare-baseline.js';
 
-export interface BaselineStepResult {
-  /** Files written by --save-baseline. */
-  saved?: { json: string; shapes: string };
+export interface BaselineCompareResult {
+  /** Why no comparison was made although one was asked for (shown as a warning). */
+  warning?: string;
 }
 
-export async function runBaselineStep(job: ModelJob, context: RuleContext, unavailable: UnavailableInputs): Promise<BaselineStepResult> {
+export async function runBaselineComparison(job: ModelJob, context: RuleContext, unavailable: UnavailableInputs): Promise<BaselineCompareResult> {
   const settings = job.baseline;
   const modes = context.modes;
-  if (!settings || !modes) return {};
-  let failure: unknown;
-  try {
-    if (settings.compareDir !== undefined) compareInto(job.name, settings, settings.compareDir, modes, context, unavailable, await baselineOrNull(job.name, settings, settings.compareDir));
-  } catch (e) {
-    // a renumbered model can still be re-baselined in the same run; the error stands
-    if (settings.saveDir === undefined) throw e;
-    failure = e;
+  const dir = settings?.compareDir;
+  if (!settings || dir === undefined || !modes) return {};
+  if (!existsSync(dir) || !statSync(dir).isDirectory()) {
+    const warning = `baseline directory ${dir} not found: the baseline rules are skipped (a new project has none until a run with check --save-baseline)`;
+    unavailable.baseline = { status: 'skip', reason: `not evaluated: ${warning}.` };
+    return { warning };
   }
-  const saved = settings.saveDir === undefined ? undefined : await save(job, settings, settings.saveDir, modes, context);
-  if (failure !== undefined) throw failure;
-  return { saved };
-}
-
-/** The stored baseline, or null when there is none yet (also on the first save into the configured directory). */
-async function baselineOrNull(model: string, settings: BaselineJob, dir: string): Promise<LoadedBaseline | null> {
-  if (dir === settings.saveDir && !existsSync(dir)) return null;
-  return loadBaseline(dir, model);
-}
-
-function compareInto(model: string, settings: BaselineJob, dir: string, modes: ModesResult, context: RuleContext, unavailable: UnavailableInputs, baseline: LoadedBaseline | null): void {
+  const baseline = await loadBaseline(dir, job.name);
   if (!baseline) {
-    const missing = baselineFiles(dir, model).json;
-    unavailable.baseline = { status: 'skip', reason: `not evaluated: no baseline for model "${model}" yet (${missing} is missing; save one with check --save-baseline).` };
-    return;
+    const warning = `no baseline for model "${job.name}" yet (${baselineJsonFile(dir, job.name)} is missing; save one with check --save-baseline)`;
+    unavailable.baseline = { status: 'skip', reason: `not evaluated: ${warning}.` };
+    return { warning };
   }
   const comparison = defaultComparisonSettings({
     weighting: settings.weighting,
@@ -56,12 +49,37 @@ function compareInto(model: string, settings: BaselineJob, dir: string, modes: M
     repeatedTolerancePercent: settings.repeatedTolerancePercent,
   });
   context.comparison = compareWithBaseline(baseline, { modes, mass: context.mass, dofMap: context.dofMap }, comparison);
+  return {};
 }
 
-function save(job: ModelJob, settings: BaselineJob, dir: string, modes: ModesResult, context: RuleContext): Promise<{ json: string; shapes: string }> {
+export interface BaselineSaveResult {
+  saved?: SavedBaselineFiles;
+  /** Why the snapshot was not saved although it was asked for. */
+  notSaved?: string;
+  /** The save failed: InputError naming the directory or file and the cause. */
+  failure?: InputError;
+}
+
+/** Save the snapshot after the rules ran; `verdict` is the model's verdict from its rules. Never throws. */
+export async function runBaselineSave(job: ModelJob, context: RuleContext, verdict: 'pass' | 'fail' | 'error'): Promise<BaselineSaveResult> {
+  const settings = job.baseline;
+  const dir = settings?.saveDir;
+  if (!settings || dir === undefined) return {};
+  if (verdict === 'error') return { notSaved: `baseline of ${job.name} not saved: the model's verdict is error (a rule could not be evaluated)` };
+  if (!context.modes) return { notSaved: `baseline of ${job.name} not saved: no modes were solved` };
+  try {
+    return { saved: await save(job, settings, dir, context) };
+  } catch (e) {
+    if (e instanceof InputError) return { failure: e };
+    const cause = e instanceof Error ? e.message.split('\n')[0] : oneLineMessage(e);
+    return { failure: new InputError(dir, `could not save the baseline of model "${job.name}": ${cause}`) };
+  }
+}
+
+function save(job: ModelJob, settings: BaselineJob, dir: string, context: RuleContext): Promise<SavedBaselineFiles> {
   return saveBaseline(dir, {
     model: job.name,
-    modes,
+    modes: context.modes!,
     mass: context.mass,
     dofMap: context.dofMap,
     massProperties: context.geometry?.massProperties,

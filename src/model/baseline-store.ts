@@ -19,8 +19,38 @@
  * blindly. The shapes file is written first and the JSON last, both atomically, so a JSON file
  * always points at complete shapes.
  */
-import { createHash } from 'node:crypto';
-import { existsSync, readFileSync, statSync } from 'node:fs';
+/**
+ * Baseline snapshots: what one model's modes looked like when the baseline was saved, kept in a
+ * directory as one unit of files per model:
+ *
+ *   <model>.baseline.json              metadata: schemaVersion, run id, frequencies, verification
+ *                                      figures, mass properties when known, DOF count, and the
+ *                                      name and SHA-256 of each data file below
+ *   <model>.<run>.shapes.mtx.gz        mass-normalized mode shapes, Matrix Market `array real
+ *                                      general` (gzip), rows = stored DOFs, one column per mode
+ *   <model>.<run>.dofs.csv.gz          the model's DOF map (node, component, coordinates per
+ *                                      1-based DOF), when the model has one
+ *
+ * One unit: the data files carry the save's run id in their names and are written (atomically)
+ * first; the JSON, renamed into place last, is the single commit point. A reader therefore sees
+ * the old unit or the new one, never a mix, and the loader checks each data file's SHA-256
+ * against the JSON, so a mix made by hand (or by a copy) is refused with a sentence naming both
+ * files. Saves of one model hold `<model>.baseline.lock` (./../io/file-lock.ts), so two
+ * concurrent `--save-baseline` runs never interleave; after the commit the older unit's data
+ * files are removed. On SIGINT/SIGTERM during a save the temporary files, the uncommitted data
+ * files and the lock are removed before the process ends (../io/signal-cleanup.ts).
+ *
+ * Shapes are kept at every DOF by default (8 bytes a value in memory; on disk about 10 bytes a
+ * value after gzip of the 17-digit text). A subset can be asked for: the DOFs of listed
+ * nodes/components, or an automatic, deterministic subset of at most `maxDofs` DOFs with the
+ * largest kinetic energy summed over the modes: for mass-normalized φ_k the share of DOF i in
+ * mode k's kinetic energy is e_ki = φ_ki (Mφ_k)_i with Σ_i e_ki = 1 (the modal kinetic-energy
+ * distribution, common practice), DOFs ranked by Σ_k e_ki (ties: lower DOF first); the smallest
+ * share of any mode's kinetic energy the subset keeps is stored and reported. Stored DOF numbers
+ * are 1-based, as in every file modalgate writes.
+ */
+import { createHash, randomBytes } from 'node:crypto';
+import { existsSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import type { ModesResult } from '../eigen/modes-types.js';
 import { COMPONENTS, type DofMap } from '../io/dof-map.js';
@@ -28,23 +58,35 @@ import { InputError } from '../io/errors.js';
 import { writeFileAtomic } from '../io/atomic-write.js';
 import { writeDenseArray } from '../io/matrix-market-writer.js';
 import { readDenseArray } from '../io/matrix-market-reader.js';
+import { writeDofMap } from '../io/dof-map-writer.js';
+import { readDofMap } from '../io/dof-map-reader.js';
+import { acquireFileLock } from '../io/file-lock.js';
+import { withSignalCleanup } from '../io/signal-cleanup.js';
 import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
 import { restrictRows, type ShapeBlock } from './mac.js';
 
-export const BASELINE_SCHEMA_VERSION = 1;
+export const BASELINE_SCHEMA_VERSION = 2;
 export const DEFAULT_BASELINE_MAX_DOFS = 2000;
 
-/** Which DOFs keep their shape values: every DOF, the DOFs of listed nodes, or the automatic subset. */
+/** Which DOFs keep their shape values: every DOF (default), the DOFs of listed nodes, or the automatic subset. */
 export type ShapeDofSelection = 'all' | 'auto' | { nodes: number[]; components?: string[] };
+
+export interface BaselineDataFile {
+  /** File name inside the baseline directory. */
+  file: string;
+  /** SHA-256 (hex) of the file's bytes as written. */
+  sha256: string;
+}
 
 export interface BaselineSnapshot {
   schemaVersion: number;
   kind: 'modalgate-baseline';
   model: string;
+  /** Random id of the save; also in the data files' names. */
+  runId: string;
   createdAt: string;
   toolVersion?: string;
   dofCount: number;
-  dofMapHash: string | null;
   eigenvalues: number[];
   frequenciesHz: number[];
   verification: {
@@ -55,23 +97,28 @@ export interface BaselineSnapshot {
     stiffnessOrthogonality: number;
   };
   massProperties?: unknown;
-  shapes: {
-    file: string;
+  shapes: BaselineDataFile & {
     normalization: 'mass';
     selection: 'all' | 'nodes' | 'auto';
     rows: number;
     cols: number;
-    /** Original 0-based DOF indices of the rows (absent when every DOF is kept). */
+    /** 1-based DOFs of the rows (absent when every DOF is kept). */
     dofs?: number[];
+    /** Smallest share of a mode's kinetic energy on the stored DOFs (1 when every DOF is kept). */
+    energyShareKept: number;
   };
+  /** The model's DOF map, or null when it had none. */
+  dofMap: BaselineDataFile | null;
 }
 
 export interface LoadedBaseline {
   file: string;
   snapshot: BaselineSnapshot;
   shapes: ShapeBlock;
-  /** Original DOF of each shape row, or null for every DOF in order. */
+  /** Original 0-based DOF of each shape row, or null for every DOF in order. */
   dofs: Int32Array | null;
+  /** The DOF map stored with the baseline, or null. */
+  dofMap: DofMap | null;
 }
 
 export interface SaveBaselineInput {
@@ -88,57 +135,139 @@ export interface SaveBaselineInput {
   where?: string;
 }
 
-export function baselineFiles(dir: string, model: string): { json: string; shapes: string } {
-  return { json: join(dir, `${model}.baseline.json`), shapes: join(dir, `${model}.shapes.mtx.gz`) };
+export interface SavedBaselineFiles {
+  json: string;
+  shapes: string;
+  dofs?: string;
 }
 
-/** SHA-256 (hex) of the DOF numbering: n, then node id and component code of every DOF. */
-export function dofMapHash(map: DofMap): string {
-  const h = createHash('sha256');
-  h.update(`dofs ${map.n}\n`);
-  h.update(new Uint8Array(map.node.buffer, map.node.byteOffset, map.node.byteLength));
-  h.update(new Uint8Array(map.component.buffer, map.component.byteOffset, map.component.byteLength));
-  return h.digest('hex');
+export function baselineJsonFile(dir: string, model: string): string {
+  return join(dir, `${model}.baseline.json`);
 }
 
-/** Write the snapshot of one model; returns the files written. */
-export async function saveBaseline(dir: string, input: SaveBaselineInput): Promise<{ json: string; shapes: string }> {
+export function baselineLockFile(dir: string, model: string): string {
+  return join(dir, `${model}.baseline.lock`);
+}
+
+function dataFileNames(model: string, runId: string): { shapes: string; dofs: string } {
+  return { shapes: `${model}.${runId}.shapes.mtx.gz`, dofs: `${model}.${runId}.dofs.csv.gz` };
+}
+
+function sha256OfFile(path: string): string {
+  return createHash('sha256').update(readFileSync(path)).digest('hex');
+}
+
+/** Write the snapshot of one model as one unit; returns the files written. */
+export async function saveBaseline(dir: string, input: SaveBaselineInput): Promise<SavedBaselineFiles> {
   const { modes } = input;
-  const files = baselineFiles(dir, input.model);
   const m = modes.eigenvalues.length;
   const dofs = selectShapeDofs(input);
-  const values = dofs ? restrictRows(modes.shapes, modes.n, m, dofs) : modes.shapes.subarray(0, modes.n * m);
-  const rows = dofs ? dofs.length : modes.n;
-  const selection = input.selection === undefined || input.selection === 'auto' ? (dofs ? 'auto' : 'all') : input.selection === 'all' ? 'all' : 'nodes';
-  const comment = `mass-normalized mode shapes of model ${input.model}: ${rows} DOFs (${selection}) x ${m} modes; modalgate baseline`;
-  await writeDenseArray(files.shapes, rows, m, values, { gzip: true, comment });
-  const snapshot: BaselineSnapshot = {
-    schemaVersion: BASELINE_SCHEMA_VERSION,
-    kind: 'modalgate-baseline',
-    model: input.model,
-    createdAt: new Date().toISOString(),
-    toolVersion: input.toolVersion,
-    dofCount: modes.n,
-    dofMapHash: input.dofMap ? dofMapHash(input.dofMap) : null,
-    eigenvalues: Array.from(modes.eigenvalues),
-    frequenciesHz: Array.from(modes.frequenciesHz),
-    verification: {
-      method: modes.method,
-      sturm: modes.sturm,
-      residuals: Array.from(modes.residuals),
-      massOrthogonality: modes.orthogonality.massMaxDeviation,
-      stiffnessOrthogonality: modes.orthogonality.stiffnessMaxDeviation,
-    },
-    massProperties: input.massProperties,
-    shapes: { file: `${input.model}.shapes.mtx.gz`, normalization: 'mass', selection, rows, cols: m, dofs: dofs ? Array.from(dofs) : undefined },
+  const runId = randomBytes(8).toString('hex');
+  const names = dataFileNames(input.model, runId);
+  const paths = { json: baselineJsonFile(dir, input.model), shapes: join(dir, names.shapes), dofs: join(dir, names.dofs) };
+  const lock = await acquireFileLock(baselineLockFile(dir, input.model), `the baseline of model "${input.model}"`);
+  let committed = false;
+  // on a signal before the commit: our temporary files, our data files and the lock go
+  const cleanup = (): void => {
+    removeOurTemporaryFiles(dir);
+    if (!committed) for (const p of [paths.shapes, paths.dofs]) rmSync(p, { force: true });
+    lock.release();
   };
-  writeFileAtomic(files.json, `${JSON.stringify(snapshot, (_k, v: unknown) => (typeof v === 'number' && !Number.isFinite(v) ? String(v) : v), 2)}\n`);
-  return files;
+  try {
+    return await withSignalCleanup(cleanup, async () => {
+      const values = dofs ? restrictRows(modes.shapes, modes.n, m, dofs) : modes.shapes.subarray(0, modes.n * m);
+      const rows = dofs ? dofs.length : modes.n;
+      const selection = input.selection === 'auto' ? (dofs ? 'auto' : 'all') : input.selection === undefined || input.selection === 'all' ? 'all' : 'nodes';
+      const comment = `mass-normalized mode shapes of model ${input.model}: ${rows} DOFs (${selection}) x ${m} modes; modalgate baseline run ${runId}`;
+      await writeDenseArray(paths.shapes, rows, m, values, { gzip: true, comment });
+      if (input.dofMap) await writeDofMap(paths.dofs, input.dofMap, { gzip: true });
+      const snapshot: BaselineSnapshot = {
+        schemaVersion: BASELINE_SCHEMA_VERSION,
+        kind: 'modalgate-baseline',
+        model: input.model,
+        runId,
+        createdAt: new Date().toISOString(),
+        toolVersion: input.toolVersion,
+        dofCount: modes.n,
+        eigenvalues: Array.from(modes.eigenvalues),
+        frequenciesHz: Array.from(modes.frequenciesHz),
+        verification: {
+          method: modes.method,
+          sturm: modes.sturm,
+          residuals: Array.from(modes.residuals),
+          massOrthogonality: modes.orthogonality.massMaxDeviation,
+          stiffnessOrthogonality: modes.orthogonality.stiffnessMaxDeviation,
+        },
+        massProperties: input.massProperties,
+        shapes: {
+          file: names.shapes,
+          sha256: sha256OfFile(paths.shapes),
+          normalization: 'mass',
+          selection,
+          rows,
+          cols: m,
+          dofs: dofs ? Array.from(dofs, (d) => d + 1) : undefined,
+          energyShareKept: dofs ? keptEnergyShare(modes, input.mass, dofs) : 1,
+        },
+        dofMap: input.dofMap ? { file: names.dofs, sha256: sha256OfFile(paths.dofs) } : null,
+      };
+      // the commit point: one rename
+      writeFileAtomic(paths.json, `${JSON.stringify(snapshot, (_k, v: unknown) => (typeof v === 'number' && !Number.isFinite(v) ? String(v) : v), 2)}\n`);
+      committed = true;
+      removeOlderUnits(dir, input.model, runId);
+      return input.dofMap ? paths : { json: paths.json, shapes: paths.shapes };
+    });
+  } catch (e) {
+    if (!committed) for (const p of [paths.shapes, paths.dofs]) rmSync(p, { force: true });
+    throw e;
+  } finally {
+    lock.release();
+  }
+}
+
+/** Temporary files of this process in `dir` (`.<name>.<pid>.<time>.tmp`, see ../io/atomic-write.ts). */
+function removeOurTemporaryFiles(dir: string): void {
+  const mine = new RegExp(`^\\..*\\.${process.pid}\\.\\d+\\.tmp$`);
+  for (const name of safeList(dir)) if (mine.test(name)) rmSync(join(dir, name), { force: true });
+}
+
+/** Data files of this model from other runs (and the version-1 shapes file), after a commit. */
+function removeOlderUnits(dir: string, model: string, runId: string): void {
+  const escaped = model.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+  const unit = new RegExp(`^${escaped}\\.([0-9a-f]{16})\\.(shapes\\.mtx|dofs\\.csv)\\.gz$`);
+  for (const name of safeList(dir)) {
+    const hit = unit.exec(name);
+    if ((hit && hit[1] !== runId) || name === `${model}.shapes.mtx.gz`) rmSync(join(dir, name), { force: true });
+  }
+}
+
+function safeList(dir: string): string[] {
+  try {
+    return readdirSync(dir);
+  } catch {
+    return [];
+  }
+}
+
+/** min over modes k of Σ_{i∈S} φ_ki (Mφ_k)_i: the smallest share of a mode's kinetic energy on the subset S. */
+export function keptEnergyShare(modes: ModesResult, mass: SymmetricCsc, dofs: Int32Array): number {
+  const n = modes.n, m = modes.eigenvalues.length;
+  if (m === 0) return 1;
+  const massShapes = symMultiplyBlock(mass, modes.shapes.subarray(0, n * m), m);
+  let smallest = Infinity;
+  // share_k = Σ_{i∈S} φ_ki (Mφ_k)_i / Σ_i φ_ki (Mφ_k)_i
+  for (let k = 0, o = 0; k < m; k++, o += n) {
+    let kept = 0, total = 0;
+    for (let i = 0; i < n; i++) total += modes.shapes[o + i] * massShapes[o + i];
+    for (let s = 0; s < dofs.length; s++) kept += modes.shapes[o + dofs[s]] * massShapes[o + dofs[s]];
+    smallest = Math.min(smallest, total > 0 ? kept / total : 1);
+  }
+  return smallest;
 }
 
 /** The DOFs to keep (ascending), or null for every DOF. */
 export function selectShapeDofs(input: SaveBaselineInput): Int32Array | null {
-  const selection = input.selection ?? 'auto';
+  const selection = input.selection ?? 'all';
   if (selection === 'all') return null;
   if (selection === 'auto') return highestEnergyDofs(input.modes, input.mass, input.maxDofs ?? DEFAULT_BASELINE_MAX_DOFS);
   return nodeDofs(selection, input);
@@ -182,20 +311,34 @@ function nodeDofs(selection: { nodes: number[]; components?: string[] }, input: 
   return Int32Array.from(dofs);
 }
 
-/** The baseline of `model` in `dir`, or null when that model has none there. */
+/**
+ * The baseline of `model` in `dir`, or null when that model has none there (the caller knows
+ * whether the directory exists). A unit whose data files do not match the JSON's checksums is
+ * refused: it is a mix of two saves.
+ */
 export async function loadBaseline(dir: string, model: string): Promise<LoadedBaseline | null> {
   if (!existsSync(dir) || !statSync(dir).isDirectory()) throw new InputError(dir, 'baseline directory not found');
-  const files = baselineFiles(dir, model);
-  if (!existsSync(files.json)) return null;
-  const snapshot = parseSnapshot(files.json);
-  const shapesPath = join(dir, snapshot.shapes.file);
-  if (!existsSync(shapesPath)) throw new InputError(files.json, `its shapes file ${shapesPath} is missing`);
+  const json = baselineJsonFile(dir, model);
+  if (!existsSync(json)) return null;
+  const snapshot = parseSnapshot(json);
+  const shapesPath = checkedDataFile(dir, json, snapshot, snapshot.shapes, 'shapes');
   const block = await readDenseArray(shapesPath);
   if (block.rows !== snapshot.shapes.rows || block.cols !== snapshot.shapes.cols) {
-    throw new InputError(shapesPath, `holds ${block.rows} x ${block.cols} values but ${files.json} says ${snapshot.shapes.rows} x ${snapshot.shapes.cols}`);
+    throw new InputError(shapesPath, `holds ${block.rows} x ${block.cols} values but ${json} says ${snapshot.shapes.rows} x ${snapshot.shapes.cols}`);
   }
-  const dofs = snapshot.shapes.dofs ? Int32Array.from(snapshot.shapes.dofs) : null;
-  return { file: files.json, snapshot, shapes: block, dofs };
+  const dofs = snapshot.shapes.dofs ? Int32Array.from(snapshot.shapes.dofs, (d) => d - 1) : null;
+  const dofMap = snapshot.dofMap ? await readDofMap(checkedDataFile(dir, json, snapshot, snapshot.dofMap, 'DOF map'), snapshot.dofCount) : null;
+  return { file: json, snapshot, shapes: block, dofs, dofMap };
+}
+
+function checkedDataFile(dir: string, json: string, snapshot: BaselineSnapshot, entry: BaselineDataFile, what: string): string {
+  const path = join(dir, entry.file);
+  if (!existsSync(path)) throw new InputError(json, `its ${what} file ${path} is missing (run ${snapshot.runId}); save the baseline again with check --save-baseline`);
+  const actual = sha256OfFile(path);
+  if (actual !== entry.sha256) {
+    throw new InputError(json, `does not belong with its ${what} file ${path}: the file's SHA-256 ${actual.slice(0, 12)}… differs from the ${entry.sha256.slice(0, 12)}… recorded by run ${snapshot.runId}, so the baseline mixes two saves; save it again with check --save-baseline`);
+  }
+  return path;
 }
 
 function parseSnapshot(file: string): BaselineSnapshot {
@@ -208,15 +351,16 @@ function parseSnapshot(file: string): BaselineSnapshot {
   const s = raw as Partial<BaselineSnapshot> | null;
   if (!s || s.kind !== 'modalgate-baseline') throw new InputError(file, 'is not a modalgate baseline (kind is not "modalgate-baseline")');
   if (s.schemaVersion !== BASELINE_SCHEMA_VERSION) throw new InputError(file, `has baseline schemaVersion ${String(s.schemaVersion)}; this modalgate reads version ${BASELINE_SCHEMA_VERSION}: save the baseline again`);
+  const dataFile = (d: Partial<BaselineDataFile> | undefined | null): boolean => !!d && typeof d.file === 'string' && !/[\\/]/.test(d.file) && typeof d.sha256 === 'string';
   const ok =
     Number.isInteger(s.dofCount) &&
+    typeof s.runId === 'string' &&
     Array.isArray(s.frequenciesHz) &&
     s.frequenciesHz.every((f) => typeof f === 'number') &&
-    s.shapes !== undefined &&
-    typeof s.shapes.file === 'string' &&
-    !/[\\/]/.test(s.shapes.file) &&
-    s.shapes.cols === s.frequenciesHz.length &&
-    (s.shapes.dofs === undefined ? s.shapes.rows === s.dofCount : (s.shapes.dofs.length === s.shapes.rows && s.shapes.dofs.every((d) => Number.isInteger(d) && d >= 0 && d < s.dofCount!)));
-  if (!ok) throw new InputError(file, 'is an incomplete or inconsistent baseline (frequencies, DOF count or shapes entry missing or out of range)');
+    dataFile(s.shapes) &&
+    (s.dofMap === null || dataFile(s.dofMap)) &&
+    s.shapes!.cols === s.frequenciesHz.length &&
+    (s.shapes!.dofs === undefined ? s.shapes!.rows === s.dofCount : (s.shapes!.dofs.length === s.shapes!.rows && s.shapes!.dofs.every((d) => Number.isInteger(d) && d >= 1 && d <= s.dofCount!)));
+  if (!ok) throw new InputError(file, 'is an incomplete or inconsistent baseline (frequencies, DOF count, shapes or DOF-map entry missing or out of range)');
   return s as BaselineSnapshot;
 }

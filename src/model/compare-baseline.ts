@@ -2,10 +2,15 @@
  * Compare a model's solved modes with its stored baseline (CRITERIA.md §2, mode-tracking
  * practice, [CP]):
  *
- *   1. same DOF numbering, or stop: DOF count and DOF-map hash must match (else InputError
- *      naming the baseline file — a renumbered model gives a meaningless MAC);
- *   2. current shapes at the baseline's compared DOFs; weight W = M on those DOFs (mass-weighted
- *      MAC, current M: the baseline's M is not stored) or I (plain MAC), see ./mac.ts;
+ *   1. match DOFs: by (node, component) when both sides carry a DOF map, or by (coordinates,
+ *      component) when that matches more DOFs (node ids renumbered too; coordinates compared
+ *      exactly, coincident nodes left out) — a renumbered model compares as the same model, and
+ *      added or removed DOFs only shrink the compared set —
+ *      else by DOF index when the DOF counts agree; when neither works the shapes are not
+ *      compared and modes are paired by frequency order (rigid-body with rigid-body, elastic
+ *      with elastic), so frequency-drift still runs and the shape rules skip with the reason;
+ *   2. current shapes at the matched DOFs; weight W = M on those DOFs (mass-weighted MAC,
+ *      current M: the baseline's M is not stored) or I (plain MAC), see ./mac.ts;
  *   3. near-repeated groups on each side: the rigid-body modes (split as in rigid-body-modes,
  *      ECSS separation ratio, CRITERIA.md §1a [S]) and chains of consecutive elastic modes with
  *      (f_{k+1} − f_k)/f_k ≤ repeatedTolerancePercent (default 0.1 %, from CRITERIA.md §2
@@ -14,18 +19,20 @@
  *      larger of the subspace shares P(φ_i, group of ψ_j) and P(ψ_j, group of φ_i);
  *   5. one-to-one pairing by assignment over E (./mode-pairing.ts); inside a pair of groups the
  *      partners are put back in frequency order (their order has no meaning); crossings left
- *      over are swaps; unpaired modes inside the range the other side solved are new or lost.
+ *      over are swaps; unpaired modes inside the range the other side solved are new or lost;
+ *   6. groups linked by pairs are compared as subspaces (principal angles, Björck & Golub 1973):
+ *      their pairs carry the group's subspace MAC; when one side's solve cut the group at its
+ *      highest mode, the other side's extra members are not counted as new or lost.
  */
 import type { ModesResult } from '../eigen/modes-types.js';
 import type { DofMap } from '../io/dof-map.js';
-import { InputError } from '../io/errors.js';
 import type { SymmetricCsc } from '../sparse/csc.js';
 import { cutoffDefaults, splitRigidBodyModes } from '../rules/rigid-body-split.js';
-import { dofMapHash, type LoadedBaseline } from './baseline-store.js';
+import type { LoadedBaseline } from './baseline-store.js';
 import { principalSubmatrix } from '../sparse/permute.js';
-import { macFromProducts, restrictRows, shapeProducts, subspaceShare, type ShapeProducts } from './mac.js';
+import { macFromProducts, principalAngleCosines, restrictRows, shapeProducts, subspaceShare, type ShapeProducts } from './mac.js';
 import { crossingPairs, DEFAULT_MIN_PAIR_CORRELATION, pairModes, type ModePairing } from './mode-pairing.js';
-import type { ComparisonFacts, ComparisonSettings, ModePair, ModeSwap, UnpairedMode } from './comparison-facts.js';
+import type { ComparisonFacts, ComparisonSettings, DofMatching, GroupMatch, ModePair, ModeSwap, UnpairedMode } from './comparison-facts.js';
 
 export const DEFAULT_REPEATED_TOLERANCE_PERCENT = 0.1;
 
@@ -44,88 +51,209 @@ export function defaultComparisonSettings(partial: Partial<ComparisonSettings> =
   };
 }
 
+/** Which stored shape rows meet which current DOFs. null arrays: every row / DOF in order. */
+export interface DofMatch {
+  matchedBy: DofMatching;
+  /** Stored baseline shape rows compared, in the order of `currentDofs`. */
+  baselineRows: Int32Array | null;
+  /** Current 0-based DOF of each compared row, ascending. */
+  currentDofs: Int32Array | null;
+  compared: number;
+  added: number;
+  removed: number;
+  renumbered: boolean;
+  /** Why nothing could be compared (matchedBy 'none'). */
+  reason: string | null;
+}
+
 export function compareWithBaseline(baseline: LoadedBaseline, current: CurrentModel, settings: ComparisonSettings = defaultComparisonSettings()): ComparisonFacts {
-  const numberingCheck = checkNumbering(baseline, current);
+  const match = matchDofs(baseline, current);
   const { modes } = current;
   const fb = baseline.snapshot.frequenciesHz;
   const fc = Array.from(modes.frequenciesHz);
-  const mc = fc.length;
-  const rows = baseline.shapes.rows;
-  const currentValues = baseline.dofs ? restrictRows(modes.shapes, modes.n, mc, baseline.dofs) : modes.shapes.subarray(0, modes.n * mc);
-  const weight = settings.weighting === 'mass' ? (baseline.dofs ? principalSubmatrix(current.mass, baseline.dofs) : current.mass) : undefined;
-  const products = shapeProducts(baseline.shapes, { rows, cols: mc, values: currentValues }, weight);
-  const mac = macFromProducts(products);
+  const mb = fb.length, mc = fc.length;
   const groupOfBaseline = groupIndex(fb, settings.repeatedTolerancePercent);
   const groupOfCurrent = groupIndex(fc, settings.repeatedTolerancePercent);
-  const correlation = correlationMatrix(products, mac, groupOfBaseline, groupOfCurrent);
-  const pairing = pairModes(correlation, fb, fc, { minCorrelation: settings.minPairCorrelation, windowPercent: settings.windowPercent ?? undefined });
-  orderInsideGroups(pairing, groupOfBaseline, groupOfCurrent);
   const rigidBaseline = rigidCount(fb);
   const rigidCurrent = rigidCount(fc);
-  const pairs: ModePair[] = [];
-  // one row per paired baseline mode, in baseline order
-  for (let i = 0; i < fb.length; i++) {
-    const j = pairing.partnerOfBaseline[i];
-    if (j < 0) continue;
-    const rigidBody = i < rigidBaseline || j < rigidCurrent;
-    pairs.push({
-      baselineMode: i + 1,
-      currentMode: j + 1,
-      baselineHz: fb[i],
-      currentHz: fc[j],
-      changePercent: rigidBody ? null : (100 * (fc[j] - fb[i])) / fb[i],
-      mac: mac[i * mc + j],
-      correlation: correlation[i * mc + j],
-      repeated: groupSize(groupOfBaseline, groupOfBaseline[i]) > 1 || groupSize(groupOfCurrent, groupOfCurrent[j]) > 1,
-      rigidBody,
-    });
-  }
-  const sameGroup = (a: number, b: number, pa: number, pb: number): boolean => groupOfBaseline[a] === groupOfBaseline[b] || groupOfCurrent[pa] === groupOfCurrent[pb];
-  const swaps: ModeSwap[] = crossingPairs(pairing, sameGroup).map(([a, b]) => {
-    const pa = pairing.partnerOfBaseline[a], pb = pairing.partnerOfBaseline[b];
-    return { baselineModes: [a + 1, b + 1], currentModes: [pa + 1, pb + 1], correlations: [correlation[a * mc + pa], correlation[b * mc + pb]] };
-  });
-  const baselineMaxHz = fb.length > 0 ? Math.max(...fb) : 0;
+  const baselineMaxHz = mb > 0 ? Math.max(...fb) : 0;
   const currentMaxHz = mc > 0 ? Math.max(...fc) : 0;
-  return {
+  const s = baseline.snapshot;
+  const facts: ComparisonFacts = {
     baseline: {
       file: baseline.file,
-      createdAt: baseline.snapshot.createdAt,
-      modes: fb.length,
-      dofCount: baseline.snapshot.dofCount,
-      selection: baseline.snapshot.shapes.selection,
-      dofsCompared: rows,
-      numberingCheck,
+      createdAt: s.createdAt,
+      runId: s.runId,
+      modes: mb,
+      dofCount: s.dofCount,
+      selection: s.shapes.selection,
+      energyShareKept: s.shapes.energyShareKept,
+      dofsCompared: match.compared,
+      numberingCheck: match.matchedBy,
+      dofsRemoved: match.removed,
+      dofsAdded: match.added,
+      renumbered: match.renumbered,
     },
     settings,
+    pairedBy: match.reason === null ? 'shapes' : 'frequency order',
+    shapesNotCompared: match.reason,
     baselineFrequenciesHz: fb.slice(),
     currentFrequenciesHz: fc,
     baselineMaxHz,
     currentMaxHz,
     baselineGroups: groupsOf(groupOfBaseline),
     currentGroups: groupsOf(groupOfCurrent),
-    mac: { rows: fb.length, cols: mc, values: Array.from(mac) },
-    correlation: { rows: fb.length, cols: mc, values: Array.from(correlation) },
-    pairs,
-    lostModes: unpaired(pairing.partnerOfBaseline, fb, currentMaxHz, (i) => rowBest(correlation, mc, i)),
-    newModes: unpaired(pairing.partnerOfCurrent, fc, baselineMaxHz, (j) => columnBest(correlation, fb.length, mc, j)),
-    swaps,
+    mac: { rows: 0, cols: 0, values: [] },
+    correlation: { rows: 0, cols: 0, values: [] },
+    pairs: [],
+    lostModes: [],
+    newModes: [],
+    swaps: [],
+    groupMatches: [],
+    baselineMassProperties: s.massProperties ?? null,
+  };
+  const pair = (i: number, j: number, mac: number | null, correlation: number | null): ModePair => {
+    const rigidBody = i < rigidBaseline || j < rigidCurrent;
+    return {
+      baselineMode: i + 1,
+      currentMode: j + 1,
+      baselineHz: fb[i],
+      currentHz: fc[j],
+      changePercent: rigidBody ? null : (100 * (fc[j] - fb[i])) / fb[i],
+      mac,
+      correlation,
+      group: null,
+      repeated: groupSize(groupOfBaseline, groupOfBaseline[i]) > 1 || groupSize(groupOfCurrent, groupOfCurrent[j]) > 1,
+      rigidBody,
+    };
+  };
+  if (match.reason !== null) {
+    const pairing = pairByOrder(mb, mc, rigidBaseline, rigidCurrent);
+    for (let i = 0; i < mb; i++) if (pairing.partnerOfBaseline[i] >= 0) facts.pairs.push(pair(i, pairing.partnerOfBaseline[i], null, null));
+    const none = (): { value: number; index: number } => ({ value: 0, index: -1 });
+    facts.lostModes = unpaired(pairing.partnerOfBaseline, fb, currentMaxHz, none, () => false);
+    facts.newModes = unpaired(pairing.partnerOfCurrent, fc, baselineMaxHz, none, () => false);
+    return facts;
+  }
+  const baselineValues = match.baselineRows ? restrictRows(baseline.shapes.values, baseline.shapes.rows, mb, match.baselineRows) : baseline.shapes.values;
+  const currentValues = match.currentDofs ? restrictRows(modes.shapes, modes.n, mc, match.currentDofs) : modes.shapes.subarray(0, modes.n * mc);
+  const weight = settings.weighting === 'mass' ? (match.currentDofs ? principalSubmatrix(current.mass, match.currentDofs) : current.mass) : undefined;
+  const rows = match.compared;
+  const products = shapeProducts({ rows, cols: mb, values: baselineValues }, { rows, cols: mc, values: currentValues }, weight);
+  const mac = macFromProducts(products);
+  const correlation = correlationMatrix(products, mac, groupOfBaseline, groupOfCurrent);
+  const pairing = pairModes(correlation, fb, fc, { minCorrelation: settings.minPairCorrelation, windowPercent: settings.windowPercent ?? undefined });
+  orderInsideGroups(pairing, groupOfBaseline, groupOfCurrent);
+  const groups = linkedGroups(pairing, groupOfBaseline, groupOfCurrent);
+  facts.groupMatches = groups.map((g) => groupMatch(products, g.baseline, g.current));
+  const groupOfPair = new Map<number, number>();
+  groups.forEach((g, k) => g.baseline.forEach((i) => groupOfPair.set(i, k)));
+  // one row per paired baseline mode, in baseline order; grouped pairs carry the group's subspace MAC
+  for (let i = 0; i < mb; i++) {
+    const j = pairing.partnerOfBaseline[i];
+    if (j < 0) continue;
+    const p = pair(i, j, mac[i * mc + j], correlation[i * mc + j]);
+    const k = groupOfPair.get(i);
+    if (k !== undefined) {
+      p.group = k;
+      p.correlation = facts.groupMatches[k].subspaceMac;
+    }
+    facts.pairs.push(p);
+  }
+  const sameGroup = (a: number, b: number, pa: number, pb: number): boolean => groupOfBaseline[a] === groupOfBaseline[b] || groupOfCurrent[pa] === groupOfCurrent[pb];
+  facts.swaps = crossingPairs(pairing, sameGroup).map(([a, b]): ModeSwap => {
+    const pa = pairing.partnerOfBaseline[a], pb = pairing.partnerOfBaseline[b];
+    return { baselineModes: [a + 1, b + 1], currentModes: [pa + 1, pb + 1], correlations: [correlation[a * mc + pa], correlation[b * mc + pb]] };
+  });
+  const cut = cutMembers(groups, mb, mc);
+  facts.mac = { rows: mb, cols: mc, values: Array.from(mac) };
+  facts.correlation = { rows: mb, cols: mc, values: Array.from(correlation) };
+  facts.lostModes = unpaired(pairing.partnerOfBaseline, fb, currentMaxHz, (i) => rowBest(correlation, mc, i), (i) => cut.baseline.has(i));
+  facts.newModes = unpaired(pairing.partnerOfCurrent, fc, baselineMaxHz, (j) => columnBest(correlation, mb, mc, j), (j) => cut.current.has(j));
+  return facts;
+}
+
+/** Match the stored shape rows with the model's DOFs (see step 1 above). */
+export function matchDofs(baseline: LoadedBaseline, current: CurrentModel): DofMatch {
+  const s = baseline.snapshot;
+  const n = current.modes.n;
+  const stored = baseline.shapes.rows;
+  const dofOfRow = (r: number): number => (baseline.dofs ? baseline.dofs[r] : r);
+  const map = baseline.dofMap, now = current.dofMap;
+  if (map && now) {
+    // by node id, and by position where node ids changed too; the one that matches more DOFs wins
+    const byNode = matchByKey(map, now, (m, d) => m.node[d] * 8 + m.component[d]);
+    const byPlace = matchByKey(map, now, (m, d) => `${m.x[d]} ${m.y[d]} ${m.z[d]} ${m.component[d]}`);
+    const [toCurrent, matched, matchedBy] = byPlace.matched > byNode.matched ? [byPlace.toCurrent, byPlace.matched, 'position and component' as const] : [byNode.toCurrent, byNode.matched, 'node and component' as const];
+    let renumbered = map.n !== now.n;
+    for (let d = 0; d < map.n && !renumbered; d++) if (toCurrent[d] >= 0 && toCurrent[d] !== d) renumbered = true;
+    const rowsAndDofs: [number, number][] = [];
+    for (let r = 0; r < stored; r++) if (toCurrent[dofOfRow(r)] >= 0) rowsAndDofs.push([r, toCurrent[dofOfRow(r)]]);
+    rowsAndDofs.sort((a, b) => a[1] - b[1]);
+    const base = { matchedBy, added: now.n - matched, removed: map.n - matched, renumbered };
+    if (rowsAndDofs.length === 0) {
+      return { ...base, matchedBy: 'none', baselineRows: null, currentDofs: null, compared: 0, reason: 'none of the DOFs stored with the baseline is in the model now (matched by node and component, or by position and component), so the shapes cannot be compared' };
+    }
+    const identity = rowsAndDofs.length === n && stored === n && rowsAndDofs.every(([r, c]) => r === c);
+    return {
+      ...base,
+      baselineRows: identity ? null : Int32Array.from(rowsAndDofs, (x) => x[0]),
+      currentDofs: identity ? null : Int32Array.from(rowsAndDofs, (x) => x[1]),
+      compared: rowsAndDofs.length,
+      reason: null,
+    };
+  }
+  if (s.dofCount === n) return { matchedBy: 'dof index', baselineRows: null, currentDofs: baseline.dofs, compared: stored, added: 0, removed: 0, renumbered: false, reason: null };
+  const why = map ? 'the model has no DOF map now' : now ? 'the baseline was saved without a DOF map' : 'neither side has a DOF map';
+  return {
+    matchedBy: 'none',
+    baselineRows: null,
+    currentDofs: null,
+    compared: 0,
+    added: Math.max(0, n - s.dofCount),
+    removed: Math.max(0, s.dofCount - n),
+    renumbered: false,
+    reason: `the baseline has ${s.dofCount} DOFs and the model now ${n}, and ${why}, so DOFs cannot be matched and the shapes cannot be compared`,
   };
 }
 
-/** Same DOF count, and same DOF-map hash when the baseline has one; else an InputError. */
-function checkNumbering(baseline: LoadedBaseline, current: CurrentModel): 'dof-map hash' | 'dof count only' {
-  const s = baseline.snapshot;
-  const n = current.modes.n;
-  if (s.dofCount !== n) {
-    throw new InputError(baseline.file, `was saved for ${s.dofCount} DOFs but the model now has ${n} DOFs: the DOF numbering changed, so shapes cannot be compared; save a new baseline (check --save-baseline)`);
+/**
+ * toCurrent[d] = the current DOF with the same key as baseline DOF d, or −1. Keys held by more
+ * than one DOF on either side (coincident nodes, when matching by position) match nothing.
+ */
+function matchByKey<K>(map: DofMap, now: DofMap, key: (m: DofMap, d: number) => K): { toCurrent: Int32Array; matched: number } {
+  const indexNow = new Map<K, number>();
+  // key → current DOF (−1 when ambiguous)
+  for (let d = 0; d < now.n; d++) {
+    const k = key(now, d);
+    indexNow.set(k, indexNow.has(k) ? -1 : d);
   }
-  if (s.dofMapHash === null) return 'dof count only';
-  if (!current.dofMap) throw new InputError(baseline.file, 'records a DOF map but the model now has none, so its DOF numbering cannot be checked; add `dofs:` to the model');
-  if (dofMapHash(current.dofMap) !== s.dofMapHash) {
-    throw new InputError(baseline.file, 'was saved with a different DOF numbering (the node/component of some DOFs changed), so shapes cannot be compared; save a new baseline (check --save-baseline)');
+  const seen = new Map<K, number>();
+  for (let d = 0; d < map.n; d++) seen.set(key(map, d), (seen.get(key(map, d)) ?? 0) + 1);
+  const toCurrent = new Int32Array(map.n).fill(-1);
+  let matched = 0;
+  // each baseline DOF's place in the model now
+  for (let d = 0; d < map.n; d++) {
+    const k = key(map, d);
+    const c = indexNow.get(k);
+    if (c === undefined || c < 0 || seen.get(k)! > 1) continue;
+    toCurrent[d] = c;
+    matched++;
   }
-  return 'dof-map hash';
+  return { toCurrent, matched };
+}
+
+/** Rigid-body modes with rigid-body modes and elastic with elastic, each in frequency order. */
+function pairByOrder(mb: number, mc: number, rb: number, rc: number): ModePairing {
+  const partnerOfBaseline = new Int32Array(mb).fill(-1);
+  const partnerOfCurrent = new Int32Array(mc).fill(-1);
+  const link = (i: number, j: number): void => {
+    partnerOfBaseline[i] = j;
+    partnerOfCurrent[j] = i;
+  };
+  for (let k = 0; k < Math.min(rb, rc); k++) link(k, k);
+  for (let k = 0; k < Math.min(mb - rb, mc - rc); k++) link(rb + k, rc + k);
+  return { partnerOfBaseline, partnerOfCurrent };
 }
 
 function rigidCount(frequenciesHz: ArrayLike<number>): number {
@@ -220,12 +348,63 @@ function columnBest(e: Float64Array, mb: number, mc: number, j: number): { value
   return { value, index };
 }
 
-function unpaired(partner: Int32Array, hz: ArrayLike<number>, otherMaxHz: number, best: (k: number) => { value: number; index: number }): UnpairedMode[] {
+function unpaired(partner: Int32Array, hz: ArrayLike<number>, otherMaxHz: number, best: (k: number) => { value: number; index: number }, inCutGroup: (k: number) => boolean): UnpairedMode[] {
   const out: UnpairedMode[] = [];
   for (let k = 0; k < partner.length; k++) {
     if (partner[k] >= 0) continue;
     const b = best(k);
-    out.push({ mode: k + 1, hz: hz[k], withinCompared: hz[k] <= otherMaxHz, bestCorrelation: b.value, bestPartner: b.index >= 0 ? b.index + 1 : null });
+    const cutGroup = inCutGroup(k);
+    out.push({ mode: k + 1, hz: hz[k], withinCompared: hz[k] <= otherMaxHz && !cutGroup, bestCorrelation: b.value, bestPartner: b.index >= 0 ? b.index + 1 : null, cutGroup });
+  }
+  return out;
+}
+
+interface LinkedGroup {
+  baseline: number[];
+  current: number[];
+}
+
+/**
+ * Baseline and current modes joined by near-repeated groups on either side and by the pairs:
+ * the connected parts with more than one mode on some side and at least one on each.
+ */
+function linkedGroups(pairing: ModePairing, gb: Int32Array, gc: Int32Array): LinkedGroup[] {
+  const mb = gb.length, mc = gc.length;
+  const parent = Int32Array.from({ length: mb + mc }, (_v, k) => k);
+  const find = (x: number): number => {
+    while (parent[x] !== x) x = parent[x] = parent[parent[x]];
+    return x;
+  };
+  const join = (a: number, b: number): void => {
+    parent[find(a)] = find(b);
+  };
+  // modes of one group; pairs across the sides
+  for (let i = 1; i < mb; i++) if (gb[i] === gb[i - 1]) join(i, i - 1);
+  for (let j = 1; j < mc; j++) if (gc[j] === gc[j - 1]) join(mb + j, mb + j - 1);
+  for (let i = 0; i < mb; i++) if (pairing.partnerOfBaseline[i] >= 0) join(i, mb + pairing.partnerOfBaseline[i]);
+  const parts = new Map<number, LinkedGroup>();
+  for (let k = 0; k < mb + mc; k++) {
+    const root = find(k);
+    const g = parts.get(root) ?? { baseline: [], current: [] };
+    if (k < mb) g.baseline.push(k);
+    else g.current.push(k - mb);
+    parts.set(root, g);
+  }
+  return [...parts.values()].filter((g) => g.baseline.length > 0 && g.current.length > 0 && (g.baseline.length > 1 || g.current.length > 1));
+}
+
+function groupMatch(p: ShapeProducts, baseline: number[], current: number[]): GroupMatch {
+  const cosines = principalAngleCosines(p, baseline, current);
+  const smallest = cosines.length > 0 ? cosines[cosines.length - 1] : 0;
+  return { baselineModes: baseline.map((i) => i + 1), currentModes: current.map((j) => j + 1), cosines, subspaceMac: smallest * smallest, cut: baseline.length !== current.length };
+}
+
+/** Members of linked groups that the other side cut: its part of the group ends at its highest solved mode. */
+function cutMembers(groups: LinkedGroup[], mb: number, mc: number): { baseline: Set<number>; current: Set<number> } {
+  const out = { baseline: new Set<number>(), current: new Set<number>() };
+  for (const g of groups) {
+    if (g.baseline.length < g.current.length && g.baseline.includes(mb - 1)) g.current.forEach((j) => out.current.add(j));
+    if (g.current.length < g.baseline.length && g.current.includes(mc - 1)) g.baseline.forEach((i) => out.baseline.add(i));
   }
   return out;
 }

@@ -18,11 +18,18 @@
  * which equals MAC when C has one member (our construction, in the spirit of the SpaceMAC of
  * SEM/IMAC ch. 18, CRITERIA.md §2; grouping near-repeated modes is common practice, [CP]).
  *
+ * Groups are also compared whole, by the principal angles θ_1 ≤ … ≤ θ_k between span(Φ_B) and
+ * span(Ψ_C) in the W inner product (Björck & Golub, "Numerical methods for computing angles
+ * between linear subspaces", Math. Comp. 27 (1973) 579–594): with W-Cholesky factors of the two
+ * Grams, Φ_BᵀWΦ_B = L_B L_Bᵀ and Ψ_CᵀWΨ_C = L_C L_Cᵀ, the bases Φ_B L_B⁻ᵀ and Ψ_C L_C⁻ᵀ are
+ * W-orthonormal and cos θ_k are the singular values of L_B⁻¹ (Φ_BᵀWΨ_C) L_C⁻ᵀ.
+ *
  * Shapes are column-major blocks (rows = compared DOFs, one column per mode).
  */
 import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
 import { transposeTimes } from '../dense/block-ops.js';
 import { cholesky, solveLower } from '../dense/cholesky.js';
+import { symmetricEigenvalues } from '../dense/symmetric-eigen.js';
 
 /** rows × cols mode shapes, column-major (entry (i, j) at values[i + j·rows]). */
 export interface ShapeBlock {
@@ -112,6 +119,38 @@ export function subspaceShare(p: ShapeProducts, side: 'baseline' | 'current', i:
   // g G⁻¹ gᵀ = ‖L⁻¹ gᵀ‖²
   for (let a = 0; a < k; a++) share += g[a] * g[a];
   return Math.min(1, share / self);
+}
+
+/**
+ * cos θ of the principal angles between the baseline modes `baseline` and the current modes
+ * `current` (0-based), descending, min(k_B, k_C) of them; empty when a Gram is singular.
+ */
+export function principalAngleCosines(p: ShapeProducts, baseline: readonly number[], current: readonly number[]): number[] {
+  const kb = baseline.length, kc = current.length;
+  const mb = p.baselineModes, mc = p.currentModes;
+  const gb = new Float64Array(kb * kb), gc = new Float64Array(kc * kc), x = new Float64Array(kb * kc);
+  // the two Grams and X = Φ_BᵀWΨ_C, column-major
+  for (let a = 0; a < kb; a++) for (let b = 0; b < kb; b++) gb[b * kb + a] = p.baselineGram[baseline[b] * mb + baseline[a]];
+  for (let a = 0; a < kc; a++) for (let b = 0; b < kc; b++) gc[b * kc + a] = p.currentGram[current[b] * mc + current[a]];
+  for (let a = 0; a < kb; a++) for (let b = 0; b < kc; b++) x[b * kb + a] = p.cross[current[b] * mb + baseline[a]];
+  const lb = cholesky(gb, kb), lc = cholesky(gc, kc);
+  if (!lb.ok || !lc.ok) return [];
+  solveLower(lb.lower, kb, x, kc);
+  const t = new Float64Array(kc * kb);
+  // T = (L_B⁻¹ X)ᵀ, then T ← L_C⁻¹ T = Cᵀ with C = L_B⁻¹ X L_C⁻ᵀ
+  for (let a = 0; a < kb; a++) for (let b = 0; b < kc; b++) t[a * kc + b] = x[b * kb + a];
+  solveLower(lc.lower, kc, t, kb);
+  const ctc = new Float64Array(kc * kc);
+  // CᵀC = T Tᵀ (kc × kc): its eigenvalues are the squared singular values of C
+  for (let a = 0; a < kc; a++) {
+    for (let b = 0; b < kc; b++) {
+      let s = 0;
+      for (let r = 0; r < kb; r++) s += t[r * kc + a] * t[r * kc + b];
+      ctc[b * kc + a] = s;
+    }
+  }
+  const squares = Array.from(symmetricEigenvalues(ctc, kc)).sort((u, v) => v - u).slice(0, Math.min(kb, kc));
+  return squares.map((q) => Math.min(1, Math.sqrt(Math.max(0, q))));
 }
 
 /** Rows `dofs` of a column-major n × cols block. */

@@ -158,6 +158,11 @@ function comparisonSection(c: ComparisonFacts): string {
     ['baseline', `${c.baseline.file} (saved ${c.baseline.createdAt})`],
     ['compared', `${c.pairs.length} paired modes on ${c.baseline.dofsCompared} DOFs (${c.baseline.numberingCheck}), ${c.settings.weighting === 'mass' ? 'mass-weighted MAC' : 'MAC'}`],
   ];
+  if (c.shapesNotCompared) items.push(['shapes not compared', `${c.shapesNotCompared}: modes paired by frequency order`]);
+  else if (c.baseline.dofsAdded > 0 || c.baseline.dofsRemoved > 0 || c.baseline.renumbered) items.push(['DOFs', `${c.baseline.dofsAdded} added, ${c.baseline.dofsRemoved} removed${c.baseline.renumbered ? ', renumbered' : ''}`]);
+  if (c.baseline.energyShareKept < 1) items.push(['stored DOF subset', `keeps at least ${formatNumber(100 * c.baseline.energyShareKept)} % of every mode's kinetic energy`]);
+  const cut = (c.groupMatches ?? []).filter((g) => g.cut);
+  if (cut.length > 0) items.push(['groups cut by a solve', cut.map((g) => `baseline ${g.baselineModes.join(', ')} ↔ current ${g.currentModes.join(', ')} (subspace MAC ${formatNumber(g.subspaceMac)})`).join('; ')]);
   if (c.lostModes.length > 0) items.push(['baseline modes without a partner', c.lostModes.map((u) => `${u.mode} (${formatNumber(u.hz)} Hz)`).join(', ')]);
   if (c.newModes.length > 0) items.push(['current modes without a partner', c.newModes.map((u) => `${u.mode} (${formatNumber(u.hz)} Hz)`).join(', ')]);
   if (c.swaps.length > 0) items.push(['swaps', c.swaps.map((s) => `baseline ${s.baselineModes.join(', ')} → current ${s.currentModes.join(', ')}`).join('; ')]);

@@ -80,11 +80,15 @@ function comparisonTable(facts: ComparisonFacts, rules: RuleResult[], options: M
     `Compared with baseline \`${facts.baseline.file}\` (saved ${facts.baseline.createdAt}): ${facts.pairs.length} paired modes, ${facts.baseline.dofsCompared} DOFs, ${weighting}.`,
     '',
   ];
+  if (facts.shapesNotCompared) out.push(`Shapes not compared (${inline(facts.shapesNotCompared)}): modes paired by frequency order.`, '');
+  else if (facts.baseline.dofsAdded > 0 || facts.baseline.dofsRemoved > 0 || facts.baseline.renumbered) {
+    out.push(`DOFs matched by ${facts.baseline.numberingCheck}: ${facts.baseline.dofsAdded} added, ${facts.baseline.dofsRemoved} removed${facts.baseline.renumbered ? ', renumbered' : ''}.`, '');
+  }
   if (shown.length === 0) return [...out, 'No modes to show.', ''];
   out.push('| mode | baseline Hz | current Hz | change % | MAC | status |', '|---|---:|---:|---:|---:|---|');
   for (const r of shown) out.push(`| ${r.mode} | ${hz(r.baselineHz)} | ${hz(r.currentHz)} | ${percent(r.changePercent)} | ${r.mac === null ? '—' : r.mac.toFixed(3)} | ${r.status.length > 0 ? [...new Set(r.status)].join(', ') : 'ok'} |`);
   out.push('');
-  if (shown.some((r) => r.repeated)) out.push('MAC of near-repeated modes (and rigid-body modes) is the subspace share: how much of the shape lies in the span of its partner\'s group.', '');
+  if (shown.some((r) => r.repeated)) out.push('MAC of near-repeated modes (and rigid-body modes) is the group\'s subspace MAC: the smallest cos² of the principal angles between the baseline group\'s span and its partners\' span.', '');
   if (!options.allModes) {
     const note = flagged.length === 0 ? `No mode flagged; showing the largest frequency change of ${rows.length} rows.` : `Showing the ${flagged.length} flagged of ${rows.length} rows.`;
     out.push(note, '');

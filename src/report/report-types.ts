@@ -83,7 +83,11 @@ export interface ModelReport {
   /** Baseline comparison (issue "regression against a baseline") as plain JSON, when computed. */
   comparison?: unknown;
   /** Baseline files written for this model by `check --save-baseline`. */
-  baselineSaved?: { json: string; shapes: string };
+  baselineSaved?: { json: string; shapes: string; dofs?: string };
+  /** Why a baseline comparison asked for was not made (missing directory or baseline): a warning. */
+  baselineWarning?: string;
+  /** Why `check --save-baseline` saved nothing for this model (e.g. its verdict is error). */
+  baselineNotSaved?: string;
 }
 
 export interface CheckReport {

@@ -2,7 +2,10 @@
  * frequency-drift: each paired mode's frequency stays within ± maxChangePercent of its baseline:
  *   |f_current − f_baseline| / f_baseline ≤ maxChangePercent / 100,
  * with pairs from mode tracking (MAC assignment, see src/model/compare-baseline.ts), so a swap of
- * close modes is not read as two large changes. Rigid-body modes (f ≈ 0) are not checked.
+ * close modes is not read as two large changes. When the shapes cannot be compared (DOFs added or
+ * removed without DOF maps to match them), modes pair by frequency order (rigid-body with
+ * rigid-body, elastic with elastic) and the messages say so: the drift is still checked.
+ * Rigid-body modes (f ≈ 0) are not checked.
  * Default 5 %: the frequency agreement usually asked of significant modes (attributed to
  * NASA-STD-5002, clause unconfirmed — [M] CRITERIA.md §1b); between revisions of one model the
  * right limit is the project's own choice.
@@ -22,6 +25,7 @@ const messages = {
   pass: '{{count}} paired modes within ± {{limit}} % of the baseline (largest change {{worst}} % at baseline mode {{worstMode}}).',
   fail: '{{bad}} of {{count}} paired modes changed by more than ± {{limit}} % from the baseline: {{list}}.',
   none: 'no paired elastic modes to compare with the baseline.',
+  byOrder: ' Modes paired by frequency order: {{reason}}.',
 };
 
 export const frequencyDrift: RuleDefinition<FrequencyDriftOptions> = {
@@ -39,16 +43,18 @@ export const frequencyDrift: RuleDefinition<FrequencyDriftOptions> = {
   messages,
   needs: ['modes', 'baseline'],
   evaluate(context, o) {
+    const c = context.comparison!;
+    const note = c.shapesNotCompared === null ? '' : messages.byOrder;
     const wanted = o.modes ? new Set(o.modes) : null;
-    const checked = context.comparison!.pairs.filter((p) => p.changePercent !== null && (!wanted || wanted.has(p.baselineMode)));
+    const checked = c.pairs.filter((p) => p.changePercent !== null && (!wanted || wanted.has(p.baselineMode)));
     if (checked.length === 0) return outcome('skip', messages.none, {});
     const worst = checked.reduce((a, b) => (Math.abs(b.changePercent!) > Math.abs(a.changePercent!) ? b : a));
     const bad = checked.filter((p) => Math.abs(p.changePercent!) > o.maxChangePercent);
     const measured = Math.abs(worst.changePercent!);
-    const details = { flagged: bad.map(flag), pairs: checked.map((p) => ({ baselineMode: p.baselineMode, currentMode: p.currentMode, baselineHz: p.baselineHz, currentHz: p.currentHz, changePercent: p.changePercent })) };
-    const values = { count: checked.length, limit: o.maxChangePercent };
-    if (bad.length > 0) return outcome('fail', messages.fail, { ...values, bad: bad.length, list: formatList(bad.map(describe)) }, measured, o.maxChangePercent, details);
-    return outcome('pass', messages.pass, { ...values, worst: measured, worstMode: worst.baselineMode }, measured, o.maxChangePercent, details);
+    const details = { pairedBy: c.pairedBy, flagged: bad.map(flag), pairs: checked.map((p) => ({ baselineMode: p.baselineMode, currentMode: p.currentMode, baselineHz: p.baselineHz, currentHz: p.currentHz, changePercent: p.changePercent })) };
+    const values = { count: checked.length, limit: o.maxChangePercent, reason: c.shapesNotCompared };
+    if (bad.length > 0) return outcome('fail', messages.fail + note, { ...values, bad: bad.length, list: formatList(bad.map(describe)) }, measured, o.maxChangePercent, details);
+    return outcome('pass', messages.pass + note, { ...values, worst: measured, worstMode: worst.baselineMode }, measured, o.maxChangePercent, details);
   },
 };
 

@@ -2,8 +2,10 @@
  * mode-shape-match: each paired mode's shape still matches its baseline shape:
  *   MAC(φ_baseline, ψ_current) ≥ minMac
  * (Allemang & Brown 1982, CRITERIA.md §2 [C]; plain or mass-weighted as the baseline settings
- * say). For near-repeated modes the value is the subspace share of the shape in its partner's
- * group (src/model/mac.ts), since single vectors of a repeated pair are arbitrary.
+ * say). For modes of a near-repeated group the value is the group's subspace MAC (smallest cos²
+ * of the principal angles between the two spans, src/model/mac.ts), since single vectors of a
+ * repeated pair are arbitrary. Skips, saying why, when the shapes could not be compared (the DOFs
+ * of the baseline and of the model could not be matched).
  * Default 0.9: the cross-MAC used for pairing in practice (SEM/IMAC ch. 18, CRITERIA.md §2 [C];
  * "> 0.9 consistent" is common practice, [CP]).
  */
@@ -21,6 +23,7 @@ const messages = {
   pass: '{{count}} paired mode shapes match the baseline (lowest MAC {{worst}} at baseline mode {{worstMode}}, limit {{limit}}).',
   fail: '{{bad}} of {{count}} paired mode shapes differ from the baseline (MAC below {{limit}}): {{list}}.',
   none: 'no paired modes to compare with the baseline.',
+  notCompared: 'not evaluated: {{reason}}.',
 };
 
 export const modeShapeMatch: RuleDefinition<ModeShapeMatchOptions> = {
@@ -38,14 +41,17 @@ export const modeShapeMatch: RuleDefinition<ModeShapeMatchOptions> = {
   messages,
   needs: ['modes', 'baseline'],
   evaluate(context, o) {
+    const c = context.comparison!;
+    if (c.shapesNotCompared !== null) return outcome('skip', messages.notCompared, { reason: c.shapesNotCompared });
     const wanted = o.modes ? new Set(o.modes) : null;
-    const checked = context.comparison!.pairs.filter((p) => !wanted || wanted.has(p.baselineMode));
+    const checked = c.pairs.filter((p): p is typeof p & { correlation: number } => p.correlation !== null && (!wanted || wanted.has(p.baselineMode)));
     if (checked.length === 0) return outcome('skip', messages.none, {});
     const worst = checked.reduce((a, b) => (b.correlation < a.correlation ? b : a));
     const bad = checked.filter((p) => p.correlation < o.minMac);
     const details = {
       flagged: bad.map((p) => ({ baselineMode: p.baselineMode, currentMode: p.currentMode })),
-      pairs: checked.map((p) => ({ baselineMode: p.baselineMode, currentMode: p.currentMode, mac: p.mac, correlation: p.correlation, repeated: p.repeated })),
+      groups: c.groupMatches,
+      pairs: checked.map((p) => ({ baselineMode: p.baselineMode, currentMode: p.currentMode, mac: p.mac, correlation: p.correlation, repeated: p.repeated, group: p.group })),
     };
     const values = { count: checked.length, limit: o.minMac };
     if (bad.length > 0) {

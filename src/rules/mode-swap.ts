@@ -2,7 +2,8 @@
  * mode-swap: the modes keep their order: no two paired modes cross, i.e. no baseline modes
  * a < b whose partners come in the opposite order p(a) > p(b) (mode tracking, CRITERIA.md §2
  * practice 3, [CP]). Crossings inside a group of near-repeated modes are not swaps. Set the rule
- * to `warning` to report swaps without failing.
+ * to `warning` to report swaps without failing. Skips, saying why, when the shapes could not be
+ * compared (pairs by frequency order cannot cross).
  */
 import type { RuleDefinition } from './rule-types.js';
 import { outcome } from './outcome.js';
@@ -11,6 +12,7 @@ import { formatList, formatNumber } from './message.js';
 export type ModeSwapOptions = Record<string, never>;
 
 const messages = {
+  notCompared: 'not evaluated: {{reason}}.',
   pass: 'the {{count}} paired modes keep their baseline order.',
   fail: '{{swaps}} mode order change(s) against the baseline: {{list}}.',
 };
@@ -24,6 +26,7 @@ export const modeSwap: RuleDefinition<ModeSwapOptions> = {
   needs: ['modes', 'baseline'],
   evaluate(context) {
     const c = context.comparison!;
+    if (c.shapesNotCompared !== null) return outcome('skip', messages.notCompared, { reason: c.shapesNotCompared });
     const flagged = c.swaps.flatMap((s) => [
       { baselineMode: s.baselineModes[0], currentMode: s.currentModes[0] },
       { baselineMode: s.baselineModes[1], currentMode: s.currentModes[1] },

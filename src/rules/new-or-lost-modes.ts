@@ -3,7 +3,9 @@
  * A baseline mode with no partner although the current solve reached its frequency is lost; a
  * current mode with no partner below the baseline's highest mode is new (CRITERIA.md §2
  * practice 3, [CP]). Modes above the other side's range are not counted: their partner may
- * simply not have been solved.
+ * simply not have been solved, and so are members of a near-repeated group that the other side's
+ * solve cut at its highest mode (the group is compared as a subspace instead, see mode-shape-match).
+ * Skips, saying why, when the shapes could not be compared (modes then pair by frequency order).
  */
 import type { RuleDefinition } from './rule-types.js';
 import type { UnpairedMode } from '../model/comparison-facts.js';
@@ -16,6 +18,7 @@ export interface NewOrLostModesOptions {
 }
 
 const messages = {
+  notCompared: 'not evaluated: {{reason}}.',
   pass: 'every mode below {{rangeHz}} Hz has a partner in the baseline ({{newCount}} new, {{lostCount}} lost; allowed {{maxNew}} new, {{maxLost}} lost).',
   fail: '{{what}} below {{rangeHz}} Hz without a partner: {{list}}.',
 };
@@ -33,6 +36,7 @@ export const newOrLostModes: RuleDefinition<NewOrLostModesOptions> = {
   needs: ['modes', 'baseline'],
   evaluate(context, o) {
     const c = context.comparison!;
+    if (c.shapesNotCompared !== null) return outcome('skip', messages.notCompared, { reason: c.shapesNotCompared });
     const lost = c.lostModes.filter((m) => m.withinCompared);
     const added = c.newModes.filter((m) => m.withinCompared);
     const rangeHz = Math.min(c.baselineMaxHz, c.currentMaxHz);

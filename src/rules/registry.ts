@@ -20,6 +20,7 @@ import { frequencyDrift } from './frequency-drift.js';
 import { modeShapeMatch } from './mode-shape-match.js';
 import { modeSwap } from './mode-swap.js';
 import { newOrLostModes } from './new-or-lost-modes.js';
+import { massDrift } from './mass-drift.js';
 import { rigidBodyEnergy } from './rigid-body-energy.js';
 import { totalMass } from './total-mass.js';
 import { centerOfMass } from './center-of-mass.js';
@@ -51,6 +52,7 @@ export const builtInRules: readonly AnyRule[] = [
   modeShapeMatch,
   modeSwap,
   newOrLostModes,
+  massDrift,
   // geometry rules (rigid-body-energy, total-mass, ...) and baseline rules (frequency-drift, ...) go here
 ];
 

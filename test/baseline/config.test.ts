@@ -23,7 +23,7 @@ function write(name: string, text: string): string {
   return p;
 }
 
-const regression = ['frequency-drift', 'mode-shape-match', 'mode-swap', 'new-or-lost-modes'];
+const regression = ['frequency-drift', 'mode-shape-match', 'mode-swap', 'new-or-lost-modes', 'mass-drift'];
 
 describe('baseline config', () => {
   it('merges top-level and model settings and switches the regression rules on', () => {
@@ -36,7 +36,7 @@ describe('baseline config', () => {
     expect(two.baseline).toMatchObject({ compareDir: join(work, 'other'), weighting: 'plain', minPairMac: 0.7, where: 'models[1].baseline' });
     expect(one.rules.map((r) => r.rule.id)).toEqual(regression);
     expect(one.rules.find((r) => r.rule.id === 'mode-shape-match')!.options).toEqual({ minMac: 0.9 });
-    expect(two.rules.map((r) => [r.rule.id, r.severity])).toEqual([['mode-shape-match', 'error'], ['mode-swap', 'warning'], ['new-or-lost-modes', 'error']]);
+    expect(two.rules.map((r) => [r.rule.id, r.severity])).toEqual([['mode-shape-match', 'error'], ['mode-swap', 'warning'], ['new-or-lost-modes', 'error'], ['mass-drift', 'error']]);
   });
   it('leaves the regression rules off without a baseline, and the command line can give one', () => {
     const p = write('b.yaml', `models:\n${model('one', ', rules: { matrix-finite: error }')}`);
@@ -51,10 +51,12 @@ describe('baseline config', () => {
     const bare = write('b2.yaml', `models:\n${model('one')}`);
     expect(() => loadConfig(bare, { saveBaselineDir: join(work, 'new') })).toThrow(/models\[0\]: model "one" has no rule to run/);
   });
-  it('rejects a missing directory (unless this run saves into it) and bad settings', () => {
+  it('accepts a missing directory (the baseline rules skip with a warning when the model runs), rejects a file and bad settings', () => {
     const p = write('c.yaml', `baseline: { dir: nowhere }\nmodels:\n${model('one')}`);
-    expect(() => loadConfig(p)).toThrow(InputError);
-    expect(() => loadConfig(p)).toThrow(/c\.yaml: baseline\.dir: baseline directory not found: .*nowhere/);
+    expect(loadConfig(p).models[0].baseline?.compareDir).toBe(join(work, 'nowhere'));
+    const file = write('c2.yaml', `baseline: { dir: c.yaml }\nmodels:\n${model('one')}`);
+    expect(() => loadConfig(file)).toThrow(InputError);
+    expect(() => loadConfig(file)).toThrow(/c2\.yaml: baseline\.dir: baseline directory is a file: .*c\.yaml/);
     expect(loadConfig(p, { saveBaselineDir: join(work, 'nowhere') }).models[0].baseline?.compareDir).toBe(join(work, 'nowhere'));
     const bad = write('d.yaml', `baseline: { dir: base, weighting: heavy }\nmodels:\n${model('one')}`);
     expect(() => loadConfig(bad)).toThrow(/d\.yaml: baseline\.weighting/);

@@ -1,0 +1,96 @@
+/**
+ * mass-drift: the model's mass properties stay close to those stored with its baseline, so a
+ * model that grew 20 % heavier fails even when no frequency moved past its drift limit:
+ *
+ *   total mass         |m − m_b| / m_b                      ≤ maxMassChangePercent / 100
+ *   centre of mass     ‖c − c_b‖ / r_b                      ≤ maxCenterShiftPercent / 100
+ *   inertia tensor     ‖I − I_b‖_F / ‖I_b‖_F (about each    ≤ maxInertiaChangePercent / 100
+ *                      side's own centre of mass)
+ *
+ * with r_b = √((I₁ + I₂ + I₃) / (2 m_b)) the baseline's radius of gyration about its centre of
+ * mass (for a body, trace I = 2 Σ m r², so r_b is the root-mean-square distance of the mass from
+ * the centre: a shift is measured against the model's own size, whatever the length unit). Mass
+ * properties come from RᵀMR with the rigid-body vectors (src/model/mass-properties.ts), so both
+ * sides need a DOF map. Defaults 1 % each: ours (the same order as total-mass's default; set
+ * them to what your mass control allows).
+ */
+import type { RuleDefinition } from './rule-types.js';
+import type { MassProperties } from '../model/mass-properties.js';
+import { outcome } from './outcome.js';
+import { formatList, formatNumber } from './message.js';
+import { geometryOrSkip, isOutcome } from './geometry-common.js';
+
+export interface MassDriftOptions {
+  maxMassChangePercent: number;
+  maxCenterShiftPercent: number;
+  maxInertiaChangePercent: number;
+}
+
+const messages = {
+  pass: 'mass properties agree with the baseline: total mass {{mass}} ({{massChange}} %), centre of mass moved {{shift}} ({{shiftPercent}} % of the radius of gyration {{radius}}), inertia changed {{inertiaChange}} %.',
+  fail: 'mass properties differ from the baseline: {{list}}.',
+  noBaseline: 'not evaluated: the baseline holds no mass properties (it was saved without a DOF map); save it again with check --save-baseline.',
+};
+
+export const massDrift: RuleDefinition<MassDriftOptions> = {
+  id: 'mass-drift',
+  description: 'Total mass, centre of mass and inertia stay within tolerances of the baseline.',
+  optionsSchema: {
+    type: 'object',
+    properties: {
+      maxMassChangePercent: { type: 'number', minimum: 0 },
+      maxCenterShiftPercent: { type: 'number', minimum: 0, description: 'percent of the baseline radius of gyration' },
+      maxInertiaChangePercent: { type: 'number', minimum: 0 },
+    },
+    additionalProperties: false,
+  },
+  defaults: { maxMassChangePercent: 1, maxCenterShiftPercent: 1, maxInertiaChangePercent: 1 },
+  messages,
+  needs: ['dofMap', 'baseline'],
+  evaluate(context, o) {
+    const g = geometryOrSkip(context);
+    if (isOutcome(g)) return g;
+    const before = context.comparison!.baselineMassProperties as MassProperties | null;
+    if (!before || typeof before.totalMass !== 'number') return outcome('skip', messages.noBaseline, {});
+    const now = g.massProperties;
+    const massChange = (100 * (now.totalMass - before.totalMass)) / before.totalMass;
+    const shift = Math.hypot(now.centerOfMass[0] - before.centerOfMass[0], now.centerOfMass[1] - before.centerOfMass[1], now.centerOfMass[2] - before.centerOfMass[2]);
+    const radius = Math.sqrt((before.principalMoments[0] + before.principalMoments[1] + before.principalMoments[2]) / (2 * before.totalMass));
+    const shiftPercent = radius > 0 ? (100 * shift) / radius : shift === 0 ? 0 : Infinity;
+    const inertiaChange = (100 * frobenius(now.inertiaAboutCenterOfMass.map((v, k) => v - before.inertiaAboutCenterOfMass[k]))) / frobenius(before.inertiaAboutCenterOfMass);
+    const values = {
+      mass: now.totalMass,
+      massChange: signed(massChange),
+      shift,
+      shiftPercent,
+      radius,
+      inertiaChange: Number.isFinite(inertiaChange) ? inertiaChange : 0,
+    };
+    const details = {
+      baseline: { totalMass: before.totalMass, centerOfMass: before.centerOfMass, inertiaAboutCenterOfMass: before.inertiaAboutCenterOfMass },
+      current: { totalMass: now.totalMass, centerOfMass: now.centerOfMass, inertiaAboutCenterOfMass: now.inertiaAboutCenterOfMass },
+      massChangePercent: massChange,
+      centerShift: shift,
+      centerShiftPercent: shiftPercent,
+      radiusOfGyration: radius,
+      inertiaChangePercent: values.inertiaChange,
+    };
+    const bad: string[] = [];
+    if (Math.abs(massChange) > o.maxMassChangePercent) bad.push(`total mass ${formatNumber(before.totalMass)} → ${formatNumber(now.totalMass)} (${signed(massChange)} %, allowed ± ${o.maxMassChangePercent} %)`);
+    if (shiftPercent > o.maxCenterShiftPercent) bad.push(`centre of mass moved ${formatNumber(shift)} (${formatNumber(shiftPercent)} % of the radius of gyration ${formatNumber(radius)}, allowed ${o.maxCenterShiftPercent} %)`);
+    if (values.inertiaChange > o.maxInertiaChangePercent) bad.push(`inertia tensor changed ${formatNumber(values.inertiaChange)} % (allowed ${o.maxInertiaChangePercent} %)`);
+    const limit = `mass ± ${o.maxMassChangePercent} %, centre ${o.maxCenterShiftPercent} %, inertia ${o.maxInertiaChangePercent} %`;
+    if (bad.length > 0) return outcome('fail', messages.fail, { list: formatList(bad, 3) }, Math.abs(massChange), limit, details);
+    return outcome('pass', messages.pass, values, Math.abs(massChange), limit, details);
+  },
+};
+
+function frobenius(values: readonly number[]): number {
+  let s = 0;
+  for (const v of values) s += v * v;
+  return Math.sqrt(s);
+}
+
+function signed(x: number): string {
+  return `${x > 0 ? '+' : ''}${formatNumber(x)}`;
+}
