@@ -67,7 +67,8 @@ export function motionKindText(m: RigidMotionKind): string {
 /** What a moving part does: "rotates freely about node 38 (3 free rotations)". */
 function partMotionText(g: MechanismGroup): string {
   const m = g.motion;
-  if (!m) return `moves without straining (${g.motions} near-zero motion${g.motions === 1 ? '' : 's'}, not as one rigid part)`;
+  const motions = `${g.motions} near-zero motion${g.motions === 1 ? '' : 's'}`;
+  if (!m) return g.region ? `moves without straining (${motions}, not as one rigid part)` : `moves without straining (${motions})`;
   if (m.kind === 'rotation-about-point' && m.pivot!.node !== null) return `rotates freely about node ${m.pivot!.node} (${plural(m.count, 'rotation')})`;
   if (m.kind === 'rotation-about-axis') {
     const a = m.axis!;
