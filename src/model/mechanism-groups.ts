@@ -5,9 +5,9 @@
  *
  * 1. Localize. In a model that also has free rigid motions V = R W (n × f), a mechanism vector ψ
  *    is only defined up to a rigid motion of the whole: ψ − V a. The representative kept is
- *    the one that leaves the bulk of the model still: a = argmin Σ_i d_i (ψ − V a)_i² over the
- *    DOFs of nodes that do not move (d = diag M), found in two passes (all DOFs, then the DOFs
- *    of nodes moving less than 1e-3 of the largest node amplitude).
+ *    the one that leaves the bulk of the model still: a = argmin Σ_i (ψ − V a)_i² over the DOFs
+ *    (with mass) of nodes that do not move, found in passes: all DOFs, then the DOFs of
+ *    nodes whose share (after the previous fit) is under 1e-1, 1e-2, 1e-4 and 1e-6 of the largest.
  * 2. Regions. A node moves when its share Σ_j Σ_{i ∈ node} d_i ψ_ji² is at least 1e-6 of the
  *    largest (amplitude 1e-3). Moving nodes joined through K's pattern (an element or spring
  *    couples their DOFs) form one region; disjoint regions are independent mechanisms.
@@ -119,14 +119,19 @@ function localize(psi: Float64Array, m: number, free: FreeRigidMotions, d: Float
     const w = free.w[c * 6 + l];
     if (w !== 0) for (let i = 0; i < n; i++) v[c * n + i] += w * free.rigidVectors[l * n + i];
   }
-  let out = Float64Array.from(psi);
-  let weight = d;
-  for (let pass = 0; pass < 2; pass++) {
+  // every DOF with mass counts alike (a node that moves is a node that moves, whatever its inertia)
+  const unit = d.map((x) => (x > 0 ? 1 : 0));
+  let weight = unit;
+  let out = psi;
+  // fit on all DOFs, then only on nodes moving less than 1e-1, 1e-2, 1e-4, 1e-6 of the largest (energy)
+  for (const ratio of [1e-1, 1e-2, 1e-4, 1e-6, 0]) {
     out = Float64Array.from(psi);
     for (let j = 0; j < m; j++) subtractFit(out, j, v, f, weight, n);
+    if (ratio === 0) break;
     const e = nodeEnergy(out, m, d, nodeOfRow, count);
-    const cut = 1e-6 * Math.max(...e);
-    weight = d.map((x, i) => (e[nodeOfRow[i]] < cut ? x : 0));
+    const cut = ratio * Math.max(...e);
+    const next = unit.map((x, i) => (e[nodeOfRow[i]] < cut ? x : 0));
+    if (next.some((x) => x > 0)) weight = next;
   }
   return out;
 }

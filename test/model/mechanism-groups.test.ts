@@ -196,3 +196,40 @@ describe('shares with their component split, suspects down to 1 %, failing modes
     expect(groups[0].topNodes[0].kind).toBe('dof');
   });
 });
+
+describe('supports seen only in the stiffness, and a mechanism of a free-free model', () => {
+  it('springs to ground at the nodes of one edge line: the spring nodes are named as the supports on the axis', () => {
+    const edge = [1, 5, 9];
+    const model = buildHexBox({
+      sizeM: [0.3, 0.2, 0.4],
+      elements: [3, 2, 2],
+      material: STEEL,
+      springs: edge.flatMap((node) => [0, 1, 2].map((component) => ({ node, component, stiffness: 1e9 }))),
+    });
+    const modes = denseModes(model.stiffness, model.mass, 6);
+    const r = run(rigidBodyModes, contextOf(model, modes), { expected: 0 });
+    expect(r.status).toBe('fail');
+    expect(r.message).toContain('Free rigid-body motion: rotation about the axis along y through (0, ');
+    expect(r.message).toMatch(/supported nodes [159], [159] and [159] lie on its axis\./);
+    const facts = r.details!.freeRigidMotions as FreeMotionFacts;
+    expect(facts.supportedNodes.map((s) => s.node).sort()).toEqual(edge);
+    expect(new Set(facts.supportedNodes.map((s) => s.source))).toEqual(new Set(['stiffness-residual']));
+  });
+
+  it('free-free beam with a rod end swinging about node 4: one part, node 99, rotating about node 4 (2 free rotations)', () => {
+    const spec = beamSpec();
+    const model = buildFrame({
+      ...spec,
+      nodes: [...spec.nodes, { id: 99, x: 0.75, y: 0.6, z: 0 }],
+      members: [...spec.members, { kind: 'rod', nodes: [4, 99], section: roundBarSection(0.01), material: STEEL }],
+      pointMasses: [{ node: 99, massKg: 2 }],
+    });
+    const modes = denseModes(model.stiffness, model.mass, 12);
+    const r = run(rigidBodyModes, contextOf(model, modes), { expected: 6 });
+    expect(r.status).toBe('fail');
+    expect(r.message).toContain('1 independent mechanism: (1) part with node 99 (x 0.75, y 0.6, z 0) rotates freely about node 4 (2 free rotations)');
+    expect(r.message).not.toContain('Free rigid-body motion');
+    const groups = r.details!.mechanismGroups as MechanismGroup[];
+    expect(groups.map((g) => [g.nodes, g.motions, g.motion?.pivot?.node])).toEqual([[[99], 2, 4]]);
+  });
+});
