@@ -52,6 +52,8 @@ export interface FreeRigidMotions {
 
 /** A node moves when its share is at least this fraction of the largest (amplitude 1e-3; our choice). */
 export const MOVING_NODE_ENERGY_RATIO = 1e-6;
+/** Moving parts described one by one (the rest are counted; our choice). */
+export const MAX_DESCRIBED_PARTS = 20;
 /** A motion is a rigid motion of its part when a rigid fit explains this fraction of it (our choice). */
 export const RIGID_FIT_FRACTION = 0.99;
 
@@ -63,9 +65,9 @@ export function mechanismGroups(
   labels: DofLabels,
   free: FreeRigidMotions | null,
   top = 3,
-): MechanismGroup[] {
+): { groups: MechanismGroup[]; unlisted: number } {
   const n = labels.n;
-  if (m === 0) return [];
+  if (m === 0) return { groups: [], unlisted: 0 };
   const d = diagonalOf(mass).map((x) => (x > 0 ? x : 0));
   const { nodeOfRow, count: nodeCount } = nodeIndex(labels);
   const local = free && free.f > 0 ? localize(psi, m, free, d, nodeOfRow, nodeCount) : psi;
@@ -81,12 +83,15 @@ export function mechanismGroups(
     const r = root(a);
     (rowsOf.get(r) ?? rowsOf.set(r, []).get(r)!).push(i);
   }
+  const regionEnergy = (rows: number[]): number => rows.reduce((s, i) => s + energy[nodeOfRow[i]], 0);
+  // the most energetic regions first; each described region stores n × motions values, so at most MAX_DESCRIBED_PARTS
+  const regions = [...rowsOf.entries()].map(([r, rows]) => ({ r, rows, e: regionEnergy(rows) })).sort((a, b) => b.e - a.e);
   const groups: MechanismGroup[] = [];
-  for (const [r, rows] of rowsOf) {
+  for (const { r, rows } of regions.slice(0, MAX_DESCRIBED_PARTS)) {
     const g = regionMotions(mass, local, m, rows, d, labels, [...(border.get(r) ?? [])], top);
     if (g) groups.push(g);
   }
-  return groups.sort((a, b) => b.motions - a.motions || b.nodeCount - a.nodeCount);
+  return { groups: groups.sort((a, b) => b.motions - a.motions || b.nodeCount - a.nodeCount), unlisted: Math.max(0, regions.length - MAX_DESCRIBED_PARTS) };
 }
 
 /** Dense 0..N−1 index of each row's node. */

@@ -120,6 +120,8 @@ export interface MechanismReport {
   perMechanism: NodeShare[][];
   /** Independent mechanisms: the parts that move, each with its motions, nodes and kind (./mechanism-groups.ts). */
   groups: MechanismGroup[];
+  /** Further moving parts found but not described (beyond MAX_DESCRIBED_PARTS). */
+  groupsNotListed: number;
 }
 
 export interface MechanismOptions {
@@ -160,6 +162,7 @@ export function localizeMechanisms(
   const all = mechanismColumns.map((_, j) => j);
   const labels = dofLabels(n, dofMap, options.originalDofs);
   const free = options.rigidVectors && options.freeCount > 0 ? { rigidVectors: options.rigidVectors, w: options.freeDirections, f: options.freeCount } : null;
+  const parts = options.stiffness ? mechanismGroups(options.stiffness, mass, psi, mechanismColumns.length, labels, free) : { groups: [], unlisted: 0 };
   return {
     nearZeroModes: k,
     freeRigidBodyMotions: k - mechanismColumns.length,
@@ -167,7 +170,8 @@ export function localizeMechanisms(
     rigidAlignment: alignment,
     nodes: mechanismColumns.length ? energyShares(psi, mPsi, all, labels, top) : [],
     perMechanism: all.map((j) => energyShares(psi, mPsi, [j], labels, Math.min(top, 3))),
-    groups: options.stiffness ? mechanismGroups(options.stiffness, mass, psi, mechanismColumns.length, labels, free) : [],
+    groups: parts.groups,
+    groupsNotListed: parts.unlisted,
   };
 }
 
@@ -175,9 +179,9 @@ export function localizeMechanisms(
  * Without a DOF map: the first k solved modes taken as they are (no rigid motions can be
  * formed), split into independent parts by K's pattern, named by DOF numbers.
  */
-export function localizeNearZeroModesByDof(stiffness: SymmetricCsc, mass: SymmetricCsc, modes: ModesResult, k: number, originalDofs?: Int32Array): MechanismGroup[] {
+export function localizeNearZeroModesByDof(stiffness: SymmetricCsc, mass: SymmetricCsc, modes: ModesResult, k: number, originalDofs?: Int32Array): { groups: MechanismGroup[]; unlisted: number } {
   const count = Math.min(k, modes.eigenvalues.length);
-  if (count === 0) return [];
+  if (count === 0) return { groups: [], unlisted: 0 };
   return mechanismGroups(stiffness, mass, modes.shapes.subarray(0, modes.n * count), count, dofLabels(modes.n, undefined, originalDofs), null);
 }
 

@@ -79,13 +79,15 @@ export const rigidBodyModes: RuleDefinition<RigidBodyModesOptions> = {
         const groups = g!.mechanisms!.groups;
         if (groups.length > 0) {
           const mechanismWord = groups.length === 1 ? 'mechanism' : 'mechanisms';
-          sentences.push(formatMessage(messages.mechanismGroups, { count: groups.length, mechanismWord, groups: groups.map((x, k) => mechanismGroupText(x, k + 1)).join('; ') }));
+          const unlisted = g!.mechanisms!.groupsNotListed;
+          const count = unlisted > 0 ? `${groups.length + unlisted} (the first ${groups.length} named)` : groups.length;
+          sentences.push(formatMessage(messages.mechanismGroups, { count, mechanismWord, groups: groups.map((x, k) => mechanismGroupText(x, k + 1)).join('; ') }));
         } else sentences.push(where.sentence);
         Object.assign(extra, { mechanisms: where.mechanisms, mechanismNodes: where.nodes, mechanismGroups: groups });
       }
       // no DOF map: the near-zero modes located by DOF number
       if (!g && context.stiffness && context.mass) {
-        const groups = localizeNearZeroModesByDof(context.stiffness, context.mass, context.modes!, split.count);
+        const { groups } = localizeNearZeroModesByDof(context.stiffness, context.mass, context.modes!, split.count);
         if (groups.length > 0) {
           sentences.push(formatMessage(messages.byDof, { groups: groups.map((x, k) => mechanismGroupText(x, k + 1)).join('; ') }));
           extra.mechanismGroups = groups;

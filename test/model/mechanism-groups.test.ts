@@ -23,6 +23,10 @@ import { rigidBodyModes } from '../../src/rules/rigid-body-modes.js';
 import { rigidBodyEnergy } from '../../src/rules/rigid-body-energy.js';
 import { firstElasticFrequency } from '../../src/rules/first-elastic-frequency.js';
 import { denseModes } from './helpers.js';
+import { sampleReport } from '../report/sample-report.js';
+import { formatConsole } from '../../src/report/console-reporter.js';
+import { formatJunit } from '../../src/report/junit-reporter.js';
+import { formatMarkdown } from '../../src/report/markdown.js';
 
 function contextOf(model: Pick<GeneratedModel, 'stiffness' | 'mass' | 'dofMap'>, modes: ModesResult, extra: Partial<GeometryInput> = {}, withMap = true): RuleContext {
   const summary = {} as MatrixSummary;
@@ -94,6 +98,20 @@ describe('independent mechanisms, each named', () => {
     expect(groups[1].motion!.axis!.direction).toEqual([0, 1, 0]);
     expect(groups[1].nodeCount).toBe(15);
     expect(groups[0].nodeCount).toBe(7);
+  });
+
+  it('the console, JUnit and Markdown reports name both mechanisms', () => {
+    const outcome = run(rigidBodyModes, context, { expected: 0 });
+    const report = sampleReport();
+    const model = report.models.find((m) => m.name === 'mast-guyed-loose-anchor')!;
+    model.rules[0] = { ...model.rules[0], ...outcome, ruleId: 'rigid-body-modes' };
+    const texts = [formatConsole(report, { colorLevel: 0 }), formatJunit(report), formatMarkdown(report)];
+    for (const text of texts) {
+      expect(text).toContain('(1) part with nodes 37, 43, 44, 61 and 3 more');
+      expect(text).toContain('rotates freely about node 38 (3 free rotations)');
+      expect(text).toContain('(2) part with nodes 29, 30, 35, 36 and 11 more');
+      expect(text).toContain('turns about the line of nodes 28, 34 and 40');
+    }
   });
 });
 
