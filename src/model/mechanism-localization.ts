@@ -15,7 +15,8 @@
  * every near-zero mode is a mechanism.
  * Where. For M-orthonormal ψ_j the kinetic-energy share of DOF i is e_i = Σ_j ψ_ji (M ψ_j)_i
  * (Σ_i e_i = number of mechanisms; invariant to how the solver mixed degenerate modes);
- * nodes are ranked by the sum of their DOFs' shares.
+ * nodes are ranked by the sum of their DOFs' shares (./energy-shares.ts, with the component split).
+ * Which parts move, and how (hinge line, pivot node, …): ./mechanism-groups.ts.
  */
 import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
 import type { DofMap } from '../io/dof-map.js';
