@@ -14,6 +14,7 @@ import { rigidBodyEnergy, stiffnessMassScale, type ReferenceEigenvalueSource } f
 import { elasticEigenvalueEstimate } from './elastic-estimate.js';
 import { modalParticipation } from './participation.js';
 import { countNearZeroModes, freeRigidBodyDirections, localizeMechanisms } from './mechanism-localization.js';
+import { describeFreeMotions, type HeldDof } from './free-motions.js';
 
 export interface GeometryInput {
   stiffness: SymmetricCsc;
@@ -41,6 +42,8 @@ export interface GeometryInput {
   expectedRigidBodyModes?: number;
   /** How many nodes the "where" lists carry (default 10). */
   top?: number;
+  /** DOFs the constraint sets removed (node, component, position), to name the supported nodes. */
+  heldDofs?: readonly HeldDof[];
 }
 
 export function computeGeometry(input: GeometryInput): GeometryFacts {
@@ -73,6 +76,7 @@ export function computeGeometry(input: GeometryInput): GeometryFacts {
     massProperties,
     rigidBodyEnergy: energy,
     freeRigidBodyMotions: free.free,
+    freeMotions: describeFreeMotions(free.w, free.free, rigid.referencePoint, dofMap, input.heldDofs ?? [], energy.largestResiduals),
     nearZeroModes: nearZero,
     supported: supportedReason(input.constraints, nearZero, input.expectedRigidBodyModes),
     constraints: input.constraints ?? null,
@@ -86,6 +90,8 @@ export function computeGeometry(input: GeometryInput): GeometryFacts {
             freeCount: free.free,
             originalDofs: input.originalDofs,
             top,
+            stiffness,
+            rigidVectors: rigid.vectors,
           })
         : null,
   };

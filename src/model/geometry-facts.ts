@@ -9,6 +9,7 @@ import type { MassProperties } from './mass-properties.js';
 import type { RigidBodyEnergy } from './rigid-body-energy.js';
 import type { Participation } from './participation.js';
 import type { MechanismReport } from './mechanism-localization.js';
+import type { FreeMotionFacts } from './free-motions.js';
 
 export interface ConstraintFacts {
   /** Names (or positions) of the constraint sets applied before solving. */
@@ -31,6 +32,8 @@ export interface GeometryFacts {
    * μ ≤ λ_ref / 1e6. Six for a free-free 3-D model, fewer when grounded or supported.
    */
   freeRigidBodyMotions: number;
+  /** Which motions those are (translation, rotation about an axis, …) and which supported nodes leave them free; null when none. */
+  freeMotions: FreeMotionFacts | null;
   /**
    * Leading solved modes with λ ≈ 0 (round-off zeros plus any below a clear gap), or null
    * when no modes were solved.

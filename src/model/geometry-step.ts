@@ -63,8 +63,14 @@ export function runGeometryStep(job: ModelJob, context: RuleContext, constrained
     constraints: reduced ? { sets: constrained.setNames, removedDofs: reduced.removedDofs.length, keptDofs: reduced.keptDofs.length } : undefined,
     unconstrained: reduced && constrained.original.dofMap ? { mass: constrained.original.mass, dofMap: constrained.original.dofMap } : undefined,
     expectedRigidBodyModes: expectedRigidBodyModes(job),
+    heldDofs: reduced && constrained.original.dofMap ? heldDofs(constrained.original.dofMap, reduced.removedDofs) : undefined,
   });
   return context.geometry;
+}
+
+/** Node, component and position of each DOF the constraint sets removed. */
+function heldDofs(map: DofMap, removed: ArrayLike<number>): { node: number; component: number; x: number; y: number; z: number }[] {
+  return Array.from(removed, (i) => ({ node: map.node[i], component: map.component[i], x: map.x[i], y: map.y[i], z: map.z[i] }));
 }
 
 /** `expected` of the rigid-body-modes rule when it is enabled with one. */

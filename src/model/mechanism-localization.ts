@@ -15,12 +15,17 @@
  * every near-zero mode is a mechanism.
  * Where. For M-orthonormal ψ_j the kinetic-energy share of DOF i is e_i = Σ_j ψ_ji (M ψ_j)_i
  * (Σ_i e_i = number of mechanisms; invariant to how the solver mixed degenerate modes);
- * nodes are ranked by the sum of their DOFs' shares.
+ * nodes are ranked by the sum of their DOFs' shares (./energy-shares.ts, with the component split).
+ * Which parts move, and how (hinge line, pivot node, …): ./mechanism-groups.ts.
  */
 import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
-import { COMPONENTS, type DofMap } from '../io/dof-map.js';
+import type { DofMap } from '../io/dof-map.js';
 import type { ModesResult } from '../eigen/modes-types.js';
 import { symmetricEigen } from '../dense/symmetric-eigen.js';
+import { dofLabels, energyShares, type NodeShare } from './energy-shares.js';
+import { mechanismGroups, type MechanismGroup } from './mechanism-groups.js';
+
+export type { NodeShare } from './energy-shares.js';
 
 /** Eigenvalues at most this times the stiffness/mass scale are round-off zeros (our choice). */
 export const ROUND_OFF_ZERO_RATIO = 1e-10;
@@ -101,16 +106,6 @@ export function countNearZeroModes(eigenvalues: Float64Array, stiffnessMassScale
   return split;
 }
 
-export interface NodeShare {
-  node: number;
-  /** Fraction of the mechanisms' kinetic energy at this node (0..1). */
-  energyFraction: number;
-  /** The node's component with the largest share. */
-  component: string;
-  /** Original 1-based DOF number of that component. */
-  dof: number;
-}
-
 export interface MechanismReport {
   /** Near-zero modes examined (the first k solved modes). */
   nearZeroModes: number;
@@ -124,6 +119,10 @@ export interface MechanismReport {
   nodes: NodeShare[];
   /** Per mechanism, its top nodes (basis chosen by the projection; degenerate ones may mix). */
   perMechanism: NodeShare[][];
+  /** Independent mechanisms: the parts that move, each with its motions, nodes and kind (./mechanism-groups.ts). */
+  groups: MechanismGroup[];
+  /** Further moving parts found but not described (beyond MAX_DESCRIBED_PARTS). */
+  groupsNotListed: number;
 }
 
 export interface MechanismOptions {
@@ -133,6 +132,9 @@ export interface MechanismOptions {
   freeCount: number;
   originalDofs?: Int32Array;
   top?: number;
+  /** K (its pattern joins moving nodes into parts) and R (n × 6), for the independent mechanisms. */
+  stiffness?: SymmetricCsc;
+  rigidVectors?: Float64Array;
 }
 
 export function localizeMechanisms(
@@ -159,14 +161,37 @@ export function localizeMechanisms(
   const psi = combine(z, eig.vectors, mechanismColumns, n, k);
   const mPsi = symMultiplyBlock(mass, psi, mechanismColumns.length);
   const all = mechanismColumns.map((_, j) => j);
+  const labels = dofLabels(n, dofMap, options.originalDofs);
+  const free = options.rigidVectors && options.freeCount > 0 ? { rigidVectors: options.rigidVectors, w: options.freeDirections, f: options.freeCount } : null;
+  const parts = options.stiffness ? mechanismGroups(options.stiffness, mass, psi, mechanismColumns.length, labels, free) : { groups: [], unlisted: 0 };
   return {
     nearZeroModes: k,
     freeRigidBodyMotions: k - mechanismColumns.length,
     mechanisms: mechanismColumns.length,
     rigidAlignment: alignment,
-    nodes: mechanismColumns.length ? nodeShares(psi, mPsi, all, dofMap, options.originalDofs, top) : [],
-    perMechanism: all.map((j) => nodeShares(psi, mPsi, [j], dofMap, options.originalDofs, Math.min(top, 3))),
+    nodes: mechanismColumns.length ? energyShares(psi, mPsi, all, labels, top) : [],
+    perMechanism: all.map((j) => energyShares(psi, mPsi, [j], labels, Math.min(top, 3))),
+    groups: parts.groups,
+    groupsNotListed: parts.unlisted,
   };
+}
+
+/**
+ * Without a DOF map: the first k solved modes taken as they are (no rigid motions can be
+ * formed), split into independent parts by K's pattern, named by DOF numbers.
+ */
+export function localizeNearZeroModesByDof(stiffness: SymmetricCsc, mass: SymmetricCsc, modes: ModesResult, k: number, originalDofs?: Int32Array): { groups: MechanismGroup[]; unlisted: number } {
+  const count = Math.min(k, modes.eigenvalues.length);
+  if (count === 0) return { groups: [], unlisted: 0 };
+  return mechanismGroups(stiffness, mass, modes.shapes.subarray(0, modes.n * count), count, dofLabels(modes.n, undefined, originalDofs), null);
+}
+
+/** Top nodes (or DOFs) of one solved mode by kinetic-energy share, with their component split. */
+export function modeLocation(mass: SymmetricCsc, modes: ModesResult, index: number, dofMap: DofMap | undefined, top = 3, originalDofs?: Int32Array): NodeShare[] {
+  const n = modes.n;
+  const phi = modes.shapes.slice(index * n, (index + 1) * n);
+  const mPhi = symMultiplyBlock(mass, phi, 1);
+  return energyShares(phi, mPhi, [0], dofLabels(n, dofMap, originalDofs), top);
 }
 
 /** A = B Bᵀ with B = Zᵀ (M R) W (k × f), W the free rigid directions. */
@@ -209,42 +234,4 @@ function combine(z: Float64Array, u: Float64Array, cols: number[], n: number, k:
     }
   });
   return psi;
-}
-
-/** Node shares of Σ_{j ∈ cols} ψ_ji (M ψ_j)_i, normalized to sum 1, largest `top`. */
-function nodeShares(
-  psi: Float64Array,
-  mPsi: Float64Array,
-  cols: number[],
-  dofMap: DofMap,
-  originalDofs: Int32Array | undefined,
-  top: number,
-): NodeShare[] {
-  const n = dofMap.n;
-  const perNode = new Map<number, { energy: number; best: number; bestDof: number }>();
-  let total = 0;
-  // kinetic-energy share of each DOF, summed per node
-  for (let i = 0; i < n; i++) {
-    let e = 0;
-    for (const c of cols) e += psi[c * n + i] * mPsi[c * n + i];
-    total += e;
-    const node = dofMap.node[i];
-    const entry = perNode.get(node) ?? { energy: 0, best: -Infinity, bestDof: i };
-    entry.energy += e;
-    if (e > entry.best) {
-      entry.best = e;
-      entry.bestDof = i;
-    }
-    perNode.set(node, entry);
-  }
-  const norm = total > 0 ? total : 1;
-  return [...perNode.entries()]
-    .map(([node, v]) => ({
-      node,
-      energyFraction: v.energy / norm,
-      component: COMPONENTS[dofMap.component[v.bestDof]],
-      dof: (originalDofs ? originalDofs[v.bestDof] : v.bestDof) + 1,
-    }))
-    .sort((p, q) => q.energyFraction - p.energyFraction)
-    .slice(0, top);
 }

@@ -137,6 +137,9 @@ export function rigidBodyEnergy(
   };
 }
 
+/** Nodes are listed down to this fraction of the largest residual (our choice). */
+export const RESIDUAL_LIST_RATIO = 0.01;
+
 /** Top nodes by residual of the mass-normalized rigid vectors. */
 function largestResiduals(
   kr: Float64Array,
@@ -172,5 +175,8 @@ function largestResiduals(
       residualForce: kr[dir * n + i],
     });
   }
-  return [...best.values()].sort((a, b) => b.normalizedResidual - a.normalizedResidual).slice(0, top);
+  const sorted = [...best.values()].sort((a, b) => b.normalizedResidual - a.normalizedResidual);
+  // suspects down to 1 % of the largest residual: the round-off neighbours of a free model stay out
+  const cut = sorted.length ? RESIDUAL_LIST_RATIO * sorted[0].normalizedResidual : 0;
+  return sorted.filter((r) => r.normalizedResidual >= cut).slice(0, top);
 }

@@ -143,7 +143,7 @@ function geometrySection(g: GeometryFacts): string {
   const mech = g.mechanisms;
   if (mech && mech.mechanisms > 0) {
     const shown = mech.nodes.filter((n, k) => k === 0 || n.energyFraction >= MIN_LISTED_SHARE);
-    const rows = shown.map((n) => `<tr><td class="num">${n.node}</td><td>${esc(n.component)}</td><td class="num">${n.dof}</td><td class="num">${esc(formatNumber(100 * n.energyFraction))} %</td></tr>`);
+    const rows = shown.map((n) => `<tr><td class="num">${n.node}</td><td>${esc(n.components?.length ? n.components.map((c) => `${c.component} ${Math.round(100 * c.fraction)} %`).join(', ') : n.component)}</td><td class="num">${n.dof}</td><td class="num">${esc(formatNumber(100 * n.energyFraction))} %</td></tr>`);
     out.push(`<h3>Where the mechanism moves</h3><p>${mech.mechanisms} mechanism(s) among ${mech.nearZeroModes} near-zero mode(s); nodes ranked by their share of the mechanisms' kinetic energy${shown.length < mech.nodes.length ? ' (shares under 0.1 % not listed)' : ''}.</p>`);
     out.push(`<table class="mechanism"><thead><tr><th>node</th><th>component</th><th>DOF</th><th>energy share</th></tr></thead><tbody>${rows.join('')}</tbody></table>`);
   }

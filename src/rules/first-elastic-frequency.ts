@@ -5,6 +5,9 @@
  */
 import type { RuleDefinition } from './rule-types.js';
 import { outcome } from './outcome.js';
+import { modeLocation } from '../model/mechanism-localization.js';
+import { formatMessage } from './message.js';
+import { sharesText } from './motion-text.js';
 import { cutoffDefaults, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from './rigid-body-split.js';
 
 export interface FirstElasticFrequencyOptions extends RigidBodyCutoffOptions {
@@ -16,6 +19,7 @@ const messages = {
   pass: 'first elastic mode (mode {{mode}}) at {{hz}} Hz, within {{range}}.',
   low: 'first elastic mode (mode {{mode}}) at {{hz}} Hz is below the required minimum of {{minHz}} Hz.',
   high: 'first elastic mode (mode {{mode}}) at {{hz}} Hz is above the allowed maximum of {{maxHz}} Hz.',
+  where: 'The mode lives at {{where}} (share of its kinetic energy, with the component split).',
   none: 'no elastic mode among the {{count}} solved modes (all are {{phrase}}): solve more modes.',
 };
 
@@ -50,8 +54,15 @@ export const firstElasticFrequency: RuleDefinition<FirstElasticFrequencyOptions>
       range: o.maxHz !== undefined ? `${o.minHz}..${o.maxHz} Hz` : `≥ ${o.minHz} Hz`,
     };
     const details = { mode: split.firstElasticIndex + 1, frequencyHz: hz, rigidBodyModes: split.count, minHz: o.minHz, maxHz: o.maxHz ?? null };
-    if (hz < o.minHz) return outcome('fail', messages.low, values, hz, o.minHz, details);
-    if (o.maxHz !== undefined && hz > o.maxHz) return outcome('fail', messages.high, values, hz, o.maxHz, details);
+    const located = (template: string, limit: number) => {
+      // where the failing mode lives: its top nodes (DOFs without a map) by kinetic energy
+      const where = modeLocation(context.mass, context.modes!, split.firstElasticIndex!, context.dofMap, 5);
+      const failed = outcome('fail', template, values, hz, limit, { ...details, location: where });
+      if (where.length > 0) failed.message += ` ${formatMessage(messages.where, { where: sharesText(where, 3) })}`;
+      return failed;
+    };
+    if (hz < o.minHz) return located(messages.low, o.minHz);
+    if (o.maxHz !== undefined && hz > o.maxHz) return located(messages.high, o.maxHz);
     return outcome('pass', messages.pass, values, hz, o.minHz, { ...details, minHz: o.minHz, maxHz: o.maxHz ?? null });
   },
 };

@@ -5,6 +5,7 @@
 import type { RuleContext, RuleOutcome } from './rule-types.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
 import { formatList } from './message.js';
+import { shareText } from './motion-text.js';
 
 export function geometryOrSkip(context: RuleContext): GeometryFacts | RuleOutcome {
   if (context.geometry) return context.geometry;
@@ -22,7 +23,7 @@ export function nodeList(entries: readonly { node: number; component: string }[]
 
 /**
  * Where the mechanisms move, for rigid-body-modes' failure message: "largest mechanism motion
- * at node 902 uy (100 % of the kinetic energy), …", up to 3 in the sentence (those after the
+ * (share of kinetic energy) at node 902 (100 %: 75 % uy, 25 % ux), …", up to 3 in the sentence (those after the
  * first only with ≥ 1 % of the energy), top 10 in `nodes`.
  * Null when there are no geometry facts or no mechanism.
  */
@@ -33,7 +34,7 @@ export function mechanismLocation(geometry: GeometryFacts | undefined): { senten
   const shown = m.nodes
     .slice(0, 3)
     .filter((e, k) => k === 0 || e.energyFraction >= 0.01)
-    .map((e) => `node ${e.node} ${e.component} (${(100 * e.energyFraction).toFixed(1)} %)`);
+    .map(shareText);
   return {
     sentence: `Largest mechanism motion (share of kinetic energy) at ${formatList(shown, 3)}.`,
     nodes: m.nodes,

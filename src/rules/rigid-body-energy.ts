@@ -7,11 +7,12 @@
  * asks the same of the geometric rigid vectors. The standard has its own energy check, whose
  * numbers were not recovered ([M] CRITERIA.md §1a); none is claimed here.
  * On failure the message names the nodes with the largest residual forces K r (where the model
- * is grounded), top 10 in details.
+ * is grounded), down to 1 % of the largest residual (at most 10), each with its share of it.
  */
 import type { RuleDefinition } from './rule-types.js';
 import { outcome } from './outcome.js';
-import { geometryOrSkip, isOutcome, nodeList } from './geometry-common.js';
+import { geometryOrSkip, isOutcome } from './geometry-common.js';
+import { formatList } from './message.js';
 
 export interface RigidBodyEnergyOptions {
   maxRelativeEnergy: number;
@@ -59,8 +60,14 @@ export const rigidBodyEnergy: RuleDefinition<RigidBodyEnergyOptions> = {
       freeRigidBodyMotions: g.freeRigidBodyMotions,
       largestResiduals: e.largestResiduals,
     };
-    const values = { measured, limit: o.maxRelativeEnergy, reference, direction: e.worstDirection ?? '-', where: nodeList(e.largestResiduals) };
+    const values = { measured, limit: o.maxRelativeEnergy, reference, direction: e.worstDirection ?? '-', where: suspects(e.largestResiduals) };
     const status = measured <= o.maxRelativeEnergy ? 'pass' : 'fail';
     return outcome(status, status === 'pass' ? messages.pass : messages.fail, values, measured, o.maxRelativeEnergy, details);
   },
 };
+
+/** "node 18 uy (100 %) and node 5 ux (3 %)": residuals relative to the largest. */
+function suspects(list: readonly { node: number; component: string; normalizedResidual: number }[]): string {
+  const top = list[0]?.normalizedResidual ?? 0;
+  return formatList(list.map((r) => `node ${r.node} ${r.component} (${top > 0 ? Math.round((100 * r.normalizedResidual) / top) : 0} %)`), 10);
+}

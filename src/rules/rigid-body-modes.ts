@@ -8,6 +8,9 @@ import type { RuleDefinition } from './rule-types.js';
 import { outcome } from './outcome.js';
 import { cutoffDefaults, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from './rigid-body-split.js';
 import { mechanismLocation } from './geometry-common.js';
+import { formatMessage } from './message.js';
+import { mechanismGroupText, motionKindText, supportedNodesText } from './motion-text.js';
+import { localizeNearZeroModesByDof } from '../model/mechanism-localization.js';
 
 export interface RigidBodyModesOptions extends RigidBodyCutoffOptions {
   expected?: number;
@@ -21,6 +24,11 @@ const messages = {
     '{{count}} {{modesWord}} {{phrase}}, expected {{expectation}}: the model has a mechanism or an unintended free part ({{extra}} extra near-zero mode(s): {{extraHz}} Hz).',
   tooFew:
     '{{count}} {{modesWord}} {{phrase}}, expected {{expectation}}: the model is grounded somewhere it should be free (a spring or constraint to ground).',
+  noSupports:
+    '{{count}} {{modesWord}} {{phrase}}, expected {{expectation}}: the model has no supports, so the whole model moves as a rigid body (six free rigid-body motions).',
+  freeMotion: 'Free rigid-body motion: {{motion}}; {{supports}}.',
+  mechanismGroups: '{{count}} independent {{mechanismWord}}: {{groups}}.',
+  byDof: 'Near-zero motion (no DOF map, so named by DOF number): {{groups}}.',
   allRigid:
     'all {{count}} solved modes are {{phrase}}, so the count may be incomplete: solve more modes (expected {{expectation}}).',
 };
@@ -55,13 +63,38 @@ export const rigidBodyModes: RuleDefinition<RigidBodyModesOptions> = {
     const limit = o.expected !== undefined ? o.expected : expectation;
     if (split.count > hi) {
       const extraHz = frequencies.slice(hi).map((x) => x.toExponential(2)).join(', ');
-      const failed = outcome('fail', messages.tooMany, { ...values, extra: split.count - hi, extraHz }, split.count, limit, details);
-      // where the mechanism moves (geometry facts, when a DOF map was given)
-      const where = mechanismLocation(context.geometry);
-      if (where) {
-        failed.message += ` ${where.sentence}`;
-        failed.details = { ...failed.details, mechanisms: where.mechanisms, mechanismNodes: where.nodes };
+      const g = context.geometry;
+      const wholeBody = g?.freeMotions?.motion.kind === 'whole-body' && hi < 6;
+      const failed = outcome('fail', wholeBody ? messages.noSupports : messages.tooMany, { ...values, extra: split.count - hi, extraHz }, split.count, limit, details);
+      const sentences: string[] = [];
+      const extra: Record<string, unknown> = {};
+      // free rigid-body motions beyond the expected ones: which motion, which supports leave it free
+      if (g?.freeMotions && g.freeRigidBodyMotions > hi && !wholeBody) {
+        sentences.push(formatMessage(messages.freeMotion, { motion: motionKindText(g.freeMotions.motion), supports: supportedNodesText(g.freeMotions) }));
       }
+      if (g?.freeMotions && g.freeRigidBodyMotions > hi) extra.freeRigidMotions = g.freeMotions;
+      // where the mechanisms move (geometry facts, when a DOF map was given), one entry per moving part
+      const where = mechanismLocation(g);
+      if (where) {
+        const groups = g!.mechanisms!.groups;
+        if (groups.length > 0) {
+          const mechanismWord = groups.length === 1 ? 'mechanism' : 'mechanisms';
+          const unlisted = g!.mechanisms!.groupsNotListed;
+          const count = unlisted > 0 ? `${groups.length + unlisted} (the first ${groups.length} named)` : groups.length;
+          sentences.push(formatMessage(messages.mechanismGroups, { count, mechanismWord, groups: groups.map((x, k) => mechanismGroupText(x, k + 1)).join('; ') }));
+        } else sentences.push(where.sentence);
+        Object.assign(extra, { mechanisms: where.mechanisms, mechanismNodes: where.nodes, mechanismGroups: groups });
+      }
+      // no DOF map: the near-zero modes located by DOF number
+      if (!g && context.stiffness && context.mass) {
+        const { groups } = localizeNearZeroModesByDof(context.stiffness, context.mass, context.modes!, split.count);
+        if (groups.length > 0) {
+          sentences.push(formatMessage(messages.byDof, { groups: groups.map((x, k) => mechanismGroupText(x, k + 1)).join('; ') }));
+          extra.mechanismGroups = groups;
+        }
+      }
+      if (sentences.length > 0) failed.message += ` ${sentences.join(' ')}`;
+      failed.details = { ...failed.details, ...extra };
       return failed;
     }
     if (split.firstElasticIndex === null && split.count >= lo) {
