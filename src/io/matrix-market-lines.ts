@@ -63,6 +63,8 @@ export interface MatrixLinesOptions {
   role?: 'stiffness' | 'mass';
   /** Refuse the size line when the order implies more than this many bytes (default: the machine's memory). */
   memoryBudgetBytes?: number;
+  /** Sum duplicates once the full triplet arrays hold this many (default COMPACT_FROM; tests use less). */
+  compactFrom?: number;
   /** Check the banner and the size line, allocate nothing (see readMatrixHeader). */
   headerOnly?: boolean;
 }
@@ -326,7 +328,7 @@ export class MatrixMarketLines {
    */
   private grow(): void {
     const had = this.rows.length;
-    if (had >= COMPACT_FROM || had >= distinctEntryBound(this.n, this.symmetric)) {
+    if (had >= (this.options.compactFrom ?? COMPACT_FROM) || had >= distinctEntryBound(this.n, this.symmetric)) {
       const kept = sumDuplicateTriplets(this.n, this.rows, this.cols, this.vals, this.stored);
       this.mergedWhileReading += this.stored - kept;
       this.stored = kept;
