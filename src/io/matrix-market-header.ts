@@ -53,7 +53,7 @@ export function printable(s: string): string {
  * first line copied into every report.
  */
 function quoteBanner(text: string): string {
-  return /^\s*%%matrixmarket/i.test(text) ? `found ${quoteText(text)}` : 'line 1 is not a Matrix Market banner (not quoted)';
+  return /^\s*%%?matrixmarket/i.test(text) ? `found ${quoteText(text)}` : 'line 1 is not a Matrix Market banner (not quoted)';
 }
 
 /** Parse and validate line 1. */

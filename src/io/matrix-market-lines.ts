@@ -53,6 +53,8 @@ export const FILLER_BYTES = 16 * 2 ** 20;
 export const BYTES_PER_ENTRY = 256;
 /** Duplicates are summed in place once the full triplet arrays hold this many. */
 export const COMPACT_FROM = 2 ** 20;
+/** Smallest triplet capacity (64 kB of triplets). */
+const MIN_TRIPLETS = 4096;
 /** How many non-finite entries are listed with their lines. */
 const NON_FINITE_LISTED = 5;
 
@@ -314,7 +316,8 @@ export class MatrixMarketLines {
       return;
     }
     // never more than the distinct entries the order allows (duplicates are summed on the way)
-    const most = Math.min(size.entries, Math.max(16, distinctEntryBound(size.rows, this.symmetric)));
+    // (at least MIN_TRIPLETS, so a tiny matrix is not summed every few lines)
+    const most = Math.min(size.entries, Math.max(MIN_TRIPLETS, distinctEntryBound(size.rows, this.symmetric)));
     // plain files: exactly that; gzip: a generous guess, grown when needed
     const cap = this.source.gzip ? Math.min(most, Math.max(1 << 16, this.source.fileBytes)) : most;
     this.rows = new Int32Array(cap);
@@ -328,7 +331,7 @@ export class MatrixMarketLines {
    */
   private grow(): void {
     const had = this.rows.length;
-    if (had >= (this.options.compactFrom ?? COMPACT_FROM) || had >= distinctEntryBound(this.n, this.symmetric)) {
+    if (had >= (this.options.compactFrom ?? COMPACT_FROM) || had >= Math.max(MIN_TRIPLETS, distinctEntryBound(this.n, this.symmetric))) {
       const kept = sumDuplicateTriplets(this.n, this.rows, this.cols, this.vals, this.stored);
       this.mergedWhileReading += this.stored - kept;
       this.stored = kept;
