@@ -162,11 +162,12 @@ describe('duplicates and filler', () => {
     const p = file('blank.mtx.gz', gzipSync(Buffer.concat([Buffer.from(`${BANNER}3 3 1\n`), blanks, Buffer.from('1 1 1\n')]), { level: 1 }));
     const t0 = performance.now();
     const e = await caught(readMatrixMarket(p));
-    expect(performance.now() - t0).toBeLessThan(5000);
+    // loose (a shared 2-core machine); the line number below shows where it stopped
+    expect(performance.now() - t0).toBeLessThan(30_000);
     expect(e.reason).toContain('blank lines, comments or padding');
     expect(e.line).toBeGreaterThan(FILLER_BYTES - 2 ** 20);
     expect(e.line).toBeLessThan(FILLER_BYTES + 2 ** 21);
-  });
+  }, 60_000);
 
   it('blank lines between entries within the limit are still fine', async () => {
     const p = file('some-blanks.mtx', `${BANNER}2 2 2\n\n\n1 1 1\n\n2 2 2\n\n`);
