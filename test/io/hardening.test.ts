@@ -247,3 +247,15 @@ describe("screening 'record' (check): the rules judge values", () => {
     expect(e.reason).toContain('above the diagonal');
   });
 });
+
+describe('DOF map header quoting', () => {
+  it('a first line that does not start with dof, is not quoted', async () => {
+    const { readDofMap } = await import('../../src/io/dof-map-reader.js');
+    const p = file('not-a-map.csv', 'root:x:0:0:secret-root-line\n');
+    const e = await caught(readDofMap(p, 3));
+    expect(e.line).toBe(1);
+    expect(e.message).not.toContain('secret');
+    const q = file('near-map.csv', 'dof,node,comp,x,y,z\n1,10,ux,0,0,0\n');
+    expect((await caught(readDofMap(q, 1))).message).toContain("found 'dof,node,comp,x,y,z'");
+  });
+});
