@@ -65,6 +65,8 @@ export interface MatrixLinesOptions {
   role?: 'stiffness' | 'mass';
   /** Refuse the size line when the order implies more than this many bytes (default: the machine's memory). */
   memoryBudgetBytes?: number;
+  /** Text allowed beyond the data (default FILLER_BYTES; tests use less). */
+  fillerBytes?: number;
   /** Sum duplicates once the full triplet arrays hold this many (default COMPACT_FROM; tests use less). */
   compactFrom?: number;
   /** Check the banner and the size line, allocate nothing (see readMatrixHeader). */
@@ -168,7 +170,7 @@ export class MatrixMarketLines {
       p = nl + 1;
     }
     this.textBytes += end - start;
-    if (this.textBytes > FILLER_BYTES + BYTES_PER_ENTRY * this.count) this.refuseFiller(ln - 1);
+    if (this.textBytes > (this.options.fillerBytes ?? FILLER_BYTES) + BYTES_PER_ENTRY * this.count) this.refuseFiller(ln - 1);
     return ln - line;
   };
 
@@ -218,7 +220,7 @@ export class MatrixMarketLines {
     throw new InputError(
       this.file,
       `${this.textBytes} bytes of text hold only ${this.count} ${what}: the rest is blank lines, comments or padding, ` +
-        `beyond the ${FILLER_BYTES / 2 ** 20} MiB + ${BYTES_PER_ENTRY} bytes per entry this reader accepts`,
+        `beyond the ${(this.options.fillerBytes ?? FILLER_BYTES) / 2 ** 20} MiB + ${BYTES_PER_ENTRY} bytes per entry this reader accepts`,
       { line },
     );
   }
