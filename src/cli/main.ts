@@ -7,7 +7,10 @@ import { registerCheck } from './check.js';
 import { registerRules } from './rules.js';
 import { registerInit } from './init.js';
 import { registerDemo } from './demo.js';
-import { EXIT_BAD_INPUT } from './run-action.js';
+import { EXIT_BAD_INPUT, stopWritingOnBrokenPipe } from './run-action.js';
+
+stopWritingOnBrokenPipe(process.stdout);
+stopWritingOnBrokenPipe(process.stderr);
 
 function packageVersion(): string {
   const url = new URL('../../../package.json', import.meta.url);

@@ -24,3 +24,18 @@ export function runAction<A extends unknown[]>(
     process.exitCode = code;
   };
 }
+
+/**
+ * `modalgate check … | head` closes the pipe early: a write then fails with EPIPE, which Node
+ * raises as an uncaught 'error' event (a stack trace and exit 1 on a passing run). Stop writing
+ * to that stream instead and leave the exit code to the run.
+ */
+export function stopWritingOnBrokenPipe(stream: NodeJS.WriteStream): void {
+  stream.on('error', (e: NodeJS.ErrnoException) => {
+    if (e.code !== 'EPIPE' && e.code !== 'ERR_STREAM_DESTROYED') {
+      // another failure of the terminal stream: nothing left to tell it to; mark the run failed
+      if (!process.exitCode) process.exitCode = EXIT_BAD_INPUT;
+    }
+    stream.write = (() => true) as typeof stream.write;
+  });
+}

@@ -46,12 +46,20 @@ export function findConfig(explicit: string | undefined, cwd: string = process.c
   throw new InputError(join(cwd, CONFIG_FILE_NAMES[0]), `no config found in ${cwd} (looked for ${CONFIG_FILE_NAMES.join(', ')}); run \`modalgate init\` to write one, or pass --config`);
 }
 
+/** Largest config or rule-set file read (a real one is a few kB). */
+export const CONFIG_MAX_BYTES = 16 * 2 ** 20;
+
 /** Parse a YAML or JSON file into a plain value (JSON is YAML, but JSON files get JSON's errors). */
 export function readStructuredFile(path: string): unknown {
   let text: string;
   try {
+    // only regular files of bounded size: /dev/zero or a FIFO would never end
+    const st = statSync(path);
+    if (!st.isFile()) throw new InputError(path, 'is not a regular file (a config must be a YAML or JSON file)');
+    if (st.size > CONFIG_MAX_BYTES) throw new InputError(path, `is ${st.size} bytes; a config file may hold at most ${CONFIG_MAX_BYTES / 2 ** 20} MiB`);
     text = readFileSync(path, 'utf8');
   } catch (e) {
+    if (e instanceof InputError) throw e;
     throw new InputError(path, `cannot be read (${(e as NodeJS.ErrnoException).code ?? 'I/O error'})`);
   }
   if (path.endsWith('.json')) {
@@ -68,7 +76,12 @@ export function readStructuredFile(path: string): unknown {
     const first = err.message.split('\n')[0].replace(/ at line \d+, column \d+:?$/, '');
     throw new InputError(path, `is not valid YAML: ${first}`, { line });
   }
-  return doc.toJS() as unknown;
+  try {
+    return doc.toJS() as unknown;
+  } catch (e) {
+    // e.g. "Excessive alias count": aliases expanding to a huge document
+    throw new InputError(path, `is not a usable YAML document: ${(e as Error).message}`);
+  }
 }
 
 /** Command-line settings that override the config: baseline directories (absolute). */

@@ -65,7 +65,9 @@ class DofMapBuilder {
     const fields = text.split(',').map((f) => f.trim());
     if (!this.headerSeen) {
       if (fields.length !== 6 || fields.some((f, k) => f.toLowerCase() !== HEADER[k])) {
-        this.fail(`the first line must be the header 'dof,node,component,x,y,z'; found '${text.slice(0, 60)}'`, line);
+        // quoted only when it looks like our header: a path pointing at another file must not leak its first line
+        const found = /^\s*dof\s*,/i.test(text) ? `found '${text.slice(0, 60)}'` : 'the line found is not quoted, as it does not start with dof,';
+        this.fail(`the first line must be the header 'dof,node,component,x,y,z'; ${found}`, line);
       }
       this.headerSeen = true;
       return;

@@ -47,6 +47,15 @@ export function printable(s: string): string {
   return s.replace(/[^\x20-\x7e]/g, '?');
 }
 
+/**
+ * Line 1 quoted in a message only when it looks like a banner (starts with %%MatrixMarket,
+ * any case): a path that points at some other file (a system file, a key) must not have its
+ * first line copied into every report.
+ */
+function quoteBanner(text: string): string {
+  return /^\s*%%?matrixmarket/i.test(text) ? `found ${quoteText(text)}` : 'line 1 is not a Matrix Market banner (not quoted)';
+}
+
 /** Parse and validate line 1. */
 export function parseBanner(file: string, text: string): MatrixMarketBanner {
   const words = text.trim().split(/\s+/);
@@ -54,29 +63,29 @@ export function parseBanner(file: string, text: string): MatrixMarketBanner {
     const hint = /^%%?matrixmarket$/i.test(words[0] ?? '')
       ? `the banner must start with '${BANNER}' exactly`
       : `line 1 must be the Matrix Market banner, e.g. '${BANNER} matrix coordinate real symmetric'`;
-    throw new InputError(file, `${hint}; found ${quoteText(text)}`, { line: 1 });
+    throw new InputError(file, `${hint}; ${quoteBanner(text)}`, { line: 1 });
   }
   if (words.length !== 5) {
     throw new InputError(
       file,
-      `the banner needs exactly four words after ${BANNER} (object, format, field, symmetry); found ${quoteText(text)}`,
+      `the banner needs exactly four words after ${BANNER} (object, format, field, symmetry); ${quoteBanner(text)}`,
       { line: 1 },
     );
   }
   const [object, format, field, symmetry] = words.slice(1).map((w) => w.toLowerCase());
   if (object !== 'matrix') {
-    throw new InputError(file, `the banner describes a '${words[1]}', but only 'matrix' objects can be read`, { line: 1 });
+    throw new InputError(file, `the banner describes a ${quoteText(words[1], 30)}, but only 'matrix' objects can be read`, { line: 1 });
   }
   if (!FORMATS.includes(format)) {
-    throw new InputError(file, `unknown format '${words[2]}' in the banner (expected coordinate or array)`, { line: 1 });
+    throw new InputError(file, `unknown format ${quoteText(words[2], 30)} in the banner (expected coordinate or array)`, { line: 1 });
   }
   if (!FIELDS.includes(field)) {
-    throw new InputError(file, `unknown field '${words[3]}' in the banner (expected real, integer, complex or pattern)`, { line: 1 });
+    throw new InputError(file, `unknown field ${quoteText(words[3], 30)} in the banner (expected real, integer, complex or pattern)`, { line: 1 });
   }
   if (!SYMMETRIES.includes(symmetry)) {
     throw new InputError(
       file,
-      `unknown symmetry '${words[4]}' in the banner (expected general, symmetric, skew-symmetric or hermitian)`,
+      `unknown symmetry ${quoteText(words[4], 30)} in the banner (expected general, symmetric, skew-symmetric or hermitian)`,
       { line: 1 },
     );
   }

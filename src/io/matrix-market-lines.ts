@@ -8,6 +8,23 @@
  *
  * Every defect throws InputError(file, reason, { line }). Blank lines are allowed anywhere;
  * `%` comments only before the size line.
+ *
+ * Bounds (so a small file cannot make the reader run for minutes or fill the memory):
+ * - the size line is refused before anything is allocated when the file cannot hold the
+ *   declared entries, or when the order implies more memory than the machine has
+ *   (./matrix-market-memory.ts); a stiffness file (`role: 'stiffness'`) declaring fewer
+ *   coordinate entries than rows is refused too: some row would have no entry, not even its
+ *   diagonal, and no stiffness of a solvable model has an empty row (a mass file may: a
+ *   lumped mass often has no rotational terms);
+ * - repeated entries are summed while the triplet arrays grow (`sumDuplicateTriplets` once
+ *   they hold ≥ COMPACT_FROM triplets and are full), so memory follows the distinct entries;
+ * - text that is not data (blank lines, comments, padding) is limited: at most
+ *   FILLER_BYTES + BYTES_PER_ENTRY × (entries read so far) bytes of text in all. A real
+ *   entry line is well under 100 bytes; a file of gigabytes of blank lines stops after
+ *   about 16 MiB.
+ *
+ * With `screening: 'record'` values that are not finite (nan, inf, 1e400) are kept and their
+ * first lines listed (`nonFinite`) instead of refused, so the matrix-finite rule can report them.
  */
 import { InputError } from './errors.js';
 import {
@@ -19,6 +36,8 @@ import {
   SCAN_NOT_INTEGER, SCAN_OK, SCAN_TOO_LARGE,
 } from './number-scan.js';
 import type { ByteSourceInfo } from './byte-lines.js';
+import { distinctEntryBound, formatBytes, memoryBudgetBytes, readingBytes, solvingBytes } from './matrix-market-memory.js';
+import { sumDuplicateTriplets } from '../sparse/assemble.js';
 
 /** Deflate cannot expand data by more than about 1032:1 (RFC 1951 stored/length limits). */
 const GZIP_MAX_RATIO = 1032;
@@ -29,6 +48,37 @@ const MIN_VALUE_BYTES = 2;
 /** Keys 2·row + flag must fit in an Int32. */
 const MAX_ORDER = 2 ** 30 - 1;
 const MAX_ENTRIES = 2 ** 31 - 1;
+/** Text allowed beyond the data: 16 MiB, plus BYTES_PER_ENTRY per entry read. */
+export const FILLER_BYTES = 16 * 2 ** 20;
+export const BYTES_PER_ENTRY = 256;
+/** Duplicates are summed in place once the full triplet arrays hold this many. */
+export const COMPACT_FROM = 2 ** 20;
+/** Smallest triplet capacity (64 kB of triplets). */
+const MIN_TRIPLETS = 4096;
+/** How many non-finite entries are listed with their lines. */
+const NON_FINITE_LISTED = 5;
+
+export interface MatrixLinesOptions {
+  /** Refuse non-finite values (default) or record them. */
+  screening?: 'refuse' | 'record';
+  /** A stiffness file must declare at least one entry per row. */
+  role?: 'stiffness' | 'mass';
+  /** Refuse the size line when the order implies more than this many bytes (default: the machine's memory). */
+  memoryBudgetBytes?: number;
+  /** Text allowed beyond the data (default FILLER_BYTES; tests use less). */
+  fillerBytes?: number;
+  /** Sum duplicates once the full triplet arrays hold this many (default COMPACT_FROM; tests use less). */
+  compactFrom?: number;
+  /** Check the banner and the size line, allocate nothing (see readMatrixHeader). */
+  headerOnly?: boolean;
+}
+
+/** A non-finite entry: 1-based row, column and line. */
+export interface NonFiniteEntry {
+  row: number;
+  col: number;
+  line: number;
+}
 
 export type ParseMode = 'triplets' | 'dense';
 
@@ -48,6 +98,13 @@ export class MatrixMarketLines {
   stored = 0;
   /** Dense values, column-major (mode `dense`). */
   dense = new Float64Array(0);
+  /** Triplets summed into an earlier one while reading (see sumDuplicateTriplets). */
+  mergedWhileReading = 0;
+  /** First non-finite entries (screening 'record'); nonFiniteLines counts them all. */
+  nonFinite: NonFiniteEntry[] = [];
+  nonFiniteLines = 0;
+  /** Bytes of text handed to onBlock so far. */
+  private textBytes = 0;
   private state: number = State.Banner;
   /** Data lines may take the one-pass path (real field; coordinate entries or array values). */
   private fast = false;
@@ -63,7 +120,13 @@ export class MatrixMarketLines {
     readonly file: string,
     readonly mode: ParseMode,
     readonly source: ByteSourceInfo,
+    readonly options: MatrixLinesOptions = {},
   ) {}
+
+  /** The size line has been read (header-only readers stop here). */
+  get headerDone(): boolean {
+    return this.state === State.Entries;
+  }
 
   /** The LineCallback. */
   readonly onLine = (buf: Buffer, start: number, end: number, line: number): void => {
@@ -106,6 +169,8 @@ export class MatrixMarketLines {
       this.onLine(buf, p, nl > p && buf[nl - 1] === 13 ? nl - 1 : nl, ln++);
       p = nl + 1;
     }
+    this.textBytes += end - start;
+    if (this.textBytes > (this.options.fillerBytes ?? FILLER_BYTES) + BYTES_PER_ENTRY * this.count) this.refuseFiller(ln - 1);
     return ln - line;
   };
 
@@ -149,6 +214,17 @@ export class MatrixMarketLines {
     return e + 1;
   }
 
+  /** Too much text for the entries read: blank lines, comments or padding. */
+  private refuseFiller(line: number): never {
+    const what = this.banner?.format === 'array' ? 'values' : 'entries';
+    throw new InputError(
+      this.file,
+      `${this.textBytes} bytes of text hold only ${this.count} ${what}: the rest is blank lines, comments or padding, ` +
+        `beyond the ${(this.options.fillerBytes ?? FILLER_BYTES) / 2 ** 20} MiB + ${BYTES_PER_ENTRY} bytes per entry this reader accepts`,
+      { line },
+    );
+  }
+
   /** After the last line: the file must have held a header and every declared entry. */
   finish(lastLine: number): void {
     if (this.state === State.Banner) throw new InputError(this.file, 'the file is empty', { line: 1 });
@@ -178,9 +254,22 @@ export class MatrixMarketLines {
     if (size.rows > MAX_ORDER) throw new InputError(this.file, `${size.rows} rows is beyond what this tool handles (${MAX_ORDER})`, { line });
     if (b.format === 'array' && b.symmetry === 'symmetric') size.entries = (size.rows * (size.rows + 1)) / 2;
     this.checkPlausible(size, line);
+    this.checkMemory(size, line);
+    if (this.options.role === 'stiffness' && b.format === 'coordinate' && size.entries < size.rows) {
+      throw new InputError(
+        this.file,
+        `the stiffness matrix has ${size.rows} rows but declares only ${size.entries} entries, so some row has no entry, ` +
+          'not even its diagonal; a stiffness matrix of a solvable model has no empty row',
+        { line },
+      );
+    }
     this.size = size;
     this.n = size.rows;
     this.declared = size.entries;
+    if (this.options.headerOnly) {
+      this.state = State.Entries;
+      return;
+    }
     this.allocate(size);
     this.state = State.Entries;
     this.fast = b.field === 'real' && (b.format === 'array' || this.mode === 'triplets');
@@ -205,20 +294,52 @@ export class MatrixMarketLines {
     }
   }
 
+  /** Refuse an order whose model cannot fit in memory here, with the figure. */
+  private checkMemory(size: MatrixMarketSize, line: number): void {
+    const n = size.rows;
+    const need =
+      this.mode === 'dense'
+        ? 8 * size.entries
+        : readingBytes(n, size.entries, this.symmetric) + solvingBytes(n);
+    const budget = this.options.memoryBudgetBytes ?? memoryBudgetBytes();
+    if (need <= budget) return;
+    const what = this.mode === 'dense' ? 'holding these values' : 'reading and solving a model of this order';
+    throw new InputError(
+      this.file,
+      `the size line declares ${size.rows} × ${size.cols} with ${size.entries} ${this.banner!.format === 'array' ? 'values' : 'entries'}; ` +
+        `${what} needs at least ${formatBytes(need)}, more than the ${formatBytes(budget)} of memory here`,
+      { line },
+    );
+  }
+
   private allocate(size: MatrixMarketSize): void {
     if (this.mode === 'dense') {
       this.dense = new Float64Array(size.entries);
       return;
     }
-    // plain files: exactly the declared count; gzip: a generous guess, grown when needed
-    const cap = this.source.gzip ? Math.min(size.entries, Math.max(1 << 16, this.source.fileBytes)) : size.entries;
+    // never more than the distinct entries the order allows (duplicates are summed on the way)
+    // (at least MIN_TRIPLETS, so a tiny matrix is not summed every few lines)
+    const most = Math.min(size.entries, Math.max(MIN_TRIPLETS, distinctEntryBound(size.rows, this.symmetric)));
+    // plain files: exactly that; gzip: a generous guess, grown when needed
+    const cap = this.source.gzip ? Math.min(most, Math.max(1 << 16, this.source.fileBytes)) : most;
     this.rows = new Int32Array(cap);
     this.cols = new Int32Array(cap);
     this.vals = new Float64Array(cap);
   }
 
+  /**
+   * Room for one more triplet: sum duplicates first when the arrays are large, and double
+   * them only when that freed less than a quarter.
+   */
   private grow(): void {
-    const cap = Math.min(this.declared, Math.max(16, this.rows.length * 2));
+    const had = this.rows.length;
+    if (had >= (this.options.compactFrom ?? COMPACT_FROM) || had >= Math.max(MIN_TRIPLETS, distinctEntryBound(this.n, this.symmetric))) {
+      const kept = sumDuplicateTriplets(this.n, this.rows, this.cols, this.vals, this.stored);
+      this.mergedWhileReading += this.stored - kept;
+      this.stored = kept;
+      if (kept <= had - (had >> 2)) return;
+    }
+    const cap = Math.min(this.declared, Math.max(16, had * 2));
     const r = new Int32Array(cap);
     r.set(this.rows);
     this.rows = r;
@@ -245,6 +366,7 @@ export class MatrixMarketLines {
     p = skipBlanks(buf, scan.end, end);
     if (p === end) throw new InputError(this.file, `the entry (${i}, ${j}) has no value; expected 'row column value'`, { line });
     const v = this.value(buf, p, end, line);
+    if (v - v !== 0) this.noteNonFinite(i, j, line);
     if (this.symmetric && j > i) {
       throw new InputError(
         this.file,
@@ -267,7 +389,13 @@ export class MatrixMarketLines {
     if (this.count === this.declared) {
       throw new InputError(this.file, `more values than the ${this.declared} an array of this size holds`, { line });
     }
-    this.storeArrayValue(this.value(buf, p, end, line));
+    const v = this.value(buf, p, end, line);
+    if (v - v !== 0) this.noteNonFinite(this.nextRow + 1, this.nextCol + 1, line);
+    this.storeArrayValue(v);
+  }
+
+  private noteNonFinite(row: number, col: number, line: number): void {
+    if (this.nonFiniteLines++ < NON_FINITE_LISTED) this.nonFinite.push({ row, col, line });
   }
 
   /** Place the next value of an array file (column-major; symmetric: rows j..n−1 of column j). */
@@ -305,15 +433,24 @@ export class MatrixMarketLines {
   }
 
   private value(buf: Buffer, p: number, end: number, line: number): number {
-    const v = scanReal(buf, p, end);
+    const record = this.options.screening === 'record' && this.mode === 'triplets';
+    let v = scanReal(buf, p, end);
     if (scan.status !== SCAN_OK) {
       const text = tokenText(buf, p, end);
+      const special = /^([+-]?)(inf|infinity|nan)$/i.exec(text);
+      if (record && special) {
+        // kept for the matrix-finite rule; the rest of the line is checked as for any value
+        v = special[2].toLowerCase() === 'nan' ? NaN : special[1] === '-' ? -Infinity : Infinity;
+        const q = skipBlanks(buf, p + text.length, end);
+        if (q !== end) throw new InputError(this.file, `unexpected text ${quoteText(buf.toString('latin1', q, end), 30)} after the value`, { line });
+        return v;
+      }
       const why = /^[+-]?(inf|infinity|nan)$/i.test(text)
         ? `value '${text}' is not a finite number`
         : `value '${text}' is not a number`;
       throw new InputError(this.file, why, { line });
     }
-    if (v - v !== 0) {
+    if (v - v !== 0 && !record) {
       throw new InputError(this.file, `value '${tokenText(buf, p, end)}' is too large for double precision (not finite)`, { line });
     }
     if (this.integer && scan.hadFraction) {

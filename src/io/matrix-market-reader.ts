@@ -14,11 +14,22 @@
  *   Stricter screening (CRITERIA.md §6 suggests 1e-12 · max|K|, [CP]) is for the rules, which
  *   read `maxRelativeAsymmetry` from the summary.
  * - Non-finite values are refused (CRITERIA.md §4, [CP]); so are declared sizes the file
- *   cannot possibly hold (each coordinate line needs ≥ 6 bytes; gzip expands ≤ 1032:1).
+ *   cannot possibly hold (each coordinate line needs ≥ 6 bytes; gzip expands ≤ 1032:1) and
+ *   orders whose model cannot fit in memory (./matrix-market-memory.ts).
+ * - With `screening: 'record'` (what `check` uses) the reader refuses neither: non-finite
+ *   values are kept and listed with their lines (`MatrixSummary.nonFiniteAt`), and a
+ *   `general` file's asymmetry is only measured (the stored entry is still the mean), so the
+ *   matrix-finite and matrix-symmetry rules decide against their own options. Structural
+ *   defects (entries above the diagonal of a `symmetric` file, bad indices, counts) are
+ *   refused in both modes.
+ * - readStiffnessAndMass reads both headers before either file's entries, so a K/M size
+ *   mismatch, or a pair too large for memory, is found in milliseconds.
  */
 import { InputError } from './errors.js';
 import { forEachLine, probeFile, type ByteSourceInfo } from './byte-lines.js';
-import { MatrixMarketLines } from './matrix-market-lines.js';
+import { MatrixMarketLines, type MatrixLinesOptions, type NonFiniteEntry } from './matrix-market-lines.js';
+import type { MatrixMarketBanner, MatrixMarketSize } from './matrix-market-header.js';
+import { formatBytes, memoryBudgetBytes, readingBytes, solvingBytes } from './matrix-market-memory.js';
 import { scan, scanUnsigned, skipBlanks } from './number-scan.js';
 import { assembleSymmetricInPlace } from '../sparse/assemble.js';
 import type { SymmetricCsc } from '../sparse/csc.js';
@@ -32,6 +43,12 @@ export interface MatrixReadOptions {
   asymmetryTolerance?: number;
   /** Cap of the DOF lists in the summary (default 20). */
   listCap?: number;
+  /** 'refuse' (default): non-finite values and asymmetry above the tolerance are input errors; 'record': measured only. */
+  screening?: 'refuse' | 'record';
+  /** The matrix's part in the model: a stiffness file needs an entry per row. */
+  role?: 'stiffness' | 'mass';
+  /** Memory the model may take (default: the machine's, see matrix-market-memory.ts). */
+  memoryBudgetBytes?: number;
 }
 
 export interface MatrixFile {
@@ -47,9 +64,10 @@ export interface MatrixFile {
 /** A stiffness or mass matrix as its lower-triangle CSC, with its screening summary. */
 export async function readMatrixMarket(path: string, options: MatrixReadOptions = {}): Promise<MatrixFile> {
   const info = await probeFile(path);
-  const parser = new MatrixMarketLines(path, 'triplets', info);
+  const parser = new MatrixMarketLines(path, 'triplets', info, linesOptions(options));
   const scanned = await forEachLine(path, parser.onLine, { info, onBlock: parser.onBlock });
   parser.finish(scanned.lines);
+  const record = options.screening === 'record';
   const banner = parser.banner!;
   const size = parser.size!;
   const general = banner.symmetry === 'general';
@@ -61,20 +79,21 @@ export async function readMatrixMarket(path: string, options: MatrixReadOptions 
   const mirrors = assembled.mirrors;
   if (mirrors && mirrors.maxAbsEntry > 0) relative = mirrors.maxAbsoluteAsymmetry / mirrors.maxAbsEntry;
   const tolerance = options.asymmetryTolerance ?? DEFAULT_ASYMMETRY_TOLERANCE;
-  if (mirrors && relative > tolerance) await rejectAsymmetric(path, info, banner.format, mirrors, relative, tolerance);
+  if (mirrors && relative > tolerance && !record) await rejectAsymmetric(path, info, banner.format, mirrors, relative, tolerance);
   const summary = summarizeMatrix(assembled.matrix, {
     file: path,
     format: banner.format,
     field: banner.field,
     symmetry: banner.symmetry,
     entriesInFile: parser.count,
-    duplicatesSummed: assembled.duplicatesSummed,
+    duplicatesSummed: assembled.duplicatesSummed + parser.mergedWhileReading,
     maxRelativeAsymmetry: relative,
     asymmetryRow: mirrors && mirrors.maxAbsoluteAsymmetry > 0 ? mirrors.worstRow : undefined,
     asymmetryCol: mirrors && mirrors.maxAbsoluteAsymmetry > 0 ? mirrors.worstCol : undefined,
     listCap: options.listCap,
   });
-  if (summary.nonFiniteCount > 0) await rejectNonFiniteSum(path, info, banner.format, assembled.matrix);
+  if (summary.nonFiniteCount > 0 && !record) await rejectNonFiniteSum(path, info, banner.format, assembled.matrix);
+  if (summary.nonFiniteCount > 0) summary.nonFiniteAt = await nonFiniteLocations(path, info, banner.format, assembled.matrix, parser.nonFinite);
   return { matrix: assembled.matrix, summary, sizeLine: size.line, gzip: info.gzip, fileBytes: info.fileBytes };
 }
 
@@ -84,18 +103,67 @@ export async function readStiffnessAndMass(
   massPath: string,
   options: MatrixReadOptions = {},
 ): Promise<{ stiffness: MatrixFile; mass: MatrixFile }> {
-  const stiffness = await readMatrixMarket(stiffnessPath, options);
-  const mass = await readMatrixMarket(massPath, options);
-  const n = stiffness.matrix.n;
-  const m = mass.matrix.n;
-  if (n !== m) {
+  // both headers first: sizes compared and memory bounded before any entry is read
+  const k = await readMatrixHeader(stiffnessPath, { ...options, role: 'stiffness' });
+  const m = await readMatrixHeader(massPath, { ...options, role: 'mass' });
+  const n = k.size.rows;
+  if (m.size.rows !== n) {
     throw new InputError(
       massPath,
-      `the mass matrix is ${m} × ${m} but the stiffness matrix ${stiffnessPath} is ${n} × ${n}; they must be the same size`,
-      { line: mass.sizeLine },
+      `the mass matrix is ${m.size.rows} × ${m.size.rows} but the stiffness matrix ${stiffnessPath} is ${n} × ${n}; they must be the same size`,
+      { line: m.size.line },
     );
   }
+  const need =
+    readingBytes(n, k.size.entries, k.banner.symmetry === 'symmetric') +
+    readingBytes(n, m.size.entries, m.banner.symmetry === 'symmetric') +
+    solvingBytes(n);
+  const budget = options.memoryBudgetBytes ?? memoryBudgetBytes();
+  if (need > budget) {
+    throw new InputError(
+      massPath,
+      `with the stiffness matrix ${stiffnessPath} (${k.size.entries} entries) and this mass matrix (${m.size.entries} entries) of order ${n}, ` +
+        `reading and solving the model needs at least ${formatBytes(need)}, more than the ${formatBytes(budget)} of memory here`,
+      { line: m.size.line },
+    );
+  }
+  const stiffness = await readMatrixMarket(stiffnessPath, { ...options, role: 'stiffness' });
+  const mass = await readMatrixMarket(massPath, { ...options, role: 'mass' });
   return { stiffness, mass };
+}
+
+/** Header text allowed before the size line (a real header is a few kB of comments). */
+export const HEADER_BYTES = 16 * 2 ** 20;
+
+/**
+ * The banner and size line of a matrix file, checked as readMatrixMarket checks them
+ * (declared size against the file, memory, a stiffness row count), without reading entries.
+ */
+export async function readMatrixHeader(
+  path: string,
+  options: MatrixReadOptions = {},
+): Promise<{ banner: MatrixMarketBanner; size: MatrixMarketSize }> {
+  const info = await probeFile(path);
+  const parser = new MatrixMarketLines(path, 'triplets', info, { ...linesOptions(options), headerOnly: true });
+  let bytes = 0;
+  const scanned = await forEachLine(
+    path,
+    (buf, start, end, line) => {
+      bytes += end - start + 1;
+      if (bytes > HEADER_BYTES) {
+        throw new InputError(path, `more than ${HEADER_BYTES / 2 ** 20} MiB of text before the size line (blank lines or comments)`, { line });
+      }
+      parser.onLine(buf, start, end, line);
+      return !parser.headerDone;
+    },
+    { info },
+  );
+  if (!parser.headerDone) parser.finish(scanned.lines);
+  return { banner: parser.banner!, size: parser.size! };
+}
+
+function linesOptions(options: MatrixReadOptions): MatrixLinesOptions {
+  return { screening: options.screening, role: options.role, memoryBudgetBytes: options.memoryBudgetBytes };
 }
 
 export interface DenseArray {
@@ -146,6 +214,30 @@ async function rejectNonFiniteSum(path: string, info: ByteSourceInfo, format: st
   }
   const line = format === 'coordinate' ? await findEntryLine(path, info, i + 1, j + 1) : undefined;
   throw new InputError(path, `duplicate entries at (${i + 1}, ${j + 1}) sum to a value that is not finite`, { line });
+}
+
+/** The first few non-finite entries, with lines: literal ones from the parser, sums found in the CSC. */
+async function nonFiniteLocations(
+  path: string,
+  info: ByteSourceInfo,
+  format: string,
+  a: SymmetricCsc,
+  literal: NonFiniteEntry[],
+): Promise<NonFiniteEntry[]> {
+  if (literal.length > 0) return literal.slice();
+  // no literal inf/nan: finite values summed (duplicates) or averaged (mirrors) to infinity
+  const out: NonFiniteEntry[] = [];
+  for (let j = 0; j < a.n && out.length < 1; j++) {
+    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) {
+      if (a.values[p] - a.values[p] !== 0) {
+        const i = a.rowIdx[p] + 1;
+        const line = format === 'coordinate' ? await findEntryLine(path, info, i, j + 1) : undefined;
+        out.push({ row: i, col: j + 1, line: line ?? 0 });
+        break;
+      }
+    }
+  }
+  return out;
 }
 
 /**

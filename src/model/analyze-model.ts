@@ -95,7 +95,8 @@ interface ModelInput {
 }
 
 async function readModelInput(job: ModelJob): Promise<ModelInput> {
-  const pair = await readStiffnessAndMass(job.stiffnessPath, job.massPath);
+  // record (not refuse) non-finite values and asymmetry: the matrix rules judge them
+  const pair = await readStiffnessAndMass(job.stiffnessPath, job.massPath, { screening: 'record' });
   const input: ModelInput = {
     stiffness: pair.stiffness.matrix,
     mass: pair.mass.matrix,

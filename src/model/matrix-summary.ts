@@ -21,6 +21,8 @@ export interface MatrixSummary {
   maxRelativeAsymmetry: number;
   asymmetryAt: { row: number; col: number } | null;
   nonFiniteCount: number;
+  /** First non-finite entries (1-based row, column, file line; line 0 when unknown), when the reader recorded them. */
+  nonFiniteAt?: { row: number; col: number; line: number }[];
   diagonalMin: number;
   diagonalMax: number;
   /** Largest |diagonal| ratio max/min over nonzero diagonals. */

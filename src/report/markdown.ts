@@ -5,6 +5,10 @@
  * interesting rows are shown (modes some regression rule flagged; when none, the mode with the
  * largest frequency change); `allModes` shows every pair and every unpaired mode.
  * Everything shown was computed before: statuses come from the rules' `details.flagged`.
+ * Text taken from the user's files (model names, file names, messages that quote them) is
+ * escaped so it renders as text on GitHub and GitLab: `&`, `<`, `>` as entities (no raw HTML
+ * such as <script>), Markdown punctuation with a backslash, file names in a code span whose
+ * fence is longer than any backtick run inside.
  */
 import type { RuleResult } from '../rules/engine.js';
 import { formatNumber } from '../rules/message.js';
@@ -35,7 +39,7 @@ export function formatMarkdown(report: CheckReport, options: MarkdownOptions = {
 }
 
 function modelSection(m: ModelReport, options: MarkdownOptions): string[] {
-  const out = [`### ${m.name}: ${VERDICT_WORD[m.verdict]}`, ''];
+  const out = [`### ${inline(m.name)}: ${VERDICT_WORD[m.verdict]}`, ''];
   if (m.problem) out.push(`**Error:** ${inline(m.problem.message)}`, '');
   const failing = m.rules.filter((r) => r.status === 'fail' || r.status === 'error');
   for (const r of failing) out.push(`- \`${r.ruleId}\` ${r.status === 'error' ? 'error' : r.severity === 'warning' ? 'warning' : 'failed'}: ${inline(r.message)}`);
@@ -77,7 +81,7 @@ function comparisonTable(facts: ComparisonFacts, rules: RuleResult[], options: M
   if (!options.allModes && flagged.length === 0) shown = largestChange(rows);
   const weighting = facts.settings.weighting === 'mass' ? 'mass-weighted MAC' : 'MAC';
   const out = [
-    `Compared with baseline \`${facts.baseline.file}\` (saved ${facts.baseline.createdAt}): ${facts.pairs.length} paired modes, ${facts.baseline.dofsCompared} DOFs, ${weighting}.`,
+    `Compared with baseline ${codeSpan(facts.baseline.file)} (saved ${inline(String(facts.baseline.createdAt))}): ${facts.pairs.length} paired modes, ${facts.baseline.dofsCompared} DOFs, ${weighting}.`,
     '',
   ];
   if (facts.shapesNotCompared) out.push(`Shapes not compared (${inline(facts.shapesNotCompared)}): modes paired by frequency order.`, '');
@@ -131,7 +135,21 @@ function percent(x: number | null): string {
   return `${x > 0 ? '+' : ''}${formatNumber(x)}`;
 }
 
-/** One line, safe inside a table cell or list item. */
-function inline(text: string): string {
-  return text.replace(/\s*\n\s*/g, ' ').replace(/\|/g, '\\|');
+/** One line of plain text, safe inside a heading, table cell or list item. */
+export function inline(text: string): string {
+  return text
+    .replace(/\s*[\r\n]\s*/g, ' ')
+    .replace(/&/g, '&amp;')
+    .replace(/</g, '&lt;')
+    .replace(/>/g, '&gt;')
+    .replace(/[\\`*_[\]|~#!]/g, (c) => `\\${c}`);
+}
+
+/** Literal text (a file name) as a code span: HTML and Markdown inside it are not interpreted. */
+export function codeSpan(text: string): string {
+  const one = text.replace(/[\r\n]+/g, ' ');
+  const longest = Math.max(0, ...(one.match(/`+/g) ?? []).map((r) => r.length));
+  const fence = '`'.repeat(longest + 1);
+  const pad = one.startsWith('`') || one.endsWith('`') ? ' ' : '';
+  return `${fence}${pad}${one}${pad}${fence}`;
 }

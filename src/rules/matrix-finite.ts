@@ -1,13 +1,25 @@
 /**
  * matrix-finite: K and M hold no NaN or infinite entries (tool policy, [CP] CRITERIA.md §4).
+ *
+ * `check` reads K and M with screening 'record': a value such as `nan`, `inf` or `1e400`, or
+ * duplicates summing past the double range, is kept and listed with its line
+ * (MatrixSummary.nonFiniteAt) instead of stopping the run, so this rule is where such a model
+ * fails, naming the first entries as file:line. The solve is skipped for such a model (its
+ * results would be meaningless); `inspect` and `modes` still refuse non-finite values.
  */
 import type { RuleDefinition } from './rule-types.js';
+import type { MatrixSummary } from '../model/matrix-summary.js';
 import { outcome } from './outcome.js';
 
 const messages = {
   pass: 'every entry of K and M is finite.',
-  fail: '{{list}}: non-finite entries (NaN or infinity) make every result meaningless.',
+  fail: '{{list}}: non-finite entries (NaN or infinity) make every result meaningless; first at {{where}}.',
 };
+
+/** "k.mtx:4 (1, 1), k.mtx:9 (3, 2)": where the first recorded entries are. */
+function locations(s: MatrixSummary): string[] {
+  return (s.nonFiniteAt ?? []).map((e) => `${s.file}${e.line > 0 ? `:${e.line}` : ''} (${e.row}, ${e.col})`);
+}
 
 export const matrixFinite: RuleDefinition<Record<string, never>> = {
   id: 'matrix-finite',
@@ -22,8 +34,11 @@ export const matrixFinite: RuleDefinition<Record<string, never>> = {
     const parts = [];
     if (k > 0) parts.push(`K has ${k}`);
     if (m > 0) parts.push(`M has ${m}`);
-    const details = { stiffness: k, mass: m };
-    if (parts.length > 0) return outcome('fail', messages.fail, { list: parts.join(', ') }, k + m, 0, details);
+    const where = [...locations(context.stiffnessSummary), ...locations(context.massSummary)].slice(0, 5);
+    const details = { stiffness: k, mass: m, locations: where };
+    if (parts.length > 0) {
+      return outcome('fail', messages.fail, { list: parts.join(', '), where: where.length > 0 ? where.join(', ') : 'an unknown line' }, k + m, 0, details);
+    }
     return outcome('pass', messages.pass, {}, 0, 0, details);
   },
 };

@@ -2,6 +2,10 @@
  * matrix-symmetry: K and M are symmetric, max|a_ij − a_ji| ≤ tolerance · max|a| (1e-12 relative,
  * common practice [CP] CRITERIA.md §6). Files declared `symmetric` store one triangle and pass by
  * construction; `general` files are measured when read (MatrixSummary.maxRelativeAsymmetry).
+ * `check` reads with screening 'record', so the reader never refuses a `general` file for its
+ * values (only for structure: bad indices, counts); this rule alone judges the asymmetry against
+ * its `tolerance`, whatever it is set to (1e-6 works as well as 1e-14). The matrix solved is the
+ * mean (A + Aᵀ)/2 either way.
  */
 import type { RuleDefinition } from './rule-types.js';
 import { toleranceOptionsSchema, type ToleranceOptions } from './tolerance-options.js';

@@ -297,3 +297,53 @@ function finish(n: number, keys: Int32Array, vals: Float64Array, m: number, w: n
   const values = w === vals.length ? vals : vals.slice(0, w);
   return { matrix: { n, colPtr, rowIdx, values }, duplicatesSummed: m - w };
 }
+
+/**
+ * Sum triplets with the same (row, column) in place, keeping their orientation (an entry
+ * above the diagonal stays above it, so a later `compareMirrors` assembly still sees both
+ * triangles); returns the new count m′ ≤ m. The survivors come out in (column of the lower
+ * triangle, row) order. Readers call it while the triplet arrays grow, so a file repeating
+ * entries needs memory for its distinct entries, not for its lines.
+ * Extra memory: n + 1 ints.
+ */
+export function sumDuplicateTriplets(n: number, rows: Int32Array, cols: Int32Array, vals: Float64Array, m: number): number {
+  const colPtr = new Int32Array(n + 1);
+  let ordered = true;
+  let prevCol = -1;
+  let prevKey = -1;
+  // key = 2·max(i, j) + [i < j], grouped by min(i, j), as in assembleSymmetricInPlace
+  for (let k = 0; k < m; k++) {
+    const r = rows[k];
+    const c = cols[k];
+    const key = r >= c ? 2 * r : 2 * c + 1;
+    const col = r >= c ? c : r;
+    rows[k] = key;
+    cols[k] = col;
+    colPtr[col + 1]++;
+    if (col < prevCol || (col === prevCol && key < prevKey)) ordered = false;
+    prevCol = col;
+    prevKey = key;
+  }
+  for (let j = 0; j < n; j++) colPtr[j + 1] += colPtr[j];
+  if (!ordered) {
+    permuteByColumn(n, rows, cols, vals, m, colPtr);
+    for (let j = 0; j < n; j++) sortSegment(rows, vals, colPtr[j], colPtr[j + 1]);
+  }
+  let w = 0;
+  let q = 0;
+  // column j of the lower triangle: each distinct key becomes one triplet again
+  for (let j = 0; j < n; j++) {
+    const end = colPtr[j + 1];
+    while (q < end) {
+      const key = rows[q];
+      let sum = vals[q++];
+      while (q < end && rows[q] === key) sum += vals[q++];
+      const big = key >> 1;
+      const upper = key & 1;
+      rows[w] = upper ? j : big;
+      cols[w] = upper ? big : j;
+      vals[w++] = sum;
+    }
+  }
+  return w;
+}
