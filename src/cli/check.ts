@@ -13,6 +13,7 @@ import { InputError } from '../io/errors.js';
 import { removeTempFiles, writeFileAtomic } from '../io/atomic-write.js';
 import { packageVersion } from '../io/package-root.js';
 import { currentHostname, problemOf } from '../model/analyze-model.js';
+import { clearStoppedSave } from '../model/baseline-store.js';
 import { CAUTION, junitTimestamp, runVerdict, type CheckReport, type ModelReport, type ProblemReport } from '../report/report-types.js';
 import { formatJunit } from '../report/junit-reporter.js';
 import { formatJson } from '../report/json-reporter.js';
@@ -104,7 +105,10 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
       const onProgress = progressPrinter(job.name);
       const running = runner.run(job, { timeLimitMs: opts.timeLimit !== undefined ? opts.timeLimit * 1000 : undefined, onProgress });
       if (signals) signals.current = running;
-      models.push(await running.report);
+      const result = await running.report;
+      models.push(result);
+      // a save cut short on the stopped worker leaves no temporary file, lock or stray data file
+      if (baselineDirs.saveBaselineDir && (result.problem?.kind === 'limit' || result.problem?.kind === 'interrupted')) clearStoppedSave(baselineDirs.saveBaselineDir, job.name);
       if (signals) signals.current = undefined;
       if (onProgress) process.stderr.write('\r\x1b[K');
     }

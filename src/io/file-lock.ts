@@ -80,6 +80,7 @@ function breakStale(path: string, stalePid: number): void {
   rmSync(aside, { force: true });
 }
 
-function releaseIfOurs(path: string): void {
+/** Removes the lock at `path` if this process holds it (e.g. for a worker thread that was stopped). */
+export function releaseIfOurs(path: string): void {
   if (ownerOf(path) === process.pid) rmSync(path, { force: true });
 }

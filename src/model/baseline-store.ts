@@ -60,7 +60,7 @@ import { writeDenseArray } from '../io/matrix-market-writer.js';
 import { readDenseArray } from '../io/matrix-market-reader.js';
 import { writeDofMap } from '../io/dof-map-writer.js';
 import { readDofMap } from '../io/dof-map-reader.js';
-import { acquireFileLock } from '../io/file-lock.js';
+import { acquireFileLock, releaseIfOurs } from '../io/file-lock.js';
 import { withSignalCleanup } from '../io/signal-cleanup.js';
 import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
 import { restrictRows, type ShapeBlock } from './mac.js';
@@ -223,6 +223,23 @@ export async function saveBaseline(dir: string, input: SaveBaselineInput): Promi
   } finally {
     lock.release();
   }
+}
+
+/**
+ * After a save of `model` was cut short on a worker thread that was then stopped (a time limit, a
+ * signal): its temporary files, the data files the committed snapshot does not name, and this
+ * process's lock go; the committed snapshot, if any, stays as it was.
+ */
+export function clearStoppedSave(dir: string, model: string): void {
+  removeOurTemporaryFiles(dir);
+  let committedRun = '';
+  try {
+    committedRun = String((JSON.parse(readFileSync(baselineJsonFile(dir, model), 'utf8')) as { runId?: unknown }).runId ?? '');
+  } catch {
+    // no committed snapshot: every data file of the model is uncommitted
+  }
+  removeOlderUnits(dir, model, committedRun);
+  releaseIfOurs(baselineLockFile(dir, model));
 }
 
 /** Temporary files of this process in `dir` (`.<name>.<pid>.<time>.tmp`, see ../io/atomic-write.ts). */

@@ -54,7 +54,7 @@ describe('interruption', () => {
     ['SIGTERM', 143],
   ] as const)('%s: exit %i, one stderr line, JUnit with an <error>, no temporary file', async (signal, exitCode) => {
     rmSync(join(work, 'out'), { recursive: true, force: true });
-    const r = await checkWithSignal(['-c', 'many.yaml', '-q'], signal, 2500);
+    const r = await checkWithSignal(['-c', 'many.yaml', '-q', '--save-baseline', 'out/baselines'], signal, 2500);
     expect(r.code, r.stderr).toBe(exitCode);
     const lines = r.stderr.trim().split('\n');
     expect(lines).toHaveLength(1);
@@ -63,6 +63,13 @@ describe('interruption', () => {
     expect(junit).toContain('type="interrupted-error"');
     expect(JSON.parse(readFileSync(join(work, 'out/report.json'), 'utf8')).problem.kind).toBe('interrupted');
     expect(tempFiles(join(work, 'out'))).toEqual([]);
+    // the baselines saved before the signal are whole units; no lock is left
+    const left = existsSync(join(work, 'out/baselines')) ? readdirSync(join(work, 'out/baselines')) : [];
+    expect(left.filter((f) => f.endsWith('.lock'))).toEqual([]);
+    for (const f of left.filter((f) => f.endsWith('.baseline.json'))) {
+      const unit = JSON.parse(readFileSync(join(work, 'out/baselines', f), 'utf8'));
+      expect(existsSync(join(work, 'out/baselines', unit.shapes.file)), f).toBe(true);
+    }
   }, 120_000);
 
   it('SIGKILL while saving baselines: every file left is complete, and the next run clears the temporary files', async () => {
