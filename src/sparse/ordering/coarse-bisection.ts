@@ -46,6 +46,7 @@ export function greedyGrownBisection(g: WeightedGraph, seed: number): Uint8Array
   const frontier = new Uint8Array(n);
   let next = seed;
   let grown = 0;
+  let firstB = 0; // no vertex below firstB is in B (growth only moves vertices from B to A)
   // add the frontier vertex of best gain (any B vertex when the frontier is empty)
   while (next >= 0 && 2 * grown < g.totalWeight) {
     flipVertex(g, where, gain, next);
@@ -55,7 +56,10 @@ export function greedyGrownBisection(g: WeightedGraph, seed: number): Uint8Array
     for (let v = 0; v < n; v++) {
       if (where[v] === PART_B && frontier[v] && (next < 0 || gain[v] > gain[next])) next = v;
     }
-    if (next < 0) next = where.indexOf(PART_B);
+    if (next >= 0) continue;
+    // frontier exhausted (the grown part is a whole component): restart at the first B vertex
+    while (firstB < n && where[firstB] !== PART_B) firstB++;
+    next = firstB < n ? firstB : -1;
   }
   return where;
 }
