@@ -360,7 +360,8 @@ function breadthFirstOrder(g: WeightedGraph, start: number): Int32Array {
   let next = 0;
   queue[tail++] = start;
   seen[start] = 1;
-  // breadth-first sweep; restart at the next unseen vertex when a component is exhausted
+  // breadth-first sweep; restart at the next unseen vertex when a component is exhausted (a
+  // vertex is marked seen when queued, so the queue takes each vertex exactly once)
   while (head < n) {
     if (head === tail) {
       while (seen[next]) next++;
