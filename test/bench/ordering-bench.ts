@@ -20,8 +20,8 @@
  * ORDERING_BENCH_MODEL = uncoupled runs only the cheap check of orderings on uncoupled and
  * block-diagonal patterns (no FE model is built): a diagonal K with M = I at 10k, 20k, 30k and
  * 40k DOFs (target: every ordering under 1 s at 30k; the ordering used to cost quadratic time
- * there, 14 s at 10k), then a block-diagonal pattern of many small cliques of 1–30 DOFs and a
- * star (one DOF coupled to all others). Prints each candidate's time, the automatic choice and
+ * there, 14 s at 10k), then a block-diagonal pattern of many small cliques of 1–30 DOFs, a path
+ * and a star (one DOF coupled to all others), 30k DOFs each. Prints each candidate's time, the automatic choice and
  * its nnz(L) (n on a diagonal: no fill).
  */
 import type { GeneratedModel } from '../../fixtures/generator/model-types.js';
@@ -213,6 +213,7 @@ function benchUncoupled(): void {
     for (let i = j + 1; i <= blockEnd(j); i++) rows.push(i);
     return rows;
   }));
+  benchPattern('path K (DOF j coupled to j + 1)', patternFromColumns(30_000, (j) => (j + 1 < 30_000 ? [j + 1] : [])));
   benchPattern('star K (DOF 0 coupled to all others)', patternFromColumns(30_000, (j) => (j === 0 ? Array.from({ length: 29_999 }, (_, k) => k + 1) : [])));
 }
 
