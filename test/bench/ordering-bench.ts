@@ -184,10 +184,12 @@ function benchPattern(label: string, stiffness: SymmetricCsc): void {
     times.push(`${name} ${sec(r.candidates[0].ms)}`);
   }
   const t0 = performance.now();
+  const c0 = process.cpuUsage();
   const auto = chooseOrdering(stiffness, mass, { ordering: 'auto' });
   const ms = performance.now() - t0;
+  const c1 = process.cpuUsage(c0);
   console.log(
-    `  ${label.padEnd(44)} ${String(stiffness.n).padStart(6)} DOFs  ${times.join(', ')};  auto ${sec(ms)} total` +
+    `  ${label.padEnd(44)} ${String(stiffness.n).padStart(6)} DOFs  ${times.join(', ')};  auto ${sec(ms)} total (cpu ${sec((c1.user + c1.system) / 1000)})` +
       ` (chose ${auto.name}, nnz(L) ${auto.predictedNnzL}, ${auto.supervariables} supervariables)`,
   );
 }
