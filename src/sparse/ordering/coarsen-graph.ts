@@ -115,6 +115,7 @@ export function coarsen(g: WeightedGraph, seed: number, maxVertexWeight: number)
         const at = slot[cu];
         if (at >= start) cEdge[at] += edgeWeight[p];
         else {
+          if (fill >= cAdj.length) throw new Error('coarsening: more coarse edges than fine ones');
           slot[cu] = fill;
           cAdj[fill] = cu;
           cEdge[fill++] = edgeWeight[p];

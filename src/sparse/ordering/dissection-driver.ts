@@ -298,7 +298,8 @@ function partWithHalo(graph: AdjacencyGraph, vertices: Int32Array, inPart: Uint8
   }
   const list = new Int32Array(size);
   list.set(vertices);
-  // list them in the order first met (flag 3 marks a listed one)
+  // list them in the order first met (flag 3 marks a listed one): the same vertices, edges and
+  // flags as the count above, so exactly size − m are written
   for (let k = 0, t = m; k < m; k++) {
     const v = vertices[k];
     for (let p = ptr[v]; p < ptr[v + 1]; p++) {

@@ -371,6 +371,7 @@ function breadthFirstOrder(g: WeightedGraph, start: number): Int32Array {
     const v = queue[head++];
     for (let p = ptr[v]; p < ptr[v + 1]; p++) {
       if (!seen[adj[p]]) {
+        if (tail >= n) throw new Error('multilevel dissection: breadth-first queue overflow');
         seen[adj[p]] = 1;
         queue[tail++] = adj[p];
       }
