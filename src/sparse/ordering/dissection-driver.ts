@@ -11,6 +11,10 @@
  * starts — so a splitter may spread a level's independent parts over threads; the ordering is
  * then read off the tree depth-first, exactly as a recursive dissection would emit it.
  *
+ * Connected components are ordered apart (isolated vertices and components of at most leafSize
+ * vertices in one minimum-degree leaf), so splitters only see connected parts and uncoupled or
+ * block-diagonal patterns cost one pass over the edges per level.
+ *
  * Result: perm[k] = vertex eliminated k-th.
  */
 import { inducedSubgraph, type AdjacencyGraph } from './adjacency-graph.js';
