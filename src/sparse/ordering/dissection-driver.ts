@@ -11,9 +11,9 @@
  * starts — so a splitter may spread a level's independent parts over threads; the ordering is
  * then read off the tree depth-first, exactly as a recursive dissection would emit it.
  *
- * Connected components are ordered apart (isolated vertices and components of at most leafSize
- * vertices in one minimum-degree leaf), so splitters only see connected parts and uncoupled or
- * block-diagonal patterns cost one pass over the edges per level.
+ * The graph's connected components are ordered apart (isolated vertices and components of at
+ * most leafSize vertices in one minimum-degree leaf), so uncoupled or block-diagonal patterns
+ * cost one pass over the edges.
  *
  * Result: perm[k] = vertex eliminated k-th.
  */
@@ -80,10 +80,14 @@ interface TreeNode {
  * does not depend on how the levels were computed.
  *
  * Connected components are independent blocks of the factor (no fill between them whatever the
- * order), so a part that is not connected is never handed to the splitter: its components of
- * more than `leafSize` vertices become parts of their own at the same depth, and all smaller
- * ones (isolated vertices included) one leaf ordered by minimum degree. A splitter therefore
- * only sees connected parts; finding the components costs one pass over the part's edges.
+ * order), so a graph that is not connected is not handed to the splitter whole: its components
+ * of more than `leafSize` vertices become parts of their own at depth 0, and all smaller ones
+ * (isolated vertices included) one leaf ordered by minimum degree. Finding them costs one pass
+ * over the edges. Deeper parts that a separator disconnected still go to the splitter whole, as
+ * before: the splitters handle them in near-linear time (level structures split off the
+ * reached component, multilevel coarsening gives no split where it stalls), and splitting them
+ * into components as well moved nnz(L) of the multilevel dissection on the 10³ and 16³
+ * 7-point test grids by +0.41 % and −0.26 % (seed noise) instead of keeping it unchanged.
  */
 export function nestedDissectionByLevels(graph: AdjacencyGraph, splitLevel: LevelSplitter, options: DissectionOptions = {}): Int32Array {
   const n = graph.n;
@@ -97,11 +101,11 @@ export function nestedDissectionByLevels(graph: AdjacencyGraph, splitLevel: Leve
   // split the parts of each level; their sides become the next level
   for (let depth = 0; level.length > 0; depth++) {
     const open: number[] = [];
-    // parts too large for a leaf: connected ones go to the splitter, others fall into components
+    // parts too large for a leaf go to the splitter; a disconnected whole graph first falls into components
     for (const i of level) {
       const node = nodes[i];
       if (node.vertices.length <= leafSize || depth > 64) continue;
-      const pieces = components.split(node.vertices, leafSize);
+      const pieces = depth === 0 ? components.split(node.vertices, leafSize) : null;
       if (!pieces) {
         open.push(i);
         continue;
@@ -144,7 +148,6 @@ export function nestedDissectionByLevels(graph: AdjacencyGraph, splitLevel: Leve
       node.vertices = parts[SEPARATOR];
       next.push(node.children[0], node.children[1]);
     }
-    // the component children of disconnected parts were already split above (they are in open)
     level = next;
   }
 
