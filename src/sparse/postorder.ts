@@ -38,6 +38,9 @@ export function postorderTree(parent: Int32Array): Int32Array {
       }
     }
   }
+  // every node is pushed once, by its parent, so the stack holds one root-to-node path (≤ n); a
+  // parent array with a cycle never reaches the cycle's nodes and would leave post short
+  if (k !== n) throw new Error(`postorderTree: ${n - k} of ${n} nodes are not in a tree (the parent pointers form a cycle)`);
   return post;
 }
 

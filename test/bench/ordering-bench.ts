@@ -16,6 +16,13 @@
  * the median of the longest extent, recursed to single nodes): what plane dissection reaches on
  * that shape, a reference beside the check.
  * ORDERING_BENCH_MODEL = cube | hex | frame runs one model only.
+ *
+ * ORDERING_BENCH_MODEL = uncoupled runs only the cheap check of orderings on uncoupled and
+ * block-diagonal patterns (no FE model is built): a diagonal K with M = I at 10k, 20k, 30k and
+ * 40k DOFs (target: every ordering under 1 s at 30k; the ordering used to cost quadratic time
+ * there, 14 s at 10k), then a block-diagonal pattern of many small cliques of 1–30 DOFs, a path
+ * and a star (one DOF coupled to all others), 30k DOFs each. Prints each candidate's time, the automatic choice and
+ * its nnz(L) (n on a diagonal: no fill).
  */
 import type { GeneratedModel } from '../../fixtures/generator/model-types.js';
 import { clampedHexSolid, freeHexBox, latticeFrame } from './bench-models.js';
@@ -25,6 +32,7 @@ import { adjacencyOfPencil } from '../../src/sparse/ordering/adjacency-graph.js'
 import { expandOrdering, findSupervariables } from '../../src/sparse/ordering/supervariables.js';
 import { graphNestedDissection } from '../../src/sparse/ordering/nested-dissection.js';
 import { factorStructureCounts } from '../../src/sparse/column-counts.js';
+import type { SymmetricCsc } from '../../src/sparse/csc.js';
 
 const sec = (ms: number): string => `${(ms / 1000).toFixed(2)} s`;
 const ORDERINGS: OrderingName[] = ['natural', 'amd', 'nested-dissection', 'coordinate-bisection'];
@@ -154,8 +162,69 @@ function benchModel(label: string, model: GeneratedModel, checkTarget: boolean):
   }
 }
 
+/** Lower-storage pattern (unit values) from each column's rows below the diagonal. */
+function patternFromColumns(n: number, below: (j: number) => number[]): SymmetricCsc {
+  const colPtr = new Int32Array(n + 1);
+  const rows: number[] = [];
+  // the diagonal, then the rows below it, ascending
+  for (let j = 0; j < n; j++) {
+    rows.push(j, ...below(j));
+    colPtr[j + 1] = rows.length;
+  }
+  const rowIdx = Int32Array.from(rows);
+  return { n, colPtr, rowIdx, values: new Float64Array(rowIdx.length).fill(1) };
+}
+
+/** Each ordering of one pattern (K, with M = I) alone, then the automatic choice. */
+function benchPattern(label: string, stiffness: SymmetricCsc): void {
+  const mass = patternFromColumns(stiffness.n, () => []);
+  const times: string[] = [];
+  for (const name of ['amd', 'nested-dissection'] as const) {
+    const c0 = process.cpuUsage();
+    const r = chooseOrdering(stiffness, mass, { ordering: name });
+    const c1 = process.cpuUsage(c0);
+    // wall time of the ordering alone; cpu of this process for graph, ordering and one fill count
+    times.push(`${name} ${sec(r.candidates[0].ms)} (cpu ${sec((c1.user + c1.system) / 1000)})`);
+  }
+  const t0 = performance.now();
+  const c0 = process.cpuUsage();
+  const auto = chooseOrdering(stiffness, mass, { ordering: 'auto' });
+  const ms = performance.now() - t0;
+  const c1 = process.cpuUsage(c0);
+  console.log(
+    `  ${label.padEnd(44)} ${String(stiffness.n).padStart(6)} DOFs  ${times.join(', ')};  auto ${sec(ms)} total (cpu ${sec((c1.user + c1.system) / 1000)})` +
+      ` (chose ${auto.name}, nnz(L) ${auto.predictedNnzL}, ${auto.supervariables} supervariables)`,
+  );
+}
+
+/** Orderings of uncoupled DOFs, many small blocks and a star: all must stay near-linear. */
+function benchUncoupled(): void {
+  console.log('\nuncoupled and block-diagonal patterns (M = I); target < 1 s at 30k uncoupled DOFs');
+  for (const n of [10_000, 20_000, 30_000, 40_000]) benchPattern('diagonal K (uncoupled DOFs)', patternFromColumns(n, () => []));
+  // cliques of 1..30 DOFs, sizes cycling deterministically
+  const blockOf: number[] = [];
+  for (let b = 0, start = 0; start < 30_000; b++) {
+    const size = 1 + ((b * 7) % 30);
+    for (let k = 0; k < size && start + k < 30_000; k++) blockOf.push(start);
+    start += size;
+  }
+  const blockEnd = (j: number): number => {
+    let e = j;
+    while (e + 1 < blockOf.length && blockOf[e + 1] === blockOf[j]) e++;
+    return e;
+  };
+  benchPattern('block-diagonal K (cliques of 1–30 DOFs)', patternFromColumns(blockOf.length, (j) => {
+    const rows: number[] = [];
+    for (let i = j + 1; i <= blockEnd(j); i++) rows.push(i);
+    return rows;
+  }));
+  benchPattern('path K (DOF j coupled to j + 1)', patternFromColumns(30_000, (j) => (j + 1 < 30_000 ? [j + 1] : [])));
+  benchPattern('star K (DOF 0 coupled to all others)', patternFromColumns(30_000, (j) => (j === 0 ? Array.from({ length: 29_999 }, (_, k) => k + 1) : [])));
+}
+
 export default async function orderingBench(): Promise<void> {
   const only = process.env.ORDERING_BENCH_MODEL;
+  if (only === 'uncoupled') return benchUncoupled();
   if (!only || only === 'cube') benchModel('hex solid 40×32×30 elements (xMin clamped)', clampedHexSolid(), true);
   if (!only || only === 'hex') benchModel('hex box 39×39×24 elements (free-free)', freeHexBox(), true);
   if (!only || only === 'frame') benchModel('space frame 22×22×21 nodes (base clamped)', latticeFrame(), false);

@@ -46,6 +46,7 @@ export function greedyGrownBisection(g: WeightedGraph, seed: number): Uint8Array
   const frontier = new Uint8Array(n);
   let next = seed;
   let grown = 0;
+  let firstB = 0; // no vertex below firstB is in B (growth only moves vertices from B to A)
   // add the frontier vertex of best gain (any B vertex when the frontier is empty)
   while (next >= 0 && 2 * grown < g.totalWeight) {
     flipVertex(g, where, gain, next);
@@ -55,7 +56,10 @@ export function greedyGrownBisection(g: WeightedGraph, seed: number): Uint8Array
     for (let v = 0; v < n; v++) {
       if (where[v] === PART_B && frontier[v] && (next < 0 || gain[v] > gain[next])) next = v;
     }
-    if (next < 0) next = where.indexOf(PART_B);
+    if (next >= 0) continue;
+    // frontier exhausted (the grown part is a whole component): restart at the first B vertex
+    while (firstB < n && where[firstB] !== PART_B) firstB++;
+    next = firstB < n ? firstB : -1;
   }
   return where;
 }
@@ -69,6 +73,10 @@ export function refineEdgeCut(g: WeightedGraph, where: Uint8Array, maxSide: numb
   let cut = 0;
   for (let v = 0; v < n; v++) if (where[v] === PART_A) cut += (gain[v] + degreeWeight(g, v)) / 2;
   const locked = new Uint8Array(n);
+  // Move log of one pass: every move locks its vertex, so a pass makes at most n moves. A vertex
+  // has two sides and is moved at most once per pass, so at rollback where[v] is exactly the side
+  // its move took it to and flipping it back restores the state before the move (nothing else
+  // changes side in a pass: edge moves pull no neighbours along).
   const moved = new Int32Array(n);
   for (let pass = 0; pass < maxPasses; pass++) {
     locked.fill(0);
@@ -90,6 +98,7 @@ export function refineEdgeCut(g: WeightedGraph, where: Uint8Array, maxSide: numb
       flipVertex(g, where, gain, v);
       weight[where[v]] += vertexWeight[v];
       locked[v] = 1;
+      if (moves >= n) throw new Error('edge-cut refinement: more moves than vertices in one pass');
       moved[moves++] = v;
       if (current < best) {
         best = current;

@@ -91,6 +91,8 @@ export function coarsen(g: WeightedGraph, seed: number, maxVertexWeight: number)
     nc++;
   }
   const cPtr = new Int32Array(nc + 1);
+  // at most one coarse entry per fine entry scanned below (each fine list is scanned once, by its
+  // coarse vertex), so ptr[n] slots suffice
   const cAdj = new Int32Array(ptr[n]);
   const cEdge = new Int32Array(ptr[n]);
   const cWeight = new Int32Array(nc);
@@ -113,6 +115,7 @@ export function coarsen(g: WeightedGraph, seed: number, maxVertexWeight: number)
         const at = slot[cu];
         if (at >= start) cEdge[at] += edgeWeight[p];
         else {
+          if (fill >= cAdj.length) throw new Error('coarsening: more coarse edges than fine ones');
           slot[cu] = fill;
           cAdj[fill] = cu;
           cEdge[fill++] = edgeWeight[p];

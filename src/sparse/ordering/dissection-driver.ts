@@ -11,6 +11,10 @@
  * starts — so a splitter may spread a level's independent parts over threads; the ordering is
  * then read off the tree depth-first, exactly as a recursive dissection would emit it.
  *
+ * The graph's connected components are ordered apart (isolated vertices and components of at
+ * most leafSize vertices in one minimum-degree leaf), so uncoupled or block-diagonal patterns
+ * cost one pass over the edges.
+ *
  * Result: perm[k] = vertex eliminated k-th.
  */
 import { inducedSubgraph, type AdjacencyGraph } from './adjacency-graph.js';
@@ -60,17 +64,30 @@ export function nestedDissectionWith(graph: AdjacencyGraph, split: PartSplitter,
   return nestedDissectionByLevels(graph, splitLevel, options);
 }
 
-/** A node of the dissection tree: a leaf part, or a split part (its separator and two children). */
+/**
+ * A node of the dissection tree: a leaf part (no children), a split part (its separator and its
+ * two sides), or a disconnected part (no separator; one child per large connected component and
+ * one leaf holding all its small components and isolated vertices).
+ */
 interface TreeNode {
   vertices: Int32Array; // the leaf's vertices, or the separator of a split part
-  a: number; // child indices, −1 for a leaf
-  b: number;
+  children: number[]; // child node indices, ordered in turn before `vertices`
 }
 
 /**
  * Nested dissection ordering, the tree built one level at a time (all parts of a level split
- * together), then ordered depth-first: A's subtree, B's subtree, the separator. The order does
- * not depend on how the levels were computed.
+ * together), then ordered depth-first: the children's subtrees, then the separator. The order
+ * does not depend on how the levels were computed.
+ *
+ * Connected components are independent blocks of the factor (no fill between them whatever the
+ * order), so a graph that is not connected is not handed to the splitter whole: its components
+ * of more than `leafSize` vertices become parts of their own at depth 0, and all smaller ones
+ * (isolated vertices included) one leaf ordered by minimum degree. Finding them costs one pass
+ * over the edges. Deeper parts that a separator disconnected still go to the splitter whole, as
+ * before: the splitters handle them in near-linear time (level structures split off the
+ * reached component, multilevel coarsening gives no split where it stalls), and splitting them
+ * into components as well moved nnz(L) of the multilevel dissection on the 10³ and 16³
+ * 7-point test grids by +0.41 % and −0.26 % (seed noise) instead of keeping it unchanged.
  */
 export function nestedDissectionByLevels(graph: AdjacencyGraph, splitLevel: LevelSplitter, options: DissectionOptions = {}): Int32Array {
   const n = graph.n;
@@ -78,30 +95,58 @@ export function nestedDissectionByLevels(graph: AdjacencyGraph, splitLevel: Leve
   const all = new Int32Array(n);
   // the whole graph is the root part
   for (let v = 0; v < n; v++) all[v] = v;
-  const nodes: TreeNode[] = [{ vertices: all, a: -1, b: -1 }];
+  const nodes: TreeNode[] = [{ vertices: all, children: [] }];
+  const components = new ComponentFinder(graph);
   let level = [0];
   // split the parts of each level; their sides become the next level
   for (let depth = 0; level.length > 0; depth++) {
-    const open = depth <= 64 ? level.filter((i) => nodes[i].vertices.length > leafSize) : [];
+    const open: number[] = [];
+    // parts too large for a leaf go to the splitter; a disconnected whole graph first falls into components
+    for (const i of level) {
+      const node = nodes[i];
+      if (node.vertices.length <= leafSize || depth > 64) continue;
+      const pieces = depth === 0 ? components.split(node.vertices, leafSize) : null;
+      if (!pieces) {
+        open.push(i);
+        continue;
+      }
+      node.vertices = new Int32Array(0);
+      for (const piece of pieces.large) {
+        node.children.push(nodes.length);
+        open.push(nodes.length);
+        nodes.push({ vertices: piece, children: [] });
+      }
+      if (pieces.small.length > 0) {
+        node.children.unshift(nodes.length);
+        nodes.push({ vertices: pieces.small, children: [] });
+      }
+    }
     const sides = open.length > 0 ? splitLevel(open.map((i) => nodes[i].vertices), depth) : [];
+    if (sides.length !== open.length) throw new Error(`nested dissection: the splitter answered ${sides.length} of ${open.length} parts`);
     const next: number[] = [];
     for (let t = 0; t < open.length; t++) {
       const node = nodes[open[t]];
       const side = sides[t];
       if (!side) continue;
+      if (side.length !== node.vertices.length) {
+        throw new Error(`nested dissection: the splitter labelled ${side.length} of a part's ${node.vertices.length} vertices`);
+      }
       const counts = [0, 0, 0];
-      for (let k = 0; k < side.length; k++) counts[side[k]]++;
+      // a label other than A, B or separator is a splitter bug: fail loudly, never drop vertices
+      for (let k = 0; k < side.length; k++) {
+        const s = side[k];
+        if (s > SEPARATOR) throw new Error(`nested dissection: the splitter gave vertex ${node.vertices[k]} the side label ${s}`);
+        counts[s]++;
+      }
       if (counts[SIDE_A] === 0 || counts[SIDE_B] === 0) continue;
       const parts = [new Int32Array(counts[0]), new Int32Array(counts[1]), new Int32Array(counts[2])];
       const fill = [0, 0, 0];
       // distribute the vertices by side, keeping their relative order
       for (let k = 0; k < side.length; k++) parts[side[k]][fill[side[k]]++] = node.vertices[k];
-      node.a = nodes.length;
-      nodes.push({ vertices: parts[SIDE_A], a: -1, b: -1 });
-      node.b = nodes.length;
-      nodes.push({ vertices: parts[SIDE_B], a: -1, b: -1 });
+      node.children.push(nodes.length, nodes.length + 1);
+      nodes.push({ vertices: parts[SIDE_A], children: [] }, { vertices: parts[SIDE_B], children: [] });
       node.vertices = parts[SEPARATOR];
-      next.push(node.a, node.b);
+      next.push(node.children[0], node.children[1]);
     }
     level = next;
   }
@@ -111,38 +156,126 @@ export function nestedDissectionByLevels(graph: AdjacencyGraph, splitLevel: Leve
   const inPart = new Uint8Array(n);
   const height = new Int32Array(n); // 0 in the leaves, 1 + the children's height in separators
   let out = 0;
+  /** Appends a pivot; more pivots than vertices means a vertex was ordered twice. */
+  const emit = (v: number): void => {
+    if (out >= n) throw new Error('nested dissection: more pivots than vertices (a vertex was ordered twice)');
+    perm[out++] = v;
+  };
 
   /**
    * Orders a small part by minimum degree of its subgraph plus its halo: the neighbours outside
    * the part, all in separators ordered later, steer the degrees but are not ordered here.
    */
   const orderLeaf = (vertices: Int32Array): void => {
+    if (vertices.length === 0) return;
     const withHalo = partWithHalo(graph, vertices, inPart);
     const sub = inducedSubgraph(graph, withHalo, local);
     const halo = new Uint8Array(withHalo.length).fill(1, vertices.length);
     const weights = options.weights ? gather(options.weights, withHalo) : undefined;
     const order = approximateMinimumDegree(sub, { weights, halo });
+    if (order.length !== vertices.length) throw new Error(`nested dissection: minimum degree ordered ${order.length} of a leaf's ${vertices.length} vertices`);
     // translate local pivots back to global vertices
-    for (let k = 0; k < order.length; k++) perm[out++] = vertices[order[k]];
+    for (let k = 0; k < order.length; k++) emit(vertices[order[k]]);
   };
 
-  /** Orders a subtree: A and B, then the separator (its block is dense, its inner order free); returns its height. */
+  /** Orders a subtree: its children, then the separator (its block is dense, its inner order free); returns its height. */
   const orderNode = (i: number): number => {
     const node = nodes[i];
-    if (node.a < 0) return orderLeaf(node.vertices), 0;
-    const h = 1 + Math.max(orderNode(node.a), orderNode(node.b));
+    if (node.children.length === 0) return orderLeaf(node.vertices), 0;
+    let h = 0;
+    for (const c of node.children) h = Math.max(h, 1 + orderNode(c));
     const separator = node.vertices;
-    // the separator after both sides, in its stored order
+    // the separator after all children, in its stored order
     for (let k = 0; k < separator.length; k++) {
-      perm[out++] = separator[k];
+      emit(separator[k]);
       height[separator[k]] = h;
     }
     return separator.length > 0 ? h : h - 1;
   };
 
   orderNode(0);
+  if (out !== n) throw new Error(`nested dissection: ordered ${out} of ${n} vertices`);
   if (!options.constrainedReorder) return perm;
   return approximateMinimumDegree(graph, { weights: options.weights, constraint: height, denseThreshold: n });
+}
+
+/**
+ * Connected components of parts, by breadth-first search restricted to the part. Workspaces are
+ * n-long and shared by all parts: `stamp` marks the current part's members (a fresh stamp per
+ * call, so nothing is cleared), `component` holds each member's component.
+ */
+class ComponentFinder {
+  private readonly stamp: Int32Array;
+  private readonly component: Int32Array;
+  private readonly queue: Int32Array;
+  private calls = 0;
+
+  constructor(private readonly graph: AdjacencyGraph) {
+    this.stamp = new Int32Array(graph.n).fill(-1);
+    this.component = new Int32Array(graph.n);
+    this.queue = new Int32Array(graph.n);
+  }
+
+  /**
+   * null when the part is connected; otherwise its components of more than `leafSize` vertices
+   * (in order of their first vertex in the part) and, in one list, all vertices of the smaller
+   * ones. Both keep the part's relative vertex order. O(part size + its vertices' degrees).
+   */
+  split(vertices: Int32Array, leafSize: number): { large: Int32Array[]; small: Int32Array } | null {
+    const { ptr, adj } = this.graph;
+    const { stamp, component, queue } = this;
+    const m = vertices.length;
+    const inPart = 2 * this.calls++;
+    const seen = inPart + 1; // stamps stay distinct from every earlier call's
+    if (seen >= 0x7fffffff) throw new Error('nested dissection: component stamp overflow');
+    for (let k = 0; k < m; k++) stamp[vertices[k]] = inPart;
+    const sizes: number[] = [];
+    // breadth-first search from every not yet reached vertex of the part
+    for (let k = 0; k < m; k++) {
+      const root = vertices[k];
+      if (stamp[root] !== inPart) continue;
+      const c = sizes.length;
+      let head = 0;
+      let tail = 0;
+      stamp[root] = seen;
+      component[root] = c;
+      queue[tail++] = root;
+      while (head < tail) {
+        const v = queue[head++];
+        for (let p = ptr[v]; p < ptr[v + 1]; p++) {
+          const u = adj[p];
+          if (stamp[u] !== inPart) continue;
+          // each member is stamped `seen` when queued, so at most m vertices are ever queued
+          if (tail >= m) throw new Error('nested dissection: component search queued more vertices than the part holds');
+          stamp[u] = seen;
+          component[u] = c;
+          queue[tail++] = u;
+        }
+      }
+      sizes.push(tail);
+    }
+    if (sizes.length <= 1) return null;
+    const large: Int32Array[] = [];
+    const slot = new Int32Array(sizes.length).fill(-1); // index in `large`, −1 for a small component
+    let smallCount = 0;
+    for (let c = 0; c < sizes.length; c++) {
+      if (sizes[c] > leafSize) {
+        slot[c] = large.length;
+        large.push(new Int32Array(sizes[c]));
+      } else smallCount += sizes[c];
+    }
+    const small = new Int32Array(smallCount);
+    const fill = new Int32Array(large.length);
+    let smallFill = 0;
+    // distribute the part's vertices, keeping their relative order
+    for (let k = 0; k < m; k++) {
+      const v = vertices[k];
+      const s = slot[component[v]];
+      if (s < 0) small[smallFill++] = v;
+      else large[s][fill[s]++] = v;
+    }
+    return { large, small };
+  }
 }
 
 /** values[list[k]] for every k. */
@@ -172,7 +305,8 @@ function partWithHalo(graph: AdjacencyGraph, vertices: Int32Array, inPart: Uint8
   }
   const list = new Int32Array(size);
   list.set(vertices);
-  // list them in the order first met (flag 3 marks a listed one)
+  // list them in the order first met (flag 3 marks a listed one): the same vertices, edges and
+  // flags as the count above, so exactly size − m are written
   for (let k = 0, t = m; k < m; k++) {
     const v = vertices[k];
     for (let p = ptr[v]; p < ptr[v + 1]; p++) {

@@ -27,8 +27,13 @@ export class GainHeap {
     return this.key[v];
   }
 
-  /** Inserts v, or updates its key when present. */
+  /**
+   * Inserts v, or updates its key when present. A vertex is in the heap at most once (`at`
+   * says where), so the heap never holds more than `capacity` entries; an id outside
+   * 0..capacity−1 is a caller bug and throws rather than being silently ignored.
+   */
   set(v: number, gain: number): void {
+    if (!(v >= 0 && v < this.at.length)) throw new Error(`gain heap: vertex ${v} outside 0..${this.at.length - 1}`);
     if (this.at[v] < 0) {
       this.heap[this.size] = v;
       this.at[v] = this.size++;

@@ -113,6 +113,9 @@ export function approximateMinimumDegree(graph: AdjacencyGraph, options: Minimum
     live += added.weight;
   }
   for (const i of denseList) if (!options.halo?.[i]) perm[out++] = i;
+  // every vertex is listed once (eliminated, merged into a pivot's chain, or dense): more pivots
+  // than vertices means a pivot was written twice and writes past the end were dropped
+  if (out > n) throw new Error(`minimum degree: ${out} pivots for ${n} vertices`);
   return out === n ? perm : perm.slice(0, out);
 }
 
@@ -146,8 +149,10 @@ function listNextSet(
 
 function selectPivot(q: QuotientGraph): number {
   const { head } = q;
-  // the first non-empty degree list from the current minimum up
+  // the first non-empty degree list from the current minimum up (one is non-empty while weight
+  // is left to eliminate; running off the end would read undefined and pivot on garbage)
   while (head[q.mindeg] === -1) q.mindeg++;
+  if (q.mindeg >= head.length) throw new Error('minimum degree: no listed variable left to pivot on');
   const k = head[q.mindeg];
   removeDegreeList(q, k);
   return k;

@@ -10,7 +10,11 @@
  * vertex-separator FM (separator-refinement.ts); the lightest wins. The separator is then
  * carried back level by level (a fine vertex takes its coarse vertex's label, which keeps A and
  * B apart because a fine A–B edge would be a coarse one) and refined again at every level, where
- * the finer graph offers smaller moves.
+ * the finer graph offers smaller moves. Where matching stops shrinking the graph while it is still
+ * large (STALLED_SIZE: hubs such as a star's centre), no separator is made and the part is left
+ * to minimum degree: the coarse bisection scans every vertex per step, which on a stalled graph
+ * of n vertices cost O(n²) (2.2 s at 5k, 55 s at 20k uncoupled DOFs before the driver split off
+ * components).
  *
  * Repeated runs. Parts of LARGE_PART or more vertices take the lightest of RUNS_ON_LARGE_PARTS
  * runs, parts of HUGE_PART or more of RUNS_ON_HUGE_PARTS, the whole graph of RUNS_ON_ROOT: the
@@ -46,6 +50,13 @@ import { greedyGrownBisection, refineEdgeCut } from './coarse-bisection.js';
 const COARSEST_SIZE = 120;
 /** A level that removes less than this share of the vertices ends the coarsening. */
 const MIN_REDUCTION = 0.08;
+/**
+ * Coarsening that stalls above this many vertices (matching finds too few pairs: hubs of very
+ * high degree such as a star's centre, or vertices too heavy to pair) gives no separator: the
+ * part is then ordered by minimum degree (dissection-driver.ts). The coarse bisection scans all
+ * vertices per step, so this also bounds its cost per part.
+ */
+const STALLED_SIZE = 4 * COARSEST_SIZE;
 /** Each side may hold at most this share of the part's weight. */
 const MAX_SIDE_FRACTION = 0.52;
 /** Parts with at least this many vertices get RUNS_ON_LARGE_PARTS independent runs. */
@@ -212,19 +223,33 @@ function projectAndRefine(levels: CoarseLevel[], g: WeightedGraph, where: Uint8A
  * share most neighbours, so heavy-edge matching pairs them first and the coarse graphs keep the
  * mesh's layered structure (unit weights would match at random among the 26 neighbours of a
  * hexahedral node). Aligned with graph.adj.
+ * Each edge is counted once, from its endpoint of higher rank (degree, then index): with N(v)
+ * marked, the list of the lower-ranked endpoint u is scanned, which also finds the position of
+ * v in it for the reverse entry. That costs Σ_edges min(deg) = O(|E|^{3/2}) instead of
+ * Σ_v deg(v)² (quadratic on a star: its centre's list was scanned once per leaf).
  */
 function sharedNeighbourWeights(graph: AdjacencyGraph): Int32Array {
   const { n, ptr, adj } = graph;
   const weight = new Int32Array(adj.length);
   const mark = new Int32Array(n).fill(-1);
-  // for each vertex v, mark N(v) and count marked neighbours of each neighbour u
+  const deg = (v: number): number => ptr[v + 1] - ptr[v];
+  const below = (u: number, v: number): boolean => deg(u) < deg(v) || (deg(u) === deg(v) && u < v);
+  // for each vertex v, mark N(v) and count the marked neighbours of each lower-ranked neighbour u
   for (let v = 0; v < n; v++) {
     for (let p = ptr[v]; p < ptr[v + 1]; p++) mark[adj[p]] = v;
     for (let p = ptr[v]; p < ptr[v + 1]; p++) {
       const u = adj[p];
+      if (!below(u, v)) continue;
       let shared = 1;
-      for (let q = ptr[u]; q < ptr[u + 1]; q++) if (mark[adj[q]] === v) shared++;
+      let reverse = -1;
+      for (let q = ptr[u]; q < ptr[u + 1]; q++) {
+        const x = adj[q];
+        if (x === v) reverse = q;
+        else if (mark[x] === v) shared++;
+      }
+      if (reverse < 0) throw new Error('multilevel dissection: the adjacency graph is not symmetric');
       weight[p] = shared;
+      weight[reverse] = shared;
     }
   }
   return weight;
@@ -279,7 +304,9 @@ function weightedSubgraph(
 /**
  * A/B/S labelling (PART_A, PART_B, PART_S) of g's vertices with no edge between A and B. On a
  * graph of LARGE_PART or more vertices the first levels are those shared by every seed with the
- * same ⌊seed / RUN_SLOTS⌋ (the runs of one part), computed once per graph.
+ * same ⌊seed / RUN_SLOTS⌋ (the runs of one part), computed once per graph. When coarsening stalls
+ * above STALLED_SIZE vertices every vertex is labelled A: no useful split (the dissection orders
+ * such a part by minimum degree, and its score loses to any real separator of another run).
  */
 export function multilevelSeparator(g: WeightedGraph, seed = 1): Uint8Array {
   const maxSide = MAX_SIDE_FRACTION * g.totalWeight;
@@ -293,6 +320,7 @@ export function multilevelSeparator(g: WeightedGraph, seed = 1): Uint8Array {
     levels.push(level);
     coarse = level.graph;
   }
+  if (coarse.n > STALLED_SIZE) return new Uint8Array(g.n).fill(PART_A);
   const tries = g.n >= LARGE_PART ? INITIAL_TRIES : SMALL_PART_TRIES;
   const where = initialSeparator(coarse, maxSide, seed, tries);
   return projectAndRefine(levels, g, where, maxSide, levels.length);
@@ -336,7 +364,8 @@ function breadthFirstOrder(g: WeightedGraph, start: number): Int32Array {
   let next = 0;
   queue[tail++] = start;
   seen[start] = 1;
-  // breadth-first sweep; restart at the next unseen vertex when a component is exhausted
+  // breadth-first sweep; restart at the next unseen vertex when a component is exhausted (a
+  // vertex is marked seen when queued, so the queue takes each vertex exactly once)
   while (head < n) {
     if (head === tail) {
       while (seen[next]) next++;
@@ -346,6 +375,7 @@ function breadthFirstOrder(g: WeightedGraph, start: number): Int32Array {
     const v = queue[head++];
     for (let p = ptr[v]; p < ptr[v + 1]; p++) {
       if (!seen[adj[p]]) {
+        if (tail >= n) throw new Error('multilevel dissection: breadth-first queue overflow');
         seen[adj[p]] = 1;
         queue[tail++] = adj[p];
       }

@@ -66,12 +66,14 @@ function breadthFirst(ws: Workspace, vertices: Int32Array, root: number): number
   let tail = 0;
   queue[tail++] = root;
   level[root] = 0;
-  // visit level by level, staying inside the part
+  // visit level by level, staying inside the part; a vertex gets its level when queued, so each
+  // member of the part (level reset to −1 above) is queued at most once: tail ≤ part size ≤ n
   while (head < tail) {
     const v = queue[head++];
     for (let p = ptr[v]; p < ptr[v + 1]; p++) {
       const u = adj[p];
       if (where[u] !== OUTSIDE && level[u] < 0) {
+        if (tail >= vertices.length) throw new Error('level-structure dissection: search queued more vertices than the part holds');
         level[u] = level[v] + 1;
         queue[tail++] = u;
       }

@@ -89,8 +89,14 @@ export function recomputeDegrees(q: QuotientGraph): void {
   }
 }
 
+/**
+ * Lists variable i under degree d. Degrees are weighted and never exceed the total weight
+ * (head has total + 1 lists): initially Σ of neighbour weights, later capped by the weight left.
+ * A degree outside that range would be written nowhere by the typed array, losing i.
+ */
 export function insertDegreeList(q: QuotientGraph, i: number, d: number): void {
   const { head, next, last } = q;
+  if (!(d >= 0 && d < head.length)) throw new Error(`minimum degree: degree ${d} outside 0..${head.length - 1}`);
   if (head[d] !== -1) last[head[d]] = i;
   next[i] = head[d];
   last[i] = -1;
@@ -137,7 +143,12 @@ export function compact(q: QuotientGraph): void {
   q.cnz = t;
 }
 
-/** Makes sure the new element (at most Σ|Le| + |Ak| entries) fits at the end of iw. */
+/**
+ * Makes sure the new element fits at the end of iw: formElement writes at most
+ * Σ_{e∈Ek} |Le| + |Ak| entries from cnz on (Lk is a subset of those lists). An element formed in
+ * place (no adjacent elements) overwrites k's own list from its start and writes at most one
+ * entry per entry read, so it never passes the list's end.
+ */
 export function ensureRoom(q: QuotientGraph, k: number): void {
   const { iw, pe, len, elen } = q;
   if (elen[k] === 0) return; // formed in place

@@ -25,7 +25,11 @@ const MAX_FRUITLESS_MOVES = 80;
 /** Weights of A, B and S for a labelling. */
 export function partWeights(g: WeightedGraph, where: Uint8Array): [number, number, number] {
   const w: [number, number, number] = [0, 0, 0];
-  for (let v = 0; v < g.n; v++) w[where[v]] += g.vertexWeight[v];
+  // a label other than A, B or S (such as 255 from a bad rollback) must not vanish silently
+  for (let v = 0; v < g.n; v++) {
+    if (where[v] > PART_S) throw new Error(`separator refinement: vertex ${v} has side label ${where[v]}`);
+    w[where[v]] += g.vertexWeight[v];
+  }
   return w;
 }
 

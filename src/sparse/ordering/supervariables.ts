@@ -264,6 +264,7 @@ function compressedGraph(
   for (let s = 0; s < count; s++) {
     let t0 = cptr[s];
     forEachNeighbour(s, (t) => (cadj[t0++] = t));
+    if (t0 !== cptr[s + 1]) throw new Error('supervariables: the two passes over a neighbourhood disagree');
   }
   return { n: count, ptr: cptr, adj: cadj };
 }
@@ -271,11 +272,16 @@ function compressedGraph(
 /** Expands an ordering of supervariables (perm[k] = k-th supervariable) to one of the vertices. */
 export function expandOrdering(sv: Supervariables, compressedPerm: Int32Array): Int32Array {
   const perm = new Int32Array(sv.members.length);
+  if (compressedPerm.length !== sv.count) {
+    throw new Error(`expandOrdering: an ordering of ${compressedPerm.length} supervariables for ${sv.count}`);
+  }
   let k = 0;
   // each supervariable contributes its members consecutively, in ascending order
   for (let q = 0; q < compressedPerm.length; q++) {
     const s = compressedPerm[q];
     for (let p = sv.memberPtr[s]; p < sv.memberPtr[s + 1]; p++) perm[k++] = sv.members[p];
   }
+  // a repeated supervariable would overrun perm, its writes silently dropped
+  if (k !== perm.length) throw new Error(`expandOrdering: ${k} pivots for ${perm.length} vertices`);
   return perm;
 }
