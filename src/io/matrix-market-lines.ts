@@ -47,6 +47,8 @@ const MIN_ENTRY_BYTES = 6;
 const MIN_VALUE_BYTES = 2;
 /** Keys 2·row + flag must fit in an Int32. */
 const MAX_ORDER = 2 ** 30 - 1;
+/** Rows a coordinate file may leave empty beyond the 2 per entry its entries can reach (our choice: about 20 MB of per-row arrays). */
+const EMPTY_ROW_SLACK = 1_000_000;
 const MAX_ENTRIES = 2 ** 31 - 1;
 /** Text allowed beyond the data: 16 MiB, plus BYTES_PER_ENTRY per entry read. */
 export const FILLER_BYTES = 16 * 2 ** 20;
@@ -255,6 +257,7 @@ export class MatrixMarketLines {
     if (b.format === 'array' && b.symmetry === 'symmetric') size.entries = (size.rows * (size.rows + 1)) / 2;
     this.checkPlausible(size, line);
     this.checkMemory(size, line);
+    this.checkEmptyRows(size, line);
     if (this.options.role === 'stiffness' && b.format === 'coordinate' && size.entries < size.rows) {
       throw new InputError(
         this.file,
@@ -292,6 +295,24 @@ export class MatrixMarketLines {
         { line },
       );
     }
+  }
+
+  /**
+   * Each stored entry touches at most two rows (its row and, mirrored, its column), so a coordinate
+   * file of L entries leaves at least n − 2L rows and columns entirely empty. A lumped mass matrix
+   * legitimately lacks its rotational rows (about half of a 6-DOF-per-node model); beyond that and a
+   * fixed slack the order is not a model's but a size line out of step with the data, and reading
+   * it would allocate for rows that hold nothing.
+   */
+  private checkEmptyRows(size: MatrixMarketSize, line: number): void {
+    if (this.banner!.format !== 'coordinate') return;
+    const emptyAtLeast = size.rows - 2 * size.entries;
+    if (emptyAtLeast <= EMPTY_ROW_SLACK) return;
+    throw new InputError(
+      this.file,
+      `the size line declares ${size.rows} rows but only ${size.entries} entries, so at least ${emptyAtLeast} rows would hold nothing at all; the size line is out of step with the data`,
+      { line },
+    );
   }
 
   /** Refuse an order whose model cannot fit in memory here, with the figure. */

@@ -13,7 +13,7 @@ import { outcome } from './outcome.js';
 
 const messages = {
   pass: 'every entry of K and M is finite.',
-  fail: '{{list}}: non-finite entries (NaN or infinity) make every result meaningless; first at {{where}}.',
+  fail: '{{list}} non-finite entr{{plural}} (NaN or infinity), which make every result meaningless; first at {{where}}.',
 };
 
 /** "k.mtx:4 (1, 1), k.mtx:9 (3, 2)": where the first recorded entries are. */
@@ -37,7 +37,7 @@ export const matrixFinite: RuleDefinition<Record<string, never>> = {
     const where = [...locations(context.stiffnessSummary), ...locations(context.massSummary)].slice(0, 5);
     const details = { stiffness: k, mass: m, locations: where };
     if (parts.length > 0) {
-      return outcome('fail', messages.fail, { list: parts.join(', '), where: where.length > 0 ? where.join(', ') : 'an unknown line' }, k + m, 0, details);
+      return outcome('fail', messages.fail, { list: parts.join(' and '), plural: k + m === 1 ? 'y' : 'ies', where: where.length > 0 ? where.join(', ') : 'an unknown line' }, k + m, 0, details);
     }
     return outcome('pass', messages.pass, {}, 0, 0, details);
   },

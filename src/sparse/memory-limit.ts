@@ -7,6 +7,7 @@
  * plus, per thread, the largest update block and the largest supernode block as scratch;
  * the caller adds what it keeps beside the factor (an iteration basis, the mode shapes).
  */
+import { formatBytes } from '../io/matrix-market-memory.js';
 import type { SupernodalStructure } from './symbolic.js';
 
 export function predictedFactorBytes(s: SupernodalStructure, threads: number): number {
@@ -22,16 +23,4 @@ export class MemoryLimitError extends Error {
     super(`the solve would need about ${formatBytes(predictedBytes)} (a factor with ${nnzL.toExponential(2)} nonzeros, predicted before any numeric work), above the memory limit of ${formatBytes(limitBytes)} (--max-memory)`);
     this.name = 'MemoryLimitError';
   }
-}
-
-/** 1536 → "1.5 KiB", 3.2e9 → "3.0 GiB". */
-export function formatBytes(bytes: number): string {
-  const units = ['B', 'KiB', 'MiB', 'GiB', 'TiB'];
-  let v = bytes;
-  let u = 0;
-  while (v >= 1024 && u < units.length - 1) {
-    v /= 1024;
-    u++;
-  }
-  return u === 0 ? `${v} B` : `${v.toFixed(1)} ${units[u]}`;
 }

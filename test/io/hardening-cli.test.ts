@@ -94,7 +94,7 @@ describe('a 10⁹ × 10⁹ header of 114 bytes', () => {
 
   it('check: exit 2, JUnit <error> naming the file', async () => {
     const k = huge();
-    const cfg = file('huge.yaml', `models:\n  - name: huge\n    stiffness: ${k}\n    mass: ${small()}\n`);
+    const cfg = file('huge.yaml', `models:\n  - name: huge\n    stiffness: ${k}\n    mass: ${small()}\n    ruleSets: [supported]\n    rules:\n      first-elastic-frequency: { minHz: 1 }\n`);
     const junit = join(work, 'huge-junit.xml');
     const r = await run(['check', '-c', cfg, '--junit', junit, '--quiet']);
     expect(r.code).toBe(2);
@@ -157,6 +157,6 @@ describe('non-finite values in check', () => {
     expect(r.code).toBe(2);
     const xml = readFileSync(junit, 'utf8');
     expect(xml).toMatch(new RegExp(`<failure [^>]*message="[^"]*${k.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}:4 \\(2, 2\\)[^"]*" type="matrix-finite"`));
-    expect(xml).toContain('the modes were not solved because K or M has non-finite entries');
+    expect(xml).toContain('the modes were not solved because');
   });
 });

@@ -67,6 +67,16 @@ describe('declared sizes', () => {
     expect(oneLineMessage(e)).toMatch(/^.*huge\.mtx:2: the size line declares 1000000000 × 1000000000 with 3 entries; .* needs at least [\d.]+ GB, more than the [\d.]+ (GB|MB) of memory here$/);
   });
 
+  it('an order far beyond what the entries can fill is refused before allocating per-row arrays; a lumped M with half its rows empty is read', async () => {
+    // each entry reaches at most two rows, so 3 000 000 rows and 4 entries leave 2 999 992 rows empty
+    const p = file('hollow.mtx', `${BANNER}3000000 3000000 4\n1 1 1.0\n2 2 1.0\n3 3 1.0\n4 4 1.0\n`);
+    const e = await caught(readMatrixMarket(p));
+    expect(e.line).toBe(2);
+    expect(e.reason).toBe('the size line declares 3000000 rows but only 4 entries, so at least 2999992 rows would hold nothing at all; the size line is out of step with the data');
+    const lumped = file('lumped-half.mtx', `${BANNER}12 12 6\n${[1, 2, 3, 7, 8, 9].map((i) => `${i} ${i} 2.0`).join('\n')}\n`);
+    expect((await readMatrixMarket(lumped)).summary.zeroDiagonalCount).toBe(6);
+  });
+
   it('a small budget refuses a model that would not fit; the same file passes with room', async () => {
     const p = file('small.mtx', `${BANNER}1000 1000 1000\n${Array.from({ length: 1000 }, (_, i) => `${i + 1} ${i + 1} 1.0`).join('\n')}\n`);
     const e = await caught(readMatrixMarket(p, { memoryBudgetBytes: 100_000 }));

@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { createShiftedSolver } from '../../src/sparse/shifted-solver.js';
-import { MemoryLimitError, formatBytes } from '../../src/sparse/memory-limit.js';
+import { MemoryLimitError } from '../../src/sparse/memory-limit.js';
 import { hexGridPair } from './fe-like-matrices.js';
 
 describe('memory limit of a solve', () => {
@@ -33,9 +33,4 @@ describe('memory limit of a solve', () => {
     expect(() => createShiftedSolver(stiffness, mass, { threads: 1, memoryLimitBytes: 1e9, extraBytes: 2e9 })).toThrow(MemoryLimitError);
   });
 
-  it('formats byte counts in binary units', () => {
-    expect(formatBytes(512)).toBe('512 B');
-    expect(formatBytes(1536)).toBe('1.5 KiB');
-    expect(formatBytes(3 * 1024 ** 3)).toBe('3.0 GiB');
-  });
 });
