@@ -139,7 +139,8 @@ function dotsBody(g: number, width: 1 | 2): number[] {
   return [2, ...leb(5 + 2 * g), 0x7f, ...leb(width * g + 3), 0x7b, ...code];
 }
 
-function moduleBytes(): Uint8Array {
+/** The module's bytes (compiled once below; exported for the disassembly snapshot test). */
+export function sweepModuleBytes(): Uint8Array {
   const bodies: number[][] = [];
   const exports: number[] = [];
   // functions 0‥3·KERNEL_RHS−1: columns, dots2, dots1 for each g
@@ -160,7 +161,7 @@ function moduleBytes(): Uint8Array {
   ]);
 }
 
-const compiledModule = compileOnce(moduleBytes);
+const compiledModule = compileOnce(sweepModuleBytes);
 let storageCount = 0;
 let enabled = true;
 

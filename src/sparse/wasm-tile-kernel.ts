@@ -110,7 +110,8 @@ function stripsBody(put: boolean): number[] {
   return [2, 3, 0x7f, 11, 0x7b, ...countdown(6, strip), 0x0b];
 }
 
-function moduleBytes(): Uint8Array {
+/** The module's bytes (compiled once below; exported for the disassembly snapshot test). */
+export function tileModuleBytes(): Uint8Array {
   const bodies = [tilesBody(), stripsBody(false), stripsBody(true)];
   const code = bodies.flatMap((b) => [...leb(b.length), ...b]);
   return new Uint8Array([
@@ -124,7 +125,7 @@ function moduleBytes(): Uint8Array {
   ]);
 }
 
-const compiledModule = compileOnce(moduleBytes);
+const compiledModule = compileOnce(tileModuleBytes);
 
 function instantiate(memory: { buffer: ArrayBuffer | SharedArrayBuffer }): Record<string, unknown> | null {
   const mod = compiledModule();
