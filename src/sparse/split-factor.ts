@@ -91,7 +91,6 @@ export function shareStructure(s: SupernodalStructure): SupernodalStructure {
   };
 }
 
-
 /**
  * LDLᵀ on two threads along `split` (two parts); null when no helper thread is available, so the
  * caller factors serially. `s` must come from shareStructure.
