@@ -9,7 +9,8 @@
  * kernels of src/dense/block-ops.ts run here.
  */
 import { addTimesSmall, timesSmallInPlace, transposeTimes } from '../dense/block-ops.js';
-import { SPLIT_MIN_WORK, availableThreads, inSharedMemory, runSplit, sharedBlock, sharedScratch } from '../sparse/parallel-factor.js';
+import { availableThreads, inSharedMemory, sharedBlock, sharedScratch } from '../sparse/helper-thread.js';
+import { SPLIT_MIN_WORK, runSplit } from '../sparse/block-product-jobs.js';
 
 /** Shared staging blocks for the small operands, reused from call to call. */
 const stage = sharedScratch();

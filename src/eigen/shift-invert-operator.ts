@@ -12,7 +12,7 @@
  * Blocks are column-major n×k Float64Arrays; one pass over the factor serves all k columns.
  */
 import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
-import { sharedMatrix, splitSymMultiplyBlock } from '../sparse/parallel-factor.js';
+import { sharedMatrix, splitSymMultiplyBlock } from '../sparse/block-product-jobs.js';
 import type { ShiftedFactor } from '../sparse/factor-types.js';
 
 /** How much work the operator did: the figures that decide the cost of a solve. */

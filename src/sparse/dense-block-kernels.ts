@@ -67,6 +67,11 @@ export function useSimdTileKernel(on: boolean): boolean {
   simdEnabled = on;
   return on && simdKernel !== null;
 }
+
+/** Whether the packed products run in the WebAssembly SIMD tile kernel now. */
+export function simdTileKernelInUse(): boolean {
+  return simdEnabled && simdKernel !== null;
+}
 const TILE_OUT = PACK_ROWS * PACK_DEPTH;
 const PACKED_W = TILE_OUT + 512;
 let plainBuffer = new Float64Array(PACKED_W + 64 * PACK_DEPTH);

@@ -59,7 +59,15 @@ export interface FactorDiagnostics {
   tinyPivots: TinyPivot[];
   /** Threads the numeric factorization ran on (1, or 2 when the elimination tree was split). */
   threads?: number;
+  /**
+   * Which kernels this factor's products run in: the factorization's block updates and the
+   * triangular sweeps of its solves, each WebAssembly SIMD or the plain TypeScript loops (the
+   * same results; SIMD wherever the runtime has WebAssembly SIMD and shared memory).
+   */
+  kernels?: { factor: KernelKind; sweeps: KernelKind };
 }
+
+export type KernelKind = 'simd' | 'plain';
 
 /** The numeric factor of one shifted matrix. Vectors are in the original DOF numbering. */
 export interface ShiftedFactor {

@@ -4,15 +4,19 @@
  * fixed structure. Each factor owns its values, so earlier factors stay valid after a refactor.
  */
 import type { SymmetricCsc } from './csc.js';
-import type { FactorDiagnostics, ShiftedFactor, ShiftedSolver, ShiftedSolverOptions } from './factor-types.js';
+import type { FactorDiagnostics, KernelKind, ShiftedFactor, ShiftedSolver, ShiftedSolverOptions } from './factor-types.js';
 import { chooseOrdering } from './ordering/choose-ordering.js';
 import { supernodalLdlt, type RecycledValues, type SupernodalFactor } from './numeric-ldlt.js';
 import { PivotMonitor } from './pivot-monitor.js';
 import { analyzeShiftedPair, type SupernodalStructure } from './symbolic.js';
 import { supernodalSolveInPlace } from './triangular-solve.js';
-import { availableThreads, parallelSupernodalLdlt, prepareSplitSolve, shareStructure, sharedScratch, splitSolveInPlace, type SplitSolve } from './parallel-factor.js';
+import { availableThreads, sharedScratch } from './helper-thread.js';
+import { parallelSupernodalLdlt, shareStructure } from './split-factor.js';
+import { prepareSplitSolve, splitSolveInPlace, type SplitSolve } from './split-solve.js';
 import { splitSubtrees } from './subtree-split.js';
 import { MemoryLimitError, predictedFactorBytes } from './memory-limit.js';
+import { simdTileKernelInUse } from './dense-block-kernels.js';
+import { tileKernelsAvailable } from './wasm-tile-kernel.js';
 
 /**
  * Factorizations of fewer flops stay on one thread (our choice: about a tenth of a second of
@@ -90,6 +94,7 @@ export function createShiftedSolver(
       maxRatioDof: monitor.maxRatioIndex >= 0 ? perm[monitor.maxRatioIndex] : -1,
       tinyPivots: monitor.tinyPivots(perm),
       threads: parallel ? 2 : 1,
+      kernels: kernelKinds(f),
     };
     return makeFactor(f, shift, monitor, diagnostics, parallel ? solvePlan : null, (values) => {
       spare = values;
@@ -97,6 +102,16 @@ export function createShiftedSolver(
   }
 
   return { n, ordering: order.name, predictedNnzL: structure.nnzL, orderingCandidates: order.candidates, factor };
+}
+
+/**
+ * The kernels a factor's products run in: with its values in a WebAssembly memory, the in-place
+ * strip kernels (factorization) and the SIMD sweeps read them there; otherwise the updates run
+ * on packed copies, in the SIMD tile kernel when it is on, and the sweeps in TypeScript.
+ */
+function kernelKinds(f: SupernodalFactor): { factor: KernelKind; sweeps: KernelKind } {
+  if (f.storage) return { factor: tileKernelsAvailable() ? 'simd' : 'plain', sweeps: 'simd' };
+  return { factor: simdTileKernelInUse() ? 'simd' : 'plain', sweeps: 'plain' };
 }
 
 /** Bytes of the arrays a factor holds (values, D, and the structure's index arrays). */

@@ -6,12 +6,13 @@
  * supernode. The kernels then read L in place — no packing copy, which for a handful of
  * right-hand sides would cost as much as the arithmetic.
  *
- * Two products, for g ≤ 6 right-hand sides at a time (one function per g, generated below):
+ * Two products, for g ≤ 4 right-hand sides at a time (KERNEL_GROUP; one function per g, generated
+ * below; the sweeps call them in groups of at most four, RHS_GROUPS in triangular-solve.ts):
  *
  *   columns  Y(i, c) −= Σ_{t<cols} L(i, t) X(t, c)     rows in strips of 4 (two f64x2 lanes),
  *            the forward sweep's update  y_below −= L21 y_own  and the same inside L11;
  *            per step t: two loads of L's column, g broadcasts of X(t, ·), 2g multiply-adds
- *            into 2g accumulators (2g + 3 ≤ 15 vector registers for g = 6);
+ *            into 2g accumulators (2g + 3 ≤ 11 vector values for g = 4);
  *   dots     Y(t, c) −= Σ_{i<rows} L(i, t) G(i, c)     columns in pairs (or one), rows in pairs,
  *            the backward sweep's  y_own −= L21ᵀ x_below ; per row pair: one or two loads of L,
  *            g loads of G, g or 2g multiply-adds; lanes summed at the end.
@@ -23,23 +24,16 @@
  * not fit in 4 GiB; the sweeps then use the plain TypeScript loops.
  */
 
-import { addTo, compileOnce, countdown, leb, name, op, section } from './wasm-bytes.js';
+import { addTo, assembleModule, countdown, Locals, mulAddTo, op } from './wasm-bytes.js';
+import { compileOnce, instantiate, MAX_PAGES, PAGE_BYTES, sharedMemory, type WasmMemory } from './wasm-runtime.js';
 
-/** The few WebAssembly names used here (the project's lib settings do not include them). */
-declare const WebAssembly: {
-  Module: new (bytes: Uint8Array) => object;
-  Instance: new (module: object, imports: Record<string, Record<string, unknown>>) => { exports: Record<string, unknown> };
-  Memory: new (descriptor: { initial: number; maximum: number; shared: boolean }) => WasmMemory;
-};
-
-export interface WasmMemory {
-  buffer: ArrayBuffer | SharedArrayBuffer;
-}
-
-/** Most right-hand sides one kernel call serves. */
+/** Most right-hand sides a sweep step gathers (the scratch regions hold KERNEL_RHS columns). */
 export const KERNEL_RHS = 6;
-const PAGE_BYTES = 65536;
-const MAX_PAGES = 65536;
+/**
+ * Most right-hand sides one kernel call serves: the sweeps call the kernels in groups of at most
+ * four (triangular-solve.ts, RHS_GROUPS), so only g = 1 … 4 are generated.
+ */
+export const KERNEL_GROUP = 4;
 
 type Kernel = (pL: number, ld: number, count: number, cols: number, pX: number, ldx: number, pY: number, ldy: number) => void;
 
@@ -58,109 +52,109 @@ export interface SweepKernels {
   /** The whole memory as doubles (scratch regions and values). */
   heap: Float64Array;
   storage: FactorStorage;
-  /** Indexed by g = 1 … KERNEL_RHS. */
+  /** Indexed by g = 1 … KERNEL_GROUP. */
   columns: Kernel[];
   dots2: Kernel[];
   dots1: Kernel[];
 }
 
-const { localGet: get, localSet: set, i32Const: i32, simd } = op;
-const ADD = 0x6a;
-const MUL = 0x6c;
-const { v128Load: vload, v128Splat64: vsplat, v128Store: vstore, v128Zero: vzero, f64x2Add: vadd, f64x2Sub: vsub, f64x2Mul: vmul } = op;
-const lane = (l: number) => simd(33, l);
-const fload = (off: number) => [0x2b, 3, ...leb(off)];
-const fstore = (off: number) => [0x39, 3, ...leb(off)];
-const F_ADD = 0xa0;
-const F_SUB = 0xa1;
+const { localGet: get, localSet: set, i32Const: i32, i32Add: ADD, i32Mul: MUL } = op;
+const { v128Load: vload, v128Splat64: vsplat, v128Store: vstore, v128Zero: vzero, f64x2Sub: vsub, f64x2ExtractLane: lane } = op;
+const { f64Load: fload, f64Store: fstore, f64Add: F_ADD, f64Sub: F_SUB } = op;
 
-/** acc ← acc + a·b on v128 locals. */
-const fma = (acc: number, a: number, b: number) => [...get(acc), ...get(a), ...get(b), ...vmul, ...vadd, ...set(acc)];
-
-/** Params: pL 0, ldL 1, strips 2, cols 3, pX 4, ldX 5, pY 6, ldY 7 (bytes). */
+/** columns(pL, ldL, strips, cols, pX, ldX, pY, ldY), strides and addresses in bytes. */
 function columnsBody(g: number): number[] {
-  const pl = 8, px = 9, t = 10, xo = 11, yo = 11 + g, addr = 11 + 2 * g;
-  const v = 12 + 2 * g; // accumulators v … v+2g−1, then a0, a1, b
-  const a0 = v + 2 * g, a1 = a0 + 1, b = a0 + 2;
+  const locals = new Locals(8);
+  const [pL, ldL, strips, cols, pX, ldX, pY, ldY] = locals.params;
+  const pl = locals.i32();
+  const px = locals.i32();
+  const t = locals.i32();
+  /** byte offsets of right-hand side c in X and Y at xo + c, yo + c (c ≥ 1; slot 0 unused) */
+  const xo = locals.i32(g);
+  const yo = locals.i32(g);
+  const addr = locals.i32();
+  const v = locals.v128(2 * g); // accumulators
+  const a0 = locals.v128();
+  const a1 = locals.v128();
+  const b = locals.v128();
   const code: number[] = [];
   // byte offsets of right-hand side c in X and Y
-  for (let c = 1; c < g; c++) code.push(...get(5), ...i32(c), MUL, ...set(xo + c), ...get(7), ...i32(c), MUL, ...set(yo + c));
+  for (let c = 1; c < g; c++) code.push(...get(ldX), ...i32(c), ...MUL, ...set(xo + c), ...get(ldY), ...i32(c), ...MUL, ...set(yo + c));
   const inner: number[] = [...get(pl), ...vload(0), ...set(a0), ...get(pl), ...vload(16), ...set(a1)];
   // step t: L(i..i+3, t) times X(t, c) for every c
   for (let c = 0; c < g; c++) {
-    inner.push(...get(px), ...(c > 0 ? [...get(xo + c), ADD] : []), ...vsplat(0), ...set(b));
-    inner.push(...fma(v + 2 * c, a0, b), ...fma(v + 2 * c + 1, a1, b));
+    inner.push(...get(px), ...(c > 0 ? [...get(xo + c), ...ADD] : []), ...vsplat(0), ...set(b));
+    inner.push(...mulAddTo(v + 2 * c, a0, b), ...mulAddTo(v + 2 * c + 1, a1, b));
   }
-  inner.push(...addTo(pl, get(1)), ...addTo(px, i32(8)));
+  inner.push(...addTo(pl, get(ldL)), ...addTo(px, i32(8)));
   const strip: number[] = [];
   for (let q = 0; q < 2 * g; q++) strip.push(...vzero, ...set(v + q));
-  strip.push(...get(0), ...set(pl), ...get(4), ...set(px), ...get(3), ...set(t), ...countdown(t, inner));
+  strip.push(...get(pL), ...set(pl), ...get(pX), ...set(px), ...get(cols), ...set(t), ...countdown(t, inner));
   // Y(i..i+3, c) −= accumulators
   for (let c = 0; c < g; c++) {
-    strip.push(...get(6), ...(c > 0 ? [...get(yo + c), ADD] : []), ...set(addr));
+    strip.push(...get(pY), ...(c > 0 ? [...get(yo + c), ...ADD] : []), ...set(addr));
     strip.push(...get(addr), ...get(addr), ...vload(0), ...get(v + 2 * c), ...vsub, ...vstore(0));
     strip.push(...get(addr), ...get(addr), ...vload(16), ...get(v + 2 * c + 1), ...vsub, ...vstore(16));
   }
-  strip.push(...addTo(0, i32(32)), ...addTo(6, i32(32)));
-  code.push(...countdown(2, strip), 0x0b);
-  return [2, ...leb(4 + 2 * g), 0x7f, ...leb(2 * g + 3), 0x7b, ...code];
+  strip.push(...addTo(pL, i32(32)), ...addTo(pY, i32(32)));
+  code.push(...countdown(strips, strip));
+  return locals.body(code);
 }
 
-/** Params: pL 0, ldL 1, rowPairs 2, colGroups 3, pG 4, ldG 5, pY 6, ldY 7 (bytes); `width` columns per group (1 or 2). */
+/** dots(pL, ldL, rowPairs, colGroups, pG, ldG, pY, ldY), in bytes; `width` columns per group (1 or 2). */
 function dotsBody(g: number, width: 1 | 2): number[] {
-  const pl0 = 8, pl1 = 9, pg = 10, i = 11, go = 12, yo = 12 + g, addr = 12 + 2 * g;
-  const v = 13 + 2 * g; // accumulators v … v+width·g−1, then a0, a1, gv
-  const a0 = v + width * g, a1 = a0 + 1, gv = a0 + 2;
+  const locals = new Locals(8);
+  const [pL, ldL, rowPairs, colGroups, pG, ldG, pY, ldY] = locals.params;
+  const pl0 = locals.i32();
+  const pl1 = locals.i32();
+  const pg = locals.i32();
+  const i = locals.i32();
+  /** byte offsets of right-hand side c in G and Y at go + c, yo + c (c ≥ 1; slot 0 unused) */
+  const go = locals.i32(g);
+  const yo = locals.i32(g);
+  const addr = locals.i32();
+  const v = locals.v128(width * g); // accumulators
+  const a0 = locals.v128();
+  const a1 = locals.v128(); // (unused for width 1)
+  const gv = locals.v128();
   const code: number[] = [];
   // byte offsets of right-hand side c in G and Y
-  for (let c = 1; c < g; c++) code.push(...get(5), ...i32(c), MUL, ...set(go + c), ...get(7), ...i32(c), MUL, ...set(yo + c));
+  for (let c = 1; c < g; c++) code.push(...get(ldG), ...i32(c), ...MUL, ...set(go + c), ...get(ldY), ...i32(c), ...MUL, ...set(yo + c));
   const inner: number[] = [...get(pl0), ...vload(0), ...set(a0)];
   if (width === 2) inner.push(...get(pl1), ...vload(0), ...set(a1));
   // rows i, i+1 of the column(s) against G(i..i+1, c) for every c
   for (let c = 0; c < g; c++) {
-    inner.push(...get(pg), ...(c > 0 ? [...get(go + c), ADD] : []), ...vload(0), ...set(gv));
-    inner.push(...fma(v + c, a0, gv));
-    if (width === 2) inner.push(...fma(v + g + c, a1, gv));
+    inner.push(...get(pg), ...(c > 0 ? [...get(go + c), ...ADD] : []), ...vload(0), ...set(gv));
+    inner.push(...mulAddTo(v + c, a0, gv));
+    if (width === 2) inner.push(...mulAddTo(v + g + c, a1, gv));
   }
   inner.push(...addTo(pl0, i32(16)), ...addTo(pl1, i32(16)), ...addTo(pg, i32(16)));
   const group: number[] = [];
   for (let q = 0; q < width * g; q++) group.push(...vzero, ...set(v + q));
-  group.push(...get(0), ...set(pl0), ...get(0), ...get(1), ADD, ...set(pl1), ...get(4), ...set(pg), ...get(2), ...set(i), ...countdown(i, inner));
+  group.push(...get(pL), ...set(pl0), ...get(pL), ...get(ldL), ...ADD, ...set(pl1), ...get(pG), ...set(pg), ...get(rowPairs), ...set(i), ...countdown(i, inner));
   // Y(t, c) (and Y(t+1, c)) −= the two lanes' sum
   for (let c = 0; c < g; c++) {
-    group.push(...get(6), ...(c > 0 ? [...get(yo + c), ADD] : []), ...set(addr));
+    group.push(...get(pY), ...(c > 0 ? [...get(yo + c), ...ADD] : []), ...set(addr));
     for (let w = 0; w < width; w++) {
       const acc = v + w * g + c;
-      group.push(...get(addr), ...get(addr), ...fload(8 * w), ...get(acc), ...lane(0), ...get(acc), ...lane(1), F_ADD, F_SUB, ...fstore(8 * w));
+      group.push(...get(addr), ...get(addr), ...fload(8 * w), ...get(acc), ...lane(0), ...get(acc), ...lane(1), ...F_ADD, ...F_SUB, ...fstore(8 * w));
     }
   }
-  group.push(...addTo(0, get(1)), ...(width === 2 ? addTo(0, get(1)) : []), ...addTo(6, i32(8 * width)));
-  code.push(...countdown(3, group), 0x0b);
-  return [2, ...leb(5 + 2 * g), 0x7f, ...leb(width * g + 3), 0x7b, ...code];
+  group.push(...addTo(pL, get(ldL)), ...(width === 2 ? addTo(pL, get(ldL)) : []), ...addTo(pY, i32(8 * width)));
+  code.push(...countdown(colGroups, group));
+  return locals.body(code);
 }
 
-function moduleBytes(): Uint8Array {
-  const bodies: number[][] = [];
-  const exports: number[] = [];
-  // functions 0‥3·KERNEL_RHS−1: columns, dots2, dots1 for each g
-  for (let g = 1; g <= KERNEL_RHS; g++) {
-    for (const [kind, body] of [['c', columnsBody(g)], ['d', dotsBody(g, 2)], ['e', dotsBody(g, 1)]] as const) {
-      exports.push(...name(`${kind}${g}`), 0, ...leb(bodies.length));
-      bodies.push(body);
-    }
+/** The module's bytes (compiled once below; exported for the disassembly snapshot test): columns, dots2, dots1 for each g. */
+export function sweepModuleBytes(): Uint8Array {
+  const functions = [];
+  for (let g = 1; g <= KERNEL_GROUP; g++) {
+    functions.push({ params: 8, name: `c${g}`, body: columnsBody(g) }, { params: 8, name: `d${g}`, body: dotsBody(g, 2) }, { params: 8, name: `e${g}`, body: dotsBody(g, 1) });
   }
-  const code = bodies.flatMap((b) => [...leb(b.length), ...b]);
-  return new Uint8Array([
-    0x00, 0x61, 0x73, 0x6d, 0x01, 0x00, 0x00, 0x00,
-    ...section(1, [1, 0x60, 8, ...new Array<number>(8).fill(0x7f), 0]),
-    ...section(2, [1, ...name('k'), ...name('memory'), 0x02, 0x03, ...leb(1), ...leb(MAX_PAGES)]),
-    ...section(3, [...leb(bodies.length), ...new Array<number>(bodies.length).fill(0)]),
-    ...section(7, [...leb(bodies.length), ...exports]),
-    ...section(10, [...leb(bodies.length), ...code]),
-  ]);
+  return assembleModule(MAX_PAGES, functions);
 }
 
-const compiledModule = compileOnce(moduleBytes);
+const compiledModule = compileOnce(sweepModuleBytes);
 let storageCount = 0;
 let enabled = true;
 
@@ -186,7 +180,7 @@ export function factorStorage(length: number, scratchDoubles: number): { values:
   const pages = Math.ceil((8 * (2 * scratch + length + 4)) / PAGE_BYTES);
   if (pages > MAX_PAGES - 1) return null;
   try {
-    const memory = new WebAssembly.Memory({ initial: Math.max(1, pages), maximum: Math.max(1, pages), shared: true });
+    const memory = sharedMemory(Math.max(1, pages));
     const storage = { memory, id: ++storageCount + Math.random(), scratchDoubles: scratch, valuesOffset: 2 * scratch };
     return { values: new Float64Array(memory.buffer, 8 * storage.valuesOffset, length), storage };
   } catch {
@@ -198,7 +192,7 @@ export function factorStorage(length: number, scratchDoubles: number): { values:
 export function sweepKernels(storage: FactorStorage): SweepKernels | null {
   const mod = compiledModule();
   if (mod === null) return null;
-  const { exports } = new WebAssembly.Instance(mod, { k: { memory: storage.memory } });
-  const pick = (kind: string) => [() => {}, ...Array.from({ length: KERNEL_RHS }, (_, i) => exports[`${kind}${i + 1}`])] as Kernel[];
+  const exports = instantiate(mod, storage.memory);
+  const pick = (kind: string) => [() => {}, ...Array.from({ length: KERNEL_GROUP }, (_, i) => exports[`${kind}${i + 1}`])] as Kernel[];
   return { heap: new Float64Array(storage.memory.buffer), storage, columns: pick('c'), dots2: pick('d'), dots1: pick('e') };
 }

@@ -80,7 +80,7 @@ export function splitSubtrees(s: SupernodalStructure, threads: number): SubtreeS
 const MAX_OPENINGS = 64;
 /**
  * Modelled time of the top per unit of work: its large supernodes are shared by both threads
- * (src/sparse/parallel-factor.ts), measured at about 0.6 of their serial time (our estimate).
+ * (src/sparse/split-factor.ts), measured at about 0.6 of their serial time (our estimate).
  */
 const TOP_TIME_FACTOR = 0.6;
 

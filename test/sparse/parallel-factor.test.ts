@@ -1,5 +1,5 @@
 /**
- * The two-thread factorization and block solve (src/sparse/parallel-factor.ts) run their helper
+ * The two-thread factorization and block solve (src/sparse/split-factor.ts, split-solve.ts) run their helper
  * from the compiled worker file, so this test loads the compiled modules from dist/ (built by
  * `npm test` before vitest runs) and skips with a message when they are absent. Checks: the
  * two-thread factor has the same inertia and pivots as the serial one, and its solves meet the
@@ -14,7 +14,7 @@ import { diagonalOf, maxAbsEntry, symMultiplyBlock } from '../../src/sparse/csc.
 import { hexGridPair } from './fe-like-matrices.js';
 
 const dist = path.resolve(import.meta.dirname, '../../dist/src/sparse');
-const built = existsSync(path.join(dist, 'factor-worker.js')) && existsSync(path.join(dist, 'shifted-solver.js'));
+const built = existsSync(path.join(dist, 'helper-worker.js')) && existsSync(path.join(dist, 'shifted-solver.js'));
 if (!built) console.warn('parallel factorization test skipped: dist/ not built (run `npm run build`)');
 
 describe.skipIf(!built)('two-thread LDLᵀ from the compiled modules', () => {

@@ -31,7 +31,10 @@ describe('SIMD triangular sweeps', () => {
       const plain = solver.factor(shift);
       useSimdSweepKernels(true);
       const simd = solver.factor(shift);
-      for (const k of [1, 2, 3, 5, KERNEL_RHS, KERNEL_RHS + 1, 2 * KERNEL_RHS + 1]) {
+      // the diagnostics say which kernels each factor's products run in
+      expect(plain.diagnostics.kernels).toEqual({ factor: 'simd', sweeps: 'plain' });
+      expect(simd.diagnostics.kernels).toEqual({ factor: 'simd', sweeps: 'simd' });
+      for (const k of [1, 2, 3, 4, 5, KERNEL_RHS, KERNEL_RHS + 1, KERNEL_RHS + 4, 2 * KERNEL_RHS + 1]) {
         const b = new Float64Array(n * k).map(() => rnd() - 0.5);
         const xs = simd.solveBlock(b, k);
         const xp = plain.solveBlock(b, k);

@@ -41,7 +41,7 @@
  */
 import type { AdjacencyGraph } from './adjacency-graph.js';
 import { coarsen, shuffled, type CoarseLevel, type WeightedGraph } from './coarsen-graph.js';
-import { startSeparatorRuns } from '../parallel-factor.js';
+import { startSeparatorRuns } from '../separator-jobs.js';
 import { nestedDissectionByLevels, type DissectionOptions, type LevelSplitter } from './dissection-driver.js';
 import { partWeights, PART_A, PART_B, PART_S, refineSeparator } from './separator-refinement.js';
 import { greedyGrownBisection, refineEdgeCut } from './coarse-bisection.js';
