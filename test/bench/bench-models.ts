@@ -48,13 +48,13 @@ export function latticeFrame(): GeneratedModel {
 /**
  * Steel radio-unit bracket (fixtures/generator/tet-bracket.ts) meshed with 10-node tetrahedra:
  * unstructured (random split patterns, jittered interior), node ids shuffled with gaps, DOFs
- * numbered in a random node order. About 26k DOFs at cellM = 7.2 mm, bolt face clamped or free.
+ * numbered in a random node order. At cellM = 7.2 mm: 24 090 DOFs clamped (bolt face), 26 265 free.
  */
 export function tetBracket26k(clamped = true): GeneratedModel {
   return buildTetBracket({ order: 2, cellM: 0.0072, clamped, seed: 31 });
 }
 
-/** The same bracket at cellM = 4.1 mm: about 100k DOFs, bolt face clamped or free. */
+/** The same bracket at cellM = 4.1 mm: 94 626 DOFs clamped, 100 359 free. */
 export function tetBracket100k(clamped = true): GeneratedModel {
   return buildTetBracket({ order: 2, cellM: 0.0041, clamped, seed: 32 });
 }

@@ -47,8 +47,8 @@ describe.each(TET_REFERENCE_MODELS.map((m) => [m.name, m] as const))('%s', (name
   });
 });
 
-describe('jointed tetrahedral bracket', () => {
-  const jointed: JointedBracket = buildJointedTetBracket({ order: 2, cellM: 0.012, seed: 13 });
+describe.each([[2, 0.012, 13], [1, 0.008, 14]] as const)('jointed tetrahedral bracket, order %i', (order, cellM, seed) => {
+  const jointed: JointedBracket = buildJointedTetBracket({ order, cellM, seed });
   const { model } = jointed;
 
   it('names each sub-part and its joint; the hinge nodes lie on the hinge line, the corner joint is one node', () => {
