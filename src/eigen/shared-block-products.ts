@@ -2,7 +2,7 @@
  * The products of a thin block with the large Krylov basis V (n × m, m up to a few hundred)
  * that dominate the dense work of block Lanczos — P = VᵀX, X ← X + α V S and the restart
  * V ← V S in place — split by rows between this thread and the helper thread of the sparse
- * layer (src/sparse/parallel-factor.ts), when V lives in shared memory (basisBlock) and the
+ * layer (src/sparse/block-product-jobs.ts over helper-thread.ts), when V lives in shared memory (basisBlock) and the
  * product is large enough to pay for the hand-over. The small operands are copied into shared staging blocks (unless they are
  * in shared memory already, as basisOperand's blocks are); each thread sums its rows, the two
  * partial P are added (fixed order), the helper's rows of X are copied back. Otherwise the plain

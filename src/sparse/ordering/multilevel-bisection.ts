@@ -33,7 +33,7 @@
  *
  * Threads. The dissection tree is built one level at a time (dissection-driver.ts); a level's
  * work — its single-run parts and the halves of its large parts' runs — is dealt in pairs of
- * similar cost, one to the helper thread (parallel-factor.ts, one job in flight at a time) and
+ * similar cost, one to the helper thread (separator-jobs.ts over helper-thread.ts, one job in flight at a time) and
  * one done here. Every separator is a function of its part's graph and its seed alone, so the
  * ordering is the same with one thread or two.
  *
