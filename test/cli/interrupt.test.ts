@@ -38,11 +38,11 @@ function checkWithSignal(args: string[], signal: NodeJS.Signals, afterMs: number
 beforeAll(async () => {
   ensureBuilt();
   work = mkdtempSync(join(tmpdir(), 'modalgate-interrupt-'));
-  // a free-free steel block of about 8,600 DOFs: a few seconds per model on this machine class
-  const block = buildHexBox({ sizeM: [0.8, 0.6, 0.6], elements: [16, 12, 12], material: STEEL });
+  // a free-free steel block of about 3,900 DOFs: about a second per model on this machine class
+  const block = buildHexBox({ sizeM: [0.8, 0.6, 0.6], elements: [12, 9, 9], material: STEEL });
   await writeGeneratedModel(block, work, 'block');
   const model = (name: string): string => `  - name: ${name}\n    stiffness: block.stiffness.mtx\n    mass: block.mass.mtx\n    dofs: block.dofs.csv\n    ruleSets: [free-free]\n`;
-  writeFileSync(join(work, 'many.yaml'), `reports: { junit: out/junit.xml, json: out/report.json }\ndefaults: { count: 12 }\nmodels:\n${Array.from({ length: 8 }, (_, i) => model(`block-${i + 1}`)).join('')}`);
+  writeFileSync(join(work, 'many.yaml'), `reports: { junit: out/junit.xml, json: out/report.json }\ndefaults: { count: 12 }\nmodels:\n${Array.from({ length: 20 }, (_, i) => model(`block-${i + 1}`)).join('')}`);
   writeFileSync(join(work, 'two.yaml'), `defaults: { count: 12 }\nmodels:\n${model('first')}${model('second')}`);
 }, 120_000);
 
@@ -58,7 +58,7 @@ describe('interruption', () => {
     expect(r.code, r.stderr).toBe(exitCode);
     const lines = r.stderr.trim().split('\n');
     expect(lines).toHaveLength(1);
-    expect(lines[0]).toMatch(new RegExp(`^modalgate: interrupted by ${signal}: \\d+ of 8 model\\(s\\) finished`));
+    expect(lines[0]).toMatch(new RegExp(`^modalgate: interrupted by ${signal}: \\d+ of 20 model\\(s\\) finished`));
     const junit = readFileSync(join(work, 'out/junit.xml'), 'utf8');
     expect(junit).toContain('type="interrupted-error"');
     expect(JSON.parse(readFileSync(join(work, 'out/report.json'), 'utf8')).problem.kind).toBe('interrupted');
