@@ -110,36 +110,7 @@ export function assembleSymmetricInPlace(
   options: { compareMirrors?: boolean } = {},
 ): AssembledInPlace {
   const flagUpper = options.compareMirrors ? 1 : 0;
-  const colPtr = new Int32Array(n + 1);
-  let ordered = true;
-  let prevCol = -1;
-  let prevKey = -1;
-  // (1) key = 2·row + upper flag in the lower triangle; count entries per column
-  for (let k = 0; k < m; k++) {
-    const r = rows[k];
-    const c = cols[k];
-    let key: number, col: number;
-    if (r >= c) {
-      key = 2 * r;
-      col = c;
-    } else {
-      key = 2 * c + flagUpper;
-      col = r;
-    }
-    rows[k] = key;
-    cols[k] = col;
-    colPtr[col + 1]++;
-    if (col < prevCol || (col === prevCol && key < prevKey)) ordered = false;
-    prevCol = col;
-    prevKey = key;
-  }
-  // column starts from counts
-  for (let j = 0; j < n; j++) colPtr[j + 1] += colPtr[j];
-  if (!ordered) {
-    permuteByColumn(n, rows, cols, vals, m, colPtr);
-    // (3) sort the keys of each column that is not ascending
-    for (let j = 0; j < n; j++) sortSegment(rows, vals, colPtr[j], colPtr[j + 1]);
-  }
+  const colPtr = groupByColumn(n, rows, cols, vals, m, flagUpper);
   return flagUpper ? mergeMirrors(n, rows, vals, m, colPtr) : mergeSummed(n, rows, vals, m, colPtr);
 }
 
@@ -307,28 +278,8 @@ function finish(n: number, keys: Int32Array, vals: Float64Array, m: number, w: n
  * Extra memory: n + 1 ints.
  */
 export function sumDuplicateTriplets(n: number, rows: Int32Array, cols: Int32Array, vals: Float64Array, m: number): number {
-  const colPtr = new Int32Array(n + 1);
-  let ordered = true;
-  let prevCol = -1;
-  let prevKey = -1;
-  // key = 2·max(i, j) + [i < j], grouped by min(i, j), as in assembleSymmetricInPlace
-  for (let k = 0; k < m; k++) {
-    const r = rows[k];
-    const c = cols[k];
-    const key = r >= c ? 2 * r : 2 * c + 1;
-    const col = r >= c ? c : r;
-    rows[k] = key;
-    cols[k] = col;
-    colPtr[col + 1]++;
-    if (col < prevCol || (col === prevCol && key < prevKey)) ordered = false;
-    prevCol = col;
-    prevKey = key;
-  }
-  for (let j = 0; j < n; j++) colPtr[j + 1] += colPtr[j];
-  if (!ordered) {
-    permuteByColumn(n, rows, cols, vals, m, colPtr);
-    for (let j = 0; j < n; j++) sortSegment(rows, vals, colPtr[j], colPtr[j + 1]);
-  }
+  // keys 2·max(i, j) + [i < j], grouped by min(i, j), as in assembleSymmetricInPlace
+  const colPtr = groupByColumn(n, rows, cols, vals, m, 1);
   let w = 0;
   let q = 0;
   // column j of the lower triangle: each distinct key becomes one triplet again
@@ -346,4 +297,38 @@ export function sumDuplicateTriplets(n: number, rows: Int32Array, cols: Int32Arr
     }
   }
   return w;
+}
+
+/**
+ * Steps (1)–(3) shared by the assemblies: rows[k] ← key 2·max(i, j) + flagUpper·[i < j],
+ * cols[k] ← min(i, j) (the column in the lower triangle); then, unless the triplets already come
+ * in (column, key) order, a stable counting sort by column applied in place and a sort of each
+ * column's keys. Returns the column starts.
+ */
+function groupByColumn(n: number, rows: Int32Array, cols: Int32Array, vals: Float64Array, m: number, flagUpper: 0 | 1): Int32Array {
+  const colPtr = new Int32Array(n + 1);
+  let ordered = true;
+  let prevCol = -1;
+  let prevKey = -1;
+  // (1) keys; count entries per column
+  for (let k = 0; k < m; k++) {
+    const r = rows[k];
+    const c = cols[k];
+    const key = r >= c ? 2 * r : 2 * c + flagUpper;
+    const col = r >= c ? c : r;
+    rows[k] = key;
+    cols[k] = col;
+    colPtr[col + 1]++;
+    if (col < prevCol || (col === prevCol && key < prevKey)) ordered = false;
+    prevCol = col;
+    prevKey = key;
+  }
+  // column starts from counts
+  for (let j = 0; j < n; j++) colPtr[j + 1] += colPtr[j];
+  if (!ordered) {
+    // (2) group by column, (3) sort the keys of each column
+    permuteByColumn(n, rows, cols, vals, m, colPtr);
+    for (let j = 0; j < n; j++) sortSegment(rows, vals, colPtr[j], colPtr[j + 1]);
+  }
+  return colPtr;
 }

@@ -6,18 +6,10 @@
  */
 import type { AdjacencyGraph } from '../../../src/sparse/ordering/adjacency-graph.js';
 import type { WeightedGraph } from '../../../src/sparse/ordering/coarsen-graph.js';
+import { seededUniform } from '../../../src/dense/seeded-random.js';
 
-/** Seeded uniform generator on [0, 1) (mulberry32). */
-export function seededRandom(seed: number): () => number {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** Seeded uniform generator on [0, 1) (src/dense/seeded-random.ts). */
+export const seededRandom = seededUniform;
 
 /** Adds undirected edges to a per-vertex neighbour set list and turns it into a graph. */
 export class GraphBuilder {
