@@ -1,5 +1,6 @@
 import { mkdirSync, readdirSync, renameSync, rmSync, writeFileSync, type Dirent } from 'node:fs';
 import { dirname, join, basename } from 'node:path';
+import { running } from './file-lock.js';
 
 /**
  * Write a whole file so that readers see either the old file or the complete new one:
@@ -39,17 +40,8 @@ export function removeTempFiles(dirs: string[], pid: number): void {
       const m = TEMP_NAME.exec(e.name);
       if (!m || !e.isFile()) continue;
       const owner = Number(m[1]);
-      if (owner === pid || !processRuns(owner)) rmSync(join(dir, e.name), { force: true });
+      if (owner === pid || !running(owner)) rmSync(join(dir, e.name), { force: true });
     }
   };
   for (const d of dirs) visit(d, 1);
-}
-
-function processRuns(pid: number): boolean {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch (e) {
-    return (e as NodeJS.ErrnoException).code === 'EPERM';
-  }
 }

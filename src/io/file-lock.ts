@@ -53,7 +53,8 @@ function ownerOf(path: string): number | null {
   }
 }
 
-function running(pid: number): boolean {
+/** Whether process `pid` still runs (signal 0 probes it; EPERM means it runs under another user). */
+export function running(pid: number): boolean {
   try {
     process.kill(pid, 0);
     return true;
