@@ -73,7 +73,7 @@ export function hexBar(elements: readonly [number, number, number], clamped: boo
  * Rigid-jointed space frame of steel tubes (CHS 200 × 10) on a 17×17×34-node lattice, 4 m bays
  * and 3 m storeys, beams along the three axes: 58 956 DOFs free-free (the modes bench's frame).
  */
-export function spaceFrame59k(clamped: boolean): GeneratedModel {
+export function spaceFrame60k(clamped: boolean): GeneratedModel {
   const [nx, ny, nz] = [17, 17, 34];
   const id = (i: number, j: number, k: number) => 1 + i + nx * (j + ny * k);
   const nodes: FrameNode[] = [];
