@@ -98,9 +98,9 @@ async function benchModel(model: BenchModel, dir: string, available: ScipyOrderi
   const ours = runOursModes(files, MODES, path.join(dir, `${model.name}.ours.json`));
   const scipyRuns: (ScipyRun | string)[] = [];
   if (typeof ours !== 'string') {
-    const timeoutMs = 1000 * Number(process.env.MODES_BENCH_SCIPY_TIMEOUT ?? '1800');
+    const timeoutS = Number(process.env.MODES_BENCH_SCIPY_TIMEOUT ?? '1800');
     for (const ordering of scipyOrderingsFor(model, available)) {
-      scipyRuns.push(runScipy(files, MODES, ours.shift, ordering, path.join(dir, `${model.name}.scipy-${ordering}.json`), timeoutMs));
+      scipyRuns.push(runScipy(files, MODES, ours.shift, ordering, path.join(dir, `${model.name}.scipy-${ordering}.json`), timeoutS));
     }
   }
   if (process.env.MODES_BENCH_KEEP !== '1') for (const f of Object.values(files)) rmSync(f, { force: true });

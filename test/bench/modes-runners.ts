@@ -14,6 +14,7 @@ export const repoRoot = path.resolve(here, '../../..');
 const cli = path.join(repoRoot, 'dist/src/cli/main.js');
 const scipyScript = path.join(repoRoot, 'test/bench/scipy_eigsh_bench.py');
 const TIME = '/usr/bin/time';
+const TIMEOUT = '/usr/bin/timeout';
 const MARK = 'MODES_BENCH_TIME';
 
 /** One finished child process as the kernel saw it. */
@@ -27,13 +28,20 @@ export interface Measured {
   timedOut: boolean;
 }
 
-/** Run `command args` under /usr/bin/time (or a stopwatch when it is missing: no RSS, no CPU). */
-export function runMeasured(command: string, args: string[], timeoutMs?: number): Measured {
+/**
+ * Run `command args` under /usr/bin/time (or a stopwatch when it is missing: no RSS, no CPU).
+ * With `timeoutS` the command runs under coreutils' `timeout`, which stops the command itself
+ * (killing /usr/bin/time would leave it running); time's figures then include it, as the
+ * kernel adds a waited-for child's peak RSS and CPU time to its parent's.
+ */
+export function runMeasured(command: string, args: string[], timeoutS?: number): Measured {
   const useTime = existsSync(TIME);
+  const stop = timeoutS !== undefined && existsSync(TIMEOUT) ? [TIMEOUT, '-k', '10', String(timeoutS)] : [];
+  const argv = [...stop, command, ...args];
   const t0 = performance.now();
-  const r = useTime
-    ? spawnSync(TIME, ['-f', `${MARK} %e %M %U %S`, command, ...args], { encoding: 'utf8', timeout: timeoutMs, maxBuffer: 64 << 20 })
-    : spawnSync(command, args, { encoding: 'utf8', timeout: timeoutMs, maxBuffer: 64 << 20 });
+  // spawnSync's own limit only as a backstop (it would stop the outer process alone)
+  const options = { encoding: 'utf8' as const, timeout: timeoutS !== undefined ? 1000 * (timeoutS + 60) : undefined, maxBuffer: 64 << 20 };
+  const r = useTime ? spawnSync(TIME, ['-f', `${MARK} %e %M %U %S`, ...argv], options) : spawnSync(argv[0], argv.slice(1), options);
   const stopwatchS = (performance.now() - t0) / 1000;
   const lines = (r.stderr ?? '').split('\n');
   const mark = lines.filter((l) => l.startsWith(MARK)).pop();
@@ -43,8 +51,9 @@ export function runMeasured(command: string, args: string[], timeoutMs?: number)
     wallS: wall,
     peakRssKb: rss,
     cpuS: user + sys,
-    stderr: lines.filter((l) => !l.startsWith(MARK) && !l.startsWith('Command exited with non-zero status')).join('\n').trim(),
-    timedOut: (r.error as NodeJS.ErrnoException | undefined)?.code === 'ETIMEDOUT',
+    stderr: lines.filter((l) => !l.startsWith(MARK) && !l.startsWith('Command exited with non-zero status') && !l.startsWith('Command terminated by signal')).join('\n').trim(),
+    // coreutils' timeout exits 124 (137 after its KILL)
+    timedOut: (r.error as NodeJS.ErrnoException | undefined)?.code === 'ETIMEDOUT' || (stop.length > 0 && (r.status === 124 || r.status === 137)),
   };
 }
 
@@ -74,14 +83,15 @@ export function runOursModes(files: ModelFiles, k: number, jsonPath: string): Ou
   const m = runMeasured(process.execPath, args);
   // exit 1 is a solve that did not verify: its JSON is still written and the Sturm column says so
   if (m.status !== 0 && m.status !== 1) return `ours failed (exit ${m.status}): ${m.stderr.split('\n').pop()}`;
-  const doc = JSON.parse(readFileSync(jsonPath, 'utf8'));
+  const doc = readJson(jsonPath);
+  if (!doc) return `ours wrote no readable JSON (exit ${m.status}): ${m.stderr.split('\n').pop()}`;
   const t = doc.timings;
   return {
     ...m,
     eigenvalues: doc.eigenvalues,
     solveS: t.totalMs / 1000,
     shift: doc.shifts.length > 1 ? doc.shifts[doc.shifts.length - 2] : doc.shifts[0],
-    solves: typeof doc.solves === 'number' ? doc.solves : undefined,
+    solves: reportedSolves(doc.solves),
     sturmOk: doc.sturm.ok === true,
     sturmLine: `${doc.sturm.countBelow} below σ, ${doc.sturm.modesReturned} returned`,
     maxResidual: Math.max(...doc.residuals),
@@ -108,12 +118,26 @@ export function scipyOrderingsAvailable(): ScipyOrdering[] {
 }
 
 /** scipy_eigsh_bench.py on the files with one ordering. */
-export function runScipy(files: ModelFiles, k: number, sigma: number, ordering: ScipyOrdering, jsonPath: string, timeoutMs: number): ScipyRun | string {
-  const m = runMeasured('python3', [scipyScript, files.stiffness, files.mass, String(k), String(sigma), jsonPath, ordering], timeoutMs);
-  if (m.timedOut) return `${ordering}: stopped after ${timeoutMs / 1000} s`;
-  if (m.status !== 0) return `${ordering}: failed (exit ${m.status}): ${m.stderr.split('\n').pop()}`;
-  const doc = JSON.parse(readFileSync(jsonPath, 'utf8'));
-  return { ...m, ordering, orderingName: doc.ordering, eigenvalues: doc.eigenvalues, solveS: doc.seconds, solves: typeof doc.solves === 'number' ? doc.solves : undefined };
+export function runScipy(files: ModelFiles, k: number, sigma: number, ordering: ScipyOrdering, jsonPath: string, timeoutS: number): ScipyRun | string {
+  const m = runMeasured('python3', [scipyScript, files.stiffness, files.mass, String(k), String(sigma), jsonPath, ordering], timeoutS);
+  if (m.timedOut) return `${ordering}: stopped after ${timeoutS} s`;
+  const doc = m.status === 0 ? readJson(jsonPath) : undefined;
+  if (!doc) return `${ordering}: failed (exit ${m.status}): ${m.stderr.split('\n').pop()}`;
+  return { ...m, ordering, orderingName: doc.ordering, eigenvalues: doc.eigenvalues, solveS: doc.seconds, solves: reportedSolves(doc.solves) };
+}
+
+/** A JSON document of either side, or undefined when missing or unreadable. */
+function readJson(file: string): any {
+  try {
+    return JSON.parse(readFileSync(file, 'utf8'));
+  } catch {
+    return undefined;
+  }
+}
+
+/** A solve count from a JSON document; 0 or a missing field means not counted. */
+function reportedSolves(x: unknown): number | undefined {
+  return typeof x === 'number' && x > 0 ? x : undefined;
 }
 
 /** `modalgate check -c config -q` with JUnit and JSON reports, through the built CLI. */
