@@ -1,152 +1,177 @@
 /**
- * `npm run bench -- modes`: our lowest-20-mode solve beside SciPy's eigsh (ARPACK shift-invert)
- * on the same Matrix Market files, for a hexahedral solid (~120k DOF) and a space frame
- * (~60k DOF), each free-free and clamped. Prints time, peak memory (max RSS of each process,
- * file reading included on both sides), the ratios, and the largest relative eigenvalue
- * difference (elastic modes; rigid-body values are rounding noise and compared absolutely).
- * MODES_BENCH_SCALE=0.25 shrinks the models (DOF counts scale about linearly).
- * SciPy runs when python3 with scipy is present; otherwise that column is skipped.
+ * `npm run bench -- modes`: the 20 lowest modes of each bench model through our built CLI
+ * (`modalgate modes`) beside SciPy's eigsh in shift-invert mode (scipy_eigsh_bench.py: SuperLU on
+ * the faster of a minimum-degree and a METIS nested-dissection ordering), on the same Matrix
+ * Market files, and a fixed-cost line: a ~1k-DOF model through `modalgate check`.
+ *
+ * Per model it prints DOFs, each side's wall time, solve time and peak RSS (whole process, by
+ * /usr/bin/time), the time and memory ratios against the goals (ours ≤ 0.5× SciPy's wall time,
+ * ≤ 0.6× its peak RSS; the 300k hex also ≤ 135 s and ≤ 5 GB), the solves on each side, our
+ * Sturm check, the largest relative eigenvalue difference, and the change against the previous
+ * entry of the same model in test/bench/history/modes.jsonl, to which it appends one line per
+ * model (see the README there).
+ *
+ * Environment:
+ *   MODES_BENCH_MODELS=hex10k-free,tet26k-clamped   only these (names below; check1k is the fixed-cost line)
+ *   MODES_BENCH_LARGE=1                              add the ~300k hex (hex300k-free) to the default list
+ *   MODES_BENCH_SCIPY_ORDERINGS=nd                   SciPy's orderings to try (nd, mmd; none skips SciPy)
+ *   MODES_BENCH_SCIPY_TIMEOUT=1800                   seconds before one SciPy run is stopped
+ *   MODES_BENCH_HISTORY=0                            do not append to the history
+ *   MODES_BENCH_KEEP=1                               keep the written model files
  */
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { buildHexBox } from '../../fixtures/generator/hex-solid.js';
-import { buildFrame, type FrameMember, type FrameNode } from '../../fixtures/generator/frame-builder.js';
-import { circularHollowSection, STEEL } from '../../fixtures/generator/sections.js';
+import { writeGeneratedModel } from '../../fixtures/generator/write-model.js';
 import type { GeneratedModel } from '../../fixtures/generator/model-types.js';
-import { writeSymmetricMatrixMarket } from '../../src/io/matrix-market-writer.js';
-import { writeDofMap } from '../../src/io/dof-map-writer.js';
+import { hexBar, spaceFrame60k, tetBracket100k, tetBracket26k } from './bench-models.js';
+import { appendHistory, loadAverageNow, type EntryFields, previousEntry, readHistory, runStamp, type HistoryEntry, type RunStamp } from './bench-history.js';
+import { maxRelativeDifference, repoRoot, runOursCheck, runOursModes, runScipy, scipyOrderingsAvailable, type ModelFiles, type OursRun, type ScipyOrdering, type ScipyRun } from './modes-runners.js';
+import { formatFixedCost, formatModel, formatSummary, GOALS, type FixedCostResult, type ModelResult } from './modes-report.js';
 
-const here = path.dirname(fileURLToPath(import.meta.url));
-const repoRoot = path.resolve(here, '../../..');
-const cli = path.join(repoRoot, 'dist/src/cli/main.js');
-const scipyScript = path.join(repoRoot, 'test/bench/scipy_eigsh_bench.py');
+const MODES = 20;
 
-/** A hex box with about `dofs` DOFs, aspect 4:1:1. */
-function hexSolid(dofs: number, clamped: boolean): GeneratedModel {
-  const nodes = dofs / 3;
-  const c = Math.max(2, Math.round(Math.cbrt(nodes / 4)) - 1);
-  return buildHexBox({ sizeM: [2, 0.5, 0.5], elements: [4 * c + 3, c, c], material: STEEL, clampFace: clamped ? 'xMin' : undefined });
+interface BenchModel {
+  name: string;
+  build: () => GeneratedModel;
+  /** Only when asked for (MODES_BENCH_LARGE=1 or by name). */
+  large?: boolean;
+  /** Absolute goals besides the ratios. */
+  goalWallS?: number;
+  goalPeakBytes?: number;
+  /** SciPy's orderings tried by default (both when not given). */
+  scipyOrderings?: ScipyOrdering[];
 }
 
-/** A rectangular space frame (columns, beams both ways) with about `dofs` DOFs. */
-function spaceFrame(dofs: number, clamped: boolean): GeneratedModel {
-  const nodesWanted = dofs / 6;
-  const a = Math.max(2, Math.round(Math.cbrt(nodesWanted / 2)));
-  const [nx, ny, nz] = [a, a, 2 * a];
-  const id = (i: number, j: number, k: number) => 1 + i + nx * (j + ny * k);
-  const nodes: FrameNode[] = [];
-  const members: FrameMember[] = [];
-  const section = circularHollowSection(0.2, 0.01);
-  // grid nodes, 4 m bays, 3 m storeys
-  for (let k = 0; k < nz; k++) for (let j = 0; j < ny; j++) for (let i = 0; i < nx; i++) nodes.push({ id: id(i, j, k), x: 4 * i, y: 4 * j, z: 3 * k });
-  const beam = (p: number, q: number, vertical: boolean): FrameMember => ({ kind: 'beam', nodes: [p, q], section, material: STEEL, orientation: vertical ? [1, 0, 0] : [0, 0, 1] });
-  // members along x, y and z between neighbouring grid nodes
-  for (let k = 0; k < nz; k++) {
-    for (let j = 0; j < ny; j++) {
-      for (let i = 0; i < nx; i++) {
-        if (i + 1 < nx) members.push(beam(id(i, j, k), id(i + 1, j, k), false));
-        if (j + 1 < ny) members.push(beam(id(i, j, k), id(i, j + 1, k), false));
-        if (k + 1 < nz) members.push(beam(id(i, j, k), id(i, j, k + 1), true));
-      }
+const MODELS: BenchModel[] = [
+  { name: 'hex10k-free', build: () => hexBar([27, 10, 10], false) },
+  { name: 'hex10k-clamped', build: () => hexBar([27, 10, 10], true) },
+  { name: 'hex30k-free', build: () => hexBar([40, 15, 15], false) },
+  { name: 'hex30k-clamped', build: () => hexBar([40, 15, 15], true) },
+  { name: 'tet26k-free', build: () => tetBracket26k(false) },
+  { name: 'tet26k-clamped', build: () => tetBracket26k(true) },
+  { name: 'tet100k-free', build: () => tetBracket100k(false) },
+  { name: 'tet100k-clamped', build: () => tetBracket100k(true) },
+  { name: 'frame60k-free', build: () => spaceFrame60k(false) },
+  { name: 'hex120k-free', build: () => hexBar([64, 24, 24], false) },
+  // minimum degree fills far more than nested dissection on a solid this size: nd only by default
+  { name: 'hex300k-free', build: () => hexBar([88, 33, 33], false), large: true, goalWallS: 135, goalPeakBytes: 5e9, scipyOrderings: ['nd'] },
+];
+const FIXED_COST = 'check1k';
+const historyFile = path.join(repoRoot, 'test/bench/history/modes.jsonl');
+
+/** The names to run: MODES_BENCH_MODELS, else the fixed-cost line and every model not large (unless MODES_BENCH_LARGE=1). */
+function selectedNames(): string[] | string {
+  const known = [FIXED_COST, ...MODELS.map((m) => m.name)];
+  const asked = process.env.MODES_BENCH_MODELS?.split(',').map((s) => s.trim()).filter((s) => s !== '');
+  if (asked && asked.length > 0) {
+    const unknown = asked.filter((s) => !known.includes(s));
+    return unknown.length > 0 ? `unknown model(s) in MODES_BENCH_MODELS: ${unknown.join(', ')}; known: ${known.join(', ')}` : asked;
+  }
+  const large = process.env.MODES_BENCH_LARGE === '1';
+  return [FIXED_COST, ...MODELS.filter((m) => large || !m.large).map((m) => m.name)];
+}
+
+/** The orderings SciPy tries on `model`: MODES_BENCH_SCIPY_ORDERINGS, else the model's default, within what is installed. */
+function scipyOrderingsFor(model: BenchModel, available: ScipyOrdering[]): ScipyOrdering[] {
+  const env = process.env.MODES_BENCH_SCIPY_ORDERINGS;
+  const wanted = env !== undefined ? env.split(',').map((s) => s.trim()) : (model.scipyOrderings ?? ['mmd', 'nd']);
+  const chosen = available.filter((o) => wanted.includes(o));
+  // a model whose only default ordering is missing falls back to what there is
+  return chosen.length > 0 || env !== undefined ? chosen : available;
+}
+
+async function writeModel(dir: string, name: string, build: () => GeneratedModel): Promise<{ files: ModelFiles; dofs: number; description: string }> {
+  const model = build();
+  const files = await writeGeneratedModel(model, dir, name);
+  return { files, dofs: model.stiffness.n, description: model.description };
+}
+
+function freeMemory(): void {
+  (globalThis as { gc?: () => void }).gc?.();
+}
+
+async function benchModel(model: BenchModel, dir: string, available: ScipyOrdering[], stamp: RunStamp, history: HistoryEntry[]): Promise<ModelResult> {
+  const loadAverage = loadAverageNow();
+  const { files, dofs, description } = await writeModel(dir, model.name, model.build);
+  freeMemory();
+  const ours = runOursModes(files, MODES, path.join(dir, `${model.name}.ours.json`));
+  const scipyRuns: (ScipyRun | string)[] = [];
+  if (typeof ours !== 'string') {
+    const timeoutS = Number(process.env.MODES_BENCH_SCIPY_TIMEOUT ?? '1800');
+    for (const ordering of scipyOrderingsFor(model, available)) {
+      scipyRuns.push(runScipy(files, MODES, ours.shift, ordering, path.join(dir, `${model.name}.scipy-${ordering}.json`), timeoutS));
     }
   }
-  const base: number[] = [];
-  for (let j = 0; j < ny; j++) for (let i = 0; i < nx; i++) base.push(id(i, j, 0));
-  return buildFrame({ nodes, members, supports: clamped ? [{ nodes: base, kind: 'clamp' }] : [], description: `space frame ${nx}×${ny}×${nz}` });
+  if (process.env.MODES_BENCH_KEEP !== '1') for (const f of Object.values(files)) rmSync(f, { force: true });
+  const finished = scipyRuns.filter((r): r is ScipyRun => typeof r !== 'string');
+  const scipy = finished.sort((a, b) => a.wallS - b.wallS)[0];
+  const difference = scipy && typeof ours !== 'string' ? maxRelativeDifference(ours.eigenvalues, scipy.eigenvalues) : undefined;
+  const result: ModelResult = { name: model.name, description, dofs, loadAverage, ours, scipy, scipyRuns, maxRelativeDifference: difference, goalWallS: model.goalWallS, goalPeakBytes: model.goalPeakBytes, previous: previousEntry(history, model.name) };
+  console.log(formatModel(result));
+  if (process.env.MODES_BENCH_HISTORY !== '0') appendHistory(historyFile, { ...stamp, ...historyFields(result) });
+  return result;
 }
 
-interface Ours {
-  eigenvalues: number[];
-  seconds: number;
-  solveSeconds: number;
-  peakRssKb: number;
-  shift: number;
-  solves: number;
-  sturmOk: boolean;
-  maxResidual: number;
-  /** Factorizations, iteration and verification times of the solve, s. */
-  phases: string;
-}
-
-function runOurs(dir: string, name: string): Ours {
-  const json = path.join(dir, `${name}.ours.json`);
-  const args = ['-f', '%e %M', process.execPath, cli, 'modes', '--stiffness', path.join(dir, `${name}.K.mtx`), '--mass', path.join(dir, `${name}.M.mtx`), '--dofs', path.join(dir, `${name}.dofs.csv`), '--count', '20', '--json', json];
-  const r = spawnSync('/usr/bin/time', args, { encoding: 'utf8' });
-  const last = r.stderr.trim().split('\n').pop() ?? '';
-  const [wall, rss] = last.split(' ').map(Number);
-  const doc = JSON.parse(readFileSync(json, 'utf8'));
+function historyFields(r: ModelResult): EntryFields {
+  const ours = typeof r.ours === 'string' ? { failed: r.ours } : oursFields(r.ours);
+  const s = r.scipy;
   return {
-    eigenvalues: doc.eigenvalues,
-    seconds: wall,
-    solveSeconds: doc.timings.totalMs / 1000,
-    peakRssKb: rss,
-    shift: doc.shifts.length > 1 ? doc.shifts[doc.shifts.length - 2] : doc.shifts[0],
-    solves: doc.solves,
-    sturmOk: doc.sturm.ok,
-    maxResidual: Math.max(...doc.residuals),
-    phases: `factor ${(doc.timings.factorMs / 1000).toFixed(1)} s, iterate ${(doc.timings.iterateMs / 1000).toFixed(1)} s, verify ${(doc.timings.verifyMs / 1000).toFixed(1)} s`,
+    loadAverage: r.loadAverage,
+    model: r.name,
+    dofs: r.dofs,
+    ours,
+    scipy: s ? { ordering: s.ordering, wallS: s.wallS, solveS: round(s.solveS), cpuS: round(s.cpuS), peakRssKb: s.peakRssKb, solves: s.solves ?? null, tried: r.scipyRuns.map((x) => (typeof x === 'string' ? x : `${x.ordering} ${x.wallS} s`)) } : null,
+    ratios: s && typeof r.ours !== 'string' ? { time: ratio(r.ours.wallS, s.wallS), solveTime: ratio(r.ours.solveS, s.solveS), memory: ratio(r.ours.peakRssKb, s.peakRssKb) } : null,
+    maxRelativeDifference: r.maxRelativeDifference ?? null,
   };
 }
 
-function runScipy(dir: string, name: string, sigma: number): { eigenvalues: number[]; seconds: number; wall: number; peakRssKb: number; ordering: string } | string {
-  const out = path.join(dir, `${name}.scipy.json`);
-  const t0 = performance.now();
-  const r = spawnSync('python3', [scipyScript, path.join(dir, `${name}.K.mtx`), path.join(dir, `${name}.M.mtx`), '20', String(sigma), out], { encoding: 'utf8', timeout: 900_000 });
-  if (r.error || r.status !== 0) return `SciPy skipped (${r.error?.message ?? r.stderr.trim().split('\n').pop()})`;
-  const doc = JSON.parse(readFileSync(out, 'utf8'));
-  return { ...doc, wall: (performance.now() - t0) / 1000 };
+function oursFields(o: OursRun): Record<string, unknown> {
+  return { wallS: o.wallS, solveS: round(o.solveS), cpuS: round(o.cpuS), peakRssKb: o.peakRssKb, solves: o.solves ?? null, sturmOk: o.sturmOk, maxResidual: o.maxResidual };
 }
 
-function maxRelativeDifference(a: number[], b: number[]): number {
-  const scale = Math.max(...a.map(Math.abs));
-  let worst = 0;
-  // elastic modes relative; rigid-body values (≤ 1e-10 of the largest) are noise
-  for (let i = 0; i < Math.min(a.length, b.length); i++) {
-    if (Math.max(Math.abs(a[i]), Math.abs(b[i])) <= 1e-10 * scale) continue;
-    worst = Math.max(worst, Math.abs(a[i] - b[i]) / Math.abs(b[i]));
+const round = (x: number): number => Math.round(x * 1000) / 1000;
+const ratio = (a: number, b: number): number => Math.round((a / b) * 1000) / 1000;
+
+/** The fixed cost: `check` of a ~1k-DOF hex bar (975 DOFs, free-free), three runs, the median CPU time. */
+async function benchFixedCost(dir: string, stamp: RunStamp, history: HistoryEntry[]): Promise<FixedCostResult> {
+  const loadAverage = loadAverageNow();
+  const { files, dofs } = await writeModel(dir, FIXED_COST, () => hexBar([12, 4, 4], false));
+  const config = path.join(dir, `${FIXED_COST}.yaml`);
+  const rel = (f: string): string => path.basename(f);
+  writeFileSync(config, `defaults:\n  count: ${MODES}\n  ruleSets: [free-free]\nmodels:\n  - name: ${FIXED_COST}\n    stiffness: ${rel(files.stiffness)}\n    mass: ${rel(files.mass)}\n    dofs: ${rel(files.dofs)}\n`);
+  const runs = [0, 1, 2].map(() => runOursCheck(config, path.join(dir, `${FIXED_COST}.junit.xml`), path.join(dir, `${FIXED_COST}.report.json`)));
+  const sorted = [...runs].sort((a, b) => a.cpuS - b.cpuS);
+  const result: FixedCostResult = { name: FIXED_COST, dofs, loadAverage, runs, median: sorted[1], goalCpuS: GOALS.fixedCostCpuS, previous: previousEntry(history, FIXED_COST) };
+  console.log(formatFixedCost(result));
+  if (process.env.MODES_BENCH_HISTORY !== '0') {
+    const m = result.median;
+    appendHistory(historyFile, { ...stamp, loadAverage, model: FIXED_COST, dofs, check: { cpuS: round(m.cpuS), runsCpuS: runs.map((r) => round(r.cpuS)), wallS: m.wallS, peakRssKb: m.peakRssKb, exitCodes: runs.map((r) => r.status) } });
   }
-  return worst;
+  return result;
 }
 
 export default async function modesBench(): Promise<void> {
-  const scale = Number(process.env.MODES_BENCH_SCALE ?? '1');
-  const dir = mkdtempSync(path.join(tmpdir(), 'modalgate-modes-bench-'));
-  const cases: [string, () => GeneratedModel][] = [
-    ['hex-free', () => hexSolid(120_000 * scale, false)],
-    ['hex-clamped', () => hexSolid(120_000 * scale, true)],
-    ['frame-free', () => spaceFrame(60_000 * scale, false)],
-    ['frame-clamped', () => spaceFrame(60_000 * scale, true)],
-  ];
-  const only = process.env.MODES_BENCH_ONLY;
-  console.log('case            n       ours s (solve)   SciPy s   time ratio   ours MB   SciPy MB   mem ratio   max rel diff   solves  Sturm');
-  for (const [name, build] of cases) {
-    if (only && !name.includes(only)) continue;
-    const m = build();
-    await writeSymmetricMatrixMarket(path.join(dir, `${name}.K.mtx`), m.stiffness);
-    await writeSymmetricMatrixMarket(path.join(dir, `${name}.M.mtx`), m.mass);
-    await writeDofMap(path.join(dir, `${name}.dofs.csv`), m.dofMap);
-    const ours = runOurs(dir, name);
-    const scipy = runScipy(dir, name, ours.shift);
-    const cols = [name.padEnd(14), String(m.stiffness.n).padStart(7), `${ours.seconds.toFixed(1)} (${ours.solveSeconds.toFixed(1)})`.padStart(16)];
-    if (typeof scipy === 'string') {
-      console.log(`${cols.join(' ')}   ${scipy}; ours ${(ours.peakRssKb / 1024).toFixed(0)} MB, Sturm ${ours.sturmOk}`);
-      continue;
-    }
-    cols.push(
-      scipy.seconds.toFixed(1).padStart(9),
-      (ours.solveSeconds / scipy.seconds).toFixed(2).padStart(12),
-      (ours.peakRssKb / 1024).toFixed(0).padStart(9),
-      (scipy.peakRssKb / 1024).toFixed(0).padStart(10),
-      (ours.peakRssKb / scipy.peakRssKb).toFixed(2).padStart(11),
-      maxRelativeDifference(ours.eigenvalues, scipy.eigenvalues).toExponential(2).padStart(14),
-      String(ours.solves).padStart(8),
-      ours.sturmOk ? '  ok' : '  FAILED',
-    );
-    console.log(cols.join(' '));
-    console.log(`${''.padEnd(14)} ours: ${ours.phases}; SciPy: ${scipy.ordering}`);
+  const names = selectedNames();
+  if (typeof names === 'string') {
+    console.log(names);
+    return;
   }
-  console.log(`files in ${dir}; time ratio = our solve (read excluded) / SciPy factor+eigsh; memory = max RSS of each process`);
+  const dir = mkdtempSync(path.join(tmpdir(), 'modalgate-modes-bench-'));
+  const stamp = runStamp(repoRoot);
+  const history = readHistory(historyFile);
+  const available = scipyOrderingsAvailable();
+  console.log(`commit ${stamp.commit}${stamp.dirty ? ' (with uncommitted changes)' : ''}, ${stamp.cpu}, load ${loadAverageNow().join(' ')}; SciPy orderings installed: ${available.join(', ') || 'none (no scipy)'}`);
+  let fixed: FixedCostResult | undefined;
+  const results: ModelResult[] = [];
+  for (const name of names) {
+    if (name === FIXED_COST) fixed = await benchFixedCost(dir, stamp, history);
+    else results.push(await benchModel(MODELS.find((m) => m.name === name)!, dir, available, stamp, history));
+    freeMemory();
+  }
+  console.log(formatSummary(results, fixed));
+  if (process.env.MODES_BENCH_KEEP === '1') console.log(`files in ${dir}`);
+  else rmSync(dir, { recursive: true, force: true });
+  if (process.env.MODES_BENCH_HISTORY !== '0') console.log(`appended to ${path.relative(repoRoot, historyFile)}`);
 }
