@@ -14,7 +14,7 @@
  *
  * Test helpers only: the dense copies are for tens of DOFs.
  */
-import { CholeskyDecomposition, EigenvalueDecomposition, Matrix } from 'ml-matrix';
+import { CholeskyDecomposition, EigenvalueDecomposition, Matrix, inverse } from 'ml-matrix';
 import { TripletList, assembleSymmetric } from '../../../src/sparse/assemble.js';
 import { symMultiplyBlock, type SymmetricCsc } from '../../../src/sparse/csc.js';
 import { createShiftedSolver } from '../../../src/sparse/shifted-solver.js';
@@ -91,9 +91,8 @@ export interface DenseModes {
 
 /** Generalized eigenpairs of (K, M), M positive definite (ml-matrix: Cholesky of M, symmetric eigen). */
 export function denseGeneralized(p: Pencil): DenseModes {
-  const n = p.stiffness.n;
   const l = new CholeskyDecomposition(new Matrix(denseOf(p.mass))).lowerTriangularMatrix;
-  const li = l.solve(Matrix.eye(n));
+  const li = inverse(l);
   const a = li.mmul(new Matrix(denseOf(p.stiffness))).mmul(li.transpose());
   const sym = a.add(a.transpose()).mul(0.5);
   const eig = new EigenvalueDecomposition(sym, { assumeSymmetric: true });
@@ -107,9 +106,8 @@ export function denseGeneralized(p: Pencil): DenseModes {
  * the reversed pencil M φ = μ K φ (ml-matrix: Cholesky of K), λ = 1/μ over μ above `relZero`·max μ.
  */
 export function denseFiniteEigenvaluesReversed(p: Pencil, relZero = 1e-12): number[] {
-  const n = p.stiffness.n;
   const l = new CholeskyDecomposition(new Matrix(denseOf(p.stiffness))).lowerTriangularMatrix;
-  const li = l.solve(Matrix.eye(n));
+  const li = inverse(l);
   const a = li.mmul(new Matrix(denseOf(p.mass))).mmul(li.transpose());
   const mu = new EigenvalueDecomposition(a.add(a.transpose()).mul(0.5), { assumeSymmetric: true }).realEigenvalues;
   const top = Math.max(...mu);
