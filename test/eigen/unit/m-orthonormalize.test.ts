@@ -143,3 +143,39 @@ describe('mOrthonormalize refuses an indefinite M (IndefiniteMassError)', () => 
     expect(q.count).toBe(1);
   });
 });
+
+describe('mOrthonormalize: the second pass ("twice is enough") and a badly scaled M', () => {
+  it('keeps LᵀMQ at rounding level for X lying almost inside span(L)', () => {
+    const n = 50;
+    const m = diagonalMatrix(Array.from({ length: n }, (_, i) => 1 + (i % 7)));
+    const massTimes = massTimesOf(m);
+    const l0 = mOrthonormalize(pseudoRandomBlock(n, 6, 61), 6, n, massTimes);
+    const locked: MassBasis = { vectors: l0.vectors, massVectors: l0.massVectors, count: 6 };
+    // X = L C + 1e-7 · E: after one projection pass the remainder carries a rounding error of
+    // about ε relative to X, ε / 1e-7 once normalized (the usual cancellation argument, from memory)
+    const c = pseudoRandomBlock(6, 3, 62);
+    const e = pseudoRandomBlock(n, 3, 63);
+    const x = new Float64Array(n * 3);
+    for (let j = 0; j < 3; j++) {
+      for (let r = 0; r < n; r++) {
+        let s = 1e-7 * e[j * n + r];
+        for (let t = 0; t < 6; t++) s += l0.vectors[t * n + r] * c[t + j * 6];
+        x[j * n + r] = s;
+      }
+    }
+    const q = mOrthonormalize(x, 3, n, massTimes, { against: [locked] });
+    expect(q.count).toBe(3);
+    const o = massOrthonormality(m, q.vectors, 3, { v: locked.vectors, count: 6 });
+    expect(o.self).toBeLessThan(1e-13);
+    expect(o.against).toBeLessThan(1e-14);
+    expect(reconstructionError(x, 3, n, [locked], q)).toBeLessThan(1e-13);
+  });
+
+  it('gives QᵀMQ = I for lumped masses spanning eight decades', () => {
+    const n = 30;
+    const m = diagonalMatrix(Array.from({ length: n }, (_, i) => 10 ** (-8 * (i / (n - 1)))));
+    const q = mOrthonormalize(pseudoRandomBlock(n, 8, 71), 8, n, massTimesOf(m));
+    expect(q.count).toBe(8);
+    expect(massOrthonormality(m, q.vectors, 8).self).toBeLessThan(1e-13);
+  });
+});

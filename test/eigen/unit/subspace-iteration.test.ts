@@ -153,3 +153,15 @@ describe('subspace iteration with massless DOFs (singular M)', () => {
     expect(maxRelativeError(r.values, finite.slice(0, 4))).toBeLessThan(1e-9);
   });
 });
+
+describe('subspace iteration with a badly scaled M', () => {
+  it('matches the reversed pencil (ml-matrix) on a chain whose masses span six decades', () => {
+    const n = 24;
+    const masses = Array.from({ length: n }, (_, i) => 10 ** (-6 * ((i * 7) % n) / (n - 1)));
+    const p: Pencil = { stiffness: chain(n, 1, 1, true).stiffness, mass: diagonalMatrix(masses) };
+    const reference = denseFiniteEigenvaluesReversed(p, 0);
+    const r = subspaceIteration(searchAt(p, -1e-6 * reference[0], 4));
+    expect(r.converged).toBe(true);
+    expect(maxRelativeError(r.values, reference.slice(0, 4))).toBeLessThan(1e-9);
+  });
+});
