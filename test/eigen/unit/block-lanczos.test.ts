@@ -69,6 +69,15 @@ describe('block Lanczos on spring chains (closed-form spectra)', () => {
     expect(maxRelativeError(r.values.subarray(2), [exact[1], exact[1], exact[2], exact[2]])).toBeLessThan(1e-10);
   });
 
+  it('finds both members of each double eigenvalue with a block of 2 (the multiplicity)', () => {
+    const p = twoCopies(chain(30, 1, 1, true));
+    const single = fixedFreeEigenvalues(30, 1, 1);
+    const r = blockLanczos(searchAt(p, -1e-6, 4, { blockSize: 2 }));
+    expect(r.converged).toBe(true);
+    expect(maxRelativeError(r.values, [single[0], single[0], single[1], single[1]])).toBeLessThan(1e-10);
+    expect(massOrthonormality(p.mass, r.vectors, 4).self).toBeLessThan(1e-12);
+  });
+
   it('default block size is 6 (six rigid-body modes share one eigenvalue)', () => {
     expect(DEFAULT_BLOCK_SIZE).toBe(6);
   });

@@ -79,6 +79,20 @@ describe('shift-invert operator C = (K − σM)⁻¹M', () => {
   });
 });
 
+describe('shift-invert operator with massless DOFs', () => {
+  it('maps null(M) to zero: C e_j = (K − σM)⁻¹ M e_j = 0 for a massless DOF j', () => {
+    const p: Pencil = { stiffness: chain(8, 1, 1, true).stiffness, mass: diagonalMatrix([1, 0, 1, 0, 1, 0, 1, 0]) };
+    const op = operatorAt(p, -1e-3);
+    const e3 = new Float64Array(8);
+    e3[3] = 1;
+    expect(Array.from(op.apply(e3, 1))).toEqual(new Array(8).fill(0));
+    // and a massive DOF is not mapped to zero
+    const e2 = new Float64Array(8);
+    e2[2] = 1;
+    expect(Math.max(...Array.from(op.apply(e2, 1), Math.abs))).toBeGreaterThan(0);
+  });
+});
+
 describe('massRankBound: n minus the massless DOFs', () => {
   it('is n for a positive lumped mass', () => {
     expect(massRankBound(chain(9, 1, 2, true).mass)).toBe(9);

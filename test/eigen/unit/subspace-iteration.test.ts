@@ -15,6 +15,7 @@
 import { describe, expect, it } from 'vitest';
 import { nearestFirst, subspaceIteration, subspaceSize } from '../../../src/eigen/subspace-iteration.js';
 import { massRankBound } from '../../../src/eigen/shift-invert-operator.js';
+import { IndefiniteMassError } from '../../../src/eigen/modes-types.js';
 import {
   blockOf,
   chain,
@@ -163,5 +164,13 @@ describe('subspace iteration with a badly scaled M', () => {
     const r = subspaceIteration(searchAt(p, -1e-6 * reference[0], 4));
     expect(r.converged).toBe(true);
     expect(maxRelativeError(r.values, reference.slice(0, 4))).toBeLessThan(1e-9);
+  });
+});
+
+describe('subspace iteration refuses an indefinite M', () => {
+  it('throws IndefiniteMassError for M = diag(1, …, 1, −1) (e_nᵀ M e_n = −1)', () => {
+    const masses = Array.from({ length: 20 }, (_, i) => (i === 19 ? -1 : 1));
+    const p: Pencil = { stiffness: chain(20, 1, 1, true).stiffness, mass: diagonalMatrix(masses) };
+    expect(() => subspaceIteration(searchAt(p, -1e-6, 3))).toThrow(IndefiniteMassError);
   });
 });
