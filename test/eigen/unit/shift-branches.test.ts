@@ -4,6 +4,8 @@
  * chains (discrete wave equation, pencils.ts):
  *  - abandoned shift: a free–free chain makes the first guess σ₁ = −1e-6 · min K_jj/M_jj closer to
  *    0 than 1e-3 λ_e, so the first pass is abandoned and the solve runs again at −0.01 λ_e;
+ *  - abandoned shift, the other side of the window: on a long fixed–free chain λ₁ is far below
+ *    every K_jj/M_jj, so σ₁ lies further below λ₁ than 0.1 λ_N and the solve runs again at −0.01 λ₁;
  *  - moved shift: K = K₀ + αM with K₀ a free–free chain and α chosen so that λ₁ = α equals σ₁
  *    exactly: K − σ₁M is singular, the factor meets a tiny pivot and σ is moved down;
  *  - rank(M) bound: more modes asked than M has finite eigenvalues are capped, with a warning.
@@ -11,7 +13,7 @@
 import { describe, expect, it } from 'vitest';
 import { solveModes } from '../../../src/eigen/solve-modes.js';
 import { diagonalScale, firstShiftGuess } from '../../../src/eigen/shift-placement.js';
-import { chain, denseFiniteEigenvaluesReversed, diagonalMatrix, freeFreeEigenvalues, maxRelativeError, sparseOf, type Pencil } from './pencils.js';
+import { chain, denseFiniteEigenvaluesReversed, diagonalMatrix, fixedFreeEigenvalues, freeFreeEigenvalues, maxRelativeError, sparseOf, type Pencil } from './pencils.js';
 
 describe('abandoned shift: σ₁ too close to the rigid-body eigenvalue', () => {
   const n = 40;
@@ -33,6 +35,22 @@ describe('abandoned shift: σ₁ too close to the rigid-body eigenvalue', () => 
       expect(r.sturm.ok).toBe(true);
     });
   }
+});
+
+describe('abandoned shift: σ₁ too far below λ_N', () => {
+  it('solves again at −0.01 λ₁ on a fixed–free chain of 600 (closed form)', () => {
+    const n = 600;
+    const p = chain(n, 1, 1, true);
+    const exact = fixedFreeEigenvalues(n, 1, 1);
+    const sigma1 = firstShiftGuess(diagonalScale(p.stiffness, p.mass));
+    // σ₁ = −1e-6 against 0.1 λ₁ ≈ 6.8e-7: too far
+    expect(Math.abs(sigma1)).toBeGreaterThan(0.1 * exact[0]);
+    const r = solveModes(p.stiffness, p.mass, { count: 1 });
+    expect(r.diagnostics?.some((d) => /badly placed/.test(d))).toBe(true);
+    expect(r.shifts[1] / (-0.01 * exact[0])).toBeCloseTo(1, 3);
+    expect(maxRelativeError(r.eigenvalues, exact.slice(0, 1))).toBeLessThan(1e-9);
+    expect(r.sturm.ok).toBe(true);
+  });
 });
 
 describe('moved shift: σ₁ sits exactly on an eigenvalue', () => {
