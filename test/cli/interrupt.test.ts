@@ -21,15 +21,24 @@ function tempFiles(dir: string): string[] {
   return readdirSync(dir, { recursive: true, encoding: 'utf8' }).filter((f) => f.endsWith('.tmp'));
 }
 
-/** Starts `check` and sends `signal` after `afterMs`; resolves with the exit code and output. */
-function checkWithSignal(args: string[], signal: NodeJS.Signals, afterMs: number): Promise<{ code: number | null; signal: NodeJS.Signals | null; stderr: string }> {
+/**
+ * Starts `check` and sends `signal` once `ready()` holds (polled every 50 ms; a loaded machine
+ * may take seconds just to start) or after `afterMs`; resolves with the exit code and output.
+ */
+function checkWithSignal(args: string[], signal: NodeJS.Signals, afterMs: number, ready?: () => boolean): Promise<{ code: number | null; signal: NodeJS.Signals | null; stderr: string }> {
   return new Promise((done) => {
     const child = spawn(process.execPath, [mainJs, 'check', ...args], { cwd: work, env: { ...process.env, NO_COLOR: '1', MODALGATE_DEBUG: '' } });
     let stderr = '';
     child.stderr.on('data', (d) => (stderr += String(d)));
-    const timer = setTimeout(() => child.kill(signal), afterMs);
+    const started = Date.now();
+    const timer = setInterval(() => {
+      if ((ready ? ready() : false) || Date.now() - started >= afterMs) {
+        clearInterval(timer);
+        child.kill(signal);
+      }
+    }, 50);
     child.on('exit', (code, sig) => {
-      clearTimeout(timer);
+      clearInterval(timer);
       done({ code, signal: sig, stderr });
     });
   });
@@ -54,7 +63,8 @@ describe('interruption', () => {
     ['SIGTERM', 143],
   ] as const)('%s: exit %i, one stderr line, JUnit with an <error>, no temporary file', async (signal, exitCode) => {
     rmSync(join(work, 'out'), { recursive: true, force: true });
-    const r = await checkWithSignal(['-c', 'many.yaml', '-q', '--save-baseline', 'out/baselines'], signal, 2500);
+    // the signal goes once the first model's baseline is saved: the run is surely under way
+    const r = await checkWithSignal(['-c', 'many.yaml', '-q', '--save-baseline', 'out/baselines'], signal, 60_000, () => existsSync(join(work, 'out/baselines/block-1.baseline.json')));
     expect(r.code, r.stderr).toBe(exitCode);
     const lines = r.stderr.trim().split('\n');
     expect(lines).toHaveLength(1);
