@@ -4,8 +4,8 @@
  * mass budget; there is no default distance.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
-import { geometryOrSkip, isOutcome } from './geometry-common.js';
+import { outcome } from './utils/outcome.js';
+import { geometryOrSkip, isOutcome } from './utils/geometry-common.js';
 
 export interface CenterOfMassOptions {
   expected: [number, number, number];

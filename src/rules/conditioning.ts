@@ -8,7 +8,7 @@
  */
 import type { RuleDefinition } from './rule-types.js';
 import { describeDof } from '../io/dof-map.js';
-import { outcome } from './outcome.js';
+import { outcome } from './utils/outcome.js';
 
 export interface ConditioningOptions {
   /** Largest allowed |a_jj / d_j|: diagonal before elimination over the pivot after it. */

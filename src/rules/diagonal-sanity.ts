@@ -18,8 +18,8 @@
 import type { RuleContext, RuleDefinition } from './rule-types.js';
 import { COMPONENTS } from '../io/dof-map.js';
 import { diagonalOf } from '../sparse/csc.js';
-import { outcome } from './outcome.js';
-import { formatList, formatMessage } from './message.js';
+import { outcome } from './utils/outcome.js';
+import { formatList, formatMessage } from './utils/message.js';
 
 export interface DiagonalSanityOptions {
   /** Massless rx, ry, rz DOFs pass (a lumped mass matrix without rotary inertia). */

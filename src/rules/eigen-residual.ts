@@ -9,9 +9,9 @@
  * ([CP] CRITERIA.md §6).
  */
 import type { RuleDefinition } from './rule-types.js';
-import { toleranceOptionsSchema, type ToleranceOptions } from './tolerance-options.js';
-import { outcome, argMax } from './outcome.js';
-import { modalProducts } from './modal-products.js';
+import { toleranceOptionsSchema, type ToleranceOptions } from './utils/tolerance-options.js';
+import { outcome, argMax } from './utils/outcome.js';
+import { modalProducts } from './utils/modal-products.js';
 
 const messages = {
   pass: 'largest eigenpair residual {{measured}} (mode {{mode}}), within {{tolerance}}.',

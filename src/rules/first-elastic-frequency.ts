@@ -4,11 +4,11 @@
  * requirement on a supported structure (the number itself comes from the project's spec).
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
+import { outcome } from './utils/outcome.js';
 import { modeLocation } from '../model/mechanism-localization.js';
-import { formatMessage } from './message.js';
-import { sharesText } from './motion-text.js';
-import { cutoffDefaults, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from './rigid-body-split.js';
+import { formatMessage } from './utils/message.js';
+import { sharesText } from './utils/motion-text.js';
+import { cutoffDefaults, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from './utils/rigid-body-split.js';
 
 export interface FirstElasticFrequencyOptions extends RigidBodyCutoffOptions {
   minHz: number;

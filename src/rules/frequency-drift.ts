@@ -12,8 +12,8 @@
  */
 import type { RuleDefinition } from './rule-types.js';
 import type { ModePair } from '../model/comparison-facts.js';
-import { outcome } from './outcome.js';
-import { formatList, formatNumber } from './message.js';
+import { outcome } from './utils/outcome.js';
+import { formatList, formatNumber } from './utils/message.js';
 
 export interface FrequencyDriftOptions {
   maxChangePercent: number;

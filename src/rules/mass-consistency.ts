@@ -6,8 +6,8 @@
  * represents. Default 1e-6 relative — our choice, far above round-off, far below a real omission.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
-import { geometryOrSkip, isOutcome } from './geometry-common.js';
+import { outcome } from './utils/outcome.js';
+import { geometryOrSkip, isOutcome } from './utils/geometry-common.js';
 
 export interface MassConsistencyOptions {
   maxRelativeSpread: number;

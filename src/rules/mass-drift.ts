@@ -16,9 +16,9 @@
  */
 import type { RuleDefinition } from './rule-types.js';
 import type { MassProperties } from '../model/mass-properties.js';
-import { outcome } from './outcome.js';
-import { formatList, formatNumber } from './message.js';
-import { geometryOrSkip, isOutcome } from './geometry-common.js';
+import { outcome } from './utils/outcome.js';
+import { formatList, formatNumber } from './utils/message.js';
+import { geometryOrSkip, isOutcome } from './utils/geometry-common.js';
 
 export interface MassDriftOptions {
   maxMassChangePercent: number;

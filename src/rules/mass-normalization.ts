@@ -4,9 +4,9 @@
  * §4.10, [C] CRITERIA.md §6); the 1e-6 limit is common practice ([CP] CRITERIA.md §6).
  */
 import type { RuleDefinition } from './rule-types.js';
-import { toleranceOptionsSchema, type ToleranceOptions } from './tolerance-options.js';
-import { outcome } from './outcome.js';
-import { modalProducts } from './modal-products.js';
+import { toleranceOptionsSchema, type ToleranceOptions } from './utils/tolerance-options.js';
+import { outcome } from './utils/outcome.js';
+import { modalProducts } from './utils/modal-products.js';
 
 const messages = {
   pass: 'largest |φᵀMφ − 1| is {{measured}} (mode {{mode}}), within {{tolerance}}.',

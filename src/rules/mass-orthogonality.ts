@@ -4,9 +4,9 @@
  * practice for computed modes ([CP] CRITERIA.md §6; dense solvers reach O(nε)).
  */
 import type { RuleDefinition } from './rule-types.js';
-import { toleranceOptionsSchema, type ToleranceOptions } from './tolerance-options.js';
-import { outcome } from './outcome.js';
-import { modalProducts } from './modal-products.js';
+import { toleranceOptionsSchema, type ToleranceOptions } from './utils/tolerance-options.js';
+import { outcome } from './utils/outcome.js';
+import { modalProducts } from './utils/modal-products.js';
 
 const messages = {
   pass: 'largest |φᵢᵀMφⱼ| (i ≠ j) is {{measured}} (modes {{i}}, {{j}}), within {{tolerance}}.',

@@ -11,9 +11,9 @@
  * rigid-body modes carry all of it, so the rule skips models with free rigid motions.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
-import { formatList, formatMessage } from './message.js';
-import { geometryOrSkip, isOutcome } from './geometry-common.js';
+import { outcome } from './utils/outcome.js';
+import { formatList, formatMessage } from './utils/message.js';
+import { geometryOrSkip, isOutcome } from './utils/geometry-common.js';
 import { RIGID_BODY_DIRECTIONS, type RigidBodyDirection } from '../model/rigid-body-vectors.js';
 
 export interface MassParticipationOptions {

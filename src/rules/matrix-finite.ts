@@ -9,7 +9,7 @@
  */
 import type { RuleDefinition } from './rule-types.js';
 import type { MatrixSummary } from '../model/matrix-summary.js';
-import { outcome } from './outcome.js';
+import { outcome } from './utils/outcome.js';
 
 const messages = {
   pass: 'every entry of K and M is finite.',

@@ -8,9 +8,9 @@
  * mean (A + Aᵀ)/2 either way.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { toleranceOptionsSchema, type ToleranceOptions } from './tolerance-options.js';
+import { toleranceOptionsSchema, type ToleranceOptions } from './utils/tolerance-options.js';
 import type { MatrixSummary } from '../model/matrix-summary.js';
-import { outcome } from './outcome.js';
+import { outcome } from './utils/outcome.js';
 
 const messages = {
   pass: 'K and M are symmetric (largest relative asymmetry {{measured}}, limit {{tolerance}}).',

@@ -6,8 +6,8 @@
  * `mode` counts every solved mode from 1, rigid-body modes included.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
-import { formatList, formatNumber } from './message.js';
+import { outcome } from './utils/outcome.js';
+import { formatList, formatNumber } from './utils/message.js';
 
 export interface ModeTarget {
   mode: number;

@@ -10,8 +10,8 @@
  * "> 0.9 consistent" is common practice, [CP]).
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
-import { formatList, formatNumber } from './message.js';
+import { outcome } from './utils/outcome.js';
+import { formatList, formatNumber } from './utils/message.js';
 
 export interface ModeShapeMatchOptions {
   minMac: number;

@@ -6,8 +6,8 @@
  * compared (pairs by frequency order cannot cross).
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
-import { formatList, formatNumber } from './message.js';
+import { outcome } from './utils/outcome.js';
+import { formatList, formatNumber } from './utils/message.js';
 
 export type ModeSwapOptions = Record<string, never>;
 

@@ -11,7 +11,7 @@
  * (SturmCheck.ok), so `modalgate modes` and this rule agree.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
+import { outcome } from './utils/outcome.js';
 
 const messages = {
   pass: 'Sturm count at σ = {{shift}} is {{countBelow}}, equal to the {{returned}} modes returned: no mode was missed.',

@@ -10,9 +10,9 @@
  * is grounded), down to 1 % of the largest residual (at most 10), each with its share of it.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
-import { geometryOrSkip, isOutcome } from './geometry-common.js';
-import { formatList } from './message.js';
+import { outcome } from './utils/outcome.js';
+import { geometryOrSkip, isOutcome } from './utils/geometry-common.js';
+import { formatList } from './utils/message.js';
 
 export interface RigidBodyEnergyOptions {
   maxRelativeEnergy: number;

@@ -5,11 +5,11 @@
  * fewer means unintended grounding (a spring or constraint to ground).
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
-import { cutoffDefaults, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from './rigid-body-split.js';
-import { mechanismLocation } from './geometry-common.js';
-import { formatMessage } from './message.js';
-import { mechanismGroupText, motionKindText, supportedNodesText } from './motion-text.js';
+import { outcome } from './utils/outcome.js';
+import { cutoffDefaults, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from './utils/rigid-body-split.js';
+import { mechanismLocation } from './utils/geometry-common.js';
+import { formatMessage } from './utils/message.js';
+import { mechanismGroupText, motionKindText, supportedNodesText } from './utils/motion-text.js';
 import { localizeNearZeroModesByDof } from '../model/mechanism-localization.js';
 
 export interface RigidBodyModesOptions extends RigidBodyCutoffOptions {

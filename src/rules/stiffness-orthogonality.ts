@@ -4,9 +4,9 @@
  * is used by the solver's own orthogonality figure; 1e-6 mirrors the mass check ([CP]).
  */
 import type { RuleDefinition } from './rule-types.js';
-import { toleranceOptionsSchema, type ToleranceOptions } from './tolerance-options.js';
-import { outcome } from './outcome.js';
-import { modalProducts } from './modal-products.js';
+import { toleranceOptionsSchema, type ToleranceOptions } from './utils/tolerance-options.js';
+import { outcome } from './utils/outcome.js';
+import { modalProducts } from './utils/modal-products.js';
 
 const messages = {
   pass: 'largest |φᵢᵀKφⱼ − λᵢδᵢⱼ| / max|λ| is {{measured}} (modes {{i}}, {{j}}), within {{tolerance}}.',

@@ -9,9 +9,9 @@
  * beside it. Mass at DOFs the FE program removed before export is in neither.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
-import { formatMessage } from './message.js';
-import { geometryOrSkip, isOutcome } from './geometry-common.js';
+import { outcome } from './utils/outcome.js';
+import { formatMessage } from './utils/message.js';
+import { geometryOrSkip, isOutcome } from './utils/geometry-common.js';
 
 export interface TotalMassOptions {
   expected: number;

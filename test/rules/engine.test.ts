@@ -4,7 +4,7 @@ import { builtInRules, findRule, ruleIds } from '../../src/rules/registry.js';
 import type { RuleDefinition } from '../../src/rules/rule-types.js';
 import { InputError } from '../../src/io/errors.js';
 import { chainContext, exactModes, springChain } from './fake-model.js';
-import { formatMessage, formatNumber } from '../../src/rules/message.js';
+import { formatMessage, formatNumber } from '../../src/rules/utils/message.js';
 
 const chain = springChain(4, 10, [1, 1, 1, 1], 5);
 

@@ -2,8 +2,8 @@
  * Shared pieces of the geometry rules: the skip outcome when no geometry facts exist and the
  * way nodes are listed in messages ("node 18 uy, node 5 ux and node 7 uz").
  */
-import type { RuleContext, RuleOutcome } from './rule-types.js';
-import type { GeometryFacts } from '../model/geometry-facts.js';
+import type { RuleContext, RuleOutcome } from '../rule-types.js';
+import type { GeometryFacts } from '../../model/geometry-facts.js';
 import { formatList } from './message.js';
 import { shareText } from './motion-text.js';
 

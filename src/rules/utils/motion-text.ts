@@ -3,11 +3,11 @@
  * independent mechanisms and free rigid-body motions with the supported nodes that leave them
  * free. Used by the rules' messages (rigid-body-modes, first-elastic-frequency).
  */
-import type { NodeShare } from '../model/energy-shares.js';
-import type { RigidMotionKind } from '../model/rigid-motion-kind.js';
-import type { MechanismGroup } from '../model/mechanism-groups.js';
-import type { FreeMotionFacts, SupportedNodeFreedom } from '../model/free-motions.js';
-import type { Point3 } from '../model/rigid-body-vectors.js';
+import type { NodeShare } from '../../model/energy-shares.js';
+import type { RigidMotionKind } from '../../model/rigid-motion-kind.js';
+import type { MechanismGroup } from '../../model/mechanism-groups.js';
+import type { FreeMotionFacts, SupportedNodeFreedom } from '../../model/free-motions.js';
+import type { Point3 } from '../../model/rigid-body-vectors.js';
 import { formatList, formatNumber } from './message.js';
 
 const percent = (x: number): string => `${Math.round(100 * x)} %`;

@@ -1,5 +1,5 @@
 /** Small constructors for RuleOutcome, so every rule reads the same way. */
-import type { RuleOutcome, RuleStatus } from './rule-types.js';
+import type { RuleOutcome, RuleStatus } from '../rule-types.js';
 import { formatMessage } from './message.js';
 
 export function outcome(
