@@ -8,7 +8,7 @@
  */
 import type { RuleDefinition } from './rule-types.js';
 import { describeDof } from '../io/dof-map.js';
-import { outcome } from './utils/outcome.js';
+import { ruleMessages } from './utils/outcome.js';
 
 export interface ConditioningOptions {
   /** Largest allowed |a_jj / d_j|: diagonal before elimination over the pivot after it. */
@@ -19,6 +19,7 @@ const messages = {
   pass: 'largest pivot drop (diagonal / pivot) {{measured}} at {{where}}, within maxPivotDrop {{maxPivotDrop}}.',
   fail: 'pivot drop (diagonal / pivot) {{measured}} at {{where}} exceeds maxPivotDrop {{maxPivotDrop}}: about {{digits}} digits are lost there (a weakly connected or badly scaled DOF).',
 };
+const { outcome, text } = ruleMessages(messages);
 
 export const conditioning: RuleDefinition<ConditioningOptions> = {
   id: 'conditioning',
@@ -44,6 +45,6 @@ export const conditioning: RuleDefinition<ConditioningOptions> = {
     const values = { measured: drop, where, maxPivotDrop: o.maxPivotDrop, digits: Math.round(Math.log10(Math.max(drop, 1))) };
     const details = { dof: f.maxRatioDof + 1, where, pivotDrop: drop };
     const ok = drop <= o.maxPivotDrop;
-    return outcome(ok ? 'pass' : 'fail', ok ? messages.pass : messages.fail, values, drop, o.maxPivotDrop, details);
+    return outcome(ok ? 'pass' : 'fail', ok ? 'pass' : 'fail', values, drop, o.maxPivotDrop, details);
   },
 };

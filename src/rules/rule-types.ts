@@ -13,6 +13,12 @@ export type RuleStatus = 'pass' | 'fail' | 'skip' | 'error';
 
 export interface RuleOutcome {
   status: RuleStatus;
+  /**
+   * Id of the rule's message template the outcome used (a key of its `messages`). Every outcome a
+   * rule returns has one (src/rules/utils/outcome.ts); results the engine makes itself (a missing
+   * input, a rule that threw) have none.
+   */
+  messageId?: string;
   /** One plain sentence, built from the rule's message template. */
   message: string;
   measured?: number | string | null;
