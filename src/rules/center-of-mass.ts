@@ -19,7 +19,7 @@ const messages = {
 };
 const { outcome, text } = ruleMessages(messages);
 
-export const centerOfMass: RuleDefinition<CenterOfMassOptions> = {
+export const centerOfMass: RuleDefinition<CenterOfMassOptions, 'expected' | 'maxDistance'> = {
   id: 'center-of-mass',
   description: 'The centre of mass lies within maxDistance of the expected point (model length unit).',
   optionsSchema: {
@@ -31,7 +31,7 @@ export const centerOfMass: RuleDefinition<CenterOfMassOptions> = {
     required: ['expected', 'maxDistance'],
     additionalProperties: false,
   },
-  defaults: {} as CenterOfMassOptions,
+  defaults: {},
   messages,
   needs: ['dofMap'],
   evaluate(context, o) {

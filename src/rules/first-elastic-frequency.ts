@@ -26,7 +26,7 @@ const messages = {
 };
 const { outcome, text } = ruleMessages(messages);
 
-export const firstElasticFrequency: RuleDefinition<FirstElasticFrequencyOptions> = {
+export const firstElasticFrequency: RuleDefinition<FirstElasticFrequencyOptions, 'minHz'> = {
   id: 'first-elastic-frequency',
   description: 'The first mode above the rigid-body cutoff is at least minHz (and at most maxHz when given).',
   optionsSchema: {
@@ -39,7 +39,7 @@ export const firstElasticFrequency: RuleDefinition<FirstElasticFrequencyOptions>
     required: ['minHz'],
     additionalProperties: false,
   },
-  defaults: { ...cutoffDefaults } as FirstElasticFrequencyOptions,
+  defaults: { ...cutoffDefaults },
   messages,
   needs: ['modes'],
   evaluate(context, o) {

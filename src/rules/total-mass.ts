@@ -27,7 +27,7 @@ const messages = {
 };
 const { outcome, text } = ruleMessages(messages);
 
-export const totalMass: RuleDefinition<TotalMassOptions> = {
+export const totalMass: RuleDefinition<TotalMassOptions, 'expected'> = {
   id: 'total-mass',
   description: "The model's total mass lies within ± tolerancePercent of the expected value (model mass unit).",
   optionsSchema: {
@@ -39,7 +39,7 @@ export const totalMass: RuleDefinition<TotalMassOptions> = {
     required: ['expected'],
     additionalProperties: false,
   },
-  defaults: { tolerancePercent: 1 } as TotalMassOptions,
+  defaults: { tolerancePercent: 1 },
   messages,
   needs: ['dofMap'],
   evaluate(context, o) {
