@@ -6,7 +6,7 @@
 import type { RuleDefinition } from './rule-types.js';
 import { ruleMessages } from './utils/outcome.js';
 import { modeLocation } from '../model/mechanism-localization.js';
-import { sharesText } from './utils/motion-text.js';
+import { motionMessages, sharesText } from './utils/motion-text.js';
 import { cutoffDefaults, cutoffMessages, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from './utils/rigid-body-split.js';
 
 export interface FirstElasticFrequencyOptions extends RigidBodyCutoffOptions {
@@ -16,6 +16,7 @@ export interface FirstElasticFrequencyOptions extends RigidBodyCutoffOptions {
 
 const messages = {
   ...cutoffMessages,
+  ...motionMessages,
   pass: 'first elastic mode (mode {{mode}}) at {{hz}} Hz, within {{range}}.',
   low: 'first elastic mode (mode {{mode}}) at {{hz}} Hz is below the required minimum of {{minHz}} Hz.{{location}}',
   high: 'first elastic mode (mode {{mode}}) at {{hz}} Hz is above the allowed maximum of {{maxHz}} Hz.{{location}}',

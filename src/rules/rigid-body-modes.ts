@@ -9,7 +9,7 @@ import { ruleMessages } from './utils/outcome.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
 import { cutoffDefaults, cutoffMessages, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from './utils/rigid-body-split.js';
 import { formatList } from './utils/message.js';
-import { mechanismGroupText, motionKindText, shareText, supportedNodesText } from './utils/motion-text.js';
+import { mechanismGroupText, motionKindText, motionMessages, shareText, supportedNodesText } from './utils/motion-text.js';
 import { localizeNearZeroModesByDof } from '../model/mechanism-localization.js';
 
 export interface RigidBodyModesOptions extends RigidBodyCutoffOptions {
@@ -20,6 +20,7 @@ export interface RigidBodyModesOptions extends RigidBodyCutoffOptions {
 
 const messages = {
   ...cutoffMessages,
+  ...motionMessages,
   pass: '{{count}} {{modesWord}} {{phrase}}, as expected ({{expectation}}).',
   tooMany:
     '{{count}} {{modesWord}} {{phrase}}, expected {{expectation}}: the model has a mechanism or an unintended free part ({{extra}} extra near-zero mode(s): {{extraHz}} Hz).{{where}}',
