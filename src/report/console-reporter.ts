@@ -6,7 +6,7 @@
  */
 import { Chalk, type ChalkInstance } from 'chalk';
 import type { RuleResult } from '../rules/engine.js';
-import { formatNumber } from '../rules/message.js';
+import { formatNumber } from '../rules/utils/message.js';
 import type { CheckReport, ModelReport } from './report-types.js';
 import { ruleCounts } from './report-types.js';
 

@@ -10,7 +10,7 @@
  * the values to pixels (./svg-plots.ts). Every text from the data is escaped.
  */
 import type { RuleResult } from '../rules/engine.js';
-import { formatNumber } from '../rules/message.js';
+import { formatNumber } from '../rules/utils/message.js';
 import type { ComparisonFacts } from '../model/comparison-facts.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
 import type { CheckReport, ModelReport } from './report-types.js';

@@ -11,7 +11,7 @@
  * fence is longer than any backtick run inside.
  */
 import type { RuleResult } from '../rules/engine.js';
-import { formatNumber } from '../rules/message.js';
+import { formatNumber } from '../rules/utils/message.js';
 import type { ComparisonFacts, ModePair } from '../model/comparison-facts.js';
 import type { CheckReport, ModelReport } from './report-types.js';
 

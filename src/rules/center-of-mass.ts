@@ -4,8 +4,8 @@
  * mass budget; there is no default distance.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
-import { geometryOrSkip, isOutcome } from './geometry-common.js';
+import { ruleMessages } from './utils/outcome.js';
+import { geometryMessages, geometryOrSkip, isOutcome } from './utils/geometry-common.js';
 
 export interface CenterOfMassOptions {
   expected: [number, number, number];
@@ -13,11 +13,13 @@ export interface CenterOfMassOptions {
 }
 
 const messages = {
+  ...geometryMessages,
   pass: 'centre of mass ({{x}}, {{y}}, {{z}}) is {{distance}} from the expected point (allowed {{maxDistance}}).',
   fail: 'centre of mass ({{x}}, {{y}}, {{z}}) is {{distance}} from the expected ({{ex}}, {{ey}}, {{ez}}); allowed {{maxDistance}}.',
 };
+const { outcome, text } = ruleMessages(messages);
 
-export const centerOfMass: RuleDefinition<CenterOfMassOptions> = {
+export const centerOfMass: RuleDefinition<CenterOfMassOptions, 'expected' | 'maxDistance'> = {
   id: 'center-of-mass',
   description: 'The centre of mass lies within maxDistance of the expected point (model length unit).',
   optionsSchema: {
@@ -29,7 +31,7 @@ export const centerOfMass: RuleDefinition<CenterOfMassOptions> = {
     required: ['expected', 'maxDistance'],
     additionalProperties: false,
   },
-  defaults: {} as CenterOfMassOptions,
+  defaults: {},
   messages,
   needs: ['dofMap'],
   evaluate(context, o) {
@@ -40,6 +42,6 @@ export const centerOfMass: RuleDefinition<CenterOfMassOptions> = {
     const values = { x: c[0], y: c[1], z: c[2], ex: o.expected[0], ey: o.expected[1], ez: o.expected[2], distance, maxDistance: o.maxDistance };
     const details = { centerOfMass: c, expected: o.expected, distance };
     const status = distance <= o.maxDistance ? 'pass' : 'fail';
-    return outcome(status, status === 'pass' ? messages.pass : messages.fail, values, distance, o.maxDistance, details);
+    return outcome(status, status, values, distance, o.maxDistance, details);
   },
 };

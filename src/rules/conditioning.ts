@@ -7,8 +7,8 @@
  * CRITERIA.md §1a). The drop is measured on the solver's last factor of K − σM.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { describeDof } from '../io/dof-map.js';
-import { outcome } from './outcome.js';
+import { COMPONENTS } from '../io/dof-map.js';
+import { ruleMessages } from './utils/outcome.js';
 
 export interface ConditioningOptions {
   /** Largest allowed |a_jj / d_j|: diagonal before elimination over the pivot after it. */
@@ -16,9 +16,12 @@ export interface ConditioningOptions {
 }
 
 const messages = {
+  dof: 'dof {{dof}}',
+  nodeDof: 'node {{node}} {{component}} (dof {{dof}})',
   pass: 'largest pivot drop (diagonal / pivot) {{measured}} at {{where}}, within maxPivotDrop {{maxPivotDrop}}.',
   fail: 'pivot drop (diagonal / pivot) {{measured}} at {{where}} exceeds maxPivotDrop {{maxPivotDrop}}: about {{digits}} digits are lost there (a weakly connected or badly scaled DOF).',
 };
+const { outcome, text } = ruleMessages(messages);
 
 export const conditioning: RuleDefinition<ConditioningOptions> = {
   id: 'conditioning',
@@ -40,10 +43,12 @@ export const conditioning: RuleDefinition<ConditioningOptions> = {
   evaluate(context, o) {
     const f = context.modes!.factor;
     const drop = f.maxDiagonalToPivotRatio;
-    const where = describeDof(context.dofMap, f.maxRatioDof);
+    const map = context.dofMap;
+    const dof = String(f.maxRatioDof + 1);
+    const where = map ? text('nodeDof', { node: String(map.node[f.maxRatioDof]), component: COMPONENTS[map.component[f.maxRatioDof]], dof }) : text('dof', { dof });
     const values = { measured: drop, where, maxPivotDrop: o.maxPivotDrop, digits: Math.round(Math.log10(Math.max(drop, 1))) };
     const details = { dof: f.maxRatioDof + 1, where, pivotDrop: drop };
     const ok = drop <= o.maxPivotDrop;
-    return outcome(ok ? 'pass' : 'fail', ok ? messages.pass : messages.fail, values, drop, o.maxPivotDrop, details);
+    return outcome(ok ? 'pass' : 'fail', ok ? 'pass' : 'fail', values, drop, o.maxPivotDrop, details);
   },
 };

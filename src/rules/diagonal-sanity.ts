@@ -18,8 +18,8 @@
 import type { RuleContext, RuleDefinition } from './rule-types.js';
 import { COMPONENTS } from '../io/dof-map.js';
 import { diagonalOf } from '../sparse/csc.js';
-import { outcome } from './outcome.js';
-import { formatList, formatMessage } from './message.js';
+import { ruleMessages } from './utils/outcome.js';
+import { formatList } from './utils/message.js';
 
 export interface DiagonalSanityOptions {
   /** Massless rx, ry, rz DOFs pass (a lumped mass matrix without rotary inertia). */
@@ -45,7 +45,10 @@ const messages = {
   allowedUnknown: '; {{count}} massless DOF(s) of unknown component allowed by allowMasslessTranslations: true',
   assumedSix: ' (no DOF map: assumed 6 DOFs per node in the order ux uy uz rx ry rz)',
   unknownComponents: ' (no DOF map, and {{n}} DOFs is not a multiple of 6: components unknown)',
+  dof: 'dof {{dof}}',
+  nodeDof: 'node {{node}} {{component}} (dof {{dof}})',
 };
+const { outcome, text } = ruleMessages(messages);
 
 /** How the component of a DOF is known: from the map, assumed 6 per node, or not at all. */
 type ComponentSource = 'dof map' | 'assumed 6 per node' | 'unknown';
@@ -86,8 +89,8 @@ export const diagonalSanity: RuleDefinition<DiagonalSanityOptions> = {
     const found = scanDiagonals(context, source);
     const originalDof = (d: number) => (context.keptDofs ? context.keptDofs[d] : d);
     const nameOf = (d: number) => {
-      const dof = `dof ${originalDof(d) + 1}`;
-      return context.dofMap ? `node ${context.dofMap.node[d]} ${COMPONENTS[context.dofMap.component[d]]} (${dof})` : dof;
+      const dof = String(originalDof(d) + 1);
+      return context.dofMap ? text('nodeDof', { node: String(context.dofMap.node[d]), component: COMPONENTS[context.dofMap.component[d]], dof }) : text('dof', { dof });
     };
     const allowed: Record<Kind, boolean> = {
       unconnected: false,
@@ -99,8 +102,8 @@ export const diagonalSanity: RuleDefinition<DiagonalSanityOptions> = {
       masslessUnknown: o.allowMasslessTranslations,
     };
     const n = context.stiffness.n;
-    const assumption = source === 'assumed 6 per node' ? messages.assumedSix : source === 'unknown' ? formatMessage(messages.unknownComponents, { n }) : '';
-    const problems = KINDS.filter((k) => !allowed[k] && found[k].length > 0).map((k) => formatMessage(messages[k], { count: found[k].length, list: formatList(found[k].map(nameOf), o.listLimit) }));
+    const assumption = source === 'assumed 6 per node' ? text('assumedSix') : source === 'unknown' ? text('unknownComponents', { n }) : '';
+    const problems = KINDS.filter((k) => !allowed[k] && found[k].length > 0).map((k) => text(k, { count: found[k].length, list: formatList(found[k].map(nameOf), o.listLimit) }));
     const counts = Object.fromEntries(KINDS.map((k) => [k, found[k].length])) as Record<Kind, number>;
     const details = {
       dofs: n,
@@ -110,14 +113,14 @@ export const diagonalSanity: RuleDefinition<DiagonalSanityOptions> = {
       ...Object.fromEntries(KINDS.map((k) => [k, found[k].slice(0, DETAIL_CAP).map(nameOf)])),
     };
     const total = KINDS.filter((k) => !allowed[k]).reduce((s, k) => s + found[k].length, 0);
-    if (problems.length > 0) return outcome('fail', messages.fail, { problems: problems.join('; '), assumption }, total, 0, details);
+    if (problems.length > 0) return outcome('fail', 'fail', { problems: problems.join('; '), assumption }, total, 0, details);
     const allowedPhrase = [
-      found.masslessRotations.length > 0 ? formatMessage(messages.allowedRotations, { count: found.masslessRotations.length }) : '',
-      found.masslessTranslations.length > 0 ? formatMessage(messages.allowedTranslations, { count: found.masslessTranslations.length }) : '',
-      found.masslessUnknown.length > 0 ? formatMessage(messages.allowedUnknown, { count: found.masslessUnknown.length }) : '',
+      found.masslessRotations.length > 0 ? text('allowedRotations', { count: found.masslessRotations.length }) : '',
+      found.masslessTranslations.length > 0 ? text('allowedTranslations', { count: found.masslessTranslations.length }) : '',
+      found.masslessUnknown.length > 0 ? text('allowedUnknown', { count: found.masslessUnknown.length }) : '',
     ].join('');
     const massless = found.masslessRotations.length + found.masslessTranslations.length + found.masslessUnknown.length;
-    return outcome('pass', messages.pass, { allowed: allowedPhrase, assumption: massless > 0 ? assumption : '' }, 0, 0, details);
+    return outcome('pass', 'pass', { allowed: allowedPhrase, assumption: massless > 0 ? assumption : '' }, 0, 0, details);
   },
 };
 

@@ -9,14 +9,16 @@
  * ([CP] CRITERIA.md §6).
  */
 import type { RuleDefinition } from './rule-types.js';
-import { toleranceOptionsSchema, type ToleranceOptions } from './tolerance-options.js';
-import { outcome, argMax } from './outcome.js';
-import { modalProducts } from './modal-products.js';
+import { toleranceOptionsSchema, type ToleranceOptions } from './utils/tolerance-options.js';
+import { ruleMessages, argMax } from './utils/outcome.js';
+import { modalProducts } from './utils/modal-products.js';
 
 const messages = {
   pass: 'largest eigenpair residual {{measured}} (mode {{mode}}), within {{tolerance}}.',
+  none: 'no modes were solved.',
   fail: 'mode {{mode}} ({{hz}} Hz) has eigenpair residual ‖Kφ − λMφ‖ / (‖Kφ‖ + |λ|‖Mφ‖) = {{measured}}, above {{tolerance}}: the pair does not satisfy Kφ = λMφ.',
 };
+const { outcome, text } = ruleMessages(messages);
 
 export const eigenResidual: RuleDefinition<ToleranceOptions> = {
   id: 'eigen-residual',
@@ -32,10 +34,10 @@ export const eigenResidual: RuleDefinition<ToleranceOptions> = {
     // a NaN residual is the worst residual
     const nan = Array.from(r).findIndex((x) => Number.isNaN(x));
     const w = nan >= 0 ? { index: nan, value: NaN } : argMax(r);
-    if (w.index < 0) return outcome('skip', 'no modes were solved.', {});
+    if (w.index < 0) return outcome('skip', 'none');
     const status = w.value <= o.tolerance ? 'pass' : 'fail';
     const values = { measured: w.value, mode: w.index + 1, hz: modes.frequenciesHz[w.index], tolerance: o.tolerance };
-    return outcome(status, messages[status], values, w.value, o.tolerance, {
+    return outcome(status, status, values, w.value, o.tolerance, {
       mode: w.index + 1,
       measure: 'eigenpair residual',
       relativeResiduals: Array.from(r),

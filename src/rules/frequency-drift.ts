@@ -12,8 +12,8 @@
  */
 import type { RuleDefinition } from './rule-types.js';
 import type { ModePair } from '../model/comparison-facts.js';
-import { outcome } from './outcome.js';
-import { formatList, formatNumber } from './message.js';
+import { ruleMessages } from './utils/outcome.js';
+import { formatList } from './utils/message.js';
 
 export interface FrequencyDriftOptions {
   maxChangePercent: number;
@@ -22,11 +22,14 @@ export interface FrequencyDriftOptions {
 }
 
 const messages = {
-  pass: '{{count}} paired modes within ± {{limit}} % of the baseline (largest change {{worst}} % at baseline mode {{worstMode}}).',
-  fail: '{{bad}} of {{count}} paired modes changed by more than ± {{limit}} % from the baseline: {{list}}.',
+  pass: '{{count}} paired modes within ± {{limit}} % of the baseline (largest change {{worst}} % at baseline mode {{worstMode}}).{{pairing}}',
+  fail: '{{bad}} of {{count}} paired modes changed by more than ± {{limit}} % from the baseline: {{list}}.{{pairing}}',
   none: 'no paired elastic modes to compare with the baseline.',
   byOrder: ' Modes paired by frequency order: {{reason}}.',
+  change: 'mode {{mode}}{{moved}} {{baselineHz}} → {{currentHz}} Hz ({{sign}}{{changePercent}} %)',
+  moved: ' (now mode {{mode}})',
 };
+const { outcome, text } = ruleMessages(messages);
 
 export const frequencyDrift: RuleDefinition<FrequencyDriftOptions> = {
   id: 'frequency-drift',
@@ -44,17 +47,17 @@ export const frequencyDrift: RuleDefinition<FrequencyDriftOptions> = {
   needs: ['modes', 'baseline'],
   evaluate(context, o) {
     const c = context.comparison!;
-    const note = c.shapesNotCompared === null ? '' : messages.byOrder;
     const wanted = o.modes ? new Set(o.modes) : null;
     const checked = c.pairs.filter((p) => p.changePercent !== null && (!wanted || wanted.has(p.baselineMode)));
-    if (checked.length === 0) return outcome('skip', messages.none, {});
+    if (checked.length === 0) return outcome('skip', 'none', {});
     const worst = checked.reduce((a, b) => (Math.abs(b.changePercent!) > Math.abs(a.changePercent!) ? b : a));
     const bad = checked.filter((p) => Math.abs(p.changePercent!) > o.maxChangePercent);
     const measured = Math.abs(worst.changePercent!);
     const details = { pairedBy: c.pairedBy, flagged: bad.map(flag), pairs: checked.map((p) => ({ baselineMode: p.baselineMode, currentMode: p.currentMode, baselineHz: p.baselineHz, currentHz: p.currentHz, changePercent: p.changePercent })) };
-    const values = { count: checked.length, limit: o.maxChangePercent, reason: c.shapesNotCompared };
-    if (bad.length > 0) return outcome('fail', messages.fail + note, { ...values, bad: bad.length, list: formatList(bad.map(describe)) }, measured, o.maxChangePercent, details);
-    return outcome('pass', messages.pass + note, { ...values, worst: measured, worstMode: worst.baselineMode }, measured, o.maxChangePercent, details);
+    const pairing = c.shapesNotCompared === null ? '' : text('byOrder', { reason: c.shapesNotCompared });
+    const values = { count: checked.length, limit: o.maxChangePercent, pairing };
+    if (bad.length > 0) return outcome('fail', 'fail', { ...values, bad: bad.length, list: formatList(bad.map(describe)) }, measured, o.maxChangePercent, details);
+    return outcome('pass', 'pass', { ...values, worst: measured, worstMode: worst.baselineMode }, measured, o.maxChangePercent, details);
   },
 };
 
@@ -63,6 +66,6 @@ function flag(p: ModePair): { baselineMode: number; currentMode: number } {
 }
 
 function describe(p: ModePair): string {
-  const moved = p.currentMode === p.baselineMode ? '' : ` (now mode ${p.currentMode})`;
-  return `mode ${p.baselineMode}${moved} ${formatNumber(p.baselineHz)} → ${formatNumber(p.currentHz)} Hz (${p.changePercent! > 0 ? '+' : ''}${formatNumber(p.changePercent!)} %)`;
+  const moved = p.currentMode === p.baselineMode ? '' : text('moved', { mode: String(p.currentMode) });
+  return text('change', { mode: String(p.baselineMode), moved, baselineHz: p.baselineHz, currentHz: p.currentHz, sign: p.changePercent! > 0 ? '+' : '', changePercent: p.changePercent! });
 }

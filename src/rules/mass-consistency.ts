@@ -6,18 +6,21 @@
  * represents. Default 1e-6 relative — our choice, far above round-off, far below a real omission.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
-import { geometryOrSkip, isOutcome } from './geometry-common.js';
+import { ruleMessages } from './utils/outcome.js';
+import { geometryMessages, geometryOrSkip, isOutcome } from './utils/geometry-common.js';
 
 export interface MassConsistencyOptions {
   maxRelativeSpread: number;
 }
 
 const messages = {
+  ...geometryMessages,
   pass: 'translational masses agree: {{masses}} (spread {{spread}}, limit {{limit}}).',
   fail: 'translational masses differ: {{masses}} (spread {{spread}}, limit {{limit}}): {{low}} lacks mass on some DOFs.',
+  mass: '{{direction}} {{mass}}',
   none: 'not evaluated: the DOF map has fewer than two translational directions.',
 };
+const { outcome, text } = ruleMessages(messages);
 
 export const massConsistency: RuleDefinition<MassConsistencyOptions> = {
   id: 'mass-consistency',
@@ -35,14 +38,14 @@ export const massConsistency: RuleDefinition<MassConsistencyOptions> = {
     if (isOutcome(g)) return g;
     const names = ['ux', 'uy', 'uz'] as const;
     const present = names.map((d, k) => ({ d, m: g.massProperties.translationalMass[k] })).filter((e) => g.representedDirections[e.d]);
-    if (present.length < 2) return outcome('skip', messages.none, {});
+    if (present.length < 2) return outcome('skip', 'none', {});
     const max = Math.max(...present.map((e) => e.m));
     const low = present.reduce((a, b) => (b.m < a.m ? b : a));
     const spread = max > 0 ? (max - low.m) / max : 0;
-    const masses = present.map((e) => `${e.d} ${e.m.toPrecision(6)}`).join(', ');
+    const masses = present.map((e) => text('mass', { direction: e.d, mass: e.m.toPrecision(6) })).join(', ');
     const values = { masses, spread, limit: o.maxRelativeSpread, low: low.d };
     const details = { translationalMass: g.massProperties.translationalMass, relativeSpread: spread };
     const status = spread <= o.maxRelativeSpread ? 'pass' : 'fail';
-    return outcome(status, status === 'pass' ? messages.pass : messages.fail, values, spread, o.maxRelativeSpread, details);
+    return outcome(status, status, values, spread, o.maxRelativeSpread, details);
   },
 };

@@ -16,9 +16,9 @@
  */
 import type { RuleDefinition } from './rule-types.js';
 import type { MassProperties } from '../model/mass-properties.js';
-import { outcome } from './outcome.js';
-import { formatList, formatNumber } from './message.js';
-import { geometryOrSkip, isOutcome } from './geometry-common.js';
+import { ruleMessages } from './utils/outcome.js';
+import { formatList } from './utils/message.js';
+import { geometryMessages, geometryOrSkip, isOutcome } from './utils/geometry-common.js';
 
 export interface MassDriftOptions {
   maxMassChangePercent: number;
@@ -27,10 +27,17 @@ export interface MassDriftOptions {
 }
 
 const messages = {
+  ...geometryMessages,
   pass: 'mass properties agree with the baseline: total mass {{mass}} ({{massChange}} %), centre of mass moved {{shift}} ({{shiftPercent}} % of the radius of gyration {{radius}}), inertia changed {{inertiaChange}} %.',
   fail: 'mass properties differ from the baseline: {{list}}.',
+  massChanged: 'total mass {{before}} → {{now}} ({{change}} %, allowed ± {{allowed}} %)',
+  centreMoved: 'centre of mass moved {{shift}} ({{shiftPercent}} % of the radius of gyration {{radius}}, allowed {{allowed}} %)',
+  inertiaChanged: 'inertia tensor changed {{change}} % (allowed {{allowed}} %)',
+  limit: 'mass ± {{mass}} %, centre {{centre}} %, inertia {{inertia}} %',
+  signed: '{{sign}}{{value}}',
   noBaseline: 'not evaluated: the baseline holds no mass properties (it was saved without a DOF map); save it again with check --save-baseline.',
 };
+const { outcome, text } = ruleMessages(messages);
 
 export const massDrift: RuleDefinition<MassDriftOptions> = {
   id: 'mass-drift',
@@ -51,7 +58,7 @@ export const massDrift: RuleDefinition<MassDriftOptions> = {
     const g = geometryOrSkip(context);
     if (isOutcome(g)) return g;
     const before = context.comparison!.baselineMassProperties as MassProperties | null;
-    if (!before || typeof before.totalMass !== 'number') return outcome('skip', messages.noBaseline, {});
+    if (!before || typeof before.totalMass !== 'number') return outcome('skip', 'noBaseline', {});
     const now = g.massProperties;
     const massChange = (100 * (now.totalMass - before.totalMass)) / before.totalMass;
     const shift = Math.hypot(now.centerOfMass[0] - before.centerOfMass[0], now.centerOfMass[1] - before.centerOfMass[1], now.centerOfMass[2] - before.centerOfMass[2]);
@@ -76,12 +83,12 @@ export const massDrift: RuleDefinition<MassDriftOptions> = {
       inertiaChangePercent: values.inertiaChange,
     };
     const bad: string[] = [];
-    if (Math.abs(massChange) > o.maxMassChangePercent) bad.push(`total mass ${formatNumber(before.totalMass)} → ${formatNumber(now.totalMass)} (${signed(massChange)} %, allowed ± ${o.maxMassChangePercent} %)`);
-    if (shiftPercent > o.maxCenterShiftPercent) bad.push(`centre of mass moved ${formatNumber(shift)} (${formatNumber(shiftPercent)} % of the radius of gyration ${formatNumber(radius)}, allowed ${o.maxCenterShiftPercent} %)`);
-    if (values.inertiaChange > o.maxInertiaChangePercent) bad.push(`inertia tensor changed ${formatNumber(values.inertiaChange)} % (allowed ${o.maxInertiaChangePercent} %)`);
-    const limit = `mass ± ${o.maxMassChangePercent} %, centre ${o.maxCenterShiftPercent} %, inertia ${o.maxInertiaChangePercent} %`;
-    if (bad.length > 0) return outcome('fail', messages.fail, { list: formatList(bad, 3) }, Math.abs(massChange), limit, details);
-    return outcome('pass', messages.pass, values, Math.abs(massChange), limit, details);
+    if (Math.abs(massChange) > o.maxMassChangePercent) bad.push(text('massChanged', { before: before.totalMass, now: now.totalMass, change: signed(massChange), allowed: String(o.maxMassChangePercent) }));
+    if (shiftPercent > o.maxCenterShiftPercent) bad.push(text('centreMoved', { shift, shiftPercent, radius, allowed: String(o.maxCenterShiftPercent) }));
+    if (values.inertiaChange > o.maxInertiaChangePercent) bad.push(text('inertiaChanged', { change: values.inertiaChange, allowed: String(o.maxInertiaChangePercent) }));
+    const limit = text('limit', { mass: String(o.maxMassChangePercent), centre: String(o.maxCenterShiftPercent), inertia: String(o.maxInertiaChangePercent) });
+    if (bad.length > 0) return outcome('fail', 'fail', { list: formatList(bad, 3) }, Math.abs(massChange), limit, details);
+    return outcome('pass', 'pass', values, Math.abs(massChange), limit, details);
   },
 };
 
@@ -92,5 +99,5 @@ function frobenius(values: readonly number[]): number {
 }
 
 function signed(x: number): string {
-  return `${x > 0 ? '+' : ''}${formatNumber(x)}`;
+  return text('signed', { sign: x > 0 ? '+' : '', value: x });
 }

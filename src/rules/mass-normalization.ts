@@ -4,14 +4,15 @@
  * §4.10, [C] CRITERIA.md §6); the 1e-6 limit is common practice ([CP] CRITERIA.md §6).
  */
 import type { RuleDefinition } from './rule-types.js';
-import { toleranceOptionsSchema, type ToleranceOptions } from './tolerance-options.js';
-import { outcome } from './outcome.js';
-import { modalProducts } from './modal-products.js';
+import { toleranceOptionsSchema, type ToleranceOptions } from './utils/tolerance-options.js';
+import { ruleMessages } from './utils/outcome.js';
+import { modalProducts } from './utils/modal-products.js';
 
 const messages = {
   pass: 'largest |φᵀMφ − 1| is {{measured}} (mode {{mode}}), within {{tolerance}}.',
   fail: 'mode {{mode}} has modal mass φᵀMφ = {{modalMass}}: |φᵀMφ − 1| = {{measured}} exceeds {{tolerance}}.',
 };
+const { outcome, text } = ruleMessages(messages);
 
 export const massNormalization: RuleDefinition<ToleranceOptions> = {
   id: 'mass-normalization',
@@ -34,6 +35,6 @@ export const massNormalization: RuleDefinition<ToleranceOptions> = {
     }
     const values = { measured: worst, mode: mode + 1, tolerance: o.tolerance, modalMass: p.massProjected[mode + mode * p.modes] };
     const status = worst <= o.tolerance ? 'pass' : 'fail';
-    return outcome(status, status === 'pass' ? messages.pass : messages.fail, values, worst, o.tolerance, { mode: mode + 1 });
+    return outcome(status, status, values, worst, o.tolerance, { mode: mode + 1 });
   },
 };

@@ -4,15 +4,16 @@
  * practice for computed modes ([CP] CRITERIA.md §6; dense solvers reach O(nε)).
  */
 import type { RuleDefinition } from './rule-types.js';
-import { toleranceOptionsSchema, type ToleranceOptions } from './tolerance-options.js';
-import { outcome } from './outcome.js';
-import { modalProducts } from './modal-products.js';
+import { toleranceOptionsSchema, type ToleranceOptions } from './utils/tolerance-options.js';
+import { ruleMessages } from './utils/outcome.js';
+import { modalProducts } from './utils/modal-products.js';
 
 const messages = {
   pass: 'largest |φᵢᵀMφⱼ| (i ≠ j) is {{measured}} (modes {{i}}, {{j}}), within {{tolerance}}.',
   fail: 'modes {{i}} and {{j}} are not M-orthogonal: |φᵢᵀMφⱼ| = {{measured}} exceeds {{tolerance}}.',
   single: 'only one mode was solved: nothing to compare.',
 };
+const { outcome, text } = ruleMessages(messages);
 
 export const massOrthogonality: RuleDefinition<ToleranceOptions> = {
   id: 'mass-orthogonality',
@@ -23,11 +24,11 @@ export const massOrthogonality: RuleDefinition<ToleranceOptions> = {
   needs: ['modes'],
   evaluate(context, o) {
     const p = modalProducts(context.stiffness, context.mass, context.modes!);
-    if (p.modes < 2) return outcome('skip', messages.single, {});
+    if (p.modes < 2) return outcome('skip', 'single', {});
     const w = largestOffDiagonal(p.massProjected, p.modes, 1);
     const values = { measured: w.value, i: w.i + 1, j: w.j + 1, tolerance: o.tolerance };
     const status = w.value <= o.tolerance ? 'pass' : 'fail';
-    return outcome(status, messages[status], values, w.value, o.tolerance, { modes: [w.i + 1, w.j + 1] });
+    return outcome(status, status, values, w.value, o.tolerance, { modes: [w.i + 1, w.j + 1] });
   },
 };
 

@@ -11,9 +11,9 @@
  * rigid-body modes carry all of it, so the rule skips models with free rigid motions.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
-import { formatList, formatMessage } from './message.js';
-import { geometryOrSkip, isOutcome } from './geometry-common.js';
+import { ruleMessages } from './utils/outcome.js';
+import { formatList } from './utils/message.js';
+import { geometryMessages, geometryOrSkip, isOutcome } from './utils/geometry-common.js';
 import { RIGID_BODY_DIRECTIONS, type RigidBodyDirection } from '../model/rigid-body-vectors.js';
 
 export interface MassParticipationOptions {
@@ -23,12 +23,18 @@ export interface MassParticipationOptions {
 }
 
 const messages = {
+  ...geometryMessages,
   pass: 'effective mass reaches {{reached}} within {{span}} (required {{minFraction}}){{basis}}.',
   fail: 'effective mass within {{span}} is short of {{minFraction}}: {{short}}; solve more modes or check where the mass is{{basis}}.',
   basis: ' (fractions of the mass on the {{keptDofs}} solved DOFs, {{keptMass}}; the whole export of {{exportedDofs}} DOFs has {{exportMass}})',
+  spanUpTo: 'the {{count}} modes up to {{maxHz}} Hz',
+  spanSolved: 'the {{count}} solved modes',
+  fraction: '{{direction}} {{fraction}}',
   free: 'not evaluated: the model has {{free}} free rigid-body motion(s), whose modes carry all the mass; participation is for supported models.',
+  noModes: 'not evaluated: no modes were solved for this model.',
   noMass: 'not evaluated: the listed directions carry no mass in this model ({{directions}}).',
 };
+const { outcome, text } = ruleMessages(messages);
 
 export const massParticipation: RuleDefinition<MassParticipationOptions> = {
   id: 'mass-participation',
@@ -49,12 +55,12 @@ export const massParticipation: RuleDefinition<MassParticipationOptions> = {
     const g = geometryOrSkip(context);
     if (isOutcome(g)) return g;
     const p = g.participation;
-    if (!p) return outcome('skip', 'not evaluated: no modes were solved for this model.', {});
-    if (g.freeRigidBodyMotions > 0 && !g.supported) return outcome('skip', messages.free, { free: g.freeRigidBodyMotions });
+    if (!p) return outcome('skip', 'noModes');
+    if (g.freeRigidBodyMotions > 0 && !g.supported) return outcome('skip', 'free', { free: g.freeRigidBodyMotions });
     const f = context.modes!.frequenciesHz;
     let last = p.modes - 1;
     if (o.maxHz !== undefined) while (last >= 0 && f[last] > o.maxHz) last--;
-    const span = o.maxHz !== undefined ? `the ${last + 1} modes up to ${o.maxHz} Hz` : `the ${p.modes} solved modes`;
+    const span = o.maxHz !== undefined ? text('spanUpTo', { count: String(last + 1), maxHz: String(o.maxHz) }) : text('spanSolved', { count: String(p.modes) });
     const rows = o.directions
       .map((d) => {
         const k = RIGID_BODY_DIRECTIONS.indexOf(d);
@@ -63,22 +69,22 @@ export const massParticipation: RuleDefinition<MassParticipationOptions> = {
         return { direction: d, fraction, modesNeeded: reachedAt >= 0 ? reachedAt + 1 : null };
       })
       .filter((r) => r.fraction !== null) as { direction: RigidBodyDirection; fraction: number; modesNeeded: number | null }[];
-    if (rows.length === 0) return outcome('skip', messages.noMass, { directions: o.directions.join(', ') });
+    if (rows.length === 0) return outcome('skip', 'noMass', { directions: o.directions.join(', ') });
     const short = rows.filter((r) => r.fraction < o.minFraction);
     const worst = rows.reduce((a, b) => (b.fraction < a.fraction ? b : a));
     const exportMass = g.massProperties.totalMass;
     const keptMass = g.keptMass?.totalMass ?? exportMass;
     const keptDofs = g.constraints?.keptDofs ?? context.stiffness.n;
-    const basis = g.keptMass ? formatMessage(messages.basis, { keptMass, keptDofs, exportedDofs: context.stiffnessSummary.n, exportMass }) : '';
+    const basis = g.keptMass ? text('basis', { keptMass, keptDofs, exportedDofs: context.stiffnessSummary.n, exportMass }) : '';
     const details = { modesConsidered: last + 1, directions: rows, rigidBodyMass: p.rigidBodyMass, keptMass, keptDofs, exportMass, exportedDofs: context.stiffnessSummary.n };
     const values = {
       basis,
       span,
       minFraction: o.minFraction,
-      reached: formatList(rows.map((r) => `${r.direction} ${r.fraction.toFixed(3)}`)),
-      short: formatList(short.map((r) => `${r.direction} ${r.fraction.toFixed(3)}`)),
+      reached: formatList(rows.map((r) => text('fraction', { direction: r.direction, fraction: r.fraction.toFixed(3) }))),
+      short: formatList(short.map((r) => text('fraction', { direction: r.direction, fraction: r.fraction.toFixed(3) }))),
     };
     const status = short.length === 0 ? 'pass' : 'fail';
-    return outcome(status, status === 'pass' ? messages.pass : messages.fail, values, worst.fraction, o.minFraction, details);
+    return outcome(status, status, values, worst.fraction, o.minFraction, details);
   },
 };

@@ -9,17 +9,18 @@
  */
 import type { RuleDefinition } from './rule-types.js';
 import type { MatrixSummary } from '../model/matrix-summary.js';
-import { outcome } from './outcome.js';
+import { ruleMessages } from './utils/outcome.js';
 
 const messages = {
   pass: 'every entry of K and M is finite.',
+  count: '{{matrix}} has {{count}}',
+  location: '{{file}}{{line}} ({{row}}, {{col}})',
+  line: ':{{line}}',
+  unknownLocation: 'an unknown line',
   fail: '{{list}} non-finite entr{{plural}} (NaN or infinity), which make every result meaningless; first at {{where}}.',
 };
+const { outcome, text } = ruleMessages(messages);
 
-/** "k.mtx:4 (1, 1), k.mtx:9 (3, 2)": where the first recorded entries are. */
-function locations(s: MatrixSummary): string[] {
-  return (s.nonFiniteAt ?? []).map((e) => `${s.file}${e.line > 0 ? `:${e.line}` : ''} (${e.row}, ${e.col})`);
-}
 
 export const matrixFinite: RuleDefinition<Record<string, never>> = {
   id: 'matrix-finite',
@@ -32,13 +33,18 @@ export const matrixFinite: RuleDefinition<Record<string, never>> = {
     const k = context.stiffnessSummary.nonFiniteCount;
     const m = context.massSummary.nonFiniteCount;
     const parts = [];
-    if (k > 0) parts.push(`K has ${k}`);
-    if (m > 0) parts.push(`M has ${m}`);
+    if (k > 0) parts.push(text('count', { matrix: 'K', count: String(k) }));
+    if (m > 0) parts.push(text('count', { matrix: 'M', count: String(m) }));
     const where = [...locations(context.stiffnessSummary), ...locations(context.massSummary)].slice(0, 5);
     const details = { stiffness: k, mass: m, locations: where };
     if (parts.length > 0) {
-      return outcome('fail', messages.fail, { list: parts.join(' and '), plural: k + m === 1 ? 'y' : 'ies', where: where.length > 0 ? where.join(', ') : 'an unknown line' }, k + m, 0, details);
+      return outcome('fail', 'fail', { list: parts.join(' and '), plural: k + m === 1 ? 'y' : 'ies', where: where.length > 0 ? where.join(', ') : text('unknownLocation') }, k + m, 0, details);
     }
-    return outcome('pass', messages.pass, {}, 0, 0, details);
+    return outcome('pass', 'pass', {}, 0, 0, details);
   },
 };
+
+/** "k.mtx:4 (1, 1), k.mtx:9 (3, 2)": where the first recorded entries are. */
+function locations(s: MatrixSummary): string[] {
+  return (s.nonFiniteAt ?? []).map((e) => text('location', { file: s.file, line: e.line > 0 ? text('line', { line: String(e.line) }) : '', row: String(e.row), col: String(e.col) }));
+}

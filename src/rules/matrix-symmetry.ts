@@ -8,14 +8,16 @@
  * mean (A + Aᵀ)/2 either way.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { toleranceOptionsSchema, type ToleranceOptions } from './tolerance-options.js';
+import { toleranceOptionsSchema, type ToleranceOptions } from './utils/tolerance-options.js';
 import type { MatrixSummary } from '../model/matrix-summary.js';
-import { outcome } from './outcome.js';
+import { ruleMessages } from './utils/outcome.js';
 
 const messages = {
   pass: 'K and M are symmetric (largest relative asymmetry {{measured}}, limit {{tolerance}}).',
+  matrix: '{{matrix}} ({{file}})',
   fail: '{{which}} is not symmetric: |a_ij − a_ji| / max|a| = {{measured}} at row {{row}}, column {{col}} exceeds {{tolerance}}.',
 };
+const { outcome, text } = ruleMessages(messages);
 
 export const matrixSymmetry: RuleDefinition<ToleranceOptions> = {
   id: 'matrix-symmetry',
@@ -34,9 +36,9 @@ export const matrixSymmetry: RuleDefinition<ToleranceOptions> = {
     const measured = s.maxRelativeAsymmetry;
     const details = { stiffness: context.stiffnessSummary.maxRelativeAsymmetry, mass: context.massSummary.maxRelativeAsymmetry };
     if (measured > o.tolerance) {
-      const values = { which: `${which} (${s.file})`, measured, row: s.asymmetryAt?.row ?? '?', col: s.asymmetryAt?.col ?? '?', tolerance: o.tolerance };
-      return outcome('fail', messages.fail, values, measured, o.tolerance, details);
+      const values = { which: text('matrix', { matrix: which, file: s.file }), measured, row: s.asymmetryAt?.row ?? '?', col: s.asymmetryAt?.col ?? '?', tolerance: o.tolerance };
+      return outcome('fail', 'fail', values, measured, o.tolerance, details);
     }
-    return outcome('pass', messages.pass, { measured, tolerance: o.tolerance }, measured, o.tolerance, details);
+    return outcome('pass', 'pass', { measured, tolerance: o.tolerance }, measured, o.tolerance, details);
   },
 };

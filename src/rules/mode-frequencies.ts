@@ -6,8 +6,8 @@
  * `mode` counts every solved mode from 1, rigid-body modes included.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
-import { formatList, formatNumber } from './message.js';
+import { ruleMessages } from './utils/outcome.js';
+import { formatList } from './utils/message.js';
 
 export interface ModeTarget {
   mode: number;
@@ -23,9 +23,11 @@ export interface ModeFrequenciesOptions {
 const messages = {
   pass: 'all {{count}} listed modes within tolerance (largest deviation {{worst}} % at mode {{worstMode}}).',
   fail: '{{bad}} of {{count}} listed modes outside tolerance: {{list}}.',
+  outside: 'mode {{mode}} at {{hz}} Hz vs {{targetHz}} Hz ({{deviationPercent}} %, limit ± {{tolerancePercent}} %)',
   missing: 'mode {{mode}} was listed but only {{solved}} modes were solved: solve more modes.',
   none: 'no target frequencies listed (set targets: [{ mode, hz }]).',
 };
+const { outcome, text } = ruleMessages(messages);
 
 export const modeFrequencies: RuleDefinition<ModeFrequenciesOptions> = {
   id: 'mode-frequencies',
@@ -54,11 +56,11 @@ export const modeFrequencies: RuleDefinition<ModeFrequenciesOptions> = {
   messages,
   needs: ['modes'],
   evaluate(context, o) {
-    if (o.targets.length === 0) return outcome('skip', messages.none, {});
+    if (o.targets.length === 0) return outcome('skip', 'none', {});
     const f = context.modes!.frequenciesHz;
     const rows = [];
     for (const t of o.targets) {
-      if (t.mode > f.length) return outcome('error', messages.missing, { mode: t.mode, solved: f.length });
+      if (t.mode > f.length) return outcome('error', 'missing', { mode: t.mode, solved: f.length });
       const hz = f[t.mode - 1];
       const deviationPercent = (100 * (hz - t.hz)) / t.hz;
       const tol = t.tolerancePercent ?? o.tolerancePercent;
@@ -70,10 +72,10 @@ export const modeFrequencies: RuleDefinition<ModeFrequenciesOptions> = {
     const measured = Math.abs(worst.deviationPercent);
     if (bad.length > 0) {
       const list = formatList(
-        bad.map((r) => `mode ${r.mode} at ${formatNumber(r.hz)} Hz vs ${formatNumber(r.targetHz)} Hz (${formatNumber(r.deviationPercent)} %, limit ± ${r.tolerancePercent} %)`),
+        bad.map((r) => text('outside', { mode: String(r.mode), hz: r.hz, targetHz: r.targetHz, deviationPercent: r.deviationPercent, tolerancePercent: String(r.tolerancePercent) })),
       );
-      return outcome('fail', messages.fail, { bad: bad.length, count: rows.length, list }, measured, o.tolerancePercent, details);
+      return outcome('fail', 'fail', { bad: bad.length, count: rows.length, list }, measured, o.tolerancePercent, details);
     }
-    return outcome('pass', messages.pass, { count: rows.length, worst: measured, worstMode: worst.mode }, measured, o.tolerancePercent, details);
+    return outcome('pass', 'pass', { count: rows.length, worst: measured, worstMode: worst.mode }, measured, o.tolerancePercent, details);
   },
 };

@@ -10,8 +10,8 @@
  * "> 0.9 consistent" is common practice, [CP]).
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
-import { formatList, formatNumber } from './message.js';
+import { ruleMessages } from './utils/outcome.js';
+import { formatList } from './utils/message.js';
 
 export interface ModeShapeMatchOptions {
   minMac: number;
@@ -22,9 +22,12 @@ export interface ModeShapeMatchOptions {
 const messages = {
   pass: '{{count}} paired mode shapes match the baseline (lowest MAC {{worst}} at baseline mode {{worstMode}}, limit {{limit}}).',
   fail: '{{bad}} of {{count}} paired mode shapes differ from the baseline (MAC below {{limit}}): {{list}}.',
+  differs: 'mode {{mode}}{{moved}} at MAC {{mac}}',
+  moved: ' (now mode {{mode}})',
   none: 'no paired modes to compare with the baseline.',
   notCompared: 'not evaluated: {{reason}}.',
 };
+const { outcome, text } = ruleMessages(messages);
 
 export const modeShapeMatch: RuleDefinition<ModeShapeMatchOptions> = {
   id: 'mode-shape-match',
@@ -42,10 +45,10 @@ export const modeShapeMatch: RuleDefinition<ModeShapeMatchOptions> = {
   needs: ['modes', 'baseline'],
   evaluate(context, o) {
     const c = context.comparison!;
-    if (c.shapesNotCompared !== null) return outcome('skip', messages.notCompared, { reason: c.shapesNotCompared });
+    if (c.shapesNotCompared !== null) return outcome('skip', 'notCompared', { reason: c.shapesNotCompared });
     const wanted = o.modes ? new Set(o.modes) : null;
     const checked = c.pairs.filter((p): p is typeof p & { correlation: number } => p.correlation !== null && (!wanted || wanted.has(p.baselineMode)));
-    if (checked.length === 0) return outcome('skip', messages.none, {});
+    if (checked.length === 0) return outcome('skip', 'none', {});
     const worst = checked.reduce((a, b) => (b.correlation < a.correlation ? b : a));
     const bad = checked.filter((p) => p.correlation < o.minMac);
     const details = {
@@ -55,9 +58,9 @@ export const modeShapeMatch: RuleDefinition<ModeShapeMatchOptions> = {
     };
     const values = { count: checked.length, limit: o.minMac };
     if (bad.length > 0) {
-      const list = formatList(bad.map((p) => `mode ${p.baselineMode}${p.currentMode === p.baselineMode ? '' : ` (now mode ${p.currentMode})`} at MAC ${formatNumber(p.correlation)}`));
-      return outcome('fail', messages.fail, { ...values, bad: bad.length, list }, worst.correlation, o.minMac, details);
+      const list = formatList(bad.map((p) => text('differs', { mode: String(p.baselineMode), moved: p.currentMode === p.baselineMode ? '' : text('moved', { mode: String(p.currentMode) }), mac: p.correlation })));
+      return outcome('fail', 'fail', { ...values, bad: bad.length, list }, worst.correlation, o.minMac, details);
     }
-    return outcome('pass', messages.pass, { ...values, worst: worst.correlation, worstMode: worst.baselineMode }, worst.correlation, o.minMac, details);
+    return outcome('pass', 'pass', { ...values, worst: worst.correlation, worstMode: worst.baselineMode }, worst.correlation, o.minMac, details);
   },
 };

@@ -11,7 +11,7 @@
  * (SturmCheck.ok), so `modalgate modes` and this rule agree.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
+import { ruleMessages } from './utils/outcome.js';
 
 const messages = {
   pass: 'Sturm count at σ = {{shift}} is {{countBelow}}, equal to the {{returned}} modes returned: no mode was missed.',
@@ -24,6 +24,7 @@ const messages = {
   extra: 'Sturm count at σ = {{shift}} is {{countBelow}} but {{returned}} modes were returned: the solver returned modes it cannot account for.',
   notOk: 'the solver could not confirm completeness with a Sturm count at σ = {{shift}} (count {{countBelow}}, {{returned}} modes returned).',
 };
+const { outcome, text } = ruleMessages(messages);
 
 export const modesComplete: RuleDefinition<Record<string, never>> = {
   id: 'modes-complete',
@@ -46,10 +47,10 @@ export const modesComplete: RuleDefinition<Record<string, never>> = {
       hz: c ? modes.frequenciesHz[c.requested - 1] : undefined,
     };
     const details = { shift: s.shift, countBelow: s.countBelow, modesReturned: s.modesReturned, ...(c ? { clusterExtension: c } : {}) };
-    if (s.countBelow > s.modesReturned) return outcome('fail', messages.missed, values, s.countBelow, s.modesReturned, details);
-    if (s.countBelow < s.modesReturned) return outcome('fail', messages.extra, values, s.countBelow, s.modesReturned, details);
-    if (!s.ok) return outcome('fail', messages.notOk, values, s.countBelow, s.modesReturned, details);
-    const pass = !c ? messages.pass : c.rigidBody ? messages.passRigidBody : messages.passCluster;
+    if (s.countBelow > s.modesReturned) return outcome('fail', 'missed', values, s.countBelow, s.modesReturned, details);
+    if (s.countBelow < s.modesReturned) return outcome('fail', 'extra', values, s.countBelow, s.modesReturned, details);
+    if (!s.ok) return outcome('fail', 'notOk', values, s.countBelow, s.modesReturned, details);
+    const pass = !c ? 'pass' : c.rigidBody ? 'passRigidBody' : 'passCluster';
     return outcome('pass', pass, values, s.countBelow, s.modesReturned, details);
   },
 };

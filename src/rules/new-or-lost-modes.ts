@@ -9,8 +9,8 @@
  */
 import type { RuleDefinition } from './rule-types.js';
 import type { UnpairedMode } from '../model/comparison-facts.js';
-import { outcome } from './outcome.js';
-import { formatList, formatNumber } from './message.js';
+import { ruleMessages } from './utils/outcome.js';
+import { formatList } from './utils/message.js';
 
 export interface NewOrLostModesOptions {
   maxNew: number;
@@ -20,8 +20,12 @@ export interface NewOrLostModesOptions {
 const messages = {
   notCompared: 'not evaluated: {{reason}}.',
   pass: 'every mode below {{rangeHz}} Hz has a partner in the baseline ({{newCount}} new, {{lostCount}} lost; allowed {{maxNew}} new, {{maxLost}} lost).',
-  fail: '{{what}} below {{rangeHz}} Hz without a partner: {{list}}.',
+  fail: '{{lost}} baseline mode(s) lost and {{added}} new mode(s) below {{rangeHz}} Hz without a partner: {{list}}.',
+  unpaired: '{{side}} mode {{mode}} at {{hz}} Hz ({{best}})',
+  bestPartner: 'best MAC {{mac}} with {{otherSide}} mode {{partner}}',
+  noPartner: 'no correlated mode',
 };
+const { outcome, text } = ruleMessages(messages);
 
 export const newOrLostModes: RuleDefinition<NewOrLostModesOptions> = {
   id: 'new-or-lost-modes',
@@ -36,7 +40,7 @@ export const newOrLostModes: RuleDefinition<NewOrLostModesOptions> = {
   needs: ['modes', 'baseline'],
   evaluate(context, o) {
     const c = context.comparison!;
-    if (c.shapesNotCompared !== null) return outcome('skip', messages.notCompared, { reason: c.shapesNotCompared });
+    if (c.shapesNotCompared !== null) return outcome('skip', 'notCompared', { reason: c.shapesNotCompared });
     const lost = c.lostModes.filter((m) => m.withinCompared);
     const added = c.newModes.filter((m) => m.withinCompared);
     const rangeHz = Math.min(c.baselineMaxHz, c.currentMaxHz);
@@ -47,15 +51,14 @@ export const newOrLostModes: RuleDefinition<NewOrLostModesOptions> = {
     };
     const measured = lost.length + added.length;
     if (lost.length <= o.maxLost && added.length <= o.maxNew) {
-      return outcome('pass', messages.pass, { rangeHz, newCount: added.length, lostCount: lost.length, maxNew: o.maxNew, maxLost: o.maxLost }, measured, o.maxNew + o.maxLost, details);
+      return outcome('pass', 'pass', { rangeHz, newCount: added.length, lostCount: lost.length, maxNew: o.maxNew, maxLost: o.maxLost }, measured, o.maxNew + o.maxLost, details);
     }
     const parts = [...lost.map((m) => describe('baseline', m)), ...added.map((m) => describe('new', m))];
-    const what = `${lost.length} baseline mode(s) lost and ${added.length} new mode(s)`;
-    return outcome('fail', messages.fail, { what, rangeHz: formatNumber(rangeHz), list: formatList(parts) }, measured, o.maxNew + o.maxLost, details);
+    return outcome('fail', 'fail', { lost: String(lost.length), added: String(added.length), rangeHz, list: formatList(parts) }, measured, o.maxNew + o.maxLost, details);
   },
 };
 
 function describe(side: 'baseline' | 'new', m: UnpairedMode): string {
-  const best = m.bestPartner === null ? 'no correlated mode' : `best MAC ${formatNumber(m.bestCorrelation)} with ${side === 'baseline' ? 'current' : 'baseline'} mode ${m.bestPartner}`;
-  return `${side === 'baseline' ? 'baseline' : 'new'} mode ${m.mode} at ${formatNumber(m.hz)} Hz (${best})`;
+  const best = m.bestPartner === null ? text('noPartner') : text('bestPartner', { mac: m.bestCorrelation, otherSide: side === 'baseline' ? 'current' : 'baseline', partner: String(m.bestPartner) });
+  return text('unpaired', { side, mode: String(m.mode), hz: m.hz, best });
 }

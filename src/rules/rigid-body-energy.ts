@@ -10,9 +10,9 @@
  * is grounded), down to 1 % of the largest residual (at most 10), each with its share of it.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
-import { geometryOrSkip, isOutcome } from './geometry-common.js';
-import { formatList } from './message.js';
+import { ruleMessages } from './utils/outcome.js';
+import { geometryMessages, geometryOrSkip, isOutcome } from './utils/geometry-common.js';
+import { formatList } from './utils/message.js';
 
 export interface RigidBodyEnergyOptions {
   maxRelativeEnergy: number;
@@ -21,10 +21,16 @@ export interface RigidBodyEnergyOptions {
 }
 
 const messages = {
+  ...geometryMessages,
   pass: 'rigid motions store at most {{measured}} of the reference energy (limit {{limit}}, reference: {{reference}}).',
   fail: 'rigid motion {{direction}} stores {{measured}} of the reference energy (limit {{limit}}): the model is grounded near {{where}}.',
+  referenceFirstElastic: '½ λ rᵀMr with λ = {{lambda}} of the first elastic mode',
+  referenceEstimate: '½ λ rᵀMr with λ = {{lambda}}, an upper estimate of the first elastic eigenvalue (no elastic mode solved)',
+  referenceTraces: '½ λ rᵀMr with λ = tr K / tr M = {{lambda}} (no elastic mode solved: a loose check)',
+  residual: 'node {{node}} {{component}} ({{percent}} %)',
   skipped: 'not evaluated: {{reason}}; rigid-body energy applies to free-free models (set onlyFreeFree: false to force it).',
 };
+const { outcome, text } = ruleMessages(messages);
 
 export const rigidBodyEnergy: RuleDefinition<RigidBodyEnergyOptions> = {
   id: 'rigid-body-energy',
@@ -43,16 +49,12 @@ export const rigidBodyEnergy: RuleDefinition<RigidBodyEnergyOptions> = {
   evaluate(context, o) {
     const g = geometryOrSkip(context);
     if (isOutcome(g)) return g;
-    if (o.onlyFreeFree && g.supported) return outcome('skip', messages.skipped, { reason: g.supported.reason });
+    if (o.onlyFreeFree && g.supported) return outcome('skip', 'skipped', { reason: g.supported.reason });
     const e = g.rigidBodyEnergy;
     const measured = Math.abs(e.maxRelativeEnergy);
     const lambda = e.referenceEigenvalue.toExponential(3);
-    const reference =
-      e.referenceSource === 'first-elastic-mode'
-        ? `½ λ rᵀMr with λ = ${lambda} of the first elastic mode`
-        : e.referenceSource === 'smooth-field-estimate'
-          ? `½ λ rᵀMr with λ = ${lambda}, an upper estimate of the first elastic eigenvalue (no elastic mode solved)`
-          : `½ λ rᵀMr with λ = tr K / tr M = ${lambda} (no elastic mode solved: a loose check)`;
+    const referenceId = e.referenceSource === 'first-elastic-mode' ? 'referenceFirstElastic' : e.referenceSource === 'smooth-field-estimate' ? 'referenceEstimate' : 'referenceTraces';
+    const reference = text(referenceId, { lambda });
     const details = {
       referenceEigenvalue: e.referenceEigenvalue,
       referenceSource: e.referenceSource,
@@ -62,12 +64,12 @@ export const rigidBodyEnergy: RuleDefinition<RigidBodyEnergyOptions> = {
     };
     const values = { measured, limit: o.maxRelativeEnergy, reference, direction: e.worstDirection ?? '-', where: suspects(e.largestResiduals) };
     const status = measured <= o.maxRelativeEnergy ? 'pass' : 'fail';
-    return outcome(status, status === 'pass' ? messages.pass : messages.fail, values, measured, o.maxRelativeEnergy, details);
+    return outcome(status, status, values, measured, o.maxRelativeEnergy, details);
   },
 };
 
 /** "node 18 uy (100 %) and node 5 ux (3 %)": residuals relative to the largest. */
 function suspects(list: readonly { node: number; component: string; normalizedResidual: number }[]): string {
   const top = list[0]?.normalizedResidual ?? 0;
-  return formatList(list.map((r) => `node ${r.node} ${r.component} (${top > 0 ? Math.round((100 * r.normalizedResidual) / top) : 0} %)`), 10);
+  return formatList(list.map((r) => text('residual', { node: String(r.node), component: r.component, percent: String(top > 0 ? Math.round((100 * r.normalizedResidual) / top) : 0) })), 10);
 }

@@ -13,6 +13,12 @@ export type RuleStatus = 'pass' | 'fail' | 'skip' | 'error';
 
 export interface RuleOutcome {
   status: RuleStatus;
+  /**
+   * Id of the rule's message template the outcome used (a key of its `messages`). Every outcome a
+   * rule returns has one (src/rules/utils/outcome.ts); results the engine makes itself (a missing
+   * input, a rule that threw) have none.
+   */
+  messageId?: string;
   /** One plain sentence, built from the rule's message template. */
   message: string;
   measured?: number | string | null;
@@ -38,13 +44,19 @@ export interface RuleContext {
 
 export type RuleNeed = 'modes' | 'dofMap' | 'baseline';
 
-export interface RuleDefinition<O extends object = Record<string, unknown>> {
+/**
+ * One rule. `O` is its options object; `Required` names the options without a default (the
+ * project must give them: listed in the schema's `required`, so the config loader refuses a
+ * config without them), which `defaults` then cannot hold.
+ */
+export interface RuleDefinition<O extends object = Record<string, unknown>, Required extends keyof O = never> {
   id: string;
   /** One line, shown by `modalgate rules`. */
   description: string;
   /** JSON Schema (draft 2020-12 subset ajv understands) of the options object. */
   optionsSchema: Record<string, unknown>;
-  defaults: O;
+  /** Every option except the required ones. */
+  defaults: Omit<O, Required>;
   /** Message templates with {{placeholders}}. */
   messages: Record<string, string>;
   /** Inputs the rule needs; when absent the engine records `skip` with the reason. */

@@ -4,14 +4,15 @@
  * is used by the solver's own orthogonality figure; 1e-6 mirrors the mass check ([CP]).
  */
 import type { RuleDefinition } from './rule-types.js';
-import { toleranceOptionsSchema, type ToleranceOptions } from './tolerance-options.js';
-import { outcome } from './outcome.js';
-import { modalProducts } from './modal-products.js';
+import { toleranceOptionsSchema, type ToleranceOptions } from './utils/tolerance-options.js';
+import { ruleMessages } from './utils/outcome.js';
+import { modalProducts } from './utils/modal-products.js';
 
 const messages = {
   pass: 'largest |φᵢᵀKφⱼ − λᵢδᵢⱼ| / max|λ| is {{measured}} (modes {{i}}, {{j}}), within {{tolerance}}.',
   fail: 'ΦᵀKΦ departs from diag(λ) at modes {{i}}, {{j}}: {{measured}} relative to max|λ| exceeds {{tolerance}}.',
 };
+const { outcome, text } = ruleMessages(messages);
 
 export const stiffnessOrthogonality: RuleDefinition<ToleranceOptions> = {
   id: 'stiffness-orthogonality',
@@ -43,6 +44,6 @@ export const stiffnessOrthogonality: RuleDefinition<ToleranceOptions> = {
     }
     const status = value <= o.tolerance ? 'pass' : 'fail';
     const values = { measured: value, i: bi + 1, j: bj + 1, tolerance: o.tolerance };
-    return outcome(status, messages[status], values, value, o.tolerance, { modes: [bi + 1, bj + 1], eigenvalueScale: scale });
+    return outcome(status, status, values, value, o.tolerance, { modes: [bi + 1, bj + 1], eigenvalueScale: scale });
   },
 };

@@ -9,9 +9,8 @@
  * beside it. Mass at DOFs the FE program removed before export is in neither.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { outcome } from './outcome.js';
-import { formatMessage } from './message.js';
-import { geometryOrSkip, isOutcome } from './geometry-common.js';
+import { ruleMessages } from './utils/outcome.js';
+import { geometryMessages, geometryOrSkip, isOutcome } from './utils/geometry-common.js';
 
 export interface TotalMassOptions {
   expected: number;
@@ -19,13 +18,16 @@ export interface TotalMassOptions {
 }
 
 const messages = {
+  ...geometryMessages,
   pass: 'total mass {{mass}} of the export{{kept}} is within {{tolerancePercent}} % of the expected {{expected}} ({{deviation}} %); {{note}}.',
   fail: 'total mass {{mass}} of the export{{kept}} differs from the expected {{expected}} by {{deviation}} % (allowed {{tolerancePercent}} %); {{note}}.',
   kept: ' ({{keptMass}} on the {{keptDofs}} solved DOFs, which mass participation uses)',
+  limit: '{{expected}} ± {{tolerancePercent}} %',
   note: 'mass at DOFs removed before export is not counted',
 };
+const { outcome, text } = ruleMessages(messages);
 
-export const totalMass: RuleDefinition<TotalMassOptions> = {
+export const totalMass: RuleDefinition<TotalMassOptions, 'expected'> = {
   id: 'total-mass',
   description: "The model's total mass lies within ± tolerancePercent of the expected value (model mass unit).",
   optionsSchema: {
@@ -37,7 +39,7 @@ export const totalMass: RuleDefinition<TotalMassOptions> = {
     required: ['expected'],
     additionalProperties: false,
   },
-  defaults: { tolerancePercent: 1 } as TotalMassOptions,
+  defaults: { tolerancePercent: 1 },
   messages,
   needs: ['dofMap'],
   evaluate(context, o) {
@@ -45,8 +47,8 @@ export const totalMass: RuleDefinition<TotalMassOptions> = {
     if (isOutcome(g)) return g;
     const mp = g.massProperties;
     const deviation = (100 * (mp.totalMass - o.expected)) / o.expected;
-    const kept = g.keptMass && g.constraints ? formatMessage(messages.kept, { keptMass: g.keptMass.totalMass, keptDofs: g.constraints.keptDofs }) : '';
-    const values = { mass: mp.totalMass, kept, expected: o.expected, deviation, tolerancePercent: o.tolerancePercent, note: messages.note };
+    const kept = g.keptMass && g.constraints ? text('kept', { keptMass: g.keptMass.totalMass, keptDofs: g.constraints.keptDofs }) : '';
+    const values = { mass: mp.totalMass, kept, expected: o.expected, deviation, tolerancePercent: o.tolerancePercent, note: text('note') };
     const details = {
       totalMass: mp.totalMass,
       translationalMass: mp.translationalMass,
@@ -54,9 +56,9 @@ export const totalMass: RuleDefinition<TotalMassOptions> = {
       keptMass: g.keptMass?.totalMass ?? mp.totalMass,
       keptDofs: g.constraints?.keptDofs ?? context.stiffness.n,
       exportedDofs: context.stiffnessSummary.n,
-      note: messages.note,
+      note: text('note'),
     };
     const status = Math.abs(deviation) <= o.tolerancePercent ? 'pass' : 'fail';
-    return outcome(status, status === 'pass' ? messages.pass : messages.fail, values, mp.totalMass, `${o.expected} ± ${o.tolerancePercent} %`, details);
+    return outcome(status, status, values, mp.totalMass, text('limit', { expected: String(o.expected), tolerancePercent: String(o.tolerancePercent) }), details);
   },
 };

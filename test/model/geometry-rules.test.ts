@@ -28,7 +28,7 @@ function contextOf(model: GeneratedModel, modes?: ModesResult, expectedRigidBody
   };
 }
 
-function run<O extends object>(rule: RuleDefinition<O>, context: RuleContext, options: Partial<O> = {}) {
+function run<O extends object>(rule: RuleDefinition<O, keyof O>, context: RuleContext, options: Partial<O> = {}) {
   return rule.evaluate(context, { ...rule.defaults, ...options } as O);
 }
 

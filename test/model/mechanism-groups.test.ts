@@ -42,7 +42,7 @@ function contextOf(model: Pick<GeneratedModel, 'stiffness' | 'mass' | 'dofMap'>,
   };
 }
 
-function run<O extends object>(rule: RuleDefinition<O>, context: RuleContext, options: Partial<O> = {}) {
+function run<O extends object>(rule: RuleDefinition<O, keyof O>, context: RuleContext, options: Partial<O> = {}) {
   return rule.evaluate(context, { ...rule.defaults, ...options } as O);
 }
 

@@ -10,7 +10,7 @@ import { describe, expect, it } from 'vitest';
 import { Matrix } from 'ml-matrix';
 import { chainContext, exactModes, fakeModes, springChain } from './fake-model.js';
 import { eigenResidual } from '../../src/rules/eigen-residual.js';
-import { modalProducts } from '../../src/rules/modal-products.js';
+import { modalProducts } from '../../src/rules/utils/modal-products.js';
 import { solveModes } from '../../src/eigen/solve-modes.js';
 import { symMultiplyBlock, symOneNorm } from '../../src/sparse/csc.js';
 import { readStiffnessAndMass } from '../../src/io/matrix-market-reader.js';

@@ -4,7 +4,8 @@ import { builtInRules, findRule, ruleIds } from '../../src/rules/registry.js';
 import type { RuleDefinition } from '../../src/rules/rule-types.js';
 import { InputError } from '../../src/io/errors.js';
 import { chainContext, exactModes, springChain } from './fake-model.js';
-import { formatMessage, formatNumber } from '../../src/rules/message.js';
+import { formatMessage, formatNumber } from '../../src/rules/utils/message.js';
+import { existsSync } from 'node:fs';
 
 const chain = springChain(4, 10, [1, 1, 1, 1], 5);
 
@@ -24,6 +25,22 @@ describe('registry', () => {
       expect(Object.keys(r.messages).length).toBeGreaterThan(0);
       expect(r.description.length).toBeGreaterThan(10);
     }
+  });
+  it('has one test file per rule, test/rules/<rule-id>.test.ts', () => {
+    const missing = ruleIds().filter((id) => !existsSync(new URL(`./${id}.test.ts`, import.meta.url)));
+    expect(missing).toEqual([]);
+  });
+  it('marks options without a default as required in the schema (the loader then refuses a config without them)', () => {
+    for (const r of builtInRules) {
+      const properties = Object.keys((r.optionsSchema.properties as object) ?? {});
+      const required = (r.optionsSchema.required as string[] | undefined) ?? [];
+      const defaults = r.defaults as Record<string, unknown>;
+      for (const key of required) expect(defaults, `${r.id}.${key}`).not.toHaveProperty(key);
+      for (const key of required) expect(properties, `${r.id}.${key}`).toContain(key);
+    }
+    expect(findRule('first-elastic-frequency')!.optionsSchema.required).toEqual(['minHz']);
+    expect(findRule('total-mass')!.optionsSchema.required).toEqual(['expected']);
+    expect(findRule('center-of-mass')!.optionsSchema.required).toEqual(['expected', 'maxDistance']);
   });
 });
 

@@ -10,7 +10,16 @@
  * no such gap (a supported model, or too few modes solved) the absolute cutoff is used instead.
  */
 
+import { ruleMessages } from './outcome.js';
+
 export type CutoffBasis = 'ratio' | 'hz';
+
+/** Templates of the cutoff phrase; rules that show it spread them into their own `messages`. */
+export const cutoffMessages = {
+  cutoffRatio: 'below {{ratio}} × the first elastic frequency ({{hz}} Hz)',
+  cutoffHz: 'below {{hz}} Hz',
+};
+const { text } = ruleMessages(cutoffMessages);
 
 export interface RigidBodyCutoffOptions {
   cutoffBasis: CutoffBasis;
@@ -60,7 +69,7 @@ export function splitRigidBodyModes(frequenciesHz: ArrayLike<number>, o: RigidBo
         cutoffHz,
         basis: 'ratio',
         fellBack: false,
-        phrase: `below ${o.cutoffRatio} × the first elastic frequency (${fmtHz(frequenciesHz[k])} Hz)`,
+        phrase: text('cutoffRatio', { ratio: String(o.cutoffRatio), hz: fmtHz(frequenciesHz[k]) }),
       };
     }
   }
@@ -73,7 +82,7 @@ export function splitRigidBodyModes(frequenciesHz: ArrayLike<number>, o: RigidBo
     cutoffHz: o.cutoffHz,
     basis: 'hz',
     fellBack: o.cutoffBasis === 'ratio',
-    phrase: `below ${o.cutoffHz} Hz`,
+    phrase: text('cutoffHz', { hz: String(o.cutoffHz) }),
   };
 }
 

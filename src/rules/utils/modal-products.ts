@@ -8,9 +8,9 @@
  * same numbers. A result made without the verification (a hand-made or loaded one) gets them
  * from the same function here, once, cached per result.
  */
-import { symOneNorm, type SymmetricCsc } from '../sparse/csc.js';
-import type { ModesResult } from '../eigen/modes-types.js';
-import { checkShapes } from '../eigen/verification.js';
+import { symOneNorm, type SymmetricCsc } from '../../sparse/csc.js';
+import type { ModesResult } from '../../eigen/modes-types.js';
+import { checkShapes } from '../../eigen/verification.js';
 
 export interface ModalProducts {
   modes: number;
