@@ -141,7 +141,7 @@ export function blockLanczos(search: EigenSearch): EigenSearchResult {
     const restartCapacity = capacityFor();
     const keepCount = Math.max(0, Math.min(keepZ.length + others.length, restartCapacity - 2 * b, wanted + KEPT_EXTRA_BLOCKS * b));
     const sKeep = orthonormalColumns(keepColumns(sz, keepZ, s, others, cycle.size, keepCount), cycle.size, keepCount);
-    cycle = restart(cycle, sKeep, keepCount, lastBlock, restartCapacity, n, op, locked, search, cycles);
+    cycle = restart(cycle, { sKeep, keep: keepCount, last: lastBlock, capacity: restartCapacity }, { search, locked, cycles });
     if (cycle.size === 0 && cycle.qCount === 0) break;
   }
   const converged = locked.count >= p;
@@ -334,18 +334,25 @@ function orthonormalColumns(s: Float64Array, m: number, k: number): Float64Array
 }
 
 /** Thick restart: V ← V S_keep, T ← S_keepᵀ T S_keep, coupling R (S_keep)_last; continue from Q. */
-function restart(
-  cycle: Cycle,
-  sKeep: Float64Array,
-  keep: number,
-  last: LastBlock,
-  capacity: number,
-  n: number,
-  op: EigenSearch['operator'],
-  locked: LockedSet,
-  search: EigenSearch,
-  cycles: number,
-): Cycle {
+/** What a thick restart keeps: V S_keep (keep columns) in a basis of `capacity` columns. */
+interface RestartPlan {
+  sKeep: Float64Array;
+  keep: number;
+  last: LastBlock;
+  capacity: number;
+}
+
+/** The search a cycle belongs to, with the pairs locked so far and the cycle number (a seed). */
+interface SearchState {
+  search: EigenSearch;
+  locked: LockedSet;
+  cycles: number;
+}
+
+function restart(cycle: Cycle, plan: RestartPlan, state: SearchState): Cycle {
+  const { sKeep, keep, last, capacity } = plan;
+  const { operator: op } = state.search;
+  const n = op.n;
   const m = cycle.size;
   const cap = Math.max(capacity, keep + 1);
   // V' = V S_keep, MV' = MV S_keep in place (row by row), in the same buffers when they are large enough
@@ -378,12 +385,14 @@ function restart(
     }
     next.coupling = c;
   }
-  if (next.qCount === 0) refill(next, n, op, locked, search, cycles);
+  if (next.qCount === 0) refill(next, state);
   return next;
 }
 
 /** The Krylov space closed (invariant subspace): continue with fresh vectors M-orthogonal to all. */
-function refill(cycle: Cycle, n: number, op: EigenSearch['operator'], locked: LockedSet, search: EigenSearch, seed: number): void {
+function refill(cycle: Cycle, { search, locked, cycles: seed }: SearchState): void {
+  const op = search.operator;
+  const n = op.n;
   const b = Math.max(1, Math.min(search.blockSize ?? DEFAULT_BLOCK_SIZE, cycle.capacity - cycle.size));
   if (cycle.capacity - cycle.size <= 0) return;
   const basis: MassBasis = { vectors: cycle.v.subarray(0, cycle.size * n), massVectors: cycle.mv.subarray(0, cycle.size * n), count: cycle.size };

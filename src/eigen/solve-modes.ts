@@ -58,6 +58,26 @@ interface Clock {
   verifyMs: number;
 }
 
+/** What every stage of one modes solve shares: the pencil, its factorizations and the bookkeeping. */
+interface SolveState {
+  stiffness: SymmetricCsc;
+  mass: SymmetricCsc;
+  request: ModesRequest;
+  method: 'lanczos' | 'subspace';
+  scale: DiagonalScale;
+  stiffnessNorm: number;
+  /** n minus the massless DOFs: an upper bound of rank(M), so of the finite eigenvalues. */
+  rankM: number;
+  /** |λ| at or below this is a rigid-body (zero) eigenvalue for cluster purposes. */
+  zero: number;
+  /** Factor K − σM (moved off an eigenvalue when σ sits on one), recording shift and time. */
+  factorAt(sigma: number): ShiftedFactor;
+  warnings: string[];
+  diagnostics: string[];
+  shifts: number[];
+  clock: Clock;
+}
+
 export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request: ModesRequest): ModesResult {
   const start = performance.now();
   const n = stiffness.n;
@@ -70,11 +90,23 @@ export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request:
   const shifts: number[] = [];
   const solver = createShiftedSolver(stiffness, mass, { coordinates: request.coordinates, memoryLimitBytes: request.memoryLimitBytes, extraBytes: besideFactorBytes(stiffness, mass, request) });
   const scale = diagonalScale(stiffness, mass);
-  const stiffnessNorm = symOneNorm(stiffness);
   const rankM = massRankBound(mass);
-  // |λ| at or below this is a rigid-body (zero) eigenvalue for cluster purposes
-  const zero = RIGID_BODY_FRACTION * scale.maxRatio;
   const factorAt = (sigma: number) => factorWithMove(solver, sigma, scale, warnings, shifts, clock);
+  const state: SolveState = {
+    stiffness,
+    mass,
+    request,
+    method,
+    scale,
+    stiffnessNorm: symOneNorm(stiffness),
+    rankM,
+    zero: RIGID_BODY_FRACTION * scale.maxRatio,
+    factorAt,
+    warnings,
+    diagnostics,
+    shifts,
+    clock,
+  };
 
   let cutoff: { factor: ShiftedFactor; count: number } | undefined;
   let wanted = request.count ?? 0;
@@ -94,15 +126,14 @@ export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request:
   }
   const firstChunk = Math.min(wanted, SLICE_SIZE);
   const solveAll = (): Solved => {
-    const lowest = solveAtGoodShift(stiffness, mass, solver, factorAt, scale, stiffnessNorm, rankM, firstChunk, method, request, warnings, diagnostics, clock);
+    const lowest = solveAtGoodShift(state, firstChunk);
     return wanted > firstChunk ? slice(lowest, wanted) : lowest;
   };
-  const slice = (from: Solved, upTo: number): Solved =>
-    sliceOnward(stiffness, mass, from, upTo, factorAt, stiffnessNorm, rankM, zero, method, request, warnings, clock);
+  const slice = (from: Solved, upTo: number): Solved => sliceOnward(state, from, upTo);
   let whole = solveAll();
   let clusterExtension: ClusterExtension | undefined;
   if (!cutoff) {
-    const extended = wholeCluster(whole, wanted, rankM, zero, slice);
+    const extended = wholeCluster(whole, wanted, rankM, state.zero, slice);
     whole = extended.solved;
     clusterExtension = extended.extension;
   }
@@ -110,10 +141,10 @@ export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request:
   const { found: solved, diagnostics: factorDiagnostics } = withoutFactor(whole);
   const t0 = performance.now();
   const factorBefore = clock.factorMs;
-  const checks = checkShapes(stiffness, mass, solved.values, solved.vectors, stiffnessNorm);
+  const checks = checkShapes(stiffness, mass, solved.values, solved.vectors, state.stiffnessNorm);
   const sturm = cutoff
     ? cutoffSturm(cutoff.factor, solved.values, warnings)
-    : gapSturm(solved, factorAt, zero, clusterExtension, warnings);
+    : gapSturm(solved, factorAt, state.zero, clusterExtension, warnings);
   clock.verifyMs += performance.now() - t0 - (clock.factorMs - factorBefore);
   const shortfall = incompleteness(solved.values, wanted, sturm.shift);
   if (shortfall) {
@@ -159,21 +190,8 @@ interface Solved {
   solves: number;
 }
 
-function solveAtGoodShift(
-  stiffness: SymmetricCsc,
-  mass: SymmetricCsc,
-  solver: ShiftedSolver,
-  factorAt: (sigma: number) => ShiftedFactor,
-  scale: DiagonalScale,
-  stiffnessNorm: number,
-  rankM: number,
-  wanted: number,
-  method: 'lanczos' | 'subspace',
-  request: ModesRequest,
-  warnings: string[],
-  diagnostics: string[],
-  clock: Clock,
-): Solved {
+function solveAtGoodShift(state: SolveState, wanted: number): Solved {
+  const { stiffness, mass, factorAt, scale, stiffnessNorm, rankM, method, request, warnings, diagnostics, clock } = state;
   let sigma = firstShiftGuess(scale);
   let factor = belowEverything(factorAt, sigma, warnings);
   sigma = factor.shift;
@@ -223,20 +241,8 @@ function solveAtGoodShift(
  * (deflation). Each slice's factorization both proves the previous slice complete and drives
  * the next solve.
  */
-function sliceOnward(
-  stiffness: SymmetricCsc,
-  mass: SymmetricCsc,
-  first: Solved,
-  wanted: number,
-  factorAt: (sigma: number) => ShiftedFactor,
-  stiffnessNorm: number,
-  rankM: number,
-  zero: number,
-  method: 'lanczos' | 'subspace',
-  request: ModesRequest,
-  warnings: string[],
-  clock: Clock,
-): Solved {
+function sliceOnward(state: SolveState, first: Solved, wanted: number): Solved {
+  const { stiffness, mass, factorAt, stiffnessNorm, rankM, zero, method, request, warnings, clock } = state;
   const n = stiffness.n;
   let values = Array.from(first.values);
   let vectors = first.vectors;
