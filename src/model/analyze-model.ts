@@ -19,7 +19,7 @@ import { MemoryLimitError } from '../sparse/memory-limit.js';
 import { IndefiniteMassError, type ModesRequest, type ModesResult } from '../eigen/modes-types.js';
 import { screenPencil } from './screen-pencil.js';
 import { fullNonzeros, type SymmetricCsc } from '../sparse/csc.js';
-import type { MatrixSummary } from './matrix-summary.js';
+import type { MatrixSummary } from '../io/matrix-summary.js';
 import type { RuleContext } from '../rules/rule-types.js';
 import { runRules, verdictOf, type RuleResult, type UnavailableInputs } from '../rules/engine.js';
 import type { ModelReport, ModeRow, ProblemReport, SolveReport } from '../report/report-types.js';

@@ -8,7 +8,7 @@ import { outcome } from './outcome.js';
 import { modeLocation } from '../model/mechanism-localization.js';
 import { formatMessage } from './message.js';
 import { sharesText } from './motion-text.js';
-import { cutoffDefaults, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from './rigid-body-split.js';
+import { cutoffDefaults, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from '../model/rigid-body-split.js';
 
 export interface FirstElasticFrequencyOptions extends RigidBodyCutoffOptions {
   minHz: number;

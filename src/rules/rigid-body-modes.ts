@@ -6,7 +6,7 @@
  */
 import type { RuleDefinition } from './rule-types.js';
 import { outcome } from './outcome.js';
-import { cutoffDefaults, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from './rigid-body-split.js';
+import { cutoffDefaults, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from '../model/rigid-body-split.js';
 import { mechanismLocation } from './geometry-common.js';
 import { formatMessage } from './message.js';
 import { mechanismGroupText, motionKindText, supportedNodesText } from './motion-text.js';

@@ -11,7 +11,7 @@ import { matrixSymmetry } from '../../src/rules/matrix-symmetry.js';
 import { matrixFinite } from '../../src/rules/matrix-finite.js';
 import { diagonalSanity } from '../../src/rules/diagonal-sanity.js';
 import { conditioning } from '../../src/rules/conditioning.js';
-import { cutoffDefaults, splitRigidBodyModes } from '../../src/rules/rigid-body-split.js';
+import { cutoffDefaults, splitRigidBodyModes } from '../../src/model/rigid-body-split.js';
 import { chainContext, cleanSummary, exactModes, lineDofMap, modesWithFrequencies, sparseFromDense, springChain } from './fake-model.js';
 
 const k = 1000;
