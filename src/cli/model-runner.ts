@@ -9,10 +9,10 @@
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import type { ConfigOverrides } from '../io/config-loader.js';
-import type { ModelJob } from '../io/config-types.js';
-import { analyzeModel, problemOf } from '../model/analyze-model.js';
-import { junitTimestamp, type ModelReport, type ProblemReport } from '../report/report-types.js';
+import type { ConfigOverrides } from '../pipeline/load-config.js';
+import type { ModelJob } from '../pipeline/job-types.js';
+import { analyzeModel, problemOf } from '../pipeline/analyze-model.js';
+import { junitTimestamp, type ModelReport, type ProblemReport } from '../pipeline/result-types.js';
 import type { ModelWorkerInput, ModelWorkerMessage, ModelWorkerRequest } from './model-worker.js';
 
 const workerFile = fileURLToPath(new URL('./model-worker.js', import.meta.url));

@@ -6,9 +6,9 @@
  * the rule modules (functions), which do not cross threads; the config is loaded once.
  */
 import { parentPort, workerData } from 'node:worker_threads';
-import { loadConfig, type ConfigOverrides } from '../io/config-loader.js';
-import type { LoadedConfig } from '../io/config-types.js';
-import { analyzeModel, problemOf } from '../model/analyze-model.js';
+import { loadConfig, type ConfigOverrides } from '../pipeline/load-config.js';
+import type { LoadedConfig } from '../pipeline/job-types.js';
+import { analyzeModel, problemOf } from '../pipeline/analyze-model.js';
 
 export interface ModelWorkerInput {
   configPath: string;

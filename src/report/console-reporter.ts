@@ -7,8 +7,8 @@
 import { Chalk, type ChalkInstance } from 'chalk';
 import type { RuleResult } from '../rules/engine.js';
 import { formatNumber } from '../rules/message.js';
-import type { CheckReport, ModelReport } from './report-types.js';
-import { ruleCounts } from './report-types.js';
+import type { CheckReport, ModelReport } from '../pipeline/result-types.js';
+import { ruleCounts } from '../pipeline/result-types.js';
 
 export interface ConsoleOptions {
   quiet?: boolean;

@@ -13,8 +13,8 @@ import type { RuleResult } from '../rules/engine.js';
 import { formatNumber } from '../rules/message.js';
 import type { ComparisonFacts } from '../model/comparison-facts.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
-import type { CheckReport, ModelReport } from './report-types.js';
-import { ruleCounts } from './report-types.js';
+import type { CheckReport, ModelReport } from '../pipeline/result-types.js';
+import { ruleCounts } from '../pipeline/result-types.js';
 import { barChart, escapeText as esc, heatMap, linearScale, logScale, stemChart, stepChart, valueScale, type ModeValue, type ReferenceLine } from './svg-plots.js';
 
 const VERDICT_WORD = { pass: 'PASS', fail: 'FAIL', error: 'ERROR' } as const;
@@ -65,9 +65,9 @@ function modelSection(m: ModelReport, i: number): string {
   out.push('<h3>Rule outcomes</h3>', ruleTable(m.rules));
   const plots = figures(m);
   if (plots.length > 0) out.push('<h3>Plots</h3>', ...plots);
-  const g = m.geometry as GeometryFacts | undefined;
+  const g = m.geometry;
   if (g) out.push(geometrySection(g));
-  const c = m.comparison as ComparisonFacts | undefined;
+  const c = m.comparison;
   if (c) out.push(comparisonSection(c));
   if (m.baselineSaved) out.push(`<p>Baseline saved: ${esc(m.baselineSaved.json)}</p>`);
   out.push('</section>');
@@ -196,7 +196,7 @@ function finite(x: unknown): number | undefined {
 function nearZeroCount(m: ModelReport): number {
   const count = finite(ruleNamed(m, 'rigid-body-modes')?.details?.count);
   if (count !== undefined) return count;
-  return (m.geometry as GeometryFacts | undefined)?.nearZeroModes ?? 0;
+  return (m.geometry)?.nearZeroModes ?? 0;
 }
 
 function frequencyPlot(m: ModelReport): Figure | null {
@@ -243,7 +243,7 @@ function residualPlot(m: ModelReport): Figure | null {
 }
 
 function effectiveMassPlot(m: ModelReport): Figure | null {
-  const p = (m.geometry as GeometryFacts | undefined)?.participation;
+  const p = (m.geometry)?.participation;
   if (!p || p.modes === 0) return null;
   const series = p.directions.map((d, k) => ({ label: d, slot: k, values: p.cumulativeFraction.map((row) => row[k]) })).filter((s) => s.values.some((v) => v !== null));
   if (series.length === 0) return null;
@@ -262,7 +262,7 @@ function effectiveMassPlot(m: ModelReport): Figure | null {
 }
 
 function macPlot(m: ModelReport): Figure | null {
-  const c = m.comparison as ComparisonFacts | undefined;
+  const c = m.comparison;
   if (!c || c.mac.rows === 0 || c.mac.cols === 0) return null;
   const rows = Math.min(c.mac.rows, MAX_MAC_SIDE), cols = Math.min(c.mac.cols, MAX_MAC_SIDE);
   const values: number[] = [];
@@ -278,7 +278,7 @@ function macPlot(m: ModelReport): Figure | null {
 }
 
 function driftPlot(m: ModelReport): Figure | null {
-  const c = m.comparison as ComparisonFacts | undefined;
+  const c = m.comparison;
   if (!c || c.pairs.length === 0) return null;
   const rule = ruleNamed(m, 'frequency-drift');
   const limit = evaluated(rule) ? finite(rule.limit) : undefined;

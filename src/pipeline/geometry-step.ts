@@ -11,14 +11,14 @@
  * InputError naming the config entry or the file (exit 2); a missing file is caught by the config
  * loader.
  */
-import type { ConstraintJob, ModelJob } from '../io/config-types.js';
+import type { ConstraintJob, ModelJob } from './job-types.js';
 import type { DofMap } from '../io/dof-map.js';
 import { readDofNumberFile } from '../io/dof-number-file.js';
 import type { SymmetricCsc } from '../sparse/csc.js';
 import type { RuleContext } from '../rules/rule-types.js';
-import { applyConstraints, type ConstraintSet, type ReducedModel } from './constraints.js';
-import { computeGeometry } from './compute-geometry.js';
-import type { GeometryFacts } from './geometry-facts.js';
+import { applyConstraints, type ConstraintSet, type ReducedModel } from '../model/constraints.js';
+import { computeGeometry } from '../model/compute-geometry.js';
+import type { GeometryFacts } from '../model/geometry-facts.js';
 
 export interface ConstrainedInput {
   stiffness: SymmetricCsc;

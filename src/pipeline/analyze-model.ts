@@ -9,7 +9,7 @@
  * failure leaves the matrix rules running and turns every rule that needs modes into `error`.
  */
 import { hostname } from 'node:os';
-import type { ModelJob } from '../io/config-types.js';
+import type { ModelJob } from './job-types.js';
 import { InputError, oneLineMessage } from '../io/errors.js';
 import type { DofMap } from '../io/dof-map.js';
 import { readStiffnessAndMass } from '../io/matrix-market-reader.js';
@@ -17,13 +17,13 @@ import { readDofMap } from '../io/dof-map-reader.js';
 import { solveModes } from '../eigen/solve-modes.js';
 import { MemoryLimitError } from '../sparse/memory-limit.js';
 import { IndefiniteMassError, type ModesRequest, type ModesResult } from '../eigen/modes-types.js';
-import { screenPencil } from './screen-pencil.js';
+import { screenPencil } from '../model/screen-pencil.js';
 import { fullNonzeros, type SymmetricCsc } from '../sparse/csc.js';
 import type { MatrixSummary } from '../io/matrix-summary.js';
 import type { RuleContext } from '../rules/rule-types.js';
 import { runRules, verdictOf, type RuleResult, type UnavailableInputs } from '../rules/engine.js';
-import type { ModelReport, ModeRow, ProblemReport, SolveReport } from '../report/report-types.js';
-import { junitTimestamp } from '../report/report-types.js';
+import type { ModelReport, ModeRow, ProblemReport, SolveReport } from './result-types.js';
+import { junitTimestamp } from './result-types.js';
 import { runBaselineComparison, runBaselineSave } from './baseline-step.js';
 import { applyConstraintStep, runGeometryStep } from './geometry-step.js';
 

@@ -13,13 +13,13 @@
  * model's problem (exit 2) beside the rules.
  */
 import { existsSync, statSync } from 'node:fs';
-import type { BaselineJob, ModelJob } from '../io/config-types.js';
+import type { BaselineJob, ModelJob } from './job-types.js';
 import { InputError, oneLineMessage } from '../io/errors.js';
 import { packageVersion } from '../io/package-root.js';
 import type { RuleContext } from '../rules/rule-types.js';
 import type { UnavailableInputs } from '../rules/engine.js';
-import { baselineJsonFile, loadBaseline, saveBaseline, type SavedBaselineFiles } from './baseline-store.js';
-import { compareWithBaseline, defaultComparisonSettings } from './compare-baseline.js';
+import { baselineJsonFile, loadBaseline, saveBaseline, type SavedBaselineFiles } from '../model/baseline-store.js';
+import { compareWithBaseline, defaultComparisonSettings } from '../model/compare-baseline.js';
 
 export interface BaselineCompareResult {
   /** Why no comparison was made although one was asked for (shown as a warning). */
