@@ -13,7 +13,7 @@ import type { LoadedConfig, ModelJob } from '../pipeline/job-types.js';
 import { InputError } from '../io/errors.js';
 import { removeTempFiles, writeFileAtomic } from '../io/atomic-write.js';
 import { packageVersion } from '../io/package-root.js';
-import { currentHostname, problemOf } from '../pipeline/analyze-model.js';
+import { currentHostname, problemOf, stackOf } from '../pipeline/analyze-model.js';
 import { clearStoppedSave } from '../model/baseline-store.js';
 import { CAUTION, junitTimestamp, runVerdict, type CheckReport, type ModelReport, type ProblemReport } from '../pipeline/result-types.js';
 import { formatJunit } from '../report/junit-reporter.js';
@@ -21,8 +21,8 @@ import { formatJson } from '../report/json-reporter.js';
 import { formatConsole } from '../report/console-reporter.js';
 import { formatMarkdown } from '../report/markdown.js';
 import { formatHtml } from '../report/html-reporter.js';
-import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, runAction } from './run-action.js';
-import { ModelRunner, type RunningModel } from './model-runner.js';
+import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, debugging, printDebugStack, runAction } from './run-action.js';
+import { ModelRunner, type RunningModel } from '../pipeline/model-runner.js';
 import { DEFAULT_MEMORY_SHARE, defaultMemoryLimitBytes, parseMemorySize, parseSeconds } from './limits.js';
 
 /** Exit codes after SIGINT and SIGTERM (128 + the signal's number, the shells' convention). */
@@ -104,7 +104,8 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
     for (const job of selectModels(config, opts.model)) {
       if (signals?.received) break;
       const onProgress = progressPrinter(job.name);
-      const running = runner.run(job, { timeLimitMs: opts.timeLimit !== undefined ? opts.timeLimit * 1000 : undefined, onProgress });
+      const timeLimitMs = opts.timeLimit !== undefined ? opts.timeLimit * 1000 : undefined;
+      const running = runner.run(job, { timeLimitMs, onProgress, onCaughtErrorStack: debugging() ? printDebugStack : undefined });
       if (signals) signals.current = running;
       const result = await running.report;
       models.push(result);
@@ -114,6 +115,7 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
       if (onProgress) process.stderr.write('\r\x1b[K');
     }
   } catch (e) {
+    printDebugStack(stackOf(e));
     problem = problemOf(e);
   }
   await runner?.close();

@@ -104,6 +104,11 @@ export function problemOf(e: unknown): ProblemReport {
   return { kind: 'internal', message: oneLineMessage(e) };
 }
 
+/** The stack trace of an exception (its text when it has none), for MODALGATE_DEBUG. */
+export function stackOf(e: unknown): string {
+  return e instanceof Error && e.stack ? e.stack : String(e);
+}
+
 function notEvaluated(ruleId: string, description: string, severity: RuleResult['severity'], options: Record<string, unknown>, why: string): RuleResult {
   return { ruleId, description, severity, options, status: 'skip', message: `not evaluated: ${why}.`, timeMs: 0 };
 }
