@@ -12,6 +12,7 @@
  */
 import type { RuleResult } from '../rules/engine.js';
 import { formatNumber } from '../rules/message.js';
+import { flaggedModes as flaggedModesOf } from '../pipeline/rule-details.js';
 import type { ComparisonFacts, ModePair } from '../model/comparison-facts.js';
 import type { CheckReport, ModelReport } from '../pipeline/result-types.js';
 
@@ -117,8 +118,7 @@ function flaggedModes(rules: RuleResult[]): { baseline: Map<number, string[]>; c
   for (const r of rules) {
     const label = FLAG_LABEL[r.ruleId];
     if (!label || r.status !== 'fail') continue;
-    const list = (r.details?.flagged ?? []) as { baselineMode?: number; currentMode?: number }[];
-    for (const f of list) {
+    for (const f of flaggedModesOf(r)) {
       if (f.baselineMode !== undefined) baseline.set(f.baselineMode, [...(baseline.get(f.baselineMode) ?? []), label]);
       else if (f.currentMode !== undefined) current.set(f.currentMode, [...(current.get(f.currentMode) ?? []), label]);
     }
