@@ -12,10 +12,10 @@ import { loadConfig } from '../pipeline/load-config.js';
 import type { LoadedConfig, ModelJob } from '../pipeline/job-types.js';
 import { InputError } from '../io/errors.js';
 import { removeTempFiles, writeFileAtomic } from '../io/atomic-write.js';
-import { packageVersion } from '../io/package-root.js';
-import { currentHostname, problemOf, stackOf } from '../pipeline/analyze-model.js';
+import { problemOf, stackOf } from '../pipeline/analyze-model.js';
+import { checkReport } from '../pipeline/check-report.js';
 import { clearStoppedSave } from '../model/baseline-store.js';
-import { CAUTION, junitTimestamp, runVerdict, type CheckReport, type ModelReport, type ProblemReport } from '../pipeline/result-types.js';
+import type { CheckReport, ModelReport, ProblemReport } from '../pipeline/result-types.js';
 import { formatJunit } from '../report/junit-reporter.js';
 import { formatJson } from '../report/json-reporter.js';
 import { formatConsole } from '../report/console-reporter.js';
@@ -120,17 +120,7 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   }
   await runner?.close();
   if (signals?.received) problem = interruptedProblem(signals.received, models.length, config?.models.length);
-  const report: CheckReport = {
-    tool: { name: 'modalgate', version: packageVersion() },
-    configPath,
-    timestamp: junitTimestamp(started),
-    timeMs: performance.now() - t0,
-    hostname: currentHostname(),
-    verdict: runVerdict(models, problem),
-    caution: CAUTION,
-    models,
-    problem,
-  };
+  const report = checkReport({ configPath, started, timeMs: performance.now() - t0, models, problem });
   const targets = {
     junit: cliPaths.junit ?? config?.reports.junit ?? (config ? undefined : bestEffortReportPath(configPath, 'junit')),
     json: cliPaths.json ?? config?.reports.json ?? (config ? undefined : bestEffortReportPath(configPath, 'json')),

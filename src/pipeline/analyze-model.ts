@@ -12,7 +12,6 @@
  * `problem` (exit 2, JUnit <error>); a solver failure leaves the matrix rules running and turns
  * every rule that needs modes into `error`. Nothing here prints.
  */
-import { hostname } from 'node:os';
 import { InputError, oneLineMessage } from '../io/errors.js';
 import { MemoryLimitError } from '../sparse/memory-limit.js';
 import { screenPencil } from '../model/screen-pencil.js';
@@ -111,12 +110,4 @@ export function stackOf(e: unknown): string {
 
 function notEvaluated(ruleId: string, description: string, severity: RuleResult['severity'], options: Record<string, unknown>, why: string): RuleResult {
   return { ruleId, description, severity, options, status: 'skip', message: `not evaluated: ${why}.`, timeMs: 0 };
-}
-
-export function currentHostname(): string {
-  try {
-    return hostname() || 'localhost';
-  } catch {
-    return 'localhost';
-  }
 }
