@@ -93,7 +93,7 @@ export function readRuleSetFile(path: string): RawRuleSet {
   return raw as RawRuleSet;
 }
 
-export function validateAgainst(schemaFile: string, value: unknown, file: string, base: string): void {
+function validateAgainst(schemaFile: string, value: unknown, file: string, base: string): void {
   const validate = schemaValidator(schemaFile);
   if (value === null || value === undefined) throw new InputError(file, 'is empty: expected a mapping of keys to values');
   if (validate(value)) return;
