@@ -7,21 +7,22 @@
 import { existsSync, statSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import type { Command } from 'commander';
-import { findConfig, loadConfig, checkWritableTarget, readStructuredFile } from '../io/config-loader.js';
-import type { LoadedConfig, ModelJob } from '../io/config-types.js';
+import { findConfig, checkWritableTarget, readStructuredFile } from '../io/config-loader.js';
+import { loadConfig } from '../pipeline/load-config.js';
+import type { LoadedConfig, ModelJob } from '../pipeline/job-types.js';
 import { InputError } from '../io/errors.js';
 import { removeTempFiles, writeFileAtomic } from '../io/atomic-write.js';
-import { packageVersion } from '../io/package-root.js';
-import { currentHostname, problemOf } from '../model/analyze-model.js';
+import { problemOf, stackOf } from '../pipeline/analyze-model.js';
+import { checkReport } from '../pipeline/check-report.js';
 import { clearStoppedSave } from '../model/baseline-store.js';
-import { CAUTION, junitTimestamp, runVerdict, type CheckReport, type ModelReport, type ProblemReport } from '../report/report-types.js';
+import type { CheckReport, ModelReport, ProblemReport } from '../pipeline/result-types.js';
 import { formatJunit } from '../report/junit-reporter.js';
 import { formatJson } from '../report/json-reporter.js';
 import { formatConsole } from '../report/console-reporter.js';
 import { formatMarkdown } from '../report/markdown.js';
 import { formatHtml } from '../report/html-reporter.js';
-import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, runAction } from './run-action.js';
-import { ModelRunner, type RunningModel } from './model-runner.js';
+import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, debugging, printDebugStack, runAction } from './run-action.js';
+import { ModelRunner, type RunningModel } from '../pipeline/model-runner.js';
 import { DEFAULT_MEMORY_SHARE, defaultMemoryLimitBytes, parseMemorySize, parseSeconds } from './limits.js';
 
 /** Exit codes after SIGINT and SIGTERM (128 + the signal's number, the shells' convention). */
@@ -103,7 +104,8 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
     for (const job of selectModels(config, opts.model)) {
       if (signals?.received) break;
       const onProgress = progressPrinter(job.name);
-      const running = runner.run(job, { timeLimitMs: opts.timeLimit !== undefined ? opts.timeLimit * 1000 : undefined, onProgress });
+      const timeLimitMs = opts.timeLimit !== undefined ? opts.timeLimit * 1000 : undefined;
+      const running = runner.run(job, { timeLimitMs, onProgress, onCaughtErrorStack: debugging() ? printDebugStack : undefined });
       if (signals) signals.current = running;
       const result = await running.report;
       models.push(result);
@@ -113,21 +115,12 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
       if (onProgress) process.stderr.write('\r\x1b[K');
     }
   } catch (e) {
+    printDebugStack(stackOf(e));
     problem = problemOf(e);
   }
   await runner?.close();
   if (signals?.received) problem = interruptedProblem(signals.received, models.length, config?.models.length);
-  const report: CheckReport = {
-    tool: { name: 'modalgate', version: packageVersion() },
-    configPath,
-    timestamp: junitTimestamp(started),
-    timeMs: performance.now() - t0,
-    hostname: currentHostname(),
-    verdict: runVerdict(models, problem),
-    caution: CAUTION,
-    models,
-    problem,
-  };
+  const report = checkReport({ configPath, started, timeMs: performance.now() - t0, models, problem });
   const targets = {
     junit: cliPaths.junit ?? config?.reports.junit ?? (config ? undefined : bestEffortReportPath(configPath, 'junit')),
     json: cliPaths.json ?? config?.reports.json ?? (config ? undefined : bestEffortReportPath(configPath, 'json')),

@@ -10,7 +10,7 @@ import type { Command } from 'commander';
 import { packageRoot } from '../io/package-root.js';
 import { runCheck } from './check.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, runAction } from './run-action.js';
-import type { CheckReport } from '../report/report-types.js';
+import type { CheckReport } from '../pipeline/result-types.js';
 
 /** Model → rules that are meant to fail in the demo. */
 export const INTENDED_FAILURES: Record<string, string[]> = {

@@ -9,7 +9,7 @@ import { readMatrixMarket } from '../io/matrix-market-reader.js';
 import { readDofMap } from '../io/dof-map-reader.js';
 import { describeDof, type DofMap } from '../io/dof-map.js';
 import { InputError } from '../io/errors.js';
-import type { MatrixSummary } from '../model/matrix-summary.js';
+import type { MatrixSummary } from '../io/matrix-summary.js';
 import { EXIT_PASS, runAction } from './run-action.js';
 
 export interface InspectOptions {

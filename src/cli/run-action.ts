@@ -5,6 +5,16 @@ export const EXIT_PASS = 0;
 export const EXIT_RULE_FAILED = 1;
 export const EXIT_BAD_INPUT = 2;
 
+/** MODALGATE_DEBUG is set (non-empty): show the stack trace of every error a command catches. */
+export function debugging(): boolean {
+  return Boolean(process.env.MODALGATE_DEBUG);
+}
+
+/** Under MODALGATE_DEBUG, a caught error's stack trace on stderr; otherwise nothing. */
+export function printDebugStack(stack: string): void {
+  if (debugging()) process.stderr.write(`${stack}\n`);
+}
+
 /**
  * Wrap a command's action: whatever it throws becomes one stderr line and exit code 2,
  * never a stack trace (set MODALGATE_DEBUG=1 to see the trace).
@@ -17,7 +27,7 @@ export function runAction<A extends unknown[]>(
     try {
       code = await action(...args);
     } catch (e) {
-      if (process.env.MODALGATE_DEBUG && e instanceof Error) process.stderr.write(`${e.stack}\n`);
+      if (debugging() && e instanceof Error) process.stderr.write(`${e.stack}\n`);
       process.stderr.write(`modalgate: ${oneLineMessage(e)}\n`);
       code = EXIT_BAD_INPUT;
     }

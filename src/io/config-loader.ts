@@ -1,23 +1,18 @@
 /**
- * Load and check a modalgate config: find it, parse YAML or JSON, validate against
- * rules/schema/config.schema.json, resolve paths relative to the config file, load the rule sets,
- * and merge each rule's options (rule defaults ← rule sets in order ← `defaults.rules` ← the
- * model's `rules`), validating every layer against the rule's own options schema.
- * Every defect is an InputError naming the file and the path inside it.
+ * Config and rule-set files: find the config, parse YAML or JSON, validate against the JSON
+ * Schemas of rules/schema/. Every defect is an InputError naming the file and the path inside it.
+ * Turning a parsed config into model jobs (rule sets, rule options, paths) is the pipeline's
+ * (src/pipeline/load-config.ts).
  */
 import { existsSync, readFileSync, statSync } from 'node:fs';
-import { dirname, isAbsolute, join, resolve } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import { parseDocument } from 'yaml';
 import { Ajv2020, type ValidateFunction } from 'ajv/dist/2020.js';
 import { InputError } from './errors.js';
 import { packageRoot } from './package-root.js';
 import { describeSchemaError, pickError } from './config-errors.js';
-import { CONFIG_FILE_NAMES, DEFAULT_MODE_COUNT, type BaselineJob, type LoadedConfig, type ModelJob, type RawConfig, type RawModelConfig, type RawRuleEntry, type RawRuleSet } from './config-types.js';
-import { builtInRules, findRule, ruleIds, type AnyRule } from '../rules/registry.js';
-import type { ResolvedRule } from '../rules/engine.js';
-import type { Severity } from '../rules/rule-types.js';
+import { CONFIG_FILE_NAMES, type RawConfig, type RawRuleSet } from './config-types.js';
 
-const SEVERITIES: Severity[] = ['error', 'warning', 'off'];
 
 const ajv = new Ajv2020({ allErrors: true, strict: false, verbose: true });
 const schemaCache = new Map<string, ValidateFunction>();
@@ -84,29 +79,18 @@ export function readStructuredFile(path: string): unknown {
   }
 }
 
-/** Command-line settings that override the config: baseline directories (absolute). */
-export interface ConfigOverrides {
-  baselineDir?: string;
-  saveBaselineDir?: string;
-  /** --max-memory, bytes, handed to every model's solve. */
-  memoryLimitBytes?: number;
-}
-
-/** Load, validate and resolve the config at `path`. */
-export function loadConfig(path: string, overrides: ConfigOverrides = {}): LoadedConfig {
+/** The config at `path`, parsed and checked against rules/schema/config.schema.json. */
+export function readConfigFile(path: string): RawConfig {
   const raw = readStructuredFile(path);
   validateAgainst('config.schema.json', raw, path, '');
-  const config = raw as RawConfig;
-  const dir = dirname(path);
-  const reports = {
-    junit: reportPath(config.reports?.junit, dir, path, 'reports.junit'),
-    json: reportPath(config.reports?.json, dir, path, 'reports.json'),
-    html: reportPath(config.reports?.html, dir, path, 'reports.html'),
-  };
-  checkUniqueNames(config.models, path);
-  const models = config.models.map((m, i) => resolveModel(config, m, i, path, dir, overrides));
-  checkEveryModelHasRules(config, models, path);
-  return { path, dir, reports, models };
+  return raw as RawConfig;
+}
+
+/** A rule-set file, parsed and checked against rules/schema/rule-set.schema.json. */
+export function readRuleSetFile(path: string): RawRuleSet {
+  const raw = readStructuredFile(path);
+  validateAgainst('rule-set.schema.json', raw, path, '');
+  return raw as RawRuleSet;
 }
 
 function validateAgainst(schemaFile: string, value: unknown, file: string, base: string): void {
@@ -119,22 +103,6 @@ function validateAgainst(schemaFile: string, value: unknown, file: string, base:
   throw new InputError(file, reason, { where });
 }
 
-function checkUniqueNames(models: RawModelConfig[], file: string): void {
-  const seen = new Map<string, number>();
-  models.forEach((m, i) => {
-    const j = seen.get(m.name);
-    if (j !== undefined) throw new InputError(file, `duplicate model name "${m.name}" (also models[${j}].name); names must be unique`, { where: `models[${i}].name` });
-    seen.set(m.name, i);
-  });
-}
-
-function reportPath(value: string | undefined, dir: string, file: string, where: string): string | undefined {
-  if (value === undefined) return undefined;
-  const p = resolve(dir, value);
-  checkWritableTarget(p, file, where);
-  return p;
-}
-
 /** A report target must not be a directory, and its nearest existing ancestor must be a directory. */
 export function checkWritableTarget(p: string, file: string, where?: string): void {
   if (existsSync(p) && statSync(p).isDirectory()) throw new InputError(file, `report path ${p} is a directory; give a file name`, { where });
@@ -142,96 +110,6 @@ export function checkWritableTarget(p: string, file: string, where?: string): vo
   // climb to the first existing ancestor
   while (!existsSync(up) && dirname(up) !== up) up = dirname(up);
   if (!statSync(up).isDirectory()) throw new InputError(file, `report path ${p} is inside ${up}, which is a file, not a folder`, { where });
-}
-
-function resolveModel(config: RawConfig, m: RawModelConfig, i: number, file: string, dir: string, overrides: ConfigOverrides = {}): ModelJob {
-  const where = `models[${i}]`;
-  const d = config.defaults ?? {};
-  if (m.count !== undefined && m.maxHz !== undefined) throw new InputError(file, 'give either count or maxHz, not both', { where: `${where}.maxHz` });
-  if (d.count !== undefined && d.maxHz !== undefined) throw new InputError(file, 'give either count or maxHz, not both', { where: 'defaults.maxHz' });
-  const ownsForm = m.count !== undefined || m.maxHz !== undefined;
-  const count = ownsForm ? m.count : d.count;
-  const maxHz = ownsForm ? m.maxHz : d.maxHz;
-  const ruleSets = m.ruleSets ?? d.ruleSets ?? [];
-  const ruleSetWhere = m.ruleSets ? `${where}.ruleSets` : 'defaults.ruleSets';
-  const baseline = resolveBaseline(config, m, where, file, dir, overrides);
-  // a baseline to compare with turns on the regression rules (at their defaults) under every other layer
-  const layers: RuleLayer[] = baseline?.compareDir !== undefined ? baselineRuleLayers(file) : [];
-  ruleSets.forEach((name, k) => layers.push(...loadRuleSetLayers(name, dir, file, `${ruleSetWhere}[${k}]`)));
-  if (d.rules) layers.push(...overrideLayers(d.rules, file, 'defaults.rules'));
-  if (m.rules) layers.push(...overrideLayers(m.rules, file, `${where}.rules`));
-  const job: ModelJob = {
-    name: m.name,
-    stiffnessPath: existingFile(m.stiffness, dir, file, `${where}.stiffness`),
-    massPath: existingFile(m.mass, dir, file, `${where}.mass`),
-    dofsPath: m.dofs !== undefined ? existingFile(m.dofs, dir, file, `${where}.dofs`) : undefined,
-    solve: {
-      count: count ?? (maxHz === undefined ? DEFAULT_MODE_COUNT : undefined),
-      maxHz,
-      method: m.method ?? d.method,
-      tolerance: m.tolerance ?? d.tolerance,
-      memoryLimitBytes: overrides.memoryLimitBytes,
-    },
-    rules: resolveRules(layers, file, `${where}.rules`),
-    ruleSets,
-    configPath: file,
-    where,
-    constraints: (m.constraints ?? []).map(({ dofsFile, ...set }, k) => {
-      const dofsPath = dofsFile === undefined ? undefined : existingFile(dofsFile, dir, file, `${where}.constraints[${k}].dofsFile`);
-      return { ...set, dofsPath };
-    }),
-    baseline,
-  };
-  return job;
-}
-
-/** A model that runs no rule would pass with "0/0 rules passed": refuse it instead. */
-function checkEveryModelHasRules(config: RawConfig, models: ModelJob[], file: string): void {
-  models.forEach((job, i) => {
-    if (job.rules.length > 0) return;
-    const listsSome = job.ruleSets.length > 0 || config.models[i].rules !== undefined || config.defaults?.rules !== undefined;
-    throw new InputError(file, noRulesReason(job.name, listsSome), { where: job.where });
-  });
-}
-
-function noRulesReason(model: string, listsSome: boolean): string {
-  const why = listsSome ? 'its rule sets and rules leave every rule off' : 'it lists no rule sets and no rules (and defaults gives none)';
-  return `model "${model}" has no rule to run: ${why}; a check without rules proves nothing, so add ruleSets (e.g. [supported] or [free-free]) or rules to it or to defaults`;
-}
-
-/** Top-level `baseline` merged with the model's own, paths resolved; command-line directories win. */
-function resolveBaseline(config: RawConfig, m: RawModelConfig, where: string, file: string, dir: string, overrides: ConfigOverrides): BaselineJob | undefined {
-  if (!config.baseline && !m.baseline && overrides.baselineDir === undefined && overrides.saveBaselineDir === undefined) return undefined;
-  const { dir: rawDir, ...settings } = { ...config.baseline, ...m.baseline };
-  const at = m.baseline?.dir !== undefined ? `${where}.baseline.dir` : 'baseline.dir';
-  let compareDir = overrides.baselineDir;
-  if (compareDir === undefined && rawDir !== undefined) {
-    compareDir = resolve(dir, rawDir);
-    // a missing directory is no error (the baseline rules skip with a warning); a file is
-    if (existsSync(compareDir) && !statSync(compareDir).isDirectory()) throw new InputError(file, `baseline directory is a file: ${compareDir}`, { where: at });
-  }
-  return { ...settings, compareDir, saveDir: overrides.saveBaselineDir, where: m.baseline ? `${where}.baseline` : 'baseline' };
-}
-
-/** Every rule that needs a baseline, at severity error with its default options. */
-function baselineRuleLayers(file: string): RuleLayer[] {
-  return builtInRules.filter((r) => r.needs.includes('baseline')).map((r) => ({ ruleId: r.id, severity: 'error' as const, options: {}, file, where: 'baseline' }));
-}
-
-function existingFile(value: string, dir: string, file: string, where: string): string {
-  const p = isAbsolute(value) ? value : resolve(dir, value);
-  if (!existsSync(p)) throw new InputError(file, `file not found: ${p}`, { where });
-  if (statSync(p).isDirectory()) throw new InputError(file, `${p} is a directory, not a file`, { where });
-  return p;
-}
-
-/** One source of rule settings: where it was written and what it says. */
-interface RuleLayer {
-  ruleId: string;
-  severity?: Severity;
-  options: Record<string, unknown>;
-  file: string;
-  where: string;
 }
 
 /** A built-in name (rules/<name>.yaml) or a path relative to the config. */
@@ -246,117 +124,4 @@ export function resolveRuleSetPath(name: string, dir: string): string | null {
 
 export function builtInRuleSetNames(): string[] {
   return ['free-free', 'supported', 'handoff-audit'];
-}
-
-function loadRuleSetLayers(name: string, dir: string, file: string, where: string): RuleLayer[] {
-  const p = resolveRuleSetPath(name, dir);
-  if (p === null) {
-    const builtIn = /[\\/]/.test(name) || /\.(ya?ml|json)$/.test(name) ? `file not found: ${resolve(dir, name)}` : `unknown rule set "${name}" (built-in rule sets: ${builtInRuleSetNames().join(', ')}; or give a path to your own file)`;
-    throw new InputError(file, builtIn, { where });
-  }
-  try {
-    const raw = readStructuredFile(p);
-    validateAgainst('rule-set.schema.json', raw, p, '');
-    return overrideLayers((raw as RawRuleSet).rules, p, 'rules');
-  } catch (e) {
-    if (!(e instanceof InputError) || e.file === file) throw e;
-    // name the config that pulled the rule set in, too
-    throw new InputError(e.file, `${e.reason} (rule set listed at ${where} in ${file})`, { line: e.line, where: e.where });
-  }
-}
-
-function overrideLayers(rules: Record<string, RawRuleEntry>, file: string, base: string): RuleLayer[] {
-  return Object.entries(rules).map(([ruleId, entry]) => {
-    const where = `${base}.${ruleId}`;
-    const rule = findRule(ruleId);
-    if (!rule) throw new InputError(file, `unknown rule "${ruleId}"${suggest(ruleId)} (run \`modalgate rules\` for the list)`, { where });
-    if (typeof entry === 'string') {
-      if (!SEVERITIES.includes(entry)) throw new InputError(file, `must be one of: ${SEVERITIES.join(', ')} (or a mapping of options)`, { where });
-      return { ruleId, severity: entry, options: {}, file, where };
-    }
-    if (entry === null || typeof entry !== 'object' || Array.isArray(entry)) throw new InputError(file, `must be a severity (${SEVERITIES.join(', ')}) or a mapping of options`, { where });
-    const { severity, ...options } = entry;
-    if (severity !== undefined && !SEVERITIES.includes(severity)) throw new InputError(file, `must be one of: ${SEVERITIES.join(', ')}`, { where: `${where}.severity` });
-    checkOptions(rule, options, false, file, where);
-    return { ruleId, severity, options, file, where };
-  });
-}
-
-/** Merge the layers of every mentioned rule, drop rules that end up `off`, validate the result. */
-function resolveRules(layers: RuleLayer[], configFile: string, modelRulesWhere: string): ResolvedRule[] {
-  const out: ResolvedRule[] = [];
-  for (const rule of builtInRules) {
-    const mine = layers.filter((l) => l.ruleId === rule.id);
-    if (mine.length === 0) continue;
-    let severity: Severity = 'error';
-    let options: Record<string, unknown> = structuredClone(rule.defaults) as Record<string, unknown>;
-    for (const l of mine) {
-      if (l.severity !== undefined) severity = l.severity;
-      options = mergeOptions(rule, options, l.options);
-    }
-    if (severity === 'off') continue;
-    checkOptions(rule, options, true, configFile, `${modelRulesWhere}.${rule.id}`);
-    out.push({ rule, severity, options });
-  }
-  return out;
-}
-
-/** upper wins; keys of an exclusive group that `upper` does not use are dropped when it uses another. */
-export function mergeOptions(rule: AnyRule, lower: Record<string, unknown>, upper: Record<string, unknown>): Record<string, unknown> {
-  const merged = { ...lower };
-  for (const group of rule.exclusiveOptions ?? []) {
-    if (!group.some((k) => k in upper)) continue;
-    for (const other of rule.exclusiveOptions ?? []) {
-      if (other !== group) for (const k of other) delete merged[k];
-    }
-  }
-  return { ...merged, ...upper };
-}
-
-const optionValidators = new Map<string, ValidateFunction>();
-
-/** Validate options with the rule's schema; `complete` false checks one layer (no required keys). */
-function checkOptions(rule: AnyRule, options: Record<string, unknown>, complete: boolean, file: string, where: string): void {
-  const key = `${rule.id}:${complete}`;
-  let validate = optionValidators.get(key);
-  if (!validate) {
-    const schema = { ...rule.optionsSchema };
-    if (!complete) {
-      delete schema.required;
-      delete schema.anyOf;
-      delete schema.oneOf;
-    }
-    validate = ajv.compile(schema);
-    optionValidators.set(key, validate);
-  }
-  if (validate(options)) return;
-  const errors = validate.errors ?? [];
-  const { where: at, reason } = describeSchemaError(pickError(errors), where, errors);
-  const hint = complete && errors.some((e) => e.keyword === 'required') ? ': set it in the config for this model (the rule set leaves it to you)' : '';
-  throw new InputError(file, reason + hint, { where: at });
-}
-
-function suggest(id: string): string {
-  let best = '';
-  let bestDistance = Infinity;
-  for (const known of ruleIds()) {
-    const d = editDistance(id, known);
-    if (d < bestDistance) {
-      bestDistance = d;
-      best = known;
-    }
-  }
-  return bestDistance <= 3 ? ` (did you mean "${best}"?)` : '';
-}
-
-/** Levenshtein distance by the usual two-row dynamic programme. */
-function editDistance(a: string, b: string): number {
-  let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
-  // row i holds distances from a[0..i) to every prefix of b
-  for (let i = 1; i <= a.length; i++) {
-    const row = [i];
-    for (let j = 1; j <= b.length; j++) row[j] = Math.min(prev[j] + 1, row[j - 1] + 1, prev[j - 1] + (a[i - 1] === b[j - 1] ? 0 : 1));
-    prev = row;
-  }
-  return prev[b.length];
 }

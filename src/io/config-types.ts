@@ -1,14 +1,18 @@
 /**
  * The config file `modalgate.yaml` / `modalgate.json` as written by the user (`RawConfig`, checked
- * against rules/schema/config.schema.json) and as the check command uses it (`LoadedConfig`:
- * absolute paths, every rule's options merged and validated).
+ * against rules/schema/config.schema.json). The pipeline turns it into model jobs
+ * (src/pipeline/job-types.ts: absolute paths, every rule's options merged and validated).
  */
-import type { ResolvedRule } from '../rules/engine.js';
-import type { Severity } from '../rules/rule-types.js';
-import type { ComponentSelector, ConstraintSet } from '../model/constraints.js';
+import type { COMPONENTS } from './dof-map.js';
+
+/** A rule's severity as written: `error` fails the gate, `warning` reports without failing, `off` does not run. */
+export type RawSeverity = 'error' | 'warning' | 'off';
+
+/** Component selectors accepted in a constraint set. */
+export type ComponentSelector = (typeof COMPONENTS)[number] | 'all' | 'translations' | 'rotations';
 
 /** A rule entry in a rule set or override: a severity, or options with an optional severity. */
-export type RawRuleEntry = Severity | ({ severity?: Severity } & Record<string, unknown>);
+export type RawRuleEntry = RawSeverity | ({ severity?: RawSeverity } & Record<string, unknown>);
 
 export interface RawSolveSettings {
   count?: number;
@@ -39,11 +43,6 @@ export interface RawConstraintSet {
   dofsFile?: string;
 }
 
-/** A constraint set with its DOF-number file (if any) as an absolute, existing path. */
-export interface ConstraintJob extends ConstraintSet {
-  dofsPath?: string;
-}
-
 export interface RawConfig {
   $schema?: string;
   reports?: { junit?: string; json?: string; html?: string };
@@ -70,68 +69,11 @@ export interface RawBaselineConfig {
   repeatedTolerancePercent?: number;
 }
 
-/** The baseline settings of one model, resolved (absolute paths). */
-export interface BaselineJob {
-  /** Compare with the baseline of this model in this directory. */
-  compareDir?: string;
-  /** Save this run's snapshot of the model into this directory (`check --save-baseline`). */
-  saveDir?: string;
-  shapes?: RawBaselineConfig['shapes'];
-  maxDofs?: number;
-  weighting?: 'mass' | 'plain';
-  minPairMac?: number;
-  windowPercent?: number;
-  repeatedTolerancePercent?: number;
-  /** Where the settings were written (`baseline` or `models[2].baseline`), for messages. */
-  where: string;
-}
-
 export interface RawRuleSet {
   $schema?: string;
   name?: string;
   description?: string;
   rules: Record<string, RawRuleEntry>;
 }
-
-/** What to solve for one model (the eigen layer's ModesRequest without the callbacks). */
-export interface SolveSettings {
-  /** Set from the command line (--max-memory), not from the config file. */
-  memoryLimitBytes?: number;
-  count?: number;
-  maxHz?: number;
-  method?: 'lanczos' | 'subspace';
-  tolerance?: number;
-}
-
-/** One model, ready for src/model/analyze-model.ts. Paths are absolute. */
-export interface ModelJob {
-  name: string;
-  stiffnessPath: string;
-  massPath: string;
-  dofsPath?: string;
-  solve: SolveSettings;
-  /** Enabled rules (severity error or warning), in registry order. */
-  rules: ResolvedRule[];
-  /** Rule sets applied, as written in the config. */
-  ruleSets: string[];
-  /** The config file and the model's place in it, for error messages (`models[2]`). */
-  configPath: string;
-  where: string;
-  /** Constraint sets of the model entry, in config order (empty: none). */
-  constraints: ConstraintJob[];
-  /** Baseline comparison / saving for this model, when configured or asked for on the command line. */
-  baseline?: BaselineJob;
-}
-
-export interface LoadedConfig {
-  path: string;
-  dir: string;
-  /** Absolute report paths from the config (command-line options override them). */
-  reports: { junit?: string; json?: string; html?: string };
-  models: ModelJob[];
-}
-
-/** Solve this many modes when a model sets neither count nor maxHz (our choice). */
-export const DEFAULT_MODE_COUNT = 20;
 
 export const CONFIG_FILE_NAMES = ['modalgate.yaml', 'modalgate.yml', 'modalgate.json'] as const;

@@ -42,9 +42,5 @@ export function memoryBudgetBytes(): number {
   return budget;
 }
 
-/** "12.3 GB" (decimal units: 1 GB = 10⁹ bytes). */
-export function formatBytes(bytes: number): string {
-  if (bytes >= 1e9) return `${(bytes / 1e9).toFixed(1)} GB`;
-  if (bytes >= 1e6) return `${(bytes / 1e6).toFixed(1)} MB`;
-  return `${Math.round(bytes / 1e3)} kB`;
-}
+/** One byte format for the readers' messages and --max-memory (src/sparse/memory-limit.ts). */
+export { formatBytes } from '../sparse/memory-limit.js';

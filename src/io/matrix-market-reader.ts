@@ -33,8 +33,8 @@ import { formatBytes, memoryBudgetBytes, readingBytes, solvingBytes } from './ma
 import { scan, scanUnsigned, skipBlanks } from './number-scan.js';
 import { assembleSymmetricInPlace } from '../sparse/assemble.js';
 import type { SymmetricCsc } from '../sparse/csc.js';
-import { summarizeMatrix } from '../model/matrix-checks.js';
-import type { MatrixSummary } from '../model/matrix-summary.js';
+import { summarizeMatrix } from './matrix-checks.js';
+import type { MatrixSummary } from './matrix-summary.js';
 
 export const DEFAULT_ASYMMETRY_TOLERANCE = 1e-10;
 

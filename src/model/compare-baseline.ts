@@ -27,7 +27,7 @@
 import type { ModesResult } from '../eigen/modes-types.js';
 import type { DofMap } from '../io/dof-map.js';
 import type { SymmetricCsc } from '../sparse/csc.js';
-import { cutoffDefaults, splitRigidBodyModes } from '../rules/utils/rigid-body-split.js';
+import { cutoffDefaults, splitRigidBodyModes } from './rigid-body-split.js';
 import type { LoadedBaseline } from './baseline-store.js';
 import { principalSubmatrix } from '../sparse/permute.js';
 import { macFromProducts, principalAngleCosines, restrictRows, shapeProducts, subspaceShare, type ShapeProducts } from './mac.js';

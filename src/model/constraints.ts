@@ -10,9 +10,9 @@ import type { SymmetricCsc } from '../sparse/csc.js';
 import { principalSubmatrix } from '../sparse/permute.js';
 import { COMPONENTS, type DofMap } from '../io/dof-map.js';
 import { InputError } from '../io/errors.js';
+import type { ComponentSelector } from '../io/config-types.js';
 
-/** Component selectors accepted in a constraint set. */
-export type ComponentSelector = (typeof COMPONENTS)[number] | 'all' | 'translations' | 'rotations';
+export type { ComponentSelector };
 
 export interface ConstraintSet {
   /** Name shown in reports (e.g. "base clamp"). */

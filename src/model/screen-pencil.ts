@@ -17,7 +17,7 @@
  * Each reason names the file, so the CLI can print one line and exit 2.
  */
 import type { SymmetricCsc } from '../sparse/csc.js';
-import type { MatrixSummary } from './matrix-summary.js';
+import type { MatrixSummary } from '../io/matrix-summary.js';
 
 export interface PencilBlocker {
   /** The file at fault. */

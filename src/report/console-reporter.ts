@@ -7,8 +7,9 @@
 import { Chalk, type ChalkInstance } from 'chalk';
 import type { RuleResult } from '../rules/engine.js';
 import { formatNumber } from '../rules/utils/message.js';
-import type { CheckReport, ModelReport } from './report-types.js';
-import { ruleCounts } from './report-types.js';
+import type { CheckReport, ModelReport } from '../pipeline/result-types.js';
+import { ruleCounts } from '../pipeline/result-types.js';
+import { firstElasticDetails, rigidBodyModeCount } from '../pipeline/rule-details.js';
 
 export interface ConsoleOptions {
   quiet?: boolean;
@@ -63,12 +64,10 @@ function modelLine(m: ModelReport, c: ChalkInstance): string {
 }
 
 function firstElastic(m: ModelReport): number | null {
-  for (const id of ['first-elastic-frequency', 'rigid-body-modes']) {
-    const r = m.rules.find((x) => x.ruleId === id);
-    const d = r?.details as { frequencyHz?: number; count?: number } | undefined;
-    if (id === 'first-elastic-frequency' && typeof d?.frequencyHz === 'number') return d.frequencyHz;
-    if (id === 'rigid-body-modes' && typeof d?.count === 'number' && m.modes && d.count < m.modes.length) return m.modes[d.count].frequencyHz;
-  }
+  const frequencyHz = firstElasticDetails(m.rules.find((x) => x.ruleId === 'first-elastic-frequency')).frequencyHz;
+  if (frequencyHz !== undefined) return frequencyHz;
+  const count = rigidBodyModeCount(m.rules.find((x) => x.ruleId === 'rigid-body-modes'));
+  if (count !== undefined && m.modes && count < m.modes.length) return m.modes[count].frequencyHz;
   return null;
 }
 

@@ -13,8 +13,9 @@ import type { RuleResult } from '../rules/engine.js';
 import { formatNumber } from '../rules/utils/message.js';
 import type { ComparisonFacts } from '../model/comparison-facts.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
-import type { CheckReport, ModelReport } from './report-types.js';
-import { ruleCounts } from './report-types.js';
+import type { CheckReport, ModelReport } from '../pipeline/result-types.js';
+import { ruleCounts } from '../pipeline/result-types.js';
+import { firstElasticDetails, flaggedModes, participationDetails, relativeResiduals, rigidBodyModeCount } from '../pipeline/rule-details.js';
 import { barChart, escapeText as esc, heatMap, linearScale, logScale, stemChart, stepChart, valueScale, type ModeValue, type ReferenceLine } from './svg-plots.js';
 
 const VERDICT_WORD = { pass: 'PASS', fail: 'FAIL', error: 'ERROR' } as const;
@@ -65,9 +66,9 @@ function modelSection(m: ModelReport, i: number): string {
   out.push('<h3>Rule outcomes</h3>', ruleTable(m.rules));
   const plots = figures(m);
   if (plots.length > 0) out.push('<h3>Plots</h3>', ...plots);
-  const g = m.geometry as GeometryFacts | undefined;
+  const g = m.geometry;
   if (g) out.push(geometrySection(g));
-  const c = m.comparison as ComparisonFacts | undefined;
+  const c = m.comparison;
   if (c) out.push(comparisonSection(c));
   if (m.baselineSaved) out.push(`<p>Baseline saved: ${esc(m.baselineSaved.json)}</p>`);
   out.push('</section>');
@@ -194,9 +195,9 @@ function finite(x: unknown): number | undefined {
 
 /** Leading modes the report counts as rigid-body / near-zero: rigid-body-modes' count, else the geometry facts'. */
 function nearZeroCount(m: ModelReport): number {
-  const count = finite(ruleNamed(m, 'rigid-body-modes')?.details?.count);
+  const count = rigidBodyModeCount(ruleNamed(m, 'rigid-body-modes'));
   if (count !== undefined) return count;
-  return (m.geometry as GeometryFacts | undefined)?.nearZeroModes ?? 0;
+  return m.geometry?.nearZeroModes ?? 0;
 }
 
 function frequencyPlot(m: ModelReport): Figure | null {
@@ -207,7 +208,7 @@ function frequencyPlot(m: ModelReport): Figure | null {
   const rule = ruleNamed(m, 'first-elastic-frequency');
   const lines: ReferenceLine[] = [];
   if (evaluated(rule)) {
-    const minHz = finite(rule.details?.minHz), maxHz = finite(rule.details?.maxHz);
+    const { minHz, maxHz } = firstElasticDetails(rule);
     if (minHz !== undefined) lines.push({ value: minHz, label: `first elastic ≥ ${formatNumber(minHz)} Hz` });
     if (maxHz !== undefined) lines.push({ value: maxHz, label: `first elastic ≤ ${formatNumber(maxHz)} Hz` });
   }
@@ -224,7 +225,7 @@ function frequencyPlot(m: ModelReport): Figure | null {
 
 function residualPlot(m: ModelReport): Figure | null {
   const rule = ruleNamed(m, 'eigen-residual');
-  const fromRule = Array.isArray(rule?.details?.relativeResiduals) ? (rule.details.relativeResiduals as number[]) : undefined;
+  const fromRule = relativeResiduals(rule);
   const residuals = fromRule ?? m.modes?.map((r) => r.residual);
   if (!residuals || residuals.length === 0) return null;
   const limit = fromRule && evaluated(rule) ? finite(rule.limit) : undefined;
@@ -243,7 +244,7 @@ function residualPlot(m: ModelReport): Figure | null {
 }
 
 function effectiveMassPlot(m: ModelReport): Figure | null {
-  const p = (m.geometry as GeometryFacts | undefined)?.participation;
+  const p = m.geometry?.participation;
   if (!p || p.modes === 0) return null;
   const series = p.directions.map((d, k) => ({ label: d, slot: k, values: p.cumulativeFraction.map((row) => row[k]) })).filter((s) => s.values.some((v) => v !== null));
   if (series.length === 0) return null;
@@ -253,16 +254,16 @@ function effectiveMassPlot(m: ModelReport): Figure | null {
   const svg = stepChart({ title: 'Cumulative effective mass', yLabel: 'fraction of the mass', modes: p.modes, series, y: linearScale(0, 1), lines });
   const parts = ['Effective mass of the solved modes summed up to each mode, as a fraction of the mass (of the inertia, for rotations) in each direction; translations solid, rotations dashed'];
   if (limit !== undefined) {
-    const dirs = Array.isArray(rule!.options.directions) ? ` in ${(rule!.options.directions as string[]).join(', ')}` : '';
+    const { directions, modesConsidered: considered } = participationDetails(rule);
+    const dirs = directions ? ` in ${directions.join(', ')}` : '';
     parts.push(`dashed red: the fraction mass-participation requires${dirs}`);
-    const considered = finite(rule!.details?.modesConsidered);
     if (considered !== undefined && considered < p.modes) parts.push(`the rule counts the first ${considered} modes`);
   }
   return { svg, caption: `${parts.join('; ')}.` };
 }
 
 function macPlot(m: ModelReport): Figure | null {
-  const c = m.comparison as ComparisonFacts | undefined;
+  const c = m.comparison;
   if (!c || c.mac.rows === 0 || c.mac.cols === 0) return null;
   const rows = Math.min(c.mac.rows, MAX_MAC_SIDE), cols = Math.min(c.mac.cols, MAX_MAC_SIDE);
   const values: number[] = [];
@@ -278,12 +279,11 @@ function macPlot(m: ModelReport): Figure | null {
 }
 
 function driftPlot(m: ModelReport): Figure | null {
-  const c = m.comparison as ComparisonFacts | undefined;
+  const c = m.comparison;
   if (!c || c.pairs.length === 0) return null;
   const rule = ruleNamed(m, 'frequency-drift');
   const limit = evaluated(rule) ? finite(rule.limit) : undefined;
-  const flaggedList = (rule?.status === 'fail' ? rule.details?.flagged : undefined) as { baselineMode?: number }[] | undefined;
-  const flagged = new Set((flaggedList ?? []).map((f) => f.baselineMode));
+  const flagged = new Set((rule?.status === 'fail' ? flaggedModes(rule) : []).map((f) => f.baselineMode));
   const bars = c.pairs.map((p) => ({ label: p.baselineMode === p.currentMode ? String(p.baselineMode) : `${p.baselineMode}→${p.currentMode}`, value: p.changePercent, flagged: flagged.has(p.baselineMode) }));
   const shown = [0, ...bars.map((b) => b.value).filter((v): v is number => v !== null && Number.isFinite(v)), ...(limit !== undefined ? [limit, -limit] : [])];
   const y = linearScale(Math.min(...shown), Math.max(...shown));

@@ -3,7 +3,7 @@
  * shapes, each rule's outcome with measured value, limit and details), with a schema version so
  * later tools (HTML report, baseline comparison) can read it. Non-finite numbers become strings.
  */
-import type { CheckReport } from './report-types.js';
+import type { CheckReport } from '../pipeline/result-types.js';
 
 export const JSON_REPORT_VERSION = 1;
 

@@ -18,8 +18,8 @@
 import { XMLBuilder } from 'fast-xml-parser';
 import type { RuleResult } from '../rules/engine.js';
 import { formatNumber } from '../rules/utils/message.js';
-import type { CheckReport, ModelReport, ProblemReport } from './report-types.js';
-import { CAUTION, ruleCounts } from './report-types.js';
+import type { CheckReport, ModelReport, ProblemReport } from '../pipeline/result-types.js';
+import { CAUTION, ruleCounts } from '../pipeline/result-types.js';
 import { junitSeconds, xmlAttribute, xmlSafe } from './xml-text.js';
 
 type XmlNode = Record<string, unknown>;

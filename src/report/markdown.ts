@@ -12,8 +12,9 @@
  */
 import type { RuleResult } from '../rules/engine.js';
 import { formatNumber } from '../rules/utils/message.js';
+import { flaggedModes as flaggedModesOf } from '../pipeline/rule-details.js';
 import type { ComparisonFacts, ModePair } from '../model/comparison-facts.js';
-import type { CheckReport, ModelReport } from './report-types.js';
+import type { CheckReport, ModelReport } from '../pipeline/result-types.js';
 
 export interface MarkdownOptions {
   /** Show every mode of the comparison, not only the flagged ones. */
@@ -44,7 +45,7 @@ function modelSection(m: ModelReport, options: MarkdownOptions): string[] {
   const failing = m.rules.filter((r) => r.status === 'fail' || r.status === 'error');
   for (const r of failing) out.push(`- \`${r.ruleId}\` ${r.status === 'error' ? 'error' : r.severity === 'warning' ? 'warning' : 'failed'}: ${inline(r.message)}`);
   if (failing.length > 0) out.push('');
-  const facts = m.comparison as ComparisonFacts | undefined;
+  const facts = m.comparison;
   if (facts) out.push(...comparisonTable(facts, m.rules, options));
   const skipped = m.rules.find((r) => r.ruleId in FLAG_LABEL && r.status === 'skip');
   if (!facts && skipped) out.push(`No baseline comparison: ${inline(skipped.message.replace(/^not evaluated: /, ''))}`, '');
@@ -117,8 +118,7 @@ function flaggedModes(rules: RuleResult[]): { baseline: Map<number, string[]>; c
   for (const r of rules) {
     const label = FLAG_LABEL[r.ruleId];
     if (!label || r.status !== 'fail') continue;
-    const list = (r.details?.flagged ?? []) as { baselineMode?: number; currentMode?: number }[];
-    for (const f of list) {
+    for (const f of flaggedModesOf(r)) {
       if (f.baselineMode !== undefined) baseline.set(f.baselineMode, [...(baseline.get(f.baselineMode) ?? []), label]);
       else if (f.currentMode !== undefined) current.set(f.currentMode, [...(current.get(f.currentMode) ?? []), label]);
     }

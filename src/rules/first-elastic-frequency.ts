@@ -7,7 +7,7 @@ import type { RuleDefinition } from './rule-types.js';
 import { ruleMessages } from './utils/outcome.js';
 import { modeLocation } from '../model/mechanism-localization.js';
 import { motionMessages, sharesText } from './utils/motion-text.js';
-import { cutoffDefaults, cutoffMessages, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from './utils/rigid-body-split.js';
+import { cutoffDefaults, cutoffMessages, cutoffPhrase, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from './utils/rigid-body-split.js';
 
 export interface FirstElasticFrequencyOptions extends RigidBodyCutoffOptions {
   minHz: number;
@@ -47,7 +47,7 @@ export const firstElasticFrequency: RuleDefinition<FirstElasticFrequencyOptions,
     const f = context.modes!.frequenciesHz;
     const split = splitRigidBodyModes(f, o);
     if (split.firstElasticIndex === null) {
-      return outcome('error', 'none', { count: f.length, phrase: split.phrase }, null, o.minHz);
+      return outcome('error', 'none', { count: f.length, phrase: cutoffPhrase(split) }, null, o.minHz);
     }
     const hz = f[split.firstElasticIndex];
     const values = {

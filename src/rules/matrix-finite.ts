@@ -8,7 +8,7 @@
  * results would be meaningless); `inspect` and `modes` still refuse non-finite values.
  */
 import type { RuleDefinition } from './rule-types.js';
-import type { MatrixSummary } from '../model/matrix-summary.js';
+import type { MatrixSummary } from '../io/matrix-summary.js';
 import { ruleMessages } from './utils/outcome.js';
 
 const messages = {

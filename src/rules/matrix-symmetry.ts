@@ -9,7 +9,7 @@
  */
 import type { RuleDefinition } from './rule-types.js';
 import { toleranceOptionsSchema, type ToleranceOptions } from './utils/tolerance-options.js';
-import type { MatrixSummary } from '../model/matrix-summary.js';
+import type { MatrixSummary } from '../io/matrix-summary.js';
 import { ruleMessages } from './utils/outcome.js';
 
 const messages = {

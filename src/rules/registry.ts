@@ -53,7 +53,6 @@ export const builtInRules: readonly AnyRule[] = [
   modeSwap,
   newOrLostModes,
   massDrift,
-  // geometry rules (rigid-body-energy, total-mass, ...) and baseline rules (frequency-drift, ...) go here
 ];
 
 const byId = new Map(builtInRules.map((r) => [r.id, r]));

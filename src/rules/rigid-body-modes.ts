@@ -7,7 +7,7 @@
 import type { RuleDefinition } from './rule-types.js';
 import { ruleMessages } from './utils/outcome.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
-import { cutoffDefaults, cutoffMessages, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from './utils/rigid-body-split.js';
+import { cutoffDefaults, cutoffMessages, cutoffPhrase, cutoffSchemaProperties, splitRigidBodyModes, type RigidBodyCutoffOptions } from './utils/rigid-body-split.js';
 import { formatList } from './utils/message.js';
 import { mechanismGroupText, motionKindText, motionMessages, shareText, supportedNodesText } from './utils/motion-text.js';
 import { localizeNearZeroModesByDof } from '../model/mechanism-localization.js';
@@ -66,7 +66,7 @@ export const rigidBodyModes: RuleDefinition<RigidBodyModesOptions> = {
     const expectation = o.expected !== undefined ? String(o.expected) : hi === Infinity ? text('expectAtLeast', { min: String(lo) }) : text('expectRange', { min: String(lo), max: String(hi) });
     const frequencies = Array.from(f.subarray(0, split.count));
     const details = { count: split.count, cutoffHz: split.cutoffHz, basis: split.basis, fellBack: split.fellBack, rigidBodyFrequenciesHz: frequencies };
-    const values = { count: split.count, modesWord: split.count === 1 ? 'mode' : 'modes', phrase: split.phrase, expectation };
+    const values = { count: split.count, modesWord: split.count === 1 ? 'mode' : 'modes', phrase: cutoffPhrase(split), expectation };
     const limit = o.expected !== undefined ? o.expected : expectation;
     if (split.count > hi) {
       const extraHz = frequencies.slice(hi).map((x) => x.toExponential(2)).join(', ');

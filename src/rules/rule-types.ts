@@ -1,7 +1,7 @@
 import type { SymmetricCsc } from '../sparse/csc.js';
 import type { DofMap } from '../io/dof-map.js';
 import type { ModesResult } from '../eigen/modes-types.js';
-import type { MatrixSummary } from '../model/matrix-summary.js';
+import type { MatrixSummary } from '../io/matrix-summary.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
 import type { ComparisonFacts } from '../model/comparison-facts.js';
 

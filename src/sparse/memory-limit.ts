@@ -7,7 +7,6 @@
  * plus, per thread, the largest update block and the largest supernode block as scratch;
  * the caller adds what it keeps beside the factor (an iteration basis, the mode shapes).
  */
-import { formatBytes } from '../io/matrix-market-memory.js';
 import type { SupernodalStructure } from './symbolic.js';
 
 export function predictedFactorBytes(s: SupernodalStructure, threads: number): number {
@@ -23,4 +22,11 @@ export class MemoryLimitError extends Error {
     super(`the solve would need about ${formatBytes(predictedBytes)} (a factor with ${nnzL.toExponential(2)} nonzeros, predicted before any numeric work), above the memory limit of ${formatBytes(limitBytes)} (--max-memory)`);
     this.name = 'MemoryLimitError';
   }
+}
+
+/** "12.3 GB" (decimal units: 1 GB = 10⁹ bytes); the Matrix Market readers' memory messages use it too. */
+export function formatBytes(bytes: number): string {
+  if (bytes >= 1e9) return `${(bytes / 1e9).toFixed(1)} GB`;
+  if (bytes >= 1e6) return `${(bytes / 1e6).toFixed(1)} MB`;
+  return `${Math.round(bytes / 1e3)} kB`;
 }

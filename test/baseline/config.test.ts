@@ -8,7 +8,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { loadConfig } from '../../src/io/config-loader.js';
+import { loadConfig } from '../../src/pipeline/load-config.js';
 import { InputError } from '../../src/io/errors.js';
 import { repoRoot } from '../cli/built-cli.js';
 

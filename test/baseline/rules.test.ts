@@ -21,7 +21,7 @@ import type { ComparisonFacts } from '../../src/model/comparison-facts.js';
 import { findRule } from '../../src/rules/registry.js';
 import { runRules, type ResolvedRule } from '../../src/rules/engine.js';
 import { formatMarkdown } from '../../src/report/markdown.js';
-import { CAUTION, type CheckReport } from '../../src/report/report-types.js';
+import { CAUTION, type CheckReport } from '../../src/pipeline/result-types.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'modalgate-rules-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));

@@ -22,8 +22,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { exactModes, springChain } from '../rules/fake-model.js';
 import { baselineLockFile, loadBaseline, saveBaseline, type BaselineSnapshot } from '../../src/model/baseline-store.js';
-import { runBaselineSave } from '../../src/model/baseline-step.js';
-import type { ModelJob } from '../../src/io/config-types.js';
+import { runBaselineSave } from '../../src/pipeline/baseline-step.js';
+import type { ModelJob } from '../../src/pipeline/job-types.js';
 import type { RuleContext } from '../../src/rules/rule-types.js';
 
 const work = mkdtempSync(join(tmpdir(), 'modalgate-store-'));

@@ -12,7 +12,7 @@ import { badCases } from '../config/bad-configs.js';
 import { structuralProblems, xmllintValidate } from '../report/junit-validation.js';
 import { formatRules } from '../../src/cli/rules.js';
 import { STARTER_CONFIG, writeStarterConfig } from '../../src/cli/init.js';
-import { loadConfig } from '../../src/io/config-loader.js';
+import { loadConfig } from '../../src/pipeline/load-config.js';
 import { runCheck } from '../../src/cli/check.js';
 
 let work: string;

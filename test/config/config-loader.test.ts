@@ -5,7 +5,8 @@ import { join, resolve } from 'node:path';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import { readFileSync } from 'node:fs';
 import { parse } from 'yaml';
-import { findConfig, loadConfig } from '../../src/io/config-loader.js';
+import { findConfig } from '../../src/io/config-loader.js';
+import { loadConfig } from '../../src/pipeline/load-config.js';
 import { InputError } from '../../src/io/errors.js';
 import { badCases } from './bad-configs.js';
 

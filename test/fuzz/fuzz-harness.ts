@@ -14,7 +14,7 @@ import { tmpdir } from 'node:os';
 import { basename, join, resolve } from 'node:path';
 import { readMatrixMarket, readStiffnessAndMass } from '../../src/io/matrix-market-reader.js';
 import { readDofMap } from '../../src/io/dof-map-reader.js';
-import { loadConfig } from '../../src/io/config-loader.js';
+import { loadConfig } from '../../src/pipeline/load-config.js';
 import { InputError, oneLineMessage } from '../../src/io/errors.js';
 import { mutatedInputs, type InputKind, type MutatedInput } from './mutations.js';
 

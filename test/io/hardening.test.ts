@@ -25,7 +25,7 @@ import { sumDuplicateTriplets } from '../../src/sparse/assemble.js';
 import { matrixFinite } from '../../src/rules/matrix-finite.js';
 import { matrixSymmetry } from '../../src/rules/matrix-symmetry.js';
 import type { RuleContext } from '../../src/rules/rule-types.js';
-import type { MatrixSummary } from '../../src/model/matrix-summary.js';
+import type { MatrixSummary } from '../../src/io/matrix-summary.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const corpus = join(here, 'bad-inputs');

@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { codeSpan, formatMarkdown, inline } from '../../src/report/markdown.js';
-import type { CheckReport } from '../../src/report/report-types.js';
+import type { CheckReport } from '../../src/pipeline/result-types.js';
 
 function report(name: string, message: string): CheckReport {
   return {

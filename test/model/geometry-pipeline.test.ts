@@ -7,10 +7,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
-import { loadConfig } from '../../src/io/config-loader.js';
-import { analyzeModel } from '../../src/model/analyze-model.js';
+import { loadConfig } from '../../src/pipeline/load-config.js';
+import { analyzeModel } from '../../src/pipeline/analyze-model.js';
 import type { GeometryFacts } from '../../src/model/geometry-facts.js';
-import type { ModelReport } from '../../src/report/report-types.js';
+import type { ModelReport } from '../../src/pipeline/result-types.js';
 
 const demo = resolve(import.meta.dirname, '../../fixtures/demo');
 const scenario = JSON.parse(readFileSync(join(demo, 'scenario.json'), 'utf8')) as {

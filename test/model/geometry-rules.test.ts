@@ -5,7 +5,7 @@ import { STEEL } from '../../fixtures/generator/sections.js';
 import type { GeneratedModel } from '../../fixtures/generator/model-types.js';
 import { computeGeometry } from '../../src/model/compute-geometry.js';
 import type { RuleContext, RuleDefinition } from '../../src/rules/rule-types.js';
-import type { MatrixSummary } from '../../src/model/matrix-summary.js';
+import type { MatrixSummary } from '../../src/io/matrix-summary.js';
 import type { ModesResult } from '../../src/eigen/modes-types.js';
 import { rigidBodyEnergy } from '../../src/rules/rigid-body-energy.js';
 import { totalMass } from '../../src/rules/total-mass.js';

@@ -14,7 +14,7 @@ import { dofOfNode, type GeneratedModel } from '../../fixtures/generator/model-t
 import { computeGeometry, type GeometryInput } from '../../src/model/compute-geometry.js';
 import { applyConstraints } from '../../src/model/constraints.js';
 import type { RuleContext, RuleDefinition } from '../../src/rules/rule-types.js';
-import type { MatrixSummary } from '../../src/model/matrix-summary.js';
+import type { MatrixSummary } from '../../src/io/matrix-summary.js';
 import type { ModesResult } from '../../src/eigen/modes-types.js';
 import type { MechanismGroup } from '../../src/model/mechanism-groups.js';
 import type { FreeMotionFacts } from '../../src/model/free-motions.js';

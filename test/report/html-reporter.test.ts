@@ -13,11 +13,13 @@ import { join } from 'node:path';
 import { XMLValidator } from 'fast-xml-parser';
 import { formatHtml } from '../../src/report/html-reporter.js';
 import { linearScale, logScale, tickLabel, toPixel, valueScale, greyOf } from '../../src/report/svg-plots.js';
-import { CAUTION, type CheckReport, type ModelReport } from '../../src/report/report-types.js';
+import { CAUTION, type CheckReport, type ModelReport } from '../../src/pipeline/result-types.js';
 import type { RuleResult } from '../../src/rules/engine.js';
 import { sampleReport } from './sample-report.js';
 import { ensureBuilt, repoRoot, runCli, type CliRun } from '../cli/built-cli.js';
-import { loadConfig } from '../../src/io/config-loader.js';
+import type { GeometryFacts } from '../../src/model/geometry-facts.js';
+import type { ComparisonFacts } from '../../src/model/comparison-facts.js';
+import { loadConfig } from '../../src/pipeline/load-config.js';
 import { runCheck } from '../../src/cli/check.js';
 
 const EVIL = '<script>&"';
@@ -53,12 +55,13 @@ function richModel(): ModelReport {
       rule('frequency-drift', 'fail', { measured: 12, limit: 5, details: { flagged: [{ baselineMode: 3, currentMode: 3 }] } }),
       rule('conditioning', 'fail', { severity: 'warning', measured: 3e8, limit: 1e7 }),
     ],
+    // partial facts: only the fields the HTML reporter reads (the full types are GeometryFacts / ComparisonFacts)
     geometry: {
       massProperties: { translationalMass: [10, 10, 10], totalMass: 10, centerOfMass: [0, 1, 2], principalMoments: [1, 2, 3] },
       freeRigidBodyMotions: 6, nearZeroModes: 6, supported: null, constraints: null,
       participation: { modes: 12, cumulativeFraction: cumulative, directions: ['ux', 'uy', 'uz', 'rx', 'ry', 'rz'] },
       mechanisms: { nearZeroModes: 7, freeRigidBodyMotions: 6, mechanisms: 1, nodes: [{ node: 902, energyFraction: 0.99, component: 'uy', dof: 218 }, { node: 3, energyFraction: 1e-9, component: 'ux', dof: 7 }] },
-    },
+    } as unknown as GeometryFacts,
     comparison: {
       baseline: { file: '/b/<evil>.baseline.json', createdAt: '2026-12-01', modes: n, dofCount: 900, selection: 'all', dofsCompared: 900, numberingCheck: 'dof-map hash' },
       settings: { weighting: 'mass', minPairCorrelation: 0.5, windowPercent: null, repeatedTolerancePercent: 0.1 },
@@ -70,7 +73,7 @@ function richModel(): ModelReport {
         { baselineMode: 4, currentMode: 4, baselineHz: 30, currentHz: 31, changePercent: 3.3, mac: 0.99, correlation: 0.99, repeated: false, rigidBody: false },
       ],
       lostModes: [], newModes: [], swaps: [{ baselineModes: [2, 3], currentModes: [3, 2], correlations: [0.75, 0.7] }],
-    },
+    } as unknown as ComparisonFacts,
   };
 }
 

@@ -1,6 +1,6 @@
 /** A CheckReport with every kind of outcome, for reporter tests (no solving involved). */
-import type { CheckReport, ModelReport } from '../../src/report/report-types.js';
-import { CAUTION } from '../../src/report/report-types.js';
+import type { CheckReport, ModelReport } from '../../src/pipeline/result-types.js';
+import { CAUTION } from '../../src/pipeline/result-types.js';
 import type { RuleResult } from '../../src/rules/engine.js';
 
 function rule(ruleId: string, status: RuleResult['status'], message: string, extra: Partial<RuleResult> = {}): RuleResult {

@@ -8,7 +8,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { parse } from 'yaml';
 import { conditioning } from '../../src/rules/conditioning.js';
-import { loadConfig } from '../../src/io/config-loader.js';
+import { loadConfig } from '../../src/pipeline/load-config.js';
 import { InputError } from '../../src/io/errors.js';
 import { formatRules } from '../../src/cli/rules.js';
 import { chainContext, exactModes, springChain } from './fake-model.js';

@@ -9,7 +9,7 @@ import { TripletList, assembleSymmetric } from '../../src/sparse/assemble.js';
 import type { SymmetricCsc } from '../../src/sparse/csc.js';
 import type { ModesResult } from '../../src/eigen/modes-types.js';
 import { frequencyHzFromEigenvalue } from '../../src/eigen/modes-types.js';
-import type { MatrixSummary } from '../../src/model/matrix-summary.js';
+import type { MatrixSummary } from '../../src/io/matrix-summary.js';
 import type { RuleContext } from '../../src/rules/rule-types.js';
 import type { DofMap } from '../../src/io/dof-map.js';
 

@@ -1,18 +1,12 @@
 /**
- * Which of the solved modes are rigid-body modes (or mechanisms)?
- *
- * Two published forms of the criterion (ECSS-E-ST-32-03C as quoted in CRITERIA.md §1a/§6, [S]):
- *  - absolute: f ≤ d with d = 0.005 Hz;
- *  - separation: f_rigid / f_first-elastic < V with V = 1e-4.
- * The absolute form depends on the unit system through round-off (f_round-off ~ √(ε‖K‖/‖M‖)/2π,
- * common practice), so the separation form is the default here: the split is put at the last
- * gap where every mode below is smaller than V times the mode above. When the solved modes show
- * no such gap (a supported model, or too few modes solved) the absolute cutoff is used instead.
+ * The rigid-body split as the rules show it: the cutoff phrase of their messages, as templates
+ * rules spread into their own `messages`. The split itself is model knowledge
+ * (src/model/rigid-body-split.ts), re-exported here for the rules.
  */
-
 import { ruleMessages } from './outcome.js';
+import type { RigidBodySplit } from '../../model/rigid-body-split.js';
 
-export type CutoffBasis = 'ratio' | 'hz';
+export { cutoffDefaults, cutoffSchemaProperties, splitRigidBodyModes, type CutoffBasis, type RigidBodyCutoffOptions, type RigidBodySplit } from '../../model/rigid-body-split.js';
 
 /** Templates of the cutoff phrase; rules that show it spread them into their own `messages`. */
 export const cutoffMessages = {
@@ -21,81 +15,10 @@ export const cutoffMessages = {
 };
 const { text } = ruleMessages(cutoffMessages);
 
-export interface RigidBodyCutoffOptions {
-  cutoffBasis: CutoffBasis;
-  cutoffRatio: number;
-  cutoffHz: number;
-}
-
-export const cutoffDefaults: RigidBodyCutoffOptions = {
-  cutoffBasis: 'ratio',
-  cutoffRatio: 1e-4, // ECSS-E-ST-32-03C separation V, [S] CRITERIA.md §1a
-  cutoffHz: 0.005, // ECSS-E-ST-32-03C absolute d, [S] CRITERIA.md §1a
-};
-
-/** Schema properties shared by every rule that needs the split (merge into its optionsSchema). */
-export const cutoffSchemaProperties = {
-  cutoffBasis: {
-    enum: ['ratio', 'hz'],
-    description: "'ratio': a mode is rigid-body when it is below cutoffRatio × the first elastic frequency; 'hz': below cutoffHz.",
-  },
-  cutoffRatio: { type: 'number', exclusiveMinimum: 0, exclusiveMaximum: 1 },
-  cutoffHz: { type: 'number', exclusiveMinimum: 0 },
-} as const;
-
-export interface RigidBodySplit {
-  /** Modes 0..count−1 are rigid-body modes (or mechanisms). */
-  count: number;
-  /** 0-based index of the first elastic mode, null when every solved mode is below the cutoff. */
-  firstElasticIndex: number | null;
-  /** The cutoff in Hz that was applied. */
-  cutoffHz: number;
-  basis: CutoffBasis;
-  /** True when the ratio form found no gap and the absolute cutoff was used. */
-  fellBack: boolean;
-  /** "below 0.005 Hz" or "below 1e-4 × the first elastic frequency 12.3 Hz" — for messages. */
-  phrase: string;
-}
-
-export function splitRigidBodyModes(frequenciesHz: ArrayLike<number>, o: RigidBodyCutoffOptions): RigidBodySplit {
-  const m = frequenciesHz.length;
-  if (o.cutoffBasis === 'ratio') {
-    const k = lastSeparationGap(frequenciesHz, o.cutoffRatio);
-    if (k > 0) {
-      const cutoffHz = o.cutoffRatio * frequenciesHz[k];
-      return {
-        count: k,
-        firstElasticIndex: k,
-        cutoffHz,
-        basis: 'ratio',
-        fellBack: false,
-        phrase: text('cutoffRatio', { ratio: String(o.cutoffRatio), hz: fmtHz(frequenciesHz[k]) }),
-      };
-    }
-  }
-  // count modes with signed frequency below the absolute cutoff (tiny negative λ from round-off included)
-  let count = 0;
-  while (count < m && frequenciesHz[count] < o.cutoffHz) count++;
-  return {
-    count,
-    firstElasticIndex: count < m ? count : null,
-    cutoffHz: o.cutoffHz,
-    basis: 'hz',
-    fellBack: o.cutoffBasis === 'ratio',
-    phrase: text('cutoffHz', { hz: String(o.cutoffHz) }),
-  };
-}
-
-/** Largest k ≥ 1 with max_{i<k} |f_i| < ratio · f_k (f_k > 0), or 0 when there is none. */
-function lastSeparationGap(f: ArrayLike<number>, ratio: number): number {
-  const prefixMax = new Float64Array(f.length + 1);
-  // prefixMax[k] = max_{i<k} |f_i|
-  for (let i = 0; i < f.length; i++) prefixMax[i + 1] = Math.max(prefixMax[i], Math.abs(f[i]));
-  // scan from the top: the highest gap wins, so every mode under it counts as rigid
-  for (let k = f.length - 1; k >= 1; k--) {
-    if (f[k] > 0 && prefixMax[k] < ratio * f[k]) return k;
-  }
-  return 0;
+/** "below 0.005 Hz" or "below 0.0001 × the first elastic frequency (12.3 Hz)". */
+export function cutoffPhrase(split: RigidBodySplit): string {
+  if (split.ratio) return text('cutoffRatio', { ratio: String(split.ratio.cutoffRatio), hz: fmtHz(split.ratio.firstElasticHz) });
+  return text('cutoffHz', { hz: String(split.cutoffHz) });
 }
 
 function fmtHz(x: number): string {

@@ -4,15 +4,16 @@
  * stopped worker is terminated outright (V8 ends its JavaScript wherever it is, even inside a
  * solve), the model gets an error report that says why, and the next model starts a new worker.
  * Where the compiled worker is not available (the TypeScript sources under the test runner), the
- * models run on this thread and cannot be stopped early.
+ * models run on this thread and cannot be stopped early. Nothing here prints: progress and the
+ * stack traces of caught exceptions go to the caller's callbacks.
  */
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import type { ConfigOverrides } from '../io/config-loader.js';
-import type { ModelJob } from '../io/config-types.js';
-import { analyzeModel, problemOf } from '../model/analyze-model.js';
-import { junitTimestamp, type ModelReport, type ProblemReport } from '../report/report-types.js';
+import type { ConfigOverrides } from './load-config.js';
+import type { ModelJob } from './job-types.js';
+import { analyzeModel, problemOf, stackOf } from './analyze-model.js';
+import { junitTimestamp, type ModelReport, type ProblemReport } from './result-types.js';
 import type { ModelWorkerInput, ModelWorkerMessage, ModelWorkerRequest } from './model-worker.js';
 
 const workerFile = fileURLToPath(new URL('./model-worker.js', import.meta.url));
@@ -22,6 +23,8 @@ export interface RunModelOptions {
   /** Wall-clock limit for this model, milliseconds (none when undefined). */
   timeLimitMs?: number;
   onProgress?: (message: string) => void;
+  /** Stack traces of the exceptions the model's check caught (asked for only under MODALGATE_DEBUG). */
+  onCaughtErrorStack?: (stack: string) => void;
 }
 
 /** A running model: its report when done, and a way to stop it. */
@@ -41,7 +44,11 @@ export class ModelRunner {
   ) {}
 
   run(job: ModelJob, options: RunModelOptions = {}): RunningModel {
-    if (!canIsolate) return { report: analyzeModel(job, { onProgress: options.onProgress }), stop: () => {} };
+    const onStack = options.onCaughtErrorStack;
+    if (!canIsolate) {
+      const onCaughtError = onStack ? (e: unknown) => onStack(stackOf(e)) : undefined;
+      return { report: analyzeModel(job, { onProgress: options.onProgress, onCaughtError }), stop: () => {} };
+    }
     const worker = (this.worker ??= this.start());
     const id = this.nextId++;
     const started = new Date();
@@ -64,10 +71,14 @@ export class ModelRunner {
       if (m.kind === 'progress') {
         lastStage = m.message;
         options.onProgress?.(m.message);
-      } else finish(m.kind === 'report' ? m.report : stopped(m.problem));
+      } else if (m.kind === 'caught') onStack?.(m.stack);
+      else finish(m.kind === 'report' ? m.report : stopped(m.problem));
     };
     const onExit = (code: number): void => finish(stopped({ kind: 'internal', message: `internal error: the worker thread checking ${job.name} ended (code ${code}) without a report` }));
-    const onError = (e: Error): void => finish(stopped(problemOf(e)));
+    const onError = (e: Error): void => {
+      onStack?.(stackOf(e));
+      finish(stopped(problemOf(e)));
+    };
     const finish = (r: ModelReport): void => {
       if (done) return;
       done = true;
@@ -89,7 +100,7 @@ export class ModelRunner {
           }, options.timeLimitMs)
         : undefined;
     worker.on('message', onMessage).on('exit', onExit).on('error', onError);
-    worker.postMessage({ kind: 'check', id, modelName: job.name } satisfies ModelWorkerRequest);
+    worker.postMessage({ kind: 'check', id, modelName: job.name, sendStacks: onStack !== undefined } satisfies ModelWorkerRequest);
     return { report, stop };
   }
 

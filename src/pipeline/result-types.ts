@@ -1,9 +1,13 @@
 /**
- * The result of one `modalgate check` run, as the reporters receive it. Everything here is
- * already computed (by src/model and src/rules); reporters only format it.
+ * The result of one `modalgate check` run, as the pipeline produces it and the reporters receive
+ * it (src/report imports these types; the pipeline never imports src/report). Everything here is
+ * already computed (by src/pipeline from src/model, src/eigen and src/rules); reporters only
+ * format it.
  */
 import type { RuleResult } from '../rules/engine.js';
 import type { ClusterExtension, SturmCheck } from '../eigen/modes-types.js';
+import type { GeometryFacts } from '../model/geometry-facts.js';
+import type { ComparisonFacts } from '../model/comparison-facts.js';
 
 export const CAUTION =
   'modalgate screens models and does not certify structures: its results support, never replace, review by a qualified engineer under the applicable codes.';
@@ -78,10 +82,10 @@ export interface ModelReport {
   modes?: ModeRow[];
   rules: RuleResult[];
   problem?: ProblemReport;
-  /** Geometry facts (issue "geometry-aware checks") as plain JSON, when computed. */
-  geometry?: unknown;
-  /** Baseline comparison (issue "regression against a baseline") as plain JSON, when computed. */
-  comparison?: unknown;
+  /** Geometry facts (mass properties, participation, mechanisms), when the model has a DOF map. */
+  geometry?: GeometryFacts;
+  /** Comparison with the stored baseline, when one was compared. */
+  comparison?: ComparisonFacts;
   /** Baseline files written for this model by `check --save-baseline`. */
   baselineSaved?: { json: string; shapes: string; dofs?: string };
   /** Why a baseline comparison asked for was not made (missing directory or baseline): a warning. */

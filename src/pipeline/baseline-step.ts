@@ -13,34 +13,42 @@
  * model's problem (exit 2) beside the rules.
  */
 import { existsSync, statSync } from 'node:fs';
-import type { BaselineJob, ModelJob } from '../io/config-types.js';
+import type { BaselineJob, ModelJob } from './job-types.js';
 import { InputError, oneLineMessage } from '../io/errors.js';
 import { packageVersion } from '../io/package-root.js';
-import type { RuleContext } from '../rules/rule-types.js';
-import type { UnavailableInputs } from '../rules/engine.js';
-import { baselineJsonFile, loadBaseline, saveBaseline, type SavedBaselineFiles } from './baseline-store.js';
-import { compareWithBaseline, defaultComparisonSettings } from './compare-baseline.js';
+import type { ModesResult } from '../eigen/modes-types.js';
+import type { SymmetricCsc } from '../sparse/csc.js';
+import type { DofMap } from '../io/dof-map.js';
+import type { ComparisonFacts } from '../model/comparison-facts.js';
+import type { GeometryFacts } from '../model/geometry-facts.js';
+import { baselineJsonFile, loadBaseline, saveBaseline, type SavedBaselineFiles } from '../model/baseline-store.js';
+import { compareWithBaseline, defaultComparisonSettings } from '../model/compare-baseline.js';
+
+/** The solved model as the baseline steps see it (constrained K/M and DOF map, as the rules do). */
+export interface BaselineInput {
+  modes?: ModesResult;
+  mass: SymmetricCsc;
+  dofMap?: DofMap;
+  geometry?: GeometryFacts;
+}
 
 export interface BaselineCompareResult {
-  /** Why no comparison was made although one was asked for (shown as a warning). */
+  comparison?: ComparisonFacts;
+  /** Why no comparison was made although one was asked for (shown as a warning; the baseline rules skip with it). */
   warning?: string;
 }
 
-export async function runBaselineComparison(job: ModelJob, context: RuleContext, unavailable: UnavailableInputs): Promise<BaselineCompareResult> {
+export async function runBaselineComparison(job: ModelJob, input: BaselineInput): Promise<BaselineCompareResult> {
   const settings = job.baseline;
-  const modes = context.modes;
+  const modes = input.modes;
   const dir = settings?.compareDir;
   if (!settings || dir === undefined || !modes) return {};
   if (!existsSync(dir) || !statSync(dir).isDirectory()) {
-    const warning = `baseline directory ${dir} not found: the baseline rules are skipped (a new project has none until a run with check --save-baseline)`;
-    unavailable.baseline = { status: 'skip', reason: `not evaluated: ${warning}.` };
-    return { warning };
+    return { warning: `baseline directory ${dir} not found: the baseline rules are skipped (a new project has none until a run with check --save-baseline)` };
   }
   const baseline = await loadBaseline(dir, job.name);
   if (!baseline) {
-    const warning = `no baseline for model "${job.name}" yet (${baselineJsonFile(dir, job.name)} is missing; save one with check --save-baseline)`;
-    unavailable.baseline = { status: 'skip', reason: `not evaluated: ${warning}.` };
-    return { warning };
+    return { warning: `no baseline for model "${job.name}" yet (${baselineJsonFile(dir, job.name)} is missing; save one with check --save-baseline)` };
   }
   const comparison = defaultComparisonSettings({
     weighting: settings.weighting,
@@ -48,8 +56,7 @@ export async function runBaselineComparison(job: ModelJob, context: RuleContext,
     windowPercent: settings.windowPercent,
     repeatedTolerancePercent: settings.repeatedTolerancePercent,
   });
-  context.comparison = compareWithBaseline(baseline, { modes, mass: context.mass, dofMap: context.dofMap }, comparison);
-  return {};
+  return { comparison: compareWithBaseline(baseline, { modes, mass: input.mass, dofMap: input.dofMap }, comparison) };
 }
 
 export interface BaselineSaveResult {
@@ -61,14 +68,15 @@ export interface BaselineSaveResult {
 }
 
 /** Save the snapshot after the rules ran; `verdict` is the model's verdict from its rules. Never throws. */
-export async function runBaselineSave(job: ModelJob, context: RuleContext, verdict: 'pass' | 'fail' | 'error'): Promise<BaselineSaveResult> {
+export async function runBaselineSave(job: ModelJob, input: BaselineInput, verdict: 'pass' | 'fail' | 'error'): Promise<BaselineSaveResult> {
   const settings = job.baseline;
   const dir = settings?.saveDir;
   if (!settings || dir === undefined) return {};
   if (verdict === 'error') return { notSaved: `baseline of ${job.name} not saved: the model's verdict is error (a rule could not be evaluated)` };
-  if (!context.modes) return { notSaved: `baseline of ${job.name} not saved: no modes were solved` };
+  const modes = input.modes;
+  if (!modes) return { notSaved: `baseline of ${job.name} not saved: no modes were solved` };
   try {
-    return { saved: await save(job, settings, dir, context) };
+    return { saved: await save(job, settings, dir, { ...input, modes }) };
   } catch (e) {
     if (e instanceof InputError) return { failure: e };
     const cause = e instanceof Error ? e.message.split('\n')[0] : oneLineMessage(e);
@@ -76,13 +84,13 @@ export async function runBaselineSave(job: ModelJob, context: RuleContext, verdi
   }
 }
 
-function save(job: ModelJob, settings: BaselineJob, dir: string, context: RuleContext): Promise<SavedBaselineFiles> {
+function save(job: ModelJob, settings: BaselineJob, dir: string, input: BaselineInput & { modes: ModesResult }): Promise<SavedBaselineFiles> {
   return saveBaseline(dir, {
     model: job.name,
-    modes: context.modes!,
-    mass: context.mass,
-    dofMap: context.dofMap,
-    massProperties: context.geometry?.massProperties,
+    modes: input.modes,
+    mass: input.mass,
+    dofMap: input.dofMap,
+    massProperties: input.geometry?.massProperties,
     selection: settings.shapes,
     maxDofs: settings.maxDofs,
     toolVersion: packageVersion(),

@@ -1,6 +1,6 @@
 /**
  * Facts about one stiffness or mass matrix gathered while reading and screening it
- * (computed in src/model/matrix-checks.ts, reported by `inspect` and used by the matrix rules).
+ * (computed in src/io/matrix-checks.ts, reported by `inspect` and used by the matrix rules).
  * DOF lists are 0-based and capped (see `listCap`); counts are exact.
  */
 export interface MatrixSummary {

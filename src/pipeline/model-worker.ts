@@ -6,19 +6,21 @@
  * the rule modules (functions), which do not cross threads; the config is loaded once.
  */
 import { parentPort, workerData } from 'node:worker_threads';
-import { loadConfig, type ConfigOverrides } from '../io/config-loader.js';
-import type { LoadedConfig } from '../io/config-types.js';
-import { analyzeModel, problemOf } from '../model/analyze-model.js';
+import { loadConfig, type ConfigOverrides } from './load-config.js';
+import type { LoadedConfig } from './job-types.js';
+import { analyzeModel, problemOf, stackOf } from './analyze-model.js';
 
 export interface ModelWorkerInput {
   configPath: string;
   overrides: ConfigOverrides;
 }
 
-export type ModelWorkerRequest = { kind: 'check'; id: number; modelName: string };
+/** `sendStacks`: post the stack trace of every exception the check catches (MODALGATE_DEBUG). */
+export type ModelWorkerRequest = { kind: 'check'; id: number; modelName: string; sendStacks: boolean };
 
 export type ModelWorkerMessage =
   | { kind: 'progress'; id: number; message: string }
+  | { kind: 'caught'; id: number; stack: string }
   | { kind: 'report'; id: number; report: Awaited<ReturnType<typeof analyzeModel>> }
   | { kind: 'failed'; id: number; problem: ReturnType<typeof problemOf> };
 
@@ -28,15 +30,17 @@ let config: LoadedConfig | undefined;
 
 port.on('message', (request: ModelWorkerRequest) => void check(request));
 
-async function check({ id, modelName }: ModelWorkerRequest): Promise<void> {
+async function check({ id, modelName, sendStacks }: ModelWorkerRequest): Promise<void> {
   const post = (m: ModelWorkerMessage): void => port.postMessage(m);
+  const onCaughtError = sendStacks ? (e: unknown) => post({ kind: 'caught', id, stack: stackOf(e) }) : undefined;
   try {
     config ??= loadConfig(input.configPath, input.overrides);
     const job = config.models.find((m) => m.name === modelName);
     if (!job) throw new Error(`model ${modelName} is not in ${input.configPath}`);
-    const report = await analyzeModel(job, { onProgress: (message) => post({ kind: 'progress', id, message }) });
+    const report = await analyzeModel(job, { onProgress: (message) => post({ kind: 'progress', id, message }), onCaughtError });
     post({ kind: 'report', id, report });
   } catch (e) {
+    onCaughtError?.(e);
     post({ kind: 'failed', id, problem: problemOf(e) });
   }
 }

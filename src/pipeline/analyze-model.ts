@@ -1,0 +1,113 @@
+/**
+ * One model's way through `modalgate check`:
+ *
+ *   read K, M (Matrix Market) and the DOF map (read-step)  →  screening (can the pencil be
+ *   solved at all?)  →  [constraint sets] (constrain-step)  →  modes (solve-step)  →
+ *   [geometry facts] (geometry-step)  →  [baseline comparison] (baseline-step)  →  rules
+ *   →  [baseline save]
+ *
+ * Steps in brackets run when the config asks for them (constraint sets, a DOF map, a baseline).
+ * Each step returns its facts; the rules get them together in one RuleContext, and the run
+ * result (result-types.ts) carries them to the reporters. Bad input ends the model with a
+ * `problem` (exit 2, JUnit <error>); a solver failure leaves the matrix rules running and turns
+ * every rule that needs modes into `error`. Nothing here prints.
+ */
+import { InputError, oneLineMessage } from '../io/errors.js';
+import { MemoryLimitError } from '../sparse/memory-limit.js';
+import { screenPencil } from '../model/screen-pencil.js';
+import type { RuleContext } from '../rules/rule-types.js';
+import { runRules, verdictOf, type RuleResult, type UnavailableInputs } from '../rules/engine.js';
+import type { ModelJob } from './job-types.js';
+import { junitTimestamp, type ModelReport, type ProblemReport } from './result-types.js';
+import { modelStats, readModelInput } from './read-step.js';
+import { applyConstraintStep } from './constrain-step.js';
+import { modeRows, runSolveStep, solveReport, type SolveOutcome } from './solve-step.js';
+import { runGeometryStep } from './geometry-step.js';
+import { runBaselineComparison, runBaselineSave } from './baseline-step.js';
+
+export interface AnalyzeOptions {
+  onProgress?: (message: string) => void;
+  /**
+   * Sees every exception the pipeline catches and turns into a report entry (a problem of the
+   * model, a failed solve), so the CLI can show its stack trace under MODALGATE_DEBUG.
+   */
+  onCaughtError?: (e: unknown) => void;
+}
+
+export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}): Promise<ModelReport> {
+  const started = new Date();
+  const t0 = performance.now();
+  const report: ModelReport = { name: job.name, verdict: 'pass', timestamp: junitTimestamp(started), timeMs: 0, ruleSets: job.ruleSets, rules: [] };
+  try {
+    const input = await readModelInput(job);
+    report.stats = modelStats(job, input);
+    // constraint sets from the model entry reduce K, M and the DOF map before the solve
+    const constrained = applyConstraintStep(job, input);
+    report.stats.solvedDofs = constrained.stiffness.n;
+    const unavailable: UnavailableInputs = {};
+    const blocker = screenPencil(input.stiffnessSummary, input.massSummary, input.mass);
+    let solved: SolveOutcome;
+    if (blocker) solved = { notSolved: `not evaluated: the modes were not solved because ${blocker.file}: ${blocker.reason}.` };
+    else solved = runSolveStep(job, constrained, { onProgress: options.onProgress, onError: options.onCaughtError });
+    const modes = solved.modes;
+    if (modes) {
+      report.solve = solveReport(modes, job);
+      report.modes = modeRows(modes);
+    } else unavailable.modes = { status: 'error', reason: solved.notSolved };
+    // geometry facts (rigid-body energy, mass properties, participation, mechanisms) need the DOF map
+    const geometry = runGeometryStep(job, constrained, modes);
+    if (geometry) report.geometry = geometry;
+    // baseline: compare with the stored snapshot before the rules
+    const compared = await runBaselineComparison(job, { modes, mass: constrained.mass, dofMap: constrained.dofMap });
+    const comparison = compared.comparison;
+    if (comparison) report.comparison = comparison;
+    if (compared.warning) {
+      report.baselineWarning = compared.warning;
+      unavailable.baseline = { status: 'skip', reason: `not evaluated: ${compared.warning}.` };
+    }
+    const context: RuleContext = {
+      modelName: job.name,
+      stiffness: constrained.stiffness,
+      mass: constrained.mass,
+      stiffnessSummary: input.stiffnessSummary,
+      massSummary: input.massSummary,
+      dofMap: constrained.dofMap,
+      keptDofs: constrained.reduced?.keptDofs,
+      modes,
+      geometry,
+      comparison,
+    };
+    report.rules = runRules(context, job.rules, unavailable);
+    // --save-baseline after the rules; a failed save keeps the rule results and ends in exit 2
+    const saved = await runBaselineSave(job, { modes, mass: constrained.mass, dofMap: constrained.dofMap, geometry }, verdictOf(report.rules));
+    if (saved.saved) report.baselineSaved = saved.saved;
+    if (saved.notSaved) report.baselineNotSaved = saved.notSaved;
+    if (saved.failure) {
+      options.onCaughtError?.(saved.failure);
+      report.problem = problemOf(saved.failure);
+    }
+  } catch (e) {
+    options.onCaughtError?.(e);
+    report.problem = problemOf(e);
+    const why = report.problem.kind === 'limit' ? 'the model was stopped at a resource limit' : "the model's input could not be read";
+    report.rules = job.rules.map((r) => notEvaluated(r.rule.id, r.rule.description, r.severity, r.options, why));
+  }
+  report.timeMs = performance.now() - t0;
+  report.verdict = report.problem ? 'error' : verdictOf(report.rules);
+  return report;
+}
+
+export function problemOf(e: unknown): ProblemReport {
+  if (e instanceof InputError) return { kind: 'input', message: oneLineMessage(e), file: e.file, line: e.line, where: e.where };
+  if (e instanceof MemoryLimitError) return { kind: 'limit', message: e.message };
+  return { kind: 'internal', message: oneLineMessage(e) };
+}
+
+/** The stack trace of an exception (its text when it has none), for MODALGATE_DEBUG. */
+export function stackOf(e: unknown): string {
+  return e instanceof Error && e.stack ? e.stack : String(e);
+}
+
+function notEvaluated(ruleId: string, description: string, severity: RuleResult['severity'], options: Record<string, unknown>, why: string): RuleResult {
+  return { ruleId, description, severity, options, status: 'skip', message: `not evaluated: ${why}.`, timeMs: 0 };
+}
