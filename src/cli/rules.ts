@@ -54,7 +54,7 @@ function describeType(p: Record<string, unknown>): string {
   return bounds.length ? `${t} ${bounds.join(', ')}` : t;
 }
 
-/** 1e-6 rather than 0.000001: defaults read the way CRITERIA.md and rules/README.md write them. */
+/** 1e-6 rather than 0.000001: defaults read the way docs/sources.md and rules/README.md write them. */
 function showDefault(v: unknown): string {
   if (typeof v === 'number' && v !== 0 && (Math.abs(v) < 1e-3 || Math.abs(v) >= 1e6)) return v.toExponential().replace('e+', 'e');
   return JSON.stringify(v);

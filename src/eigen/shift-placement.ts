@@ -1,5 +1,5 @@
 /**
- * Where to put the shift σ of the solve (common practice, CRITERIA.md §3 and §8):
+ * Where to put the shift σ of the solve (common practice, docs/sources.md §3 and §8):
  *
  *  - below every wanted eigenvalue, so the wanted ones are those nearest σ;
  *  - not far below: convergence goes like (λ_N − σ)/(λ_{q+1} − σ), so |σ| ≤ 0.1 λ_N;

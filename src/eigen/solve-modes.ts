@@ -7,7 +7,7 @@
  *      placed is abandoned and the solve restarts at σ₂ = −0.01 λ_e from its Ritz vectors;
  *   3. solve with block Lanczos or subspace iteration on (K − σM)⁻¹M;
  *   4. polish: one more step Φ ← (K − σM)⁻¹MΦ when M has massless DOFs (purifies the null(M)
- *      components, CRITERIA.md §8) or a residual is above 1e-10 (PURIFY_ABOVE_RESIDUAL: it sharpens them); then
+ *      components, docs/sources.md §8) or a residual is above 1e-10 (PURIFY_ABOVE_RESIDUAL: it sharpens them); then
  *      M-orthonormalize and a final Rayleigh–Ritz with K;
  *   5. whole clusters: when λ_N is repeated (verification.ts, sameEigenvalue) and the count
  *      ends inside its cluster, the rest of the cluster is solved for and returned too, and

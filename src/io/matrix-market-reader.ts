@@ -11,9 +11,9 @@
  * - A `general` file is accepted when numerically symmetric: max |a_ij − a_ji| / max|a| ≤
  *   `asymmetryTolerance` (default 1e-10, our choice: far above round-off of exported
  *   symmetric data ≈ 1e-16, far below any physical asymmetry); the stored entry is the mean.
- *   Stricter screening (CRITERIA.md §6 suggests 1e-12 · max|K|, [CP]) is for the rules, which
+ *   Stricter screening (docs/sources.md §6 suggests 1e-12 · max|K|, [CP]) is for the rules, which
  *   read `maxRelativeAsymmetry` from the summary.
- * - Non-finite values are refused (CRITERIA.md §4, [CP]); so are declared sizes the file
+ * - Non-finite values are refused (docs/sources.md §4, [CP]); so are declared sizes the file
  *   cannot possibly hold (each coordinate line needs ≥ 6 bytes; gzip expands ≤ 1032:1) and
  *   orders whose model cannot fit in memory (./matrix-market-memory.ts).
  * - With `screening: 'record'` (what `check` uses) the reader refuses neither: non-finite

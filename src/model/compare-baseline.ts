@@ -1,5 +1,5 @@
 /**
- * Compare a model's solved modes with its stored baseline (CRITERIA.md §2, mode-tracking
+ * Compare a model's solved modes with its stored baseline (docs/sources.md §2, mode-tracking
  * practice, [CP]):
  *
  *   1. match DOFs: by (node, component) when both sides carry a DOF map, or by (coordinates,
@@ -12,8 +12,8 @@
  *   2. current shapes at the matched DOFs; weight W = M on those DOFs (mass-weighted MAC,
  *      current M: the baseline's M is not stored) or I (plain MAC), see ./mac.ts;
  *   3. near-repeated groups on each side: the rigid-body modes (split as in rigid-body-modes,
- *      ECSS separation ratio, CRITERIA.md §1a [S]) and chains of consecutive elastic modes with
- *      (f_{k+1} − f_k)/f_k ≤ repeatedTolerancePercent (default 0.1 %, from CRITERIA.md §2
+ *      ECSS separation ratio, docs/sources.md §1a [S]) and chains of consecutive elastic modes with
+ *      (f_{k+1} − f_k)/f_k ≤ repeatedTolerancePercent (default 0.1 %, from docs/sources.md §2
  *      practice 4: |Δf|/f < 1e-3, [CP]);
  *   4. correlation E(i, j) = MAC(i, j) between single modes; where a group is involved, the
  *      larger of the subspace shares P(φ_i, group of ψ_j) and P(ψ_j, group of φ_i);

@@ -1,12 +1,12 @@
 /**
  * Modal Assurance Criterion (MAC) between two sets of mode shapes, after Allemang & Brown,
  * "A Correlation Coefficient for Modal Vector Analysis", Proc. 1st IMAC (1982) pp. 110–116
- * (definition as restated in Allemang, Sound and Vibration 37(8), 2003, eq. 4; CRITERIA.md §2 [C]):
+ * (definition as restated in Allemang, Sound and Vibration 37(8), 2003, eq. 4; docs/sources.md §2 [C]):
  *
  *   MAC(φ, ψ) = (φᵀ W ψ)² / ((φᵀ W φ)(ψᵀ W ψ))
  *
  * with W = I (the plain MAC) or W = M (mass-weighted: for mass-normalized modes at every DOF this
- * is the squared cross-orthogonality φᵀMψ, Coppolino ch. 3 eq. 3.32b, CRITERIA.md §2 [C]).
+ * is the squared cross-orthogonality φᵀMψ, Coppolino ch. 3 eq. 3.32b, docs/sources.md §2 [C]).
  * Real shapes, so the conjugate transpose is the transpose. MAC lies in 0…1 and does not change
  * when either shape is scaled or flips sign.
  *
@@ -16,7 +16,7 @@
  *   P(φ, C) = g G⁻¹ gᵀ / (φᵀWφ),   g = φᵀ W Ψ_C,   G = Ψ_Cᵀ W Ψ_C,
  *
  * which equals MAC when C has one member (our construction, in the spirit of the SpaceMAC of
- * SEM/IMAC ch. 18, CRITERIA.md §2; grouping near-repeated modes is common practice, [CP]).
+ * SEM/IMAC ch. 18, docs/sources.md §2; grouping near-repeated modes is common practice, [CP]).
  *
  * Groups are also compared whole, by the principal angles θ_1 ≤ … ≤ θ_k between span(Φ_B) and
  * span(Ψ_C) in the W inner product (Björck & Golub, "Numerical methods for computing angles

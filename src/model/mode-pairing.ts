@@ -1,6 +1,6 @@
 /**
  * Mode tracking: pair baseline modes with current modes one to one so that the summed
- * correlation is largest — an assignment over the MAC matrix, not a greedy pick (CRITERIA.md §2,
+ * correlation is largest — an assignment over the MAC matrix, not a greedy pick (docs/sources.md §2,
  * mode-tracking practice 2, [CP]). A reordering of close modes then shows up as a crossing of
  * pairs (a swap) instead of two large frequency changes.
  *

@@ -1,7 +1,7 @@
 /**
  * Which of the solved modes are rigid-body modes (or mechanisms)?
  *
- * Two published forms of the criterion (ECSS-E-ST-32-03C as quoted in CRITERIA.md §1a/§6, [S]):
+ * Two published forms of the criterion (ECSS-E-ST-32-03C as quoted in docs/sources.md §1a/§6, [S]):
  *  - absolute: f ≤ d with d = 0.005 Hz;
  *  - separation: f_rigid / f_first-elastic < V with V = 1e-4.
  * The absolute form depends on the unit system through round-off (f_round-off ~ √(ε‖K‖/‖M‖)/2π,
@@ -20,8 +20,8 @@ export interface RigidBodyCutoffOptions {
 
 export const cutoffDefaults: RigidBodyCutoffOptions = {
   cutoffBasis: 'ratio',
-  cutoffRatio: 1e-4, // ECSS-E-ST-32-03C separation V, [S] CRITERIA.md §1a
-  cutoffHz: 0.005, // ECSS-E-ST-32-03C absolute d, [S] CRITERIA.md §1a
+  cutoffRatio: 1e-4, // ECSS-E-ST-32-03C separation V, [S] docs/sources.md §1a
+  cutoffHz: 0.005, // ECSS-E-ST-32-03C absolute d, [S] docs/sources.md §1a
 };
 
 /** Schema properties shared by every rule that needs the split (merge into its optionsSchema). */

@@ -1,5 +1,5 @@
 /**
- * JUnit XML for CI servers, following the emission profile of CRITERIA.md §5 ([CP], built from
+ * JUnit XML for CI servers, following the emission profile of docs/sources.md §5 ([CP], built from
  * the Ant, Jenkins xunit junit-10.xsd, Jenkins junit-plugin, GitLab and Azure readers):
  *
  *   <testsuites name tests failures errors time>          totals (junit-10.xsd has no `skipped` here)

@@ -1,7 +1,7 @@
 /**
  * Text that is safe inside XML 1.0: characters outside the Char production
  * (#x9 | #xA | #xD | [#x20–#xD7FF] | [#xE000–#xFFFD] | [#x10000–#x10FFFF], W3C XML 1.0 §2.2)
- * are removed; long texts are capped so one report stays small (CRITERIA.md §5b).
+ * are removed; long texts are capped so one report stays small (docs/sources.md §5).
  * Escaping of <, &, > and quotes is done by the XML builder.
  */
 

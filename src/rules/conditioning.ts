@@ -4,7 +4,7 @@
  * leaves for it; the largest over all DOFs must stay at or below maxPivotDrop. A diagonal that
  * shrinks by 10^k loses about k digits there ([CP]): the DOF is weakly connected or badly scaled.
  * A limit of 1e7 is often quoted for this check (ECSS-E-ST-32-03C, value from memory — [M]
- * CRITERIA.md §1a). The drop is measured on the solver's last factor of K − σM.
+ * docs/sources.md §1a). The drop is measured on the solver's last factor of K − σM.
  */
 import type { RuleDefinition } from './rule-types.js';
 import { COMPONENTS } from '../io/dof-map.js';

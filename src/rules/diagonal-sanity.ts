@@ -4,7 +4,7 @@
  *     singular or indefinite ([CP]).
  *   - No negative mass diagonal (M must be positive semi-definite).
  *   - No DOF with neither stiffness nor mass: it is connected to nothing; no option allows it.
- *   - Massless DOFs (M only semi-definite; "M SPD, or PSD with massless DOFs flagged", CRITERIA.md
+ *   - Massless DOFs (M only semi-definite; "M SPD, or PSD with massless DOFs flagged", docs/sources.md
  *     §6, [CP]) are judged by component. A lumped (diagonal) mass matrix without rotary inertia
  *     leaves every rotation massless — the everyday export of many FE programs, and harmless: the
  *     shift-invert solve condenses those DOFs out ([CP]). So massless rotations pass unless

@@ -6,7 +6,7 @@
  * verification (src/eigen/verification.ts). The denominator is the size of the forces that must
  * balance, so a shape mixed with another mode shows ρ of the order of the mix — the LAPACK-style
  * ratio with ‖K‖‖φ‖ below would pass it (residual-measure.ts). Limit 1e-8 common practice
- * ([CP] CRITERIA.md §6).
+ * ([CP] docs/sources.md §6).
  */
 import type { RuleDefinition } from './rule-types.js';
 import { toleranceOptionsSchema, type ToleranceOptions } from './utils/tolerance-options.js';

@@ -7,7 +7,7 @@
  * rigid-body, elastic with elastic) and the messages say so: the drift is still checked.
  * Rigid-body modes (f ≈ 0) are not checked.
  * Default 5 %: the frequency agreement usually asked of significant modes (attributed to
- * NASA-STD-5002, clause unconfirmed — [M] CRITERIA.md §1b); between revisions of one model the
+ * NASA-STD-5002, clause unconfirmed — [M] docs/sources.md §1b); between revisions of one model the
  * right limit is the project's own choice.
  */
 import type { RuleDefinition } from './rule-types.js';

@@ -1,7 +1,7 @@
 /**
  * mass-normalization: every solved shape has unit modal mass, max_i |φᵢᵀMφᵢ − 1| ≤ tolerance.
  * Mass normalization φᵀMφ = I is what a type-1 generalized solver returns (LAPACK Users' Guide
- * §4.10, [C] CRITERIA.md §6); the 1e-6 limit is common practice ([CP] CRITERIA.md §6).
+ * §4.10, [C] docs/sources.md §6); the 1e-6 limit is common practice ([CP] docs/sources.md §6).
  */
 import type { RuleDefinition } from './rule-types.js';
 import { toleranceOptionsSchema, type ToleranceOptions } from './utils/tolerance-options.js';

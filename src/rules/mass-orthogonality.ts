@@ -1,7 +1,7 @@
 /**
  * mass-orthogonality: solved shapes are M-orthogonal, max_{i≠j} |φᵢᵀMφⱼ| ≤ tolerance.
  * With unit modal masses this is the cosine of the M-angle between modes; 1e-6 is common
- * practice for computed modes ([CP] CRITERIA.md §6; dense solvers reach O(nε)).
+ * practice for computed modes ([CP] docs/sources.md §6; dense solvers reach O(nε)).
  */
 import type { RuleDefinition } from './rule-types.js';
 import { toleranceOptionsSchema, type ToleranceOptions } from './utils/tolerance-options.js';

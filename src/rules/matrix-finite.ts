@@ -1,5 +1,5 @@
 /**
- * matrix-finite: K and M hold no NaN or infinite entries (tool policy, [CP] CRITERIA.md §4).
+ * matrix-finite: K and M hold no NaN or infinite entries (tool policy, [CP] docs/sources.md §4).
  *
  * `check` reads K and M with screening 'record': a value such as `nan`, `inf` or `1e400`, or
  * duplicates summing past the double range, is kept and listed with its line

@@ -1,6 +1,6 @@
 /**
  * matrix-symmetry: K and M are symmetric, max|a_ij − a_ji| ≤ tolerance · max|a| (1e-12 relative,
- * common practice [CP] CRITERIA.md §6). Files declared `symmetric` store one triangle and pass by
+ * common practice [CP] docs/sources.md §6). Files declared `symmetric` store one triangle and pass by
  * construction; `general` files are measured when read (MatrixSummary.maxRelativeAsymmetry).
  * `check` reads with screening 'record', so the reader never refuses a `general` file for its
  * values (only for structure: bad indices, counts); this rule alone judges the asymmetry against

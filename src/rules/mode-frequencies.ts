@@ -2,7 +2,7 @@
  * mode-frequencies: listed modes lie within ± tolerancePercent of target frequencies:
  *   |f_i − f_target| / f_target ≤ tol/100.
  * Default 5 %: the frequency agreement usually asked of significant modes in test–analysis
- * correlation (attributed to NASA-STD-5002, clause unconfirmed — [M] CRITERIA.md §1b).
+ * correlation (attributed to NASA-STD-5002, clause unconfirmed — [M] docs/sources.md §1b).
  * `mode` counts every solved mode from 1, rigid-body modes included.
  */
 import type { RuleDefinition } from './rule-types.js';

@@ -1,12 +1,12 @@
 /**
  * mode-shape-match: each paired mode's shape still matches its baseline shape:
  *   MAC(φ_baseline, ψ_current) ≥ minMac
- * (Allemang & Brown 1982, CRITERIA.md §2 [C]; plain or mass-weighted as the baseline settings
+ * (Allemang & Brown 1982, docs/sources.md §2 [C]; plain or mass-weighted as the baseline settings
  * say). For modes of a near-repeated group the value is the group's subspace MAC (smallest cos²
  * of the principal angles between the two spans, src/model/mac.ts), since single vectors of a
  * repeated pair are arbitrary. Skips, saying why, when the shapes could not be compared (the DOFs
  * of the baseline and of the model could not be matched).
- * Default 0.9: the cross-MAC used for pairing in practice (SEM/IMAC ch. 18, CRITERIA.md §2 [C];
+ * Default 0.9: the cross-MAC used for pairing in practice (SEM/IMAC ch. 18, docs/sources.md §2 [C];
  * "> 0.9 consistent" is common practice, [CP]).
  */
 import type { RuleDefinition } from './rule-types.js';

@@ -1,6 +1,6 @@
 /**
  * mode-swap: the modes keep their order: no two paired modes cross, i.e. no baseline modes
- * a < b whose partners come in the opposite order p(a) > p(b) (mode tracking, CRITERIA.md §2
+ * a < b whose partners come in the opposite order p(a) > p(b) (mode tracking, docs/sources.md §2
  * practice 3, [CP]). Crossings inside a group of near-repeated modes are not swaps. Set the rule
  * to `warning` to report swaps without failing. Skips, saying why, when the shapes could not be
  * compared (pairs by frequency order cannot cross).

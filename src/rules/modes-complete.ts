@@ -1,7 +1,7 @@
 /**
  * modes-complete: the Sturm-sequence count proves no mode was missed. By Sylvester's law of
  * inertia the negative pivots of LDLᵀ(K − σM) equal the eigenvalues below σ (Bai et al.,
- * Templates §4, [C] CRITERIA.md §3); with σ just above the last returned mode the count must
+ * Templates §4, [C] docs/sources.md §3); with σ just above the last returned mode the count must
  * equal the number of modes returned.
  *
  * When the requested count ends inside a cluster of equal eigenvalues (a square tube's bending

@@ -1,7 +1,7 @@
 /**
  * new-or-lost-modes: every mode in the frequency range both solutions cover has a partner.
  * A baseline mode with no partner although the current solve reached its frequency is lost; a
- * current mode with no partner below the baseline's highest mode is new (CRITERIA.md §2
+ * current mode with no partner below the baseline's highest mode is new (docs/sources.md §2
  * practice 3, [CP]). Modes above the other side's range are not counted: their partner may
  * simply not have been solved, and so are members of a near-repeated group that the other side's
  * solve cut at its highest mode (the group is compared as a subspace instead, see mode-shape-match).

@@ -3,9 +3,9 @@
  * Measured: max over the six rigid-body vectors r of  rᵀKr / (λ_ref rᵀMr)  (= E / E_ref with
  * E = ½ rᵀKr, E_ref = ½ λ_ref rᵀMr; see src/model/rigid-body-energy.ts for λ_ref).
  * Default limit 1e-8 — our choice, derived from the ECSS-E-ST-32-03C separation criterion
- * f_rigid / f_first-elastic < 1e-4 ([S] CRITERIA.md §1a): the ratio is (f_r / f_ref)², so 1e-8
+ * f_rigid / f_first-elastic < 1e-4 ([S] docs/sources.md §1a): the ratio is (f_r / f_ref)², so 1e-8
  * asks the same of the geometric rigid vectors. The standard has its own energy check, whose
- * numbers were not recovered ([M] CRITERIA.md §1a); none is claimed here.
+ * numbers were not recovered ([M] docs/sources.md §1a); none is claimed here.
  * On failure the message names the nodes with the largest residual forces K r (where the model
  * is grounded), down to 1 % of the largest residual (at most 10), each with its share of it.
  */

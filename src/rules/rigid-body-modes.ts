@@ -1,6 +1,6 @@
 /**
  * rigid-body-modes: the number of modes below the rigid-body cutoff equals `expected` (or lies in
- * `min..max`). A free-free 3-D model has 6 (ECSS-E-ST-32-03C "first six", [S] CRITERIA.md §1a);
+ * `min..max`). A free-free 3-D model has 6 (ECSS-E-ST-32-03C "first six", [S] docs/sources.md §1a);
  * a supported model has 0. More than expected means a mechanism or an unintended free part;
  * fewer means unintended grounding (a spring or constraint to ground).
  */

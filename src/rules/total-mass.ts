@@ -3,7 +3,7 @@
  * within ± tolerancePercent of the expected value from the mass budget. Units: the model's mass
  * unit (kg for SI models, t for N-mm-t models). The tolerance comes from the project's budget;
  * the default 1 % is our choice (the ECSS mass-property tolerance was not recovered, [M]
- * CRITERIA.md §1a).
+ * docs/sources.md §1a).
  * The mass is that of the whole export (constraint sets do not change it); when constraint sets
  * removed DOFs, the mass on the kept DOFs, which mass participation is relative to, is stated
  * beside it. Mass at DOFs the FE program removed before export is in neither.

@@ -1,7 +1,7 @@
 /**
  * MAC and pairing against their definitions and outside references:
  *  - MAC(φ, φ) = 1; mass-weighted MAC of two M-orthogonal modes = 0; MAC unchanged by scaling
- *    and sign (Allemang & Brown 1982, definition restated in Allemang 2003 eq. 4, CRITERIA.md §2 [C]),
+ *    and sign (Allemang & Brown 1982, definition restated in Allemang 2003 eq. 4, docs/sources.md §2 [C]),
  *    on modes of a generated cantilever solved densely by ml-matrix (outside the project);
  *  - a hand value: MAC([1,0], [1,1]) = 1/2 (definition);
  *  - the assignment equals exhaustive search over every permutation (brute force, common practice).

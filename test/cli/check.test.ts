@@ -41,7 +41,7 @@ describe('modalgate check', () => {
     expect(xml).toMatch(/<testsuites name="modalgate" tests="24" failures="1" errors="0"/);
     const json = JSON.parse(readFileSync(join(work, 'good/out/report.json'), 'utf8'));
     expect(json.verdict).toBe('fail');
-    // fixed–free chain of 3 unit masses and springs 100 N/m: λ₁ = (4k/m) sin²(π/14), CRITERIA.md §7 [V]
+    // fixed–free chain of 3 unit masses and springs 100 N/m: λ₁ = (4k/m) sin²(π/14), docs/sources.md §7 [V]
     const exactHz = Math.sqrt(400 * Math.sin(Math.PI / 14) ** 2) / (2 * Math.PI);
     expect(Math.abs(json.models[0].modes[0].frequencyHz - exactHz) / exactHz).toBeLessThan(1e-10);
   });

@@ -7,7 +7,7 @@
  *  - square-section cantilever: every bending frequency comes as a pair (common practice), the
  *    pairs at Euler–Bernoulli f = (βL)²/(2πL²)·√(EI/(ρA)), βL = 1.87510407, 4.69409113,
  *    7.85475744 (Blevins, Formulas for Natural Frequency and Mode Shape (1979), Table 8-1, via
- *    CRITERIA.md §7), and the whole spectrum from ml-matrix dense eigen (test/generator/dense-reference.ts);
+ *    docs/sources.md §7), and the whole spectrum from ml-matrix dense eigen (test/generator/dense-reference.ts);
  *  - the demo mast (fixtures/demo/): its reference spectrum from numpy/scipy offline
  *    (fixtures/demo/reference-frequencies.json, made by fixtures/generator/demo_frequencies.py).
  */
@@ -24,7 +24,7 @@ import { cleanSummary } from '../rules/fake-model.js';
 import { generalizedEigenvalues } from '../generator/dense-reference.js';
 import { ensureBuilt, repoRoot, runCli } from '../cli/built-cli.js';
 
-const BETA_L = [1.87510407, 4.69409113, 7.85475744]; // Blevins Table 8-1, via CRITERIA.md §7
+const BETA_L = [1.87510407, 4.69409113, 7.85475744]; // Blevins Table 8-1, via docs/sources.md §7
 
 describe('square-section cantilever: counts that split each bending pair', () => {
   const lengthM = 2;

@@ -2,10 +2,10 @@
  * Generated models (fixtures/generator) against handbook values and structural facts:
  *  - Euler–Bernoulli cantilever f₁ = (βL)²/(2πL²)·√(EI/(ρA)), βL₁ = 1.87510407, and free-free
  *    beam βL₁ = 4.73004074 — Blevins, Formulas for Natural Frequency and Mode Shape (1979),
- *    Table 8-1 [S], roots [V] as listed in /work/shared/CRITERIA.md §7;
+ *    Table 8-1 [S], roots [V] as listed in docs/sources.md §7;
  *  - a square section bends alike about both axes: every bending frequency comes twice (common practice);
  *  - a free-free 3-D body has exactly 6 rigid-body modes (common practice; ECSS-E-ST-32-03C quoted
- *    via CRITERIA.md §1a [S]: rigid/elastic frequency ratio < 1e-4);
+ *    via docs/sources.md §1a [S]: rigid/elastic frequency ratio < 1e-4);
  *  (the unfastened-anchor mast is checked on the committed demo files, demo-models.test.ts)
  *  - every model: Sturm count, residuals ≤ 1e-10, ‖ΦᵀMΦ − I‖ ≤ 1e-10, both methods agree.
  */
@@ -17,8 +17,8 @@ import type { GeneratedModel } from '../../fixtures/generator/model-types.js';
 import { solveModes } from '../../src/eigen/solve-modes.js';
 import type { ModesResult } from '../../src/eigen/modes-types.js';
 
-const BETA_L_CLAMPED_FREE = 1.87510407; // Blevins Table 8-1 [S], CRITERIA.md §7 [V]
-const BETA_L_FREE_FREE = 4.73004074; // Blevins Table 8-1 [S], CRITERIA.md §7 [V]
+const BETA_L_CLAMPED_FREE = 1.87510407; // Blevins Table 8-1 [S], docs/sources.md §7 [V]
+const BETA_L_FREE_FREE = 4.73004074; // Blevins Table 8-1 [S], docs/sources.md §7 [V]
 
 function eulerBernoulliHz(betaL: number, lengthM: number, widthM: number, depthM: number): number {
   const s = rectangularSection(widthM, depthM);
@@ -52,7 +52,7 @@ function expectAgree(a: ModesResult, b: ModesResult): void {
   }
 }
 
-describe('clamped-free beam vs Euler–Bernoulli (Blevins Table 8-1 via CRITERIA.md §7)', () => {
+describe('clamped-free beam vs Euler–Bernoulli (Blevins Table 8-1 via docs/sources.md §7)', () => {
   it('first bending frequency converges, error falling ≥ 4× per mesh doubling', () => {
     const exact = eulerBernoulliHz(BETA_L_CLAMPED_FREE, 2, 0.04, 0.06);
     const errors = [2, 4, 8].map((elements) => {
@@ -85,7 +85,7 @@ describe('clamped-free beam vs Euler–Bernoulli (Blevins Table 8-1 via CRITERIA
 describe('free-free models: exactly 6 rigid-body modes, then the first elastic one', () => {
   function rigidCount(r: ModesResult): number {
     const firstElastic = Math.max(...Array.from(r.frequenciesHz, Math.abs));
-    // ECSS-E-ST-32-03C ratio criterion < 1e-4 (CRITERIA.md §1a [S])
+    // ECSS-E-ST-32-03C ratio criterion < 1e-4 (docs/sources.md §1a [S])
     return Array.from(r.frequenciesHz).filter((f) => Math.abs(f) < 1e-4 * firstElastic).length;
   }
 

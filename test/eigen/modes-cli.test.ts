@@ -1,7 +1,7 @@
 /**
  * `modalgate modes` end to end (compiled dist/src/cli/main.js): table, --json shape, --shapes
  * file, exit codes. The model is a generated cantilever whose first frequency is checked
- * against Euler–Bernoulli (Blevins Table 8-1 via CRITERIA.md §7, βL₁ = 1.87510407).
+ * against Euler–Bernoulli (Blevins Table 8-1 via docs/sources.md §7, βL₁ = 1.87510407).
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync } from 'node:fs';
@@ -43,7 +43,7 @@ describe('modalgate modes', () => {
     for (const key of ['eigenvalues', 'frequenciesHz', 'residuals', 'sturm', 'orthogonality', 'timings']) expect(doc).toHaveProperty(key);
     expect(doc.eigenvalues).toHaveLength(4);
     expect(doc.sturm).toMatchObject({ countBelow: 4, modesReturned: 4, ok: true });
-    // Euler–Bernoulli cantilever, weak axis (Blevins Table 8-1 [S], CRITERIA.md §7)
+    // Euler–Bernoulli cantilever, weak axis (Blevins Table 8-1 [S], docs/sources.md §7)
     const s = rectangularSection(0.04, 0.06);
     const exact = (1.87510407 ** 2 / (2 * Math.PI * 4)) * Math.sqrt((STEEL.youngPa * Math.min(s.iyM4, s.izM4)) / (STEEL.densityKgM3 * s.areaM2));
     expect(Math.abs(doc.frequenciesHz[0] - exact) / exact).toBeLessThan(1e-4);

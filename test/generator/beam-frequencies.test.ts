@@ -11,10 +11,10 @@ import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { frequenciesHz, generalizedEigenvalues } from './dense-reference.js';
 
 // Cantilever roots βL of cos βL cosh βL = −1: Blevins, Formulas for Natural Frequency and Mode
-// Shape (1979), Table 8-1, values as listed in /work/shared/CRITERIA.md §7 ([S] table, [V] roots).
+// Shape (1979), Table 8-1, values as listed in docs/sources.md §7 ([S] table, [V] roots).
 const CANTILEVER_BETA_L = [1.87510407, 4.69409113, 7.85475744];
 
-/** Euler–Bernoulli f = (βL)²/(2πL²)·√(EI/(ρA)) (Blevins Table 8-1, via CRITERIA.md §7). */
+/** Euler–Bernoulli f = (βL)²/(2πL²)·√(EI/(ρA)) (Blevins Table 8-1, via docs/sources.md §7). */
 function eulerBernoulliHz(betaL: number, lengthM: number, ei: number, rhoA: number): number {
   return ((betaL * betaL) / (2 * Math.PI * lengthM * lengthM)) * Math.sqrt(ei / rhoA);
 }
@@ -51,7 +51,7 @@ describe('clamped-free beam, 40 elements', () => {
 
 describe('axial rod chain', () => {
   it('fixed-free rod: f_i = (2i−1)c/(4L) within 0.5 %', () => {
-    // Rod formula: Blevins table via CRITERIA.md §7 ([M] table number, formula exact).
+    // Rod formula: Blevins table via docs/sources.md §7 ([M] table number, formula exact).
     const lengthM = 10;
     const n = 40;
     const nodes: FrameNode[] = Array.from({ length: n + 1 }, (_, i) => ({ id: i + 1, x: (lengthM * i) / n, y: 0, z: 0 }));

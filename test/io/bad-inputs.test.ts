@@ -2,7 +2,7 @@
  * Bad-input corpus (test/io/bad-inputs, made by make_bad_inputs.py): every defective matrix
  * file and DOF map must raise an InputError whose one-line message names the file and the
  * line of the defect. The defects follow the NIST Matrix Market rules (Boisvert, Pozo &
- * Remington, NISTIR 5935; CRITERIA.md §4 [C]) plus our K/M policy (§4 [CP]).
+ * Remington, NISTIR 5935; docs/sources.md §4 [C]) plus our K/M policy (§4 [CP]).
  */
 import { describe, expect, it } from 'vitest';
 import { readFileSync, readdirSync } from 'node:fs';

@@ -1,6 +1,6 @@
 /**
  * Write → read round trips are bit-exact (K, M and dense mode-shape arrays, plain and gzip),
- * and the reader gives the structure the Matrix Market rules define (NISTIR 5935; CRITERIA.md
+ * and the reader gives the structure the Matrix Market rules define (NISTIR 5935; docs/sources.md
  * §4 [C]): 1-based coordinates, symmetric files as their lower triangle, array files in
  * column-major order. Reference for number text: ECMAScript Number() / String(), which the
  * language specifies as correctly rounded and shortest round-trip.

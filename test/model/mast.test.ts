@@ -15,7 +15,7 @@ describe('free-free mast', () => {
   const facts = computeGeometry({ stiffness: mast.stiffness, mass: mast.mass, dofMap: mast.dofMap, modes });
 
   it('six rigid-body vectors: strain energy ≤ 1e-10 relative to ½ λ₇ rᵀMr, spanning the six computed near-zero modes (≤ 1e-6 rad)', () => {
-    // Free-free 3-D model: six rigid-body modes (ECSS-E-ST-32-03C "first six", [S] CRITERIA.md §1a).
+    // Free-free 3-D model: six rigid-body modes (ECSS-E-ST-32-03C "first six", [S] docs/sources.md §1a).
     expect(facts.nearZeroModes).toBe(6);
     expect(facts.freeRigidBodyMotions).toBe(6);
     for (const d of facts.rigidBodyEnergy.directions) expect(Math.abs(d.relativeEnergy!)).toBeLessThan(1e-10);

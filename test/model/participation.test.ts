@@ -18,7 +18,7 @@ describe('modal participation of a clamped cantilever (20 beam elements)', () =>
 
   it('bending modes in y carry the handbook effective-mass fractions 0.6131, 0.1883, 0.0647, 0.0331', () => {
     // Reference: (∫φ)² / (L ∫φ²) of the Euler–Bernoulli clamped-free mode shapes (Blevins, Formulas
-    // for Natural Frequency and Mode Shape, Table 8-1 shapes [S] CRITERIA.md §7), integrated by
+    // for Natural Frequency and Mode Shape, Table 8-1 shapes [S] docs/sources.md §7), integrated by
     // test/reference/make_cantilever_effective_mass_reference.py. The fractions refer to the whole
     // beam mass ρAL; the FE sum uses the mass on free DOFs, so Γ² is divided by ρAL here.
     const reference = [0.61307609, 0.18830036, 0.06473223, 0.03308689];

@@ -21,7 +21,7 @@ describe('rigid-body energy of free-free models', () => {
       expect(facts.rigidBodyEnergy.referenceEigenvalue).toBe(modes.eigenvalues[6]);
       for (const d of facts.rigidBodyEnergy.directions) expect(Math.abs(d.relativeEnergy!)).toBeLessThan(1e-10);
       const { rigid } = rigidBodyVectorsAboutCenterOfMass(model.dofMap, model.mass);
-      // Free-free 3-D model: six rigid-body modes (ECSS-E-ST-32-03C "first six", [S] CRITERIA.md §1a).
+      // Free-free 3-D model: six rigid-body modes (ECSS-E-ST-32-03C "first six", [S] docs/sources.md §1a).
       const angle = largestPrincipalAngle(rigid.vectors, 6, modes.shapes.subarray(0, 6 * model.stiffness.n), 6, model.mass);
       expect(angle).toBeLessThan(1e-6);
       expect(facts.mechanisms!.mechanisms).toBe(0);
