@@ -26,7 +26,7 @@ import { ModelRunner, type RunningModel } from '../pipeline/model-runner.js';
 import { DEFAULT_MEMORY_SHARE, defaultMemoryLimitBytes, parseMemorySize, parseSeconds } from './limits.js';
 
 /** Exit codes after SIGINT and SIGTERM (128 + the signal's number, the shells' convention). */
-export const EXIT_INTERRUPTED: Record<'SIGINT' | 'SIGTERM', number> = { SIGINT: 130, SIGTERM: 143 };
+const EXIT_INTERRUPTED: Record<'SIGINT' | 'SIGTERM', number> = { SIGINT: 130, SIGTERM: 143 };
 
 export interface CheckOptions {
   config?: string;
@@ -243,7 +243,7 @@ function writeReports(report: CheckReport, targets: CheckOutcome['written'], mar
 }
 
 /** "cannot write /x/junit.xml: ENOSPC (no space left on device)" */
-export function writeFailureMessage(path: string, e: unknown): string {
+function writeFailureMessage(path: string, e: unknown): string {
   const code = (e as NodeJS.ErrnoException).code;
   const causes: Record<string, string> = {
     ENOSPC: 'no space left on device',

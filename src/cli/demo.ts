@@ -13,7 +13,7 @@ import { EXIT_BAD_INPUT, EXIT_PASS, runAction } from './run-action.js';
 import type { CheckReport } from '../pipeline/result-types.js';
 
 /** Model → rules that are meant to fail in the demo. */
-export const INTENDED_FAILURES: Record<string, string[]> = {
+const INTENDED_FAILURES: Record<string, string[]> = {
   'mast-guyed-loose-anchor': ['rigid-body-modes'],
 };
 
@@ -26,7 +26,7 @@ export function registerDemo(program: Command): void {
     .action(runAction(async (opts: { output: string; quiet?: boolean }) => runDemo(opts)));
 }
 
-export async function runDemo(opts: { output: string; quiet?: boolean }): Promise<number> {
+async function runDemo(opts: { output: string; quiet?: boolean }): Promise<number> {
   const out = resolve(process.cwd(), opts.output);
   const config = join(packageRoot(), 'fixtures', 'demo', 'modalgate.yaml');
   process.stdout.write(`modalgate demo: checking the bundled models of ${config}\n\n`);
@@ -45,7 +45,7 @@ export async function runDemo(opts: { output: string; quiet?: boolean }): Promis
 }
 
 /** Every difference between the run and the intended outcome (intended failures that did not fail, other failures). */
-export function unexpectedOutcomes(report: CheckReport): string[] {
+function unexpectedOutcomes(report: CheckReport): string[] {
   const problems: string[] = [];
   if (report.problem) problems.push(report.problem.message);
   for (const m of report.models) {

@@ -41,7 +41,7 @@ export async function inspectMatrix(matrixPath: string, opts: InspectOptions): P
 }
 
 /** Short readable number: plain when moderate, exponent form otherwise. */
-export function shortNumber(x: number): string {
+function shortNumber(x: number): string {
   if (x === 0) return '0';
   const a = Math.abs(x);
   return a >= 1e-3 && a < 1e7 ? String(Number(x.toPrecision(6))) : x.toExponential(4);
@@ -90,7 +90,7 @@ export function formatInspection(s: MatrixSummary, map?: DofMap, file?: StoredFi
 }
 
 /** The summary as JSON; DOF lists also as names (1-based, by node/component with a map). */
-export function formatInspectionJson(s: MatrixSummary, map?: DofMap, file?: StoredFile): string {
+function formatInspectionJson(s: MatrixSummary, map?: DofMap, file?: StoredFile): string {
   const out = {
     ...s,
     ...(file ? { gzip: file.gzip, fileBytes: file.fileBytes } : {}),

@@ -177,7 +177,7 @@ export function formatModesTable(r: ModesResult): string {
 }
 
 /** The JSON document of `--json`. */
-export function modesJson(r: ModesResult, opts: { stiffness: string; mass: string }): Record<string, unknown> {
+function modesJson(r: ModesResult, opts: { stiffness: string; mass: string }): Record<string, unknown> {
   return {
     stiffness: opts.stiffness,
     mass: opts.mass,

@@ -31,7 +31,7 @@ export function registerRules(program: Command): void {
     );
 }
 
-export function optionRows(rule: AnyRule): OptionRow[] {
+function optionRows(rule: AnyRule): OptionRow[] {
   const schema = rule.optionsSchema as { properties?: Record<string, Record<string, unknown>>; required?: string[]; anyOf?: { required: string[] }[] };
   const required = new Set(schema.required ?? []);
   const defaults = rule.defaults as Record<string, unknown>;

@@ -95,7 +95,7 @@ export function thinQr(
 }
 
 /** R (cols×cols, column-major) from the factorization. */
-export function upperFactor(qr: HouseholderQr): Float64Array {
+function upperFactor(qr: HouseholderQr): Float64Array {
   const { rows, cols, factors } = qr;
   const r = new Float64Array(cols * cols);
   // R(0:j, j) = factors(0:j, j)
@@ -106,7 +106,7 @@ export function upperFactor(qr: HouseholderQr): Float64Array {
 }
 
 /** Q(:, 0:cols) = H₀ ⋯ H_{cols−1} [I; 0], accumulated backwards. */
-export function formThinQ(qr: HouseholderQr): Float64Array {
+function formThinQ(qr: HouseholderQr): Float64Array {
   const { rows, cols } = qr;
   const q = new Float64Array(rows * cols);
   // [I; 0]

@@ -50,7 +50,7 @@ export function symmetricEigenvalues(a: Float64Array, n: number): Float64Array {
 }
 
 /** Values ascending with their vectors permuted alike; values multiplied back by the scale. */
-export function sortedPairs(
+function sortedPairs(
   raw: Float64Array,
   v: Float64Array,
   n: number,

@@ -162,28 +162,6 @@ function updateColumn(w: Float64Array, n: number, k: number, p: Float64Array, j:
   for (let r = j; r < n; r++) w[c + r] -= w[v + r] * pj + p[r] * vj;
 }
 
-/** Z ← Q Z for an n×cols block Z: eigenvectors of T become eigenvectors of A. */
-export function applyReductionQ(t: Tridiagonal, z: Float64Array, cols: number): void {
-  const n = t.diagonal.length;
-  const w = t.reflectors;
-  // Q = H₀ ⋯ H_{n−3}: apply H_{n−3} first
-  for (let k = n - 3; k >= 0; k--) {
-    const tk = t.tau[k];
-    if (tk === 0) continue;
-    const s = k + 1;
-    const vAt = k * n + s;
-    // Z(s:, j) ← Z(s:, j) − τ v (vᵀ Z(s:, j))
-    for (let j = 0; j < cols; j++) {
-      const c = j * n;
-      let dot = 0;
-      for (let r = s; r < n; r++) dot += w[vAt + r - s] * z[c + r];
-      dot *= tk;
-      if (dot === 0) continue;
-      for (let r = s; r < n; r++) z[c + r] -= dot * w[vAt + r - s];
-    }
-  }
-}
-
 /** Q = H₀ H₁ ⋯ H_{n−3}, accumulated backwards so each H_k touches only Q(k+1:, k+1:). */
 function formQ(w: Float64Array, n: number, tau: Float64Array): Float64Array {
   const q = new Float64Array(n * n);

@@ -16,7 +16,7 @@
  * form. (The LAPACK test ratio ‖r‖/((‖K‖ + |λ|‖M‖)‖φ‖) is the τ = 1 limit: too lenient for the
  * lowest elastic modes, whose ‖Kφ‖ lies far below ‖K‖‖φ‖ — it passed a shape 30 % off.)
  */
-export const RIGID_BODY_RESIDUAL_FLOOR = 1e-5;
+const RIGID_BODY_RESIDUAL_FLOOR = 1e-5;
 
 /**
  * The residual a verified solution meets: 1e-8, common practice for computed modes (the same

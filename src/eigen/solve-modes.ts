@@ -40,8 +40,8 @@ import { diagonalScale, firstShiftGuess, judgeShift, RIGID_BODY_FRACTION, type D
 import type { EigenSearch, EigenSearchResult } from './search-types.js';
 
 /** The method used when the request names none (block Lanczos: fewer solves in test/bench/modes-bench.ts). */
-export const DEFAULT_METHOD: 'lanczos' | 'subspace' = 'lanczos';
-export const DEFAULT_TOLERANCE = 1e-12;
+const DEFAULT_METHOD: 'lanczos' | 'subspace' = 'lanczos';
+const DEFAULT_TOLERANCE = 1e-12;
 /**
  * Without massless DOFs the extra purification solve is spent only when a residual exceeds this
  * (our choice). A converged rigid-body mode sits at the residual measure's rounding floor
@@ -50,7 +50,7 @@ export const DEFAULT_TOLERANCE = 1e-12;
  */
 const PURIFY_ABOVE_RESIDUAL = 1e-10;
 /** Modes solved per shift; larger counts are found slice by slice (spectrum slicing). */
-export const SLICE_SIZE = 40;
+const SLICE_SIZE = 40;
 
 interface Clock {
   factorMs: number;
@@ -433,7 +433,7 @@ function gapSturm(
 }
 
 /** One sentence for a cluster extension (shown by `modes` and in the reports' Sturm note). */
-export function clusterNote(e: ClusterExtension): string {
+function clusterNote(e: ClusterExtension): string {
   const extra = e.returned - e.requested;
   const hz = frequencyHzFromEigenvalue(e.eigenvalue);
   const what = e.rigidBody

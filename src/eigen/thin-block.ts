@@ -9,22 +9,6 @@ export function columns(x: Float64Array, n: number, from: number, to: number): F
   return x.slice(from * n, to * n);
 }
 
-/** [X Y]: the columns of X followed by those of Y. */
-export function joinColumns(x: Float64Array, y: Float64Array): Float64Array {
-  const z = new Float64Array(x.length + y.length);
-  z.set(x, 0);
-  z.set(y, x.length);
-  return z;
-}
-
-/** Euclidean norm of column j of an n-row block. */
-export function columnNorm(x: Float64Array, n: number, j: number): number {
-  let s = 0;
-  // √Σ x_rj²
-  for (let r = j * n; r < (j + 1) * n; r++) s += x[r] * x[r];
-  return Math.sqrt(s);
-}
-
 /** A deterministic pseudo-random n×k block in [−0.5, 0.5), so runs repeat exactly. */
 export function randomBlock(n: number, k: number, seed: number): Float64Array {
   const x = new Float64Array(n * k);

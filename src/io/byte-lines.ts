@@ -188,7 +188,3 @@ async function scanGzip(path: string, s: LineSplitter): Promise<void> {
   }
 }
 
-/** File size on disk, for plausibility checks of declared sizes. */
-export async function fileSize(path: string): Promise<number> {
-  return (await stat(path)).size;
-}

@@ -15,7 +15,7 @@ const typeWords: Record<string, string> = {
 };
 
 /** `/models/1/rules/x` → `models[1].rules.x`, prefixed by `base` when given. */
-export function readablePath(pointer: string, base = ''): string {
+function readablePath(pointer: string, base = ''): string {
   let out = base;
   for (const raw of pointer.split('/').slice(1)) {
     const seg = raw.replace(/~1/g, '/').replace(/~0/g, '~');

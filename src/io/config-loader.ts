@@ -42,7 +42,7 @@ export function findConfig(explicit: string | undefined, cwd: string = process.c
 }
 
 /** Largest config or rule-set file read (a real one is a few kB). */
-export const CONFIG_MAX_BYTES = 16 * 2 ** 20;
+const CONFIG_MAX_BYTES = 16 * 2 ** 20;
 
 /** Parse a YAML or JSON file into a plain value (JSON is YAML, but JSON files get JSON's errors). */
 export function readStructuredFile(path: string): unknown {

@@ -22,10 +22,6 @@ export interface DofMap {
   readonly z: Float64Array;
 }
 
-export function componentName(code: number): Component {
-  return COMPONENTS[code];
-}
-
 /** "node 12 uz (dof 36)" — how DOFs are named in messages. `dof` is 0-based. */
 export function describeDof(map: DofMap | undefined, dof: number): string {
   if (!map) return `dof ${dof + 1}`;

@@ -28,10 +28,6 @@ function formatLocation(file: string, line: number | undefined, where: string | 
   return s;
 }
 
-export function isInputError(e: unknown): e is InputError {
-  return e instanceof InputError;
-}
-
 /** One line, whatever was thrown: never a stack trace. */
 export function oneLineMessage(e: unknown): string {
   if (e instanceof InputError) return e.message.replace(/\s*\n\s*/g, ' ');

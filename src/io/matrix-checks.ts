@@ -23,7 +23,7 @@ export interface MatrixFacts {
   listCap?: number;
 }
 
-export const DEFAULT_LIST_CAP = 20;
+const DEFAULT_LIST_CAP = 20;
 
 export function summarizeMatrix(a: SymmetricCsc, facts: MatrixFacts): MatrixSummary {
   const { n, colPtr, rowIdx, values } = a;

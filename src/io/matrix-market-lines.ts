@@ -54,7 +54,7 @@ const MAX_ENTRIES = 2 ** 31 - 1;
 export const FILLER_BYTES = 16 * 2 ** 20;
 export const BYTES_PER_ENTRY = 256;
 /** Duplicates are summed in place once the full triplet arrays hold this many. */
-export const COMPACT_FROM = 2 ** 20;
+const COMPACT_FROM = 2 ** 20;
 /** Smallest triplet capacity (64 kB of triplets). */
 const MIN_TRIPLETS = 4096;
 /** How many non-finite entries are listed with their lines. */

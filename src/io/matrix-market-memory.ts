@@ -15,9 +15,9 @@
 import { totalmem } from 'node:os';
 
 /** Bytes of one (row, column, value) triplet while reading. */
-export const TRIPLET_BYTES = 16;
+const TRIPLET_BYTES = 16;
 /** Fewest n-vectors of doubles any solve keeps (a lower bound, not a typical figure). */
-export const SOLVER_VECTORS = 16;
+const SOLVER_VECTORS = 16;
 
 /** Most distinct entries of an n × n matrix: n(n+1)/2 for one triangle, n² for both. */
 export function distinctEntryBound(n: number, oneTriangle: boolean): number {

@@ -36,7 +36,7 @@ import type { SymmetricCsc } from '../sparse/csc.js';
 import { summarizeMatrix } from './matrix-checks.js';
 import type { MatrixSummary } from './matrix-summary.js';
 
-export const DEFAULT_ASYMMETRY_TOLERANCE = 1e-10;
+const DEFAULT_ASYMMETRY_TOLERANCE = 1e-10;
 
 export interface MatrixReadOptions {
   /** Largest accepted max |a_ij − a_ji| / max|a| for `general` files (default 1e-10). */
@@ -133,7 +133,7 @@ export async function readStiffnessAndMass(
 }
 
 /** Header text allowed before the size line (a real header is a few kB of comments). */
-export const HEADER_BYTES = 16 * 2 ** 20;
+const HEADER_BYTES = 16 * 2 ** 20;
 
 /**
  * The banner and size line of a matrix file, checked as readMatrixMarket checks them
@@ -244,7 +244,7 @@ async function nonFiniteLocations(
  * Line of the first coordinate entry at (i, j) or (j, i), 1-based; a second pass over the
  * file, used only to point at the line of an error found after reading.
  */
-export async function findEntryLine(path: string, info: ByteSourceInfo, i: number, j: number): Promise<number | undefined> {
+async function findEntryLine(path: string, info: ByteSourceInfo, i: number, j: number): Promise<number | undefined> {
   let found: number | undefined;
   let inData = false;
   await forEachLine(

@@ -38,7 +38,7 @@ const TAB = 9;
 const CR = 13;
 const NEWLINE = 10;
 
-export function isBlank(c: number): boolean {
+function isBlank(c: number): boolean {
   return c === SPACE || c === TAB || c === CR;
 }
 

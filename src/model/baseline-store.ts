@@ -65,8 +65,8 @@ import { withSignalCleanup } from '../io/signal-cleanup.js';
 import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
 import { restrictRows, type ShapeBlock } from './mac.js';
 
-export const BASELINE_SCHEMA_VERSION = 2;
-export const DEFAULT_BASELINE_MAX_DOFS = 2000;
+const BASELINE_SCHEMA_VERSION = 2;
+const DEFAULT_BASELINE_MAX_DOFS = 2000;
 
 /** Which DOFs keep their shape values: every DOF (default), the DOFs of listed nodes, or the automatic subset. */
 export type ShapeDofSelection = 'all' | 'auto' | { nodes: number[]; components?: string[] };
@@ -267,7 +267,7 @@ function safeList(dir: string): string[] {
 }
 
 /** min over modes k of Σ_{i∈S} φ_ki (Mφ_k)_i: the smallest share of a mode's kinetic energy on the subset S. */
-export function keptEnergyShare(modes: ModesResult, mass: SymmetricCsc, dofs: Int32Array): number {
+function keptEnergyShare(modes: ModesResult, mass: SymmetricCsc, dofs: Int32Array): number {
   const n = modes.n, m = modes.eigenvalues.length;
   if (m === 0) return 1;
   const massShapes = symMultiplyBlock(mass, modes.shapes.subarray(0, n * m), m);
@@ -283,7 +283,7 @@ export function keptEnergyShare(modes: ModesResult, mass: SymmetricCsc, dofs: In
 }
 
 /** The DOFs to keep (ascending), or null for every DOF. */
-export function selectShapeDofs(input: SaveBaselineInput): Int32Array | null {
+function selectShapeDofs(input: SaveBaselineInput): Int32Array | null {
   const selection = input.selection ?? 'all';
   if (selection === 'all') return null;
   if (selection === 'auto') return highestEnergyDofs(input.modes, input.mass, input.maxDofs ?? DEFAULT_BASELINE_MAX_DOFS);
@@ -291,7 +291,7 @@ export function selectShapeDofs(input: SaveBaselineInput): Int32Array | null {
 }
 
 /** At most `maxDofs` DOFs with the largest Σ_k φ_ki (Mφ_k)_i, ascending; null when n ≤ maxDofs. */
-export function highestEnergyDofs(modes: ModesResult, mass: SymmetricCsc, maxDofs: number): Int32Array | null {
+function highestEnergyDofs(modes: ModesResult, mass: SymmetricCsc, maxDofs: number): Int32Array | null {
   const n = modes.n, m = modes.eigenvalues.length;
   if (n <= maxDofs) return null;
   const massShapes = symMultiplyBlock(mass, modes.shapes.subarray(0, n * m), m);

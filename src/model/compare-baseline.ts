@@ -34,7 +34,7 @@ import { macFromProducts, principalAngleCosines, restrictRows, shapeProducts, su
 import { crossingPairs, DEFAULT_MIN_PAIR_CORRELATION, pairModes, type ModePairing } from './mode-pairing.js';
 import type { ComparisonFacts, ComparisonSettings, DofMatching, GroupMatch, ModePair, ModeSwap, UnpairedMode } from './comparison-facts.js';
 
-export const DEFAULT_REPEATED_TOLERANCE_PERCENT = 0.1;
+const DEFAULT_REPEATED_TOLERANCE_PERCENT = 0.1;
 
 export interface CurrentModel {
   modes: ModesResult;
@@ -174,7 +174,7 @@ export function compareWithBaseline(baseline: LoadedBaseline, current: CurrentMo
 }
 
 /** Match the stored shape rows with the model's DOFs (see step 1 above). */
-export function matchDofs(baseline: LoadedBaseline, current: CurrentModel): DofMatch {
+function matchDofs(baseline: LoadedBaseline, current: CurrentModel): DofMatch {
   const s = baseline.snapshot;
   const n = current.modes.n;
   const stored = baseline.shapes.rows;
@@ -261,7 +261,7 @@ function rigidCount(frequenciesHz: ArrayLike<number>): number {
 }
 
 /** Group id of each mode: rigid-body modes share group 0; close elastic neighbours share a group. */
-export function groupIndex(frequenciesHz: ArrayLike<number>, tolerancePercent: number): Int32Array {
+function groupIndex(frequenciesHz: ArrayLike<number>, tolerancePercent: number): Int32Array {
   const m = frequenciesHz.length;
   const group = new Int32Array(m);
   const rigid = rigidCount(frequenciesHz);

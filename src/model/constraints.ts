@@ -40,7 +40,7 @@ export interface ReducedModel {
 }
 
 /** Component codes a selector list stands for. */
-export function componentCodes(selectors: readonly ComponentSelector[] | undefined, where = 'components'): number[] {
+function componentCodes(selectors: readonly ComponentSelector[] | undefined, where = 'components'): number[] {
   const codes = new Set<number>();
   // expand each selector to its component codes
   for (const s of selectors ?? ['all']) {
@@ -96,7 +96,7 @@ export function constrainedDofMask(n: number, dofMap: DofMap | undefined, sets: 
 }
 
 /** The DOF map restricted to the kept DOFs. */
-export function reduceDofMap(map: DofMap, keptDofs: Int32Array): DofMap {
+function reduceDofMap(map: DofMap, keptDofs: Int32Array): DofMap {
   const m = keptDofs.length;
   const node = new Int32Array(m);
   const component = new Uint8Array(m);

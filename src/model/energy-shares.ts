@@ -50,7 +50,7 @@ export function dofLabels(n: number, dofMap: DofMap | undefined, originalDofs?: 
 }
 
 /** A component part is named when it carries at least this fraction of the node's energy (our choice). */
-export const MIN_COMPONENT_FRACTION = 0.01;
+const MIN_COMPONENT_FRACTION = 0.01;
 
 /** Node shares of Σ_{j ∈ cols} ψ_ji (M ψ_j)_i (column-major n × ·), normalized to sum 1, largest `top`. */
 export function energyShares(psi: Float64Array, mPsi: Float64Array, cols: readonly number[], labels: DofLabels, top: number): NodeShare[] {

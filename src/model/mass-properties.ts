@@ -33,7 +33,7 @@ export interface MassProperties {
 }
 
 /** G = Rᵀ M R, row-major 6 × 6, and M R (column-major n × 6) for reuse. */
-export function rigidBodyMassMatrix(mass: SymmetricCsc, rigid: RigidBodyVectors): { g: number[]; massTimesR: Float64Array } {
+function rigidBodyMassMatrix(mass: SymmetricCsc, rigid: RigidBodyVectors): { g: number[]; massTimesR: Float64Array } {
   const n = rigid.n;
   const mr = symMultiplyBlock(mass, rigid.vectors, 6);
   const g = new Array<number>(36).fill(0);
@@ -51,7 +51,7 @@ export function rigidBodyMassMatrix(mass: SymmetricCsc, rigid: RigidBodyVectors)
 }
 
 /** Mass properties from G about the reference point of `rigid`. */
-export function massPropertiesFromRigidBodyMass(g: number[], referencePoint: Point3): MassProperties {
+function massPropertiesFromRigidBodyMass(g: number[], referencePoint: Point3): MassProperties {
   const m: [number, number, number] = [g[0], g[7], g[14]];
   const positive = m.filter((v) => v > 0);
   const totalMass = positive.length ? positive.reduce((a, b) => a + b, 0) / positive.length : 0;

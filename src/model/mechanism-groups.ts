@@ -51,11 +51,11 @@ export interface FreeRigidMotions {
 }
 
 /** A node moves when its share is at least this fraction of the largest (amplitude 1e-3; our choice). */
-export const MOVING_NODE_ENERGY_RATIO = 1e-6;
+const MOVING_NODE_ENERGY_RATIO = 1e-6;
 /** Moving parts described one by one (the rest are counted; our choice). */
 export const MAX_DESCRIBED_PARTS = 20;
 /** A motion is a rigid motion of its part when a rigid fit explains this fraction of it (our choice). */
-export const RIGID_FIT_FRACTION = 0.99;
+const RIGID_FIT_FRACTION = 0.99;
 
 export function mechanismGroups(
   stiffness: SymmetricCsc,
@@ -160,7 +160,7 @@ function subtractFit(x: Float64Array, j: number, v: Float64Array, f: number, wei
 }
 
 /** x = A⁺ b for symmetric A (eigenvalues under 1e-10 of the largest dropped). */
-export function pseudoSolve(a: Float64Array, b: Float64Array, f: number): Float64Array {
+function pseudoSolve(a: Float64Array, b: Float64Array, f: number): Float64Array {
   const eig = symmetricEigen(Float64Array.from(a), f);
   const cut = 1e-10 * Math.max(0, ...eig.values);
   const x = new Float64Array(f);
@@ -315,7 +315,7 @@ function rigidFit(
 }
 
 /** Row of R for one DOF (component c, offset d from the rotation point), see ./rigid-body-vectors.ts. */
-export function rigidRow(c: number, dx: number, dy: number, dz: number): number[] {
+function rigidRow(c: number, dx: number, dy: number, dz: number): number[] {
   const r = [0, 0, 0, 0, 0, 0];
   r[c] = 1;
   if (c === 0) (r[4] = dz), (r[5] = -dy);

@@ -28,9 +28,9 @@ import { mechanismGroups, type MechanismGroup } from './mechanism-groups.js';
 export type { NodeShare } from './energy-shares.js';
 
 /** Eigenvalues at most this times the stiffness/mass scale are round-off zeros (our choice). */
-export const ROUND_OFF_ZERO_RATIO = 1e-10;
+const ROUND_OFF_ZERO_RATIO = 1e-10;
 /** A jump λ_{i+1}/λ_i at least this large (frequency ratio 1000) separates near-zero modes (our choice). */
-export const NEAR_ZERO_GAP_RATIO = 1e6;
+const NEAR_ZERO_GAP_RATIO = 1e6;
 
 /**
  * Directions of span(R) the model is free to move in: (RᵀKR) v = μ G v with μ ≤ λ_ref / 1e6.

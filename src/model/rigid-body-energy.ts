@@ -138,7 +138,7 @@ export function rigidBodyEnergy(
 }
 
 /** Nodes are listed down to this fraction of the largest residual (our choice). */
-export const RESIDUAL_LIST_RATIO = 0.01;
+const RESIDUAL_LIST_RATIO = 0.01;
 
 /** Top nodes by residual of the mass-normalized rigid vectors. */
 function largestResiduals(

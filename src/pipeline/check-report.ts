@@ -29,7 +29,7 @@ export function checkReport(run: CheckRun): CheckReport {
   };
 }
 
-export function currentHostname(): string {
+function currentHostname(): string {
   try {
     return hostname() || 'localhost';
   } catch {

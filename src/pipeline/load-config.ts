@@ -202,7 +202,7 @@ function resolveRules(layers: RuleLayer[], configFile: string, modelRulesWhere: 
 }
 
 /** upper wins; keys of an exclusive group that `upper` does not use are dropped when it uses another. */
-export function mergeOptions(rule: AnyRule, lower: Record<string, unknown>, upper: Record<string, unknown>): Record<string, unknown> {
+function mergeOptions(rule: AnyRule, lower: Record<string, unknown>, upper: Record<string, unknown>): Record<string, unknown> {
   const merged = { ...lower };
   for (const group of rule.exclusiveOptions ?? []) {
     if (!group.some((k) => k in upper)) continue;

@@ -5,7 +5,7 @@
  */
 import type { CheckReport } from '../pipeline/result-types.js';
 
-export const JSON_REPORT_VERSION = 1;
+const JSON_REPORT_VERSION = 1;
 
 export function formatJson(report: CheckReport): string {
   const doc = { reportVersion: JSON_REPORT_VERSION, ...report };

@@ -18,7 +18,7 @@ export interface Scale {
 }
 
 /** Decades a log axis spans before the report switches to it (our choice: two decades, ×100). */
-export const LOG_WHEN_DECADES = 2;
+const LOG_WHEN_DECADES = 2;
 
 const INK = '#222';
 const GRID = '#d8d8d8';
@@ -107,7 +107,7 @@ export function tickLabel(s: Scale, v: number): string {
 }
 
 /** Mode-number labels to show on a band axis of n modes: every 1, 2, 5, 10, … so ≤ ~16 remain. */
-export function modeTickStep(n: number): number {
+function modeTickStep(n: number): number {
   const steps = [1, 2, 5, 10, 20, 50, 100, 200, 500, 1000];
   return steps.find((s) => n / s <= 16) ?? Math.ceil(n / 16);
 }

@@ -17,7 +17,7 @@ const messages = {
   pass: 'centre of mass ({{x}}, {{y}}, {{z}}) is {{distance}} from the expected point (allowed {{maxDistance}}).',
   fail: 'centre of mass ({{x}}, {{y}}, {{z}}) is {{distance}} from the expected ({{ex}}, {{ey}}, {{ez}}); allowed {{maxDistance}}.',
 };
-const { outcome, text } = ruleMessages(messages);
+const { outcome } = ruleMessages(messages);
 
 export const centerOfMass: RuleDefinition<CenterOfMassOptions, 'expected' | 'maxDistance'> = {
   id: 'center-of-mass',

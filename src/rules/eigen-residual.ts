@@ -18,7 +18,7 @@ const messages = {
   none: 'no modes were solved.',
   fail: 'mode {{mode}} ({{hz}} Hz) has eigenpair residual ‖Kφ − λMφ‖ / (‖Kφ‖ + |λ|‖Mφ‖) = {{measured}}, above {{tolerance}}: the pair does not satisfy Kφ = λMφ.',
 };
-const { outcome, text } = ruleMessages(messages);
+const { outcome } = ruleMessages(messages);
 
 export const eigenResidual: RuleDefinition<ToleranceOptions> = {
   id: 'eigen-residual',

@@ -12,7 +12,7 @@ const messages = {
   pass: 'largest |φᵀMφ − 1| is {{measured}} (mode {{mode}}), within {{tolerance}}.',
   fail: 'mode {{mode}} has modal mass φᵀMφ = {{modalMass}}: |φᵀMφ − 1| = {{measured}} exceeds {{tolerance}}.',
 };
-const { outcome, text } = ruleMessages(messages);
+const { outcome } = ruleMessages(messages);
 
 export const massNormalization: RuleDefinition<ToleranceOptions> = {
   id: 'mass-normalization',

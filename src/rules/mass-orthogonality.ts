@@ -13,7 +13,7 @@ const messages = {
   fail: 'modes {{i}} and {{j}} are not M-orthogonal: |φᵢᵀMφⱼ| = {{measured}} exceeds {{tolerance}}.',
   single: 'only one mode was solved: nothing to compare.',
 };
-const { outcome, text } = ruleMessages(messages);
+const { outcome } = ruleMessages(messages);
 
 export const massOrthogonality: RuleDefinition<ToleranceOptions> = {
   id: 'mass-orthogonality',
@@ -33,7 +33,7 @@ export const massOrthogonality: RuleDefinition<ToleranceOptions> = {
 };
 
 /** max_{i>j} |P(i,j)| / scale, with where it is. NaN counts as the worst. */
-export function largestOffDiagonal(p: Float64Array, m: number, scale: number): { value: number; i: number; j: number } {
+function largestOffDiagonal(p: Float64Array, m: number, scale: number): { value: number; i: number; j: number } {
   let value = 0;
   let bi = 1;
   let bj = 0;

@@ -24,7 +24,7 @@ const messages = {
   extra: 'Sturm count at σ = {{shift}} is {{countBelow}} but {{returned}} modes were returned: the solver returned modes it cannot account for.',
   notOk: 'the solver could not confirm completeness with a Sturm count at σ = {{shift}} (count {{countBelow}}, {{returned}} modes returned).',
 };
-const { outcome, text } = ruleMessages(messages);
+const { outcome } = ruleMessages(messages);
 
 export const modesComplete: RuleDefinition<Record<string, never>> = {
   id: 'modes-complete',

@@ -12,7 +12,7 @@ const messages = {
   pass: 'largest |φᵢᵀKφⱼ − λᵢδᵢⱼ| / max|λ| is {{measured}} (modes {{i}}, {{j}}), within {{tolerance}}.',
   fail: 'ΦᵀKΦ departs from diag(λ) at modes {{i}}, {{j}}: {{measured}} relative to max|λ| exceeds {{tolerance}}.',
 };
-const { outcome, text } = ruleMessages(messages);
+const { outcome } = ruleMessages(messages);
 
 export const stiffnessOrthogonality: RuleDefinition<ToleranceOptions> = {
   id: 'stiffness-orthogonality',

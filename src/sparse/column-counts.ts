@@ -19,7 +19,7 @@ import { postorderTree } from './postorder.js';
  * `lower`: lower triangle of C by columns; `parent`: its elimination tree; `post`: a postorder
  * of that tree. Returns count[j] including the diagonal.
  */
-export function columnCounts(lower: Pattern, parent: Int32Array, post: Int32Array): Int32Array {
+function columnCounts(lower: Pattern, parent: Int32Array, post: Int32Array): Int32Array {
   const { n, colPtr, rowIdx } = lower;
   const delta = new Int32Array(n);
   const first = new Int32Array(n).fill(-1);

@@ -41,7 +41,7 @@ export interface SupernodalFactor {
  * Zeroed storage for a factor's values: in a shared WebAssembly memory with room for the
  * SIMD sweeps' scratch (simd-sweep-kernels.ts) when possible, else from `fallback`.
  */
-export function allocateFactorValues(s: SupernodalStructure, fallback: (length: number) => Float64Array): { values: Float64Array; storage?: FactorStorage } {
+function allocateFactorValues(s: SupernodalStructure, fallback: (length: number) => Float64Array): { values: Float64Array; storage?: FactorStorage } {
   const length = s.valuePtr[s.supernodes];
   return factorStorage(length, Math.max(s.maxRows * KERNEL_RHS, inPlaceScratchDoubles(s))) ?? { values: fallback(length) };
 }
@@ -58,7 +58,7 @@ function inPlaceScratchDoubles(s: SupernodalStructure): number {
 }
 
 /** a_jj = k_jj − σ m_jj in pivot order. */
-export function shiftedDiagonal(s: SupernodalStructure, shift: number): Float64Array {
+function shiftedDiagonal(s: SupernodalStructure, shift: number): Float64Array {
   const { pair } = s;
   const diag = new Float64Array(s.n);
   // the diagonal is the first stored entry of its column

@@ -167,11 +167,6 @@ export function permuteUnion(u: PermutedPair, perm: Int32Array): PermutedPair {
   return { n: u.n, colPtr: lower.colPtr, rowIdx: lower.rowIdx, stiffness: kv, mass: mv };
 }
 
-/** permuteUnion of unionPair: the pair in pivot order on its union pattern. */
-export function permutePair(stiffness: SymmetricCsc, mass: SymmetricCsc, perm: Int32Array): PermutedPair {
-  return permuteUnion(unionPair(stiffness, mass), perm);
-}
-
 /**
  * Principal sub-matrix A(S, S) for DOFs S = `dofs` (strictly ascending), renumbered 0…|S|−1 and
  * still stored as its lower triangle by columns (ascending S keeps every row below its column).

@@ -27,7 +27,7 @@ const PARALLEL_MIN_FLOPS = 2e8;
 const PARALLEL_MAX_TIME_RATIO = 0.85;
 
 /** Default relative zero-pivot tolerance (our choice, see factor-types). */
-export const DEFAULT_ZERO_PIVOT_TOLERANCE = 1e-13;
+const DEFAULT_ZERO_PIVOT_TOLERANCE = 1e-13;
 
 function checkPair(stiffness: SymmetricCsc, mass: SymmetricCsc): void {
   if (stiffness.n !== mass.n) {

@@ -33,7 +33,7 @@ export const KERNEL_RHS = 6;
  * Most right-hand sides one kernel call serves: the sweeps call the kernels in groups of at most
  * four (triangular-solve.ts, RHS_GROUPS), so only g = 1 … 4 are generated.
  */
-export const KERNEL_GROUP = 4;
+const KERNEL_GROUP = 4;
 
 type Kernel = (pL: number, ld: number, count: number, cols: number, pX: number, ldx: number, pY: number, ldy: number) => void;
 

@@ -8,7 +8,7 @@
  */
 
 /** Unsigned LEB128. */
-export function leb(n: number): number[] {
+function leb(n: number): number[] {
   const out: number[] = [];
   // seven bits per byte, high bit = more follows
   do {
@@ -21,7 +21,7 @@ export function leb(n: number): number[] {
 }
 
 /** Signed LEB128 of a small non-negative constant. */
-export function sleb(n: number): number[] {
+function sleb(n: number): number[] {
   const out: number[] = [];
   // as leb, but the last byte's bit 6 must be clear (non-negative)
   for (;;) {

@@ -4,7 +4,7 @@
  * written even when the check cannot run, and JUnit validity against junit-10.xsd.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { cpSync, existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { ensureBuilt, repoRoot, runCli, runMany } from './built-cli.js';

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { QR } from 'ml-matrix';
 import { applyQ, applyQTransposed, householderQr, thinQr } from '../../src/dense/householder-qr.js';
-import { maxAbs, multiply, orthogonalityError, randomBlock, toMatrix, transposed } from './helpers.js';
+import { maxAbs, multiply, orthogonalityError, randomBlock, toMatrix } from './helpers.js';
 
 describe('householderQr / thinQr', () => {
   it.each([

@@ -49,7 +49,7 @@ describe('hex solid', () => {
 
   it('element matrices are symmetric and the clamped assembly has positive definite K and M', () => {
     const xyz = HEX_CORNERS.flatMap(([a, b, c]) => [0.1 * (a + 1) + 0.01 * b, 0.05 * (b + 1), 0.04 * (c + 1) + 0.005 * a]);
-    const { stiffness, mass } = hexElementMatrices(xyz, STEEL);
+    const { stiffness } = hexElementMatrices(xyz, STEEL);
     const scaleK = Math.max(...stiffness.map(Math.abs));
     for (let i = 0; i < 24; i++) {
       for (let j = 0; j < 24; j++) expect(Math.abs(stiffness[i * 24 + j] - stiffness[j * 24 + i])).toBeLessThan(1e-13 * scaleK);

@@ -76,12 +76,12 @@ export function sharesText(shares: readonly NodeShare[], cap = 3): string {
 }
 
 /** "x", "y", "z" for an axis direction, else "(0.707, 0.707, 0)". */
-export function directionText(d: Point3): string {
+function directionText(d: Point3): string {
   const axis = ['x', 'y', 'z'].find((_, r) => Math.abs(Math.abs(d[r]) - 1) < 1e-6);
   return axis ?? text('coordinates', { values: d.map((v) => formatNumber(Number(v.toFixed(3)))).join(', ') });
 }
 
-export function pointText(p: Point3): string {
+function pointText(p: Point3): string {
   return text('coordinates', { values: p.map((v) => formatNumber(Math.abs(v) < 1e-12 ? 0 : Number(v.toPrecision(6)))).join(', ') });
 }
 

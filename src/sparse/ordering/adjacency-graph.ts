@@ -57,11 +57,6 @@ export function adjacencyOfPencil(stiffness: SymmetricCsc, mass?: SymmetricCsc):
   return { n, ptr, adj };
 }
 
-/** Number of neighbours of v. */
-export function degreeOf(graph: AdjacencyGraph, v: number): number {
-  return graph.ptr[v + 1] - graph.ptr[v];
-}
-
 /**
  * Subgraph induced by the vertices list (local index = position in the list).
  * `local` is an n-long workspace that must hold -1 everywhere; it is restored before return.
