@@ -12,7 +12,7 @@ import { loadConfig } from '../pipeline/load-config.js';
 import type { LoadedConfig, ModelJob } from '../pipeline/job-types.js';
 import { InputError } from '../io/errors.js';
 import { removeTempFiles, writeFileAtomic } from '../io/atomic-write.js';
-import { problemOf, stackOf } from '../pipeline/analyze-model.js';
+import { problemOf, stackOf } from '../pipeline/problem.js';
 import { checkReport } from '../pipeline/check-report.js';
 import { clearStoppedSave } from '../model/baseline-store.js';
 import type { CheckReport, ModelReport, ProblemReport } from '../pipeline/result-types.js';

@@ -12,13 +12,12 @@
  * `problem` (exit 2, JUnit <error>); a solver failure leaves the matrix rules running and turns
  * every rule that needs modes into `error`. Nothing here prints.
  */
-import { InputError, oneLineMessage } from '../io/errors.js';
-import { MemoryLimitError } from '../sparse/memory-limit.js';
+import { problemOf } from './problem.js';
 import { screenPencil } from '../model/screen-pencil.js';
 import type { RuleContext } from '../rules/rule-types.js';
 import { runRules, verdictOf, type RuleResult, type UnavailableInputs } from '../rules/engine.js';
 import type { ModelJob } from './job-types.js';
-import { junitTimestamp, type ModelReport, type ProblemReport } from './result-types.js';
+import { junitTimestamp, type ModelReport } from './result-types.js';
 import { modelStats, readModelInput } from './read-step.js';
 import { applyConstraintStep } from './constrain-step.js';
 import { modeRows, runSolveStep, solveReport, type SolveOutcome } from './solve-step.js';
@@ -97,17 +96,8 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
   return report;
 }
 
-export function problemOf(e: unknown): ProblemReport {
-  if (e instanceof InputError) return { kind: 'input', message: oneLineMessage(e), file: e.file, line: e.line, where: e.where };
-  if (e instanceof MemoryLimitError) return { kind: 'limit', message: e.message };
-  return { kind: 'internal', message: oneLineMessage(e) };
-}
-
-/** The stack trace of an exception (its text when it has none), for MODALGATE_DEBUG. */
-export function stackOf(e: unknown): string {
-  return e instanceof Error && e.stack ? e.stack : String(e);
-}
-
 function notEvaluated(ruleId: string, description: string, severity: RuleResult['severity'], options: Record<string, unknown>, why: string): RuleResult {
   return { ruleId, description, severity, options, status: 'skip', message: `not evaluated: ${why}.`, timeMs: 0 };
 }
+
+export { problemOf, stackOf } from './problem.js';

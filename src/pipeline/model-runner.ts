@@ -12,7 +12,7 @@ import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import type { ConfigOverrides } from './load-config.js';
 import type { ModelJob } from './job-types.js';
-import { analyzeModel, problemOf, stackOf } from './analyze-model.js';
+import { problemOf, stackOf } from './problem.js';
 import { junitTimestamp, type ModelReport, type ProblemReport } from './result-types.js';
 import type { ModelWorkerInput, ModelWorkerMessage, ModelWorkerRequest } from './model-worker.js';
 
@@ -47,7 +47,9 @@ export class ModelRunner {
     const onStack = options.onCaughtErrorStack;
     if (!canIsolate) {
       const onCaughtError = onStack ? (e: unknown) => onStack(stackOf(e)) : undefined;
-      return { report: analyzeModel(job, { onProgress: options.onProgress, onCaughtError }), stop: () => {} };
+      // loaded here only: the main thread of an isolated run never needs the solver
+      const report = import('./analyze-model.js').then(({ analyzeModel }) => analyzeModel(job, { onProgress: options.onProgress, onCaughtError }));
+      return { report, stop: () => {} };
     }
     const worker = (this.worker ??= this.start());
     const id = this.nextId++;
