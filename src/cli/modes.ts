@@ -171,7 +171,8 @@ export function formatModesTable(r: ModesResult): string {
   const residualVerdict = worst <= EIGENPAIR_RESIDUAL_LIMIT ? `within ${EIGENPAIR_RESIDUAL_LIMIT}` : `ABOVE ${EIGENPAIR_RESIDUAL_LIMIT}`;
   out += `  largest ${EIGENPAIR_RESIDUAL_NAME}: ${worst.toExponential(2)}, ${residualVerdict}\n`;
   out += `  max |ΦᵀMΦ − I| ${r.orthogonality.massMaxDeviation.toExponential(2)},  max |ΦᵀKΦ − Λ| / |λ|max ${r.orthogonality.stiffnessMaxDeviation.toExponential(2)}\n`;
-  out += `  ${r.method}, ${r.iterations} iteration(s), ${r.solves ?? 0} solves, ${r.shifts.length} factorization(s), ${(r.timings.totalMs / 1000).toFixed(2)} s\n`;
+  const kernels = r.factor.kernels ? `, ${r.factor.kernels.factor} factor and ${r.factor.kernels.sweeps} sweep kernels` : '';
+  out += `  ${r.method}, ${r.iterations} iteration(s), ${r.solves ?? 0} solves, ${r.shifts.length} factorization(s)${kernels}, ${(r.timings.totalMs / 1000).toFixed(2)} s\n`;
   for (const w of r.warnings) out += `  warning: ${w}\n`;
   return out;
 }
@@ -195,7 +196,7 @@ function modesJson(r: ModesResult, opts: { stiffness: string; mass: string }): R
     iterations: r.iterations,
     solves: r.solves ?? 0,
     timings: r.timings,
-    factor: { ordering: r.factor.ordering, nnzL: r.factor.nnzL, factorBytes: r.factor.factorBytes },
+    factor: { ordering: r.factor.ordering, nnzL: r.factor.nnzL, factorBytes: r.factor.factorBytes, kernels: r.factor.kernels },
     warnings: r.warnings,
     diagnostics: r.diagnostics ?? [],
   };

@@ -60,6 +60,8 @@ export interface SolveReport {
   diagnostics?: string[];
   /** The count ended inside a cluster of equal eigenvalues and the whole cluster was returned. */
   clusterExtension?: ClusterExtension;
+  /** Which kernels ran: SIMD (WebAssembly, over the factor's memory) or the plain loops. */
+  kernels?: { factor: 'simd' | 'plain'; sweeps: 'simd' | 'plain' };
 }
 
 export interface ModeRow {

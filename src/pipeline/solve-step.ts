@@ -62,6 +62,7 @@ export function solveReport(modes: ModesResult, job: ModelJob): SolveReport {
     warnings: modes.warnings,
     ...(modes.diagnostics?.length ? { diagnostics: modes.diagnostics } : {}),
     ...(modes.clusterExtension ? { clusterExtension: modes.clusterExtension } : {}),
+    ...(modes.factor.kernels ? { kernels: modes.factor.kernels } : {}),
   };
 }
 

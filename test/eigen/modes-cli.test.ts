@@ -40,6 +40,9 @@ describe('modalgate modes', () => {
     expect(r.stdout).toMatch(/frequency Hz/);
     expect(r.stdout).toMatch(/Sturm count/);
     const doc = JSON.parse(readFileSync(json, 'utf8'));
+    // which kernels ran is part of the solve's diagnostics (SIMD where WebAssembly SIMD is present, plain loops otherwise)
+    expect(['simd', 'plain']).toContain(doc.factor.kernels.factor);
+    expect(['simd', 'plain']).toContain(doc.factor.kernels.sweeps);
     for (const key of ['eigenvalues', 'frequenciesHz', 'residuals', 'sturm', 'orthogonality', 'timings']) expect(doc).toHaveProperty(key);
     expect(doc.eigenvalues).toHaveLength(4);
     expect(doc.sturm).toMatchObject({ countBelow: 4, modesReturned: 4, ok: true });
