@@ -117,13 +117,16 @@ export function ciJobFile(server: CiServer, configArg: string | undefined, root 
   return configArg ? text.replaceAll('npx modalgate check', `npx modalgate check --config ${configArg}`) : text;
 }
 
-/** `.gitignore` text with the report folder added once (undefined when it is already listed). */
-export function withIgnoredReports(existing: string | undefined): string | undefined {
-  const entry = `${REPORT_DIR}/`;
-  const lines = (existing ?? '').split(/\r?\n/).map((l) => l.trim());
-  if (lines.some((l) => l === entry || l === REPORT_DIR || l === `/${entry}` || l === `/${REPORT_DIR}`)) return undefined;
+/**
+ * `.gitignore` text with `entries` (folders, `name/`) added once each — an existing line `name`,
+ * `name/`, `/name` or `/name/` counts — or undefined when every one is already listed.
+ */
+export function withIgnored(existing: string | undefined, entries: string[]): string | undefined {
+  const listed = new Set((existing ?? '').split(/\r?\n/).map((l) => l.trim().replace(/^\//, '').replace(/\/$/, '')));
+  const missing = entries.filter((e) => !listed.has(e.replace(/\/$/, '')));
+  if (missing.length === 0) return undefined;
   const base = existing === undefined || existing === '' ? '' : existing.endsWith('\n') ? existing : `${existing}\n`;
-  return `${base}# modalgate reports (written by every check run)\n${entry}\n`;
+  return `${base}# added by modalgate init\n${missing.join('\n')}\n`;
 }
 
 /**
@@ -149,11 +152,13 @@ export function initRepository(repoDir: string, opts: InitOptions): string {
   for (const f of files) writeFileAtomic(f.path, f.text);
 
   const ignorePath = join(repoDir, '.gitignore');
-  const ignored = withIgnoredReports(existsSync(ignorePath) ? readFileSync(ignorePath, 'utf8') : undefined);
+  // the report folder always; node_modules too when init makes the repository a Node project
+  const entries = opts.ci ? [`${REPORT_DIR}/`, 'node_modules/'] : [`${REPORT_DIR}/`];
+  const ignored = withIgnored(existsSync(ignorePath) ? readFileSync(ignorePath, 'utf8') : undefined, entries);
   if (ignored !== undefined) writeFileAtomic(ignorePath, ignored);
 
   const out = files.map((f) => `wrote ${f.path}`);
-  out.push(ignored === undefined ? `${ignorePath} already ignores ${REPORT_DIR}/` : `added ${REPORT_DIR}/ to ${ignorePath}`);
+  out.push(ignored === undefined ? `${ignorePath} already ignores ${entries.join(' and ')}` : `updated ${ignorePath} (ignores ${entries.join(' and ')})`);
   out.push('next:');
   const steps = [
     'set name, stiffness and mass (and dofs if you export a DOF map) for each model;',

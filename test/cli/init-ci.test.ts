@@ -91,7 +91,7 @@ describe('init --ci', () => {
     const { key, modeline } = schemaPaths(config);
     expect(key).toBe(modeline);
     expect(resolve(dir, key)).toBe(join(dir, 'node_modules/modalgate/rules/schema/config.schema.json'));
-    expect(readFileSync(join(dir, '.gitignore'), 'utf8')).toBe('# modalgate reports (written by every check run)\nmodalgate-report/\n');
+    expect(readFileSync(join(dir, '.gitignore'), 'utf8')).toBe('# added by modalgate init\nmodalgate-report/\nnode_modules/\n');
 
     // a second run refuses: one line naming the first file found, exit 2, nothing changed
     writeFileSync(join(dir, 'package.json'), '{"private": true}\n');
@@ -104,8 +104,10 @@ describe('init --ci', () => {
     const forced = await runCli(['init', '--ci', server, '--force'], dir);
     expect(forced.code).toBe(0);
     expect(JSON.parse(readFileSync(join(dir, 'package.json'), 'utf8'))).toEqual(pkg);
-    // the .gitignore entry stays single
-    expect(readFileSync(join(dir, '.gitignore'), 'utf8').match(/^modalgate-report\/$/gm)).toHaveLength(1);
+    // the .gitignore entries stay single
+    const ignore = readFileSync(join(dir, '.gitignore'), 'utf8');
+    expect(ignore.match(/^modalgate-report\/$/gm)).toHaveLength(1);
+    expect(ignore.match(/^node_modules\/$/gm)).toHaveLength(1);
   });
 
   it('refuses when only the job file exists, naming it', async () => {
@@ -139,18 +141,22 @@ describe('init --ci', () => {
     const r = await runCli(['init'], dir);
     expect(r.code).toBe(0);
     expect(readdirSync(dir).sort()).toEqual(['.gitignore', 'modalgate.yaml']);
-    expect(readFileSync(join(dir, '.gitignore'), 'utf8')).toBe('*.tmp\n# modalgate reports (written by every check run)\nmodalgate-report/\n');
+    expect(readFileSync(join(dir, '.gitignore'), 'utf8')).toBe('*.tmp\n# added by modalgate init\nmodalgate-report/\n');
     await runCli(['init', '--force'], dir);
     expect(readFileSync(join(dir, '.gitignore'), 'utf8').match(/modalgate-report\//g)).toHaveLength(1);
     expect(r.stdout).toContain('init --ci github|gitlab|jenkins');
   });
 
-  it('an existing .gitignore that already lists the report folder is left as it is', async () => {
+  it('an existing .gitignore that already lists the report folder is left as it is; --ci adds only node_modules/', async () => {
     const dir = freshRepo();
-    writeFileSync(join(dir, '.gitignore'), 'node_modules/\n/modalgate-report\n');
+    writeFileSync(join(dir, '.gitignore'), 'build\n/modalgate-report\n');
     const r = await runCli(['init'], dir);
     expect(r.code).toBe(0);
-    expect(readFileSync(join(dir, '.gitignore'), 'utf8')).toBe('node_modules/\n/modalgate-report\n');
+    expect(readFileSync(join(dir, '.gitignore'), 'utf8')).toBe('build\n/modalgate-report\n');
+    expect(r.stdout).toContain('already ignores modalgate-report/');
+    const ci = await runCli(['init', '--ci', 'jenkins', '--force'], dir);
+    expect(ci.code).toBe(0);
+    expect(readFileSync(join(dir, '.gitignore'), 'utf8')).toBe('build\n/modalgate-report\n# added by modalgate init\nnode_modules/\n');
   });
 
   it('an unknown CI server is refused with exit 2', async () => {
