@@ -242,7 +242,7 @@ function bestEffortReportPath(configPath: string | undefined, kind: 'junit' | 'j
  * Writes every report it can. A report that cannot be written (a full disk, a read-only folder)
  * is named with its cause; the others still stand, and the run exits 2.
  */
-function writeReports(report: CheckReport, targets: CheckOutcome['written'], markdownAll = false): { written: CheckOutcome['written']; failures: ProblemReport[] } {
+export function writeReports(report: CheckReport, targets: CheckOutcome['written'], markdownAll = false): { written: CheckOutcome['written']; failures: ProblemReport[] } {
   const written: CheckOutcome['written'] = {};
   const failures: ProblemReport[] = [];
   const formats: Record<keyof CheckOutcome['written'], () => string> = {
