@@ -94,6 +94,10 @@ export function registerCheck(program: Command): void {
           process.stderr.write(`modalgate: --shard ${opts.shard}: expected k/n, whole numbers with 1 ≤ k ≤ n (e.g. --shard 2/4)\n`);
           return EXIT_BAD_INPUT;
         }
+        if (opts.timings !== undefined && !shard) {
+          process.stderr.write('modalgate: --timings: only used to split the models, give --shard k/n with it\n');
+          return EXIT_BAD_INPUT;
+        }
         return (await runCheck({ ...opts, shard, handleSignals: true, maxMemory: opts.maxMemory ?? defaultMemoryLimitBytes() })).code;
       }),
     );

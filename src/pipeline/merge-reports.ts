@@ -17,7 +17,7 @@ export interface ShardReport {
 
 /** Merge the reports read; `unreadable`: the first report that could not be read (it makes the run an error). */
 export function mergeReports(parts: ShardReport[], unreadable?: ProblemReport): CheckReport {
-  const problem = unreadable ?? sameConfig(parts) ?? sameSplit(parts) ?? duplicateModel(parts) ?? shardProblem(parts);
+  const problem = unreadable ?? sameConfig(parts) ?? shardProblem(parts) ?? sameSplit(parts) ?? duplicateModel(parts);
   const models = orderedModels(parts);
   const first = parts[0]?.report;
   const hosts = [...new Set(parts.map((p) => p.report.hostname))];
@@ -54,7 +54,7 @@ function sameConfig(parts: ShardReport[]): ProblemReport | undefined {
   return undefined;
 }
 
-/** Shard reports: all of one split (k/n with the same n), each shard once, none missing. */
+/** Shard reports: all of one split (k/n with the same n, from the same models), each shard once, none missing. */
 function sameSplit(parts: ShardReport[]): ProblemReport | undefined {
   const sharded = parts.filter((p) => p.report.shard);
   if (sharded.length === 0) return undefined;
@@ -65,6 +65,8 @@ function sameSplit(parts: ShardReport[]): ProblemReport | undefined {
   for (const p of parts) {
     const s = p.report.shard!;
     if (s.count !== n) return inputProblem(p.file, `is shard ${s.index}/${s.count}, but ${sharded[0].file} is shard ${sharded[0].report.shard!.index}/${n}; merge the shards of one split`);
+    const from = sharded[0].report.shard!.configModels;
+    if (s.configModels.join('\n') !== from.join('\n')) return inputProblem(p.file, `was split from the models ${s.configModels.join(', ')}, but ${sharded[0].file} from ${from.join(', ')}; run every shard with the same --model selection`);
     const twice = seen.get(s.index);
     if (twice !== undefined) return inputProblem(p.file, `is shard ${s.index}/${n}, and so is ${twice}`);
     seen.set(s.index, p.file);

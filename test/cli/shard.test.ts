@@ -84,7 +84,9 @@ describe('check --shard k/n, then merge', () => {
   it('merge refuses a missing report, a duplicate, another config and a missing shard: exit 2, one line, a JUnit <error>', async () => {
     const other = shardReport(2);
     writeFileSync(join(work, 'other.json'), JSON.stringify({ ...other, reportVersion: 1, configHash: '0123456789abcdef' }));
+    writeFileSync(join(work, 'narrow.json'), JSON.stringify({ ...other, reportVersion: 1, shard: { ...other.shard, configModels: ['mast', 'bracket'] } }));
     const cases: [string[], RegExp][] = [
+      [['s1.json', 'narrow.json', 's3.json'], /^modalgate: narrow\.json: was split from the models mast, bracket, but s1\.json from mast, /],
       [['s1.json', 's2.json', 'gone.json'], /^modalgate: gone\.json: no such file/],
       [['s1.json', 's2.json', 's3.json', 's3.json'], /^modalgate: s3\.json: is shard 3\/3, and so is s3\.json/],
       [['s1.json', 'other.json', 's3.json'], /^modalgate: other\.json: is a report of config .*hash 0123456789abcdef/],
@@ -108,6 +110,12 @@ describe('--shard values and the empty shard', () => {
       expect(r.code).toBe(2);
       expect(r.stderr).toBe(`modalgate: --shard ${bad[i]}: expected k/n, whole numbers with 1 ≤ k ≤ n (e.g. --shard 2/4)\n`);
     });
+  });
+
+  it('refuses --timings without --shard', async () => {
+    const r = await runCli(['check', '-c', config, '--timings', 'x.json'], work);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toBe('modalgate: --timings: only used to split the models, give --shard k/n with it\n');
   });
 
   it('a shard without models passes and says it is empty', async () => {
@@ -138,7 +146,7 @@ describe('the split itself', () => {
     }
   });
 
-  it('reads timings from a JSON report or a map name → seconds, and scales predicted costs for models it lacks', () => {
+  it('reads timings from a JSON report or a map name → seconds, and scales predicted costs for models it lacks', async () => {
     const mapFile = join(work, 'timings.json');
     writeFileSync(mapFile, JSON.stringify({ a: 2, b: 4 }));
     const reportFile = join(work, 'timings-report.json');
@@ -148,6 +156,12 @@ describe('the split itself', () => {
     // a: 2 s for 100 units, b: 4 s for 100 units → median 30 ms per unit; c (50 units) → 1500 ms
     const predicted = [{ name: 'a', cost: 100 }, { name: 'b', cost: 100 }, { name: 'c', cost: 50 }];
     expect(modelCosts(predicted, readTimings(mapFile))).toEqual([{ name: 'a', cost: 2000 }, { name: 'b', cost: 4000 }, { name: 'c', cost: 1500 }]);
+    // through shardJobs: a model that took 100 s last time gets a shard of its own
+    const timedFile = join(work, 'timed.json');
+    writeFileSync(timedFile, JSON.stringify(Object.fromEntries(demoModels.map((n) => [n, n === 'mast' ? 100 : 1]))));
+    const jobs = loadConfig(config).models;
+    expect((await shardJobs(jobs, { index: 1, count: 2 }, timedFile)).map((j) => j.name)).toEqual(['mast']);
+    expect((await shardJobs(jobs, { index: 2, count: 2 }, timedFile)).map((j) => j.name)).toEqual(demoModels.filter((n) => n !== 'mast'));
     writeFileSync(mapFile, JSON.stringify({ a: 'slow' }));
     expect(() => readTimings(mapFile)).toThrow(/timings\.json: a: expected a number of seconds/);
   });
