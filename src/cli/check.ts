@@ -23,6 +23,7 @@ import { formatMarkdown } from '../report/markdown.js';
 import { formatHtml } from '../report/html-reporter.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, debugging, printDebugStack, runAction } from './run-action.js';
 import { ModelRunner, type RunningModel } from '../pipeline/model-runner.js';
+import { configDigest, parseShardSpec, shardJobs, type ShardSpec } from '../pipeline/shard.js';
 import { DEFAULT_MEMORY_SHARE, defaultMemoryLimitBytes, parseMemorySize, parseSeconds } from './limits.js';
 
 /** Exit codes after SIGINT and SIGTERM (128 + the signal's number, the shells' convention). */
@@ -56,6 +57,10 @@ export interface CheckOptions {
   maxMemory?: number;
   /** Answer SIGINT/SIGTERM: stop the model, write the reports with an <error>, exit 130/143. */
   handleSignals?: boolean;
+  /** Check only shard k of n of the models (--shard k/n), split by predicted cost or by --timings. */
+  shard?: ShardSpec;
+  /** Earlier run's times for the shard split: a JSON report or a map name → seconds (--timings). */
+  timings?: string;
 }
 
 export interface CheckOutcome {
@@ -80,7 +85,22 @@ export function registerCheck(program: Command): void {
     .option('-q, --quiet', 'print only failures, errors and the verdict')
     .option('--time-limit <seconds>', 'stop a model that runs longer than this (it becomes an <error>; the other models go on)', parseSeconds)
     .option('--max-memory <size>', `refuse a model whose solve is predicted to need more memory (e.g. 6G; default ${DEFAULT_MEMORY_SHARE * 100} % of this machine's)`, parseMemorySize)
-    .action(runAction(async (opts: CheckOptions) => (await runCheck({ ...opts, handleSignals: true, maxMemory: opts.maxMemory ?? defaultMemoryLimitBytes() })).code));
+    .option('--shard <k/n>', 'check only shard k of n (1-based): the models split by predicted cost, the same way on every CI job')
+    .option('--timings <file>', '--shard: split by the times of an earlier run (its JSON report, or a JSON map model → seconds)')
+    .action(
+      runAction(async (opts: Omit<CheckOptions, 'shard'> & { shard?: string }) => {
+        const shard = opts.shard !== undefined ? parseShardSpec(opts.shard) : undefined;
+        if (opts.shard !== undefined && !shard) {
+          process.stderr.write(`modalgate: --shard ${opts.shard}: expected k/n, whole numbers with 1 ≤ k ≤ n (e.g. --shard 2/4)\n`);
+          return EXIT_BAD_INPUT;
+        }
+        if (opts.timings !== undefined && !shard) {
+          process.stderr.write('modalgate: --timings: only used to split the models, give --shard k/n with it\n');
+          return EXIT_BAD_INPUT;
+        }
+        return (await runCheck({ ...opts, shard, handleSignals: true, maxMemory: opts.maxMemory ?? defaultMemoryLimitBytes() })).code;
+      }),
+    );
 }
 
 export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
@@ -93,6 +113,7 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   let config: LoadedConfig | undefined;
   let problem: ProblemReport | undefined;
   const models: ModelReport[] = [];
+  let selected: ModelJob[] | undefined;
   const signals = opts.handleSignals ? watchSignals() : undefined;
   let runner: ModelRunner | undefined;
   try {
@@ -101,7 +122,9 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
     configPath = findConfig(opts.config, cwd);
     config = loadConfig(configPath, baselineDirs);
     runner = new ModelRunner(configPath, baselineDirs);
-    for (const job of selectModels(config, opts.model)) {
+    selected = selectModels(config, opts.model);
+    const jobs = opts.shard ? await shardJobs(selected, opts.shard, opts.timings !== undefined ? resolve(cwd, opts.timings) : undefined) : selected;
+    for (const job of jobs) {
       if (signals?.received) break;
       const onProgress = progressPrinter(job.name);
       const timeLimitMs = opts.timeLimit !== undefined ? opts.timeLimit * 1000 : undefined;
@@ -121,6 +144,8 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   await runner?.close();
   if (signals?.received) problem = interruptedProblem(signals.received, models.length, config?.models.length);
   const report = checkReport({ configPath, started, timeMs: performance.now() - t0, models, problem });
+  if (config) report.configHash = configDigest(config.path);
+  if (opts.shard && selected) report.shard = { ...opts.shard, configModels: selected.map((j) => j.name) };
   const targets = {
     junit: cliPaths.junit ?? config?.reports.junit ?? (config ? undefined : bestEffortReportPath(configPath, 'junit')),
     json: cliPaths.json ?? config?.reports.json ?? (config ? undefined : bestEffortReportPath(configPath, 'json')),
@@ -131,6 +156,7 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   removeTempFiles(outputDirs(targets, baselineDirs), process.pid);
   const print = opts.print ?? ((t: string) => process.stdout.write(t));
   print(formatConsole(report, { quiet: opts.quiet }));
+  if (report.shard && models.length === 0 && !problem) print(`shard ${report.shard.index}/${report.shard.count} is empty: ${report.shard.configModels.length} model(s) for ${report.shard.count} shards; it passes with nothing of its own to check.\n`);
   let { written, failures } = writeReports(report, targets, opts.markdownAll);
   if (signals?.received && !report.problem) {
     // the signal came while the reports were written: write them again, saying so
@@ -220,7 +246,7 @@ function bestEffortReportPath(configPath: string | undefined, kind: 'junit' | 'j
  * Writes every report it can. A report that cannot be written (a full disk, a read-only folder)
  * is named with its cause; the others still stand, and the run exits 2.
  */
-function writeReports(report: CheckReport, targets: CheckOutcome['written'], markdownAll = false): { written: CheckOutcome['written']; failures: ProblemReport[] } {
+export function writeReports(report: CheckReport, targets: CheckOutcome['written'], markdownAll = false): { written: CheckOutcome['written']; failures: ProblemReport[] } {
   const written: CheckOutcome['written'] = {};
   const failures: ProblemReport[] = [];
   const formats: Record<keyof CheckOutcome['written'], () => string> = {

@@ -7,6 +7,7 @@ import { registerCheck } from './check.js';
 import { registerRules } from './rules.js';
 import { registerInit } from './init.js';
 import { registerDemo } from './demo.js';
+import { registerMerge } from './merge.js';
 import { EXIT_BAD_INPUT, stopWritingOnBrokenPipe } from './run-action.js';
 
 stopWritingOnBrokenPipe(process.stdout);
@@ -36,6 +37,7 @@ registerCheck(program);
 registerRules(program);
 registerInit(program);
 registerDemo(program);
+registerMerge(program);
 
 try {
   await program.parseAsync(process.argv);

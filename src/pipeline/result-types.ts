@@ -99,6 +99,10 @@ export interface ModelReport {
 export interface CheckReport {
   tool: { name: 'modalgate'; version: string };
   configPath?: string;
+  /** First 16 hex digits of the SHA-256 of the config file: `merge` refuses reports of different configs. */
+  configHash?: string;
+  /** The run checked one shard of the models (`check --shard k/n`); `configModels`: all of them, in config order. */
+  shard?: { index: number; count: number; configModels: string[] };
   timestamp: string;
   timeMs: number;
   hostname: string;
