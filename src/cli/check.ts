@@ -12,7 +12,7 @@ import { loadConfig } from '../pipeline/load-config.js';
 import type { LoadedConfig, ModelJob } from '../pipeline/job-types.js';
 import { InputError } from '../io/errors.js';
 import { removeTempFiles, writeFileAtomic } from '../io/atomic-write.js';
-import { problemOf, stackOf } from '../pipeline/analyze-model.js';
+import { problemOf, stackOf, type PhaseTimes } from '../pipeline/analyze-model.js';
 import { checkReport } from '../pipeline/check-report.js';
 import { clearStoppedSave } from '../model/baseline-store.js';
 import type { CheckReport, ModelReport, ProblemReport } from '../pipeline/result-types.js';
@@ -23,6 +23,7 @@ import { formatMarkdown } from '../report/markdown.js';
 import { formatHtml } from '../report/html-reporter.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, debugging, printDebugStack, runAction } from './run-action.js';
 import { ModelRunner, type RunningModel } from '../pipeline/model-runner.js';
+import { appendStepSummary, phaseLine, shownPath } from './ci-output.js';
 import { DEFAULT_MEMORY_SHARE, defaultMemoryLimitBytes, parseMemorySize, parseSeconds } from './limits.js';
 
 /** Exit codes after SIGINT and SIGTERM (128 + the signal's number, the shells' convention). */
@@ -56,6 +57,10 @@ export interface CheckOptions {
   maxMemory?: number;
   /** Answer SIGINT/SIGTERM: stop the model, write the reports with an <error>, exit 130/143. */
   handleSignals?: boolean;
+  /** Print one plain line per model with the time of each phase (CI logs: no live progress there). */
+  phaseLines?: boolean;
+  /** Append the Markdown summary to this file (GITHUB_STEP_SUMMARY), cut to 1 MiB. */
+  stepSummary?: string;
 }
 
 export interface CheckOutcome {
@@ -80,7 +85,7 @@ export function registerCheck(program: Command): void {
     .option('-q, --quiet', 'print only failures, errors and the verdict')
     .option('--time-limit <seconds>', 'stop a model that runs longer than this (it becomes an <error>; the other models go on)', parseSeconds)
     .option('--max-memory <size>', `refuse a model whose solve is predicted to need more memory (e.g. 6G; default ${DEFAULT_MEMORY_SHARE * 100} % of this machine's)`, parseMemorySize)
-    .action(runAction(async (opts: CheckOptions) => (await runCheck({ ...opts, handleSignals: true, maxMemory: opts.maxMemory ?? defaultMemoryLimitBytes() })).code));
+    .action(runAction(async (opts: CheckOptions) => (await runCheck({ ...opts, handleSignals: true, maxMemory: opts.maxMemory ?? defaultMemoryLimitBytes(), phaseLines: !process.stderr.isTTY, stepSummary: process.env.GITHUB_STEP_SUMMARY || undefined })).code));
 }
 
 export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
@@ -94,6 +99,7 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   let problem: ProblemReport | undefined;
   const models: ModelReport[] = [];
   const signals = opts.handleSignals ? watchSignals() : undefined;
+  const print = opts.print ?? ((t: string) => process.stdout.write(t));
   let runner: ModelRunner | undefined;
   try {
     for (const p of [cliPaths.junit, cliPaths.json, cliPaths.markdown, cliPaths.html]) if (p) checkWritableTarget(p, p);
@@ -105,7 +111,9 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
       if (signals?.received) break;
       const onProgress = progressPrinter(job.name);
       const timeLimitMs = opts.timeLimit !== undefined ? opts.timeLimit * 1000 : undefined;
-      const running = runner.run(job, { timeLimitMs, onProgress, onCaughtErrorStack: debugging() ? printDebugStack : undefined });
+      // on stdout: stderr stays the one error line of a run that ends in exit 2
+      const onPhases = opts.phaseLines && !opts.quiet ? (t: PhaseTimes) => print(`${phaseLine(job.name, t)}\n`) : undefined;
+      const running = runner.run(job, { timeLimitMs, onProgress, onPhases, onCaughtErrorStack: debugging() ? printDebugStack : undefined });
       if (signals) signals.current = running;
       const result = await running.report;
       models.push(result);
@@ -129,7 +137,6 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   };
   // temporary files of a stopped worker (it may have been writing a baseline), and of runs killed outright
   removeTempFiles(outputDirs(targets, baselineDirs), process.pid);
-  const print = opts.print ?? ((t: string) => process.stdout.write(t));
   print(formatConsole(report, { quiet: opts.quiet }));
   let { written, failures } = writeReports(report, targets, opts.markdownAll);
   if (signals?.received && !report.problem) {
@@ -139,8 +146,16 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
     ({ written, failures } = writeReports(report, targets, opts.markdownAll));
   }
   signals?.dispose();
+  if (opts.stepSummary) {
+    try {
+      const full = written.markdown ?? written.html ?? written.json ?? written.junit;
+      appendStepSummary(opts.stepSummary, formatMarkdown(report, { allModes: opts.markdownAll }), full ? shownPath(full, cwd) : undefined);
+    } catch (e) {
+      failures.push({ kind: 'write', file: opts.stepSummary, message: writeFailureMessage(`${opts.stepSummary} (GITHUB_STEP_SUMMARY)`, e) });
+    }
+  }
   const labels: Record<string, string> = { junit: 'JUnit XML', json: 'JSON report', markdown: 'Markdown summary', html: 'HTML report' };
-  for (const [kind, p] of Object.entries(written)) if (!opts.quiet) print(`${labels[kind]}: ${p}\n`);
+  for (const [kind, p] of Object.entries(written)) if (!opts.quiet) print(`${labels[kind]}: ${shownPath(p, cwd)}\n`);
   for (const m of models) {
     if (m.baselineWarning) print(`warning: ${m.name}: ${m.baselineWarning}\n`);
     if (m.baselineNotSaved) print(`warning: ${m.baselineNotSaved}\n`);

@@ -32,6 +32,22 @@ export interface AnalyzeOptions {
    * model, a failed solve), so the CLI can show its stack trace under MODALGATE_DEBUG.
    */
   onCaughtError?: (e: unknown) => void;
+  /** The time of each phase, once the model's rules have run (not for a model that could not be read). */
+  onPhases?: (times: PhaseTimes) => void;
+}
+
+/**
+ * Where one model's time went, milliseconds: reading K, M and the DOF map, the fill-reducing
+ * ordering (of the last factorization), the factorizations without it, the iteration, the
+ * verification and the rules. The solve's phases are missing when the modes were not solved.
+ */
+export interface PhaseTimes {
+  readMs: number;
+  orderMs?: number;
+  factorMs?: number;
+  iterateMs?: number;
+  verifyMs?: number;
+  rulesMs: number;
 }
 
 export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}): Promise<ModelReport> {
@@ -39,7 +55,9 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
   const t0 = performance.now();
   const report: ModelReport = { name: job.name, verdict: 'pass', timestamp: junitTimestamp(started), timeMs: 0, ruleSets: job.ruleSets, rules: [] };
   try {
+    const readStart = performance.now();
     const input = await readModelInput(job);
+    const readMs = performance.now() - readStart;
     report.stats = modelStats(job, input);
     // constraint sets from the model entry reduce K, M and the DOF map before the solve
     const constrained = applyConstraintStep(job, input);
@@ -77,7 +95,9 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
       geometry,
       comparison,
     };
+    const rulesStart = performance.now();
     report.rules = runRules(context, job.rules, unavailable);
+    options.onPhases?.({ readMs, ...solvePhases(modes), rulesMs: performance.now() - rulesStart });
     // --save-baseline after the rules; a failed save keeps the rule results and ends in exit 2
     const saved = await runBaselineSave(job, { modes, mass: constrained.mass, dofMap: constrained.dofMap, geometry }, verdictOf(report.rules));
     if (saved.saved) report.baselineSaved = saved.saved;
@@ -95,6 +115,12 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
   report.timeMs = performance.now() - t0;
   report.verdict = report.problem ? 'error' : verdictOf(report.rules);
   return report;
+}
+
+function solvePhases(modes: SolveOutcome['modes']): Omit<PhaseTimes, 'readMs' | 'rulesMs'> {
+  if (!modes) return {};
+  const orderMs = Math.min(modes.factor.timings.orderingMs, modes.timings.factorMs);
+  return { orderMs, factorMs: modes.timings.factorMs - orderMs, iterateMs: modes.timings.iterateMs, verifyMs: modes.timings.verifyMs };
 }
 
 export function problemOf(e: unknown): ProblemReport {
