@@ -23,7 +23,7 @@ import { formatMarkdown } from '../report/markdown.js';
 import { formatHtml } from '../report/html-reporter.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, debugging, printDebugStack, runAction } from './run-action.js';
 import { ModelRunner, type RunningModel } from '../pipeline/model-runner.js';
-import { appendStepSummary, phaseLine, shownPath } from './ci-output.js';
+import { appendStepSummary, phaseLine, shownPath, withShownPaths } from './ci-output.js';
 import { DEFAULT_MEMORY_SHARE, defaultMemoryLimitBytes, parseMemorySize, parseSeconds } from './limits.js';
 
 /** Exit codes after SIGINT and SIGTERM (128 + the signal's number, the shells' convention). */
@@ -137,19 +137,19 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   };
   // temporary files of a stopped worker (it may have been writing a baseline), and of runs killed outright
   removeTempFiles(outputDirs(targets, baselineDirs), process.pid);
-  print(formatConsole(report, { quiet: opts.quiet }));
-  let { written, failures } = writeReports(report, targets, opts.markdownAll);
+  print(formatConsole(withShownPaths(report, cwd), { quiet: opts.quiet }));
+  let { written, failures } = writeReports(report, targets, opts.markdownAll, cwd);
   if (signals?.received && !report.problem) {
     // the signal came while the reports were written: write them again, saying so
     report.problem = problem = interruptedProblem(signals.received, models.length, models.length);
     report.verdict = 'error';
-    ({ written, failures } = writeReports(report, targets, opts.markdownAll));
+    ({ written, failures } = writeReports(report, targets, opts.markdownAll, cwd));
   }
   signals?.dispose();
   if (opts.stepSummary) {
     try {
       const full = written.markdown ?? written.html ?? written.json ?? written.junit;
-      appendStepSummary(opts.stepSummary, formatMarkdown(report, { allModes: opts.markdownAll }), full ? shownPath(full, cwd) : undefined);
+      appendStepSummary(opts.stepSummary, formatMarkdown(withShownPaths(report, cwd), { allModes: opts.markdownAll }), full ? shownPath(full, cwd) : undefined);
     } catch (e) {
       failures.push({ kind: 'write', file: opts.stepSummary, message: writeFailureMessage(`${opts.stepSummary} (GITHUB_STEP_SUMMARY)`, e) });
     }
@@ -235,14 +235,16 @@ function bestEffortReportPath(configPath: string | undefined, kind: 'junit' | 'j
  * Writes every report it can. A report that cannot be written (a full disk, a read-only folder)
  * is named with its cause; the others still stand, and the run exits 2.
  */
-function writeReports(report: CheckReport, targets: CheckOutcome['written'], markdownAll = false): { written: CheckOutcome['written']; failures: ProblemReport[] } {
+function writeReports(report: CheckReport, targets: CheckOutcome['written'], markdownAll = false, cwd = process.cwd()): { written: CheckOutcome['written']; failures: ProblemReport[] } {
   const written: CheckOutcome['written'] = {};
   const failures: ProblemReport[] = [];
+  // JSON keeps absolute paths; the texts people read show them relative to the working directory
+  const shown = withShownPaths(report, cwd);
   const formats: Record<keyof CheckOutcome['written'], () => string> = {
-    junit: () => formatJunit(report),
+    junit: () => formatJunit(shown),
     json: () => formatJson(report),
-    markdown: () => formatMarkdown(report, { allModes: markdownAll }),
-    html: () => formatHtml(report),
+    markdown: () => formatMarkdown(shown, { allModes: markdownAll }),
+    html: () => formatHtml(shown),
   };
   for (const kind of ['junit', 'json', 'markdown', 'html'] as const) {
     const path = targets[kind];

@@ -5,7 +5,7 @@
  * the working directory.
  */
 import { appendFileSync } from 'node:fs';
-import { isAbsolute, relative } from 'node:path';
+import { isAbsolute, relative, sep } from 'node:path';
 import type { PhaseTimes } from '../pipeline/analyze-model.js';
 
 /** "mast: read 0.2 s · order 0.1 s · factor 0.4 s · iterate 1.1 s · verify 0.3 s · rules 0.05 s" */
@@ -56,4 +56,22 @@ export function appendStepSummary(file: string, markdown: string, fullReport: st
 export function shownPath(p: string, cwd: string): string {
   const r = relative(cwd, p);
   return r === '' || r.startsWith('..') || isAbsolute(r) ? p : r;
+}
+
+/**
+ * A copy of the report for the texts people read (JUnit, Markdown, HTML, the job summary): every
+ * path under `cwd` written relative to it, in fields and inside messages. The JSON report keeps the
+ * absolute paths (its fields stay what they say).
+ */
+export function withShownPaths<T>(report: T, cwd: string): T {
+  const prefix = cwd.endsWith(sep) ? cwd : cwd + sep;
+  const walk = (v: unknown): unknown => {
+    if (typeof v === 'string') return v.includes(prefix) ? v.split(prefix).join('') : v;
+    if (Array.isArray(v)) return v.map(walk);
+    if (v !== null && typeof v === 'object' && Object.getPrototypeOf(v) === Object.prototype) {
+      return Object.fromEntries(Object.entries(v).map(([k, x]) => [k, walk(x)]));
+    }
+    return v;
+  };
+  return walk(report) as T;
 }

@@ -107,3 +107,21 @@ describe('shown paths', () => {
     expect(shownPath('/elsewhere/x.xml', '/w')).toBe('/elsewhere/x.xml');
   });
 });
+
+describe('paths in the texts people read', () => {
+  it('JUnit, Markdown and the console show paths under the working directory relative to it; JSON keeps them absolute', async () => {
+    const dir = join(work, 'rel');
+    const { cpSync } = await import('node:fs');
+    cpSync(models, join(dir, 'models'), { recursive: true });
+    writeFileSync(join(dir, 'modalgate.yaml'), `models:\n  - { name: m, stiffness: models/tiny.stiffness.mtx, mass: models/tiny.mass.mtx, dofs: models/tiny.dofs.csv, ruleSets: [supported], rules: { first-elastic-frequency: { minHz: 0.1 } } }\n`);
+    let printed = '';
+    const out = await runCheck({ cwd: dir, junit: 'r/j.xml', json: 'r/r.json', markdown: 'r/s.md', print: (t) => (printed += t), printError: () => {} });
+    expect(out.code).toBe(0);
+    const junit = readFileSync(join(dir, 'r/j.xml'), 'utf8');
+    expect(junit).toContain(`<property name="stiffness.file" value="${join('models', 'tiny.stiffness.mtx')}"`);
+    expect(junit).not.toContain(dir);
+    expect(readFileSync(join(dir, 'r/s.md'), 'utf8')).not.toContain(dir);
+    expect(printed).not.toContain(dir);
+    expect(JSON.parse(readFileSync(join(dir, 'r/r.json'), 'utf8')).models[0].stats.stiffnessFile).toBe(join(dir, 'models/tiny.stiffness.mtx'));
+  }, 120_000);
+});
