@@ -39,7 +39,8 @@ export interface AnalyzeOptions {
 /**
  * Where one model's time went, milliseconds: reading K, M and the DOF map, the fill-reducing
  * ordering with the symbolic analysis (once per solve), the numeric factorizations (every shift),
- * the iteration, the verification and the rules. The solve's phases are missing when the modes
+ * the iteration, the verification, and the rules with the facts they need after the solve
+ * (geometry facts, the baseline comparison). The solve's phases are missing when the modes
  * were not solved.
  */
 export interface PhaseTimes {
@@ -69,6 +70,8 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
     if (blocker) solved = { notSolved: `not evaluated: the modes were not solved because ${blocker.file}: ${blocker.reason}.` };
     else solved = runSolveStep(job, constrained, { onProgress: options.onProgress, onError: options.onCaughtError });
     const modes = solved.modes;
+    // "rules": everything after the solve that feeds the rules (geometry facts, baseline comparison) and the rules
+    const rulesStart = performance.now();
     if (modes) {
       report.solve = solveReport(modes, job);
       report.modes = modeRows(modes);
@@ -96,7 +99,6 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
       geometry,
       comparison,
     };
-    const rulesStart = performance.now();
     report.rules = runRules(context, job.rules, unavailable);
     options.onPhases?.({ readMs, ...solvePhases(modes), rulesMs: performance.now() - rulesStart });
     // --save-baseline after the rules; a failed save keeps the rule results and ends in exit 2
