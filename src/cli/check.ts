@@ -13,6 +13,7 @@ import type { LoadedConfig, ModelJob } from '../pipeline/job-types.js';
 import { InputError } from '../io/errors.js';
 import { removeTempFiles, writeFileAtomic } from '../io/atomic-write.js';
 import { problemOf, stackOf } from '../pipeline/problem.js';
+import type { PhaseTimes } from '../pipeline/analyze-model.js';
 import { checkReport } from '../pipeline/check-report.js';
 import { clearStoppedSave } from '../model/baseline-store.js';
 import type { CheckReport, ModelReport, ProblemReport } from '../pipeline/result-types.js';
@@ -24,6 +25,7 @@ import { formatHtml } from '../report/html-reporter.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, debugging, printDebugStack, runAction } from './run-action.js';
 import { ModelRunner, type RunningModel } from '../pipeline/model-runner.js';
 import { configDigest, parseShardSpec, shardJobs, type ShardSpec } from '../pipeline/shard.js';
+import { appendStepSummary, phaseLine, shownPath, withShownPaths } from './ci-output.js';
 import { DEFAULT_MEMORY_SHARE, defaultMemoryLimitBytes, parseMemorySize, parseSeconds } from './limits.js';
 
 /** Exit codes after SIGINT and SIGTERM (128 + the signal's number, the shells' convention). */
@@ -61,6 +63,10 @@ export interface CheckOptions {
   shard?: ShardSpec;
   /** Earlier run's times for the shard split: a JSON report or a map name → seconds (--timings). */
   timings?: string;
+  /** Print one plain line per model with the time of each phase (CI logs: no live progress there). */
+  phaseLines?: boolean;
+  /** Append the Markdown summary to this file (GITHUB_STEP_SUMMARY), cut to 1 MiB. */
+  stepSummary?: string;
 }
 
 export interface CheckOutcome {
@@ -98,7 +104,7 @@ export function registerCheck(program: Command): void {
           process.stderr.write('modalgate: --timings: only used to split the models, give --shard k/n with it\n');
           return EXIT_BAD_INPUT;
         }
-        return (await runCheck({ ...opts, shard, handleSignals: true, maxMemory: opts.maxMemory ?? defaultMemoryLimitBytes() })).code;
+        return (await runCheck({ ...opts, shard, handleSignals: true, maxMemory: opts.maxMemory ?? defaultMemoryLimitBytes(), phaseLines: !process.stderr.isTTY, stepSummary: process.env.GITHUB_STEP_SUMMARY || undefined })).code;
       }),
     );
 }
@@ -115,6 +121,7 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   const models: ModelReport[] = [];
   let selected: ModelJob[] | undefined;
   const signals = opts.handleSignals ? watchSignals() : undefined;
+  const print = opts.print ?? ((t: string) => process.stdout.write(t));
   let runner: ModelRunner | undefined;
   try {
     for (const p of [cliPaths.junit, cliPaths.json, cliPaths.markdown, cliPaths.html]) if (p) checkWritableTarget(p, p);
@@ -128,7 +135,9 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
       if (signals?.received) break;
       const onProgress = progressPrinter(job.name);
       const timeLimitMs = opts.timeLimit !== undefined ? opts.timeLimit * 1000 : undefined;
-      const running = runner.run(job, { timeLimitMs, onProgress, onCaughtErrorStack: debugging() ? printDebugStack : undefined });
+      // on stdout: stderr stays the one error line of a run that ends in exit 2
+      const onPhases = opts.phaseLines && !opts.quiet ? (t: PhaseTimes) => print(`${phaseLine(job.name, t)}\n`) : undefined;
+      const running = runner.run(job, { timeLimitMs, onProgress, onPhases, onCaughtErrorStack: debugging() ? printDebugStack : undefined });
       if (signals) signals.current = running;
       const result = await running.report;
       models.push(result);
@@ -154,19 +163,26 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   };
   // temporary files of a stopped worker (it may have been writing a baseline), and of runs killed outright
   removeTempFiles(outputDirs(targets, baselineDirs), process.pid);
-  const print = opts.print ?? ((t: string) => process.stdout.write(t));
-  print(formatConsole(report, { quiet: opts.quiet }));
+  print(formatConsole(withShownPaths(report, cwd), { quiet: opts.quiet }));
   if (report.shard && models.length === 0 && !problem) print(`shard ${report.shard.index}/${report.shard.count} is empty: ${report.shard.configModels.length} model(s) for ${report.shard.count} shards; it passes with nothing of its own to check.\n`);
-  let { written, failures } = writeReports(report, targets, opts.markdownAll);
+  let { written, failures } = writeReports(report, targets, opts.markdownAll, cwd);
   if (signals?.received && !report.problem) {
     // the signal came while the reports were written: write them again, saying so
     report.problem = problem = interruptedProblem(signals.received, models.length, models.length);
     report.verdict = 'error';
-    ({ written, failures } = writeReports(report, targets, opts.markdownAll));
+    ({ written, failures } = writeReports(report, targets, opts.markdownAll, cwd));
   }
   signals?.dispose();
+  if (opts.stepSummary) {
+    try {
+      const full = written.markdown ?? written.html ?? written.json ?? written.junit;
+      appendStepSummary(opts.stepSummary, formatMarkdown(withShownPaths(report, cwd), { allModes: opts.markdownAll }), full ? shownPath(full, cwd) : undefined);
+    } catch (e) {
+      failures.push({ kind: 'write', file: opts.stepSummary, message: writeFailureMessage(`${opts.stepSummary} (GITHUB_STEP_SUMMARY)`, e) });
+    }
+  }
   const labels: Record<string, string> = { junit: 'JUnit XML', json: 'JSON report', markdown: 'Markdown summary', html: 'HTML report' };
-  for (const [kind, p] of Object.entries(written)) if (!opts.quiet) print(`${labels[kind]}: ${p}\n`);
+  for (const [kind, p] of Object.entries(written)) if (!opts.quiet) print(`${labels[kind]}: ${shownPath(p, cwd)}\n`);
   for (const m of models) {
     if (m.baselineWarning) print(`warning: ${m.name}: ${m.baselineWarning}\n`);
     if (m.baselineNotSaved) print(`warning: ${m.baselineNotSaved}\n`);
@@ -246,14 +262,16 @@ function bestEffortReportPath(configPath: string | undefined, kind: 'junit' | 'j
  * Writes every report it can. A report that cannot be written (a full disk, a read-only folder)
  * is named with its cause; the others still stand, and the run exits 2.
  */
-export function writeReports(report: CheckReport, targets: CheckOutcome['written'], markdownAll = false): { written: CheckOutcome['written']; failures: ProblemReport[] } {
+export function writeReports(report: CheckReport, targets: CheckOutcome['written'], markdownAll = false, cwd = process.cwd()): { written: CheckOutcome['written']; failures: ProblemReport[] } {
   const written: CheckOutcome['written'] = {};
   const failures: ProblemReport[] = [];
+  // JSON keeps absolute paths; the texts people read show them relative to the working directory
+  const shown = withShownPaths(report, cwd);
   const formats: Record<keyof CheckOutcome['written'], () => string> = {
-    junit: () => formatJunit(report),
+    junit: () => formatJunit(shown),
     json: () => formatJson(report),
-    markdown: () => formatMarkdown(report, { allModes: markdownAll }),
-    html: () => formatHtml(report),
+    markdown: () => formatMarkdown(shown, { allModes: markdownAll }),
+    html: () => formatHtml(shown),
   };
   for (const kind of ['junit', 'json', 'markdown', 'html'] as const) {
     const path = targets[kind];

@@ -81,8 +81,12 @@ export function readStructuredFile(path: string): unknown {
 
 /** The config at `path`, parsed and checked against rules/schema/config.schema.json. */
 export function readConfigFile(path: string): RawConfig {
-  const raw = readStructuredFile(path);
-  validateAgainst('config.schema.json', raw, path, '');
+  return checkConfigObject(readStructuredFile(path), path);
+}
+
+/** A parsed config (from a file or built in code), checked against rules/schema/config.schema.json; `file` names it in errors. */
+export function checkConfigObject(raw: unknown, file: string): RawConfig {
+  validateAgainst('config.schema.json', raw, file, '');
   return raw as RawConfig;
 }
 

@@ -31,6 +31,24 @@ export interface AnalyzeOptions {
    * model, a failed solve), so the CLI can show its stack trace under MODALGATE_DEBUG.
    */
   onCaughtError?: (e: unknown) => void;
+  /** The time of each phase, once the model's rules have run (not for a model that could not be read). */
+  onPhases?: (times: PhaseTimes) => void;
+}
+
+/**
+ * Where one model's time went, milliseconds: reading K, M and the DOF map, the fill-reducing
+ * ordering with the symbolic analysis (once per solve), the numeric factorizations (every shift),
+ * the iteration, the verification, and the rules with the facts they need after the solve
+ * (geometry facts, the baseline comparison). The solve's phases are missing when the modes
+ * were not solved.
+ */
+export interface PhaseTimes {
+  readMs: number;
+  orderMs?: number;
+  factorMs?: number;
+  iterateMs?: number;
+  verifyMs?: number;
+  rulesMs: number;
 }
 
 export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}): Promise<ModelReport> {
@@ -38,7 +56,9 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
   const t0 = performance.now();
   const report: ModelReport = { name: job.name, verdict: 'pass', timestamp: junitTimestamp(started), timeMs: 0, ruleSets: job.ruleSets, rules: [] };
   try {
+    const readStart = performance.now();
     const input = await readModelInput(job);
+    const readMs = performance.now() - readStart;
     report.stats = modelStats(job, input);
     // constraint sets from the model entry reduce K, M and the DOF map before the solve
     const constrained = applyConstraintStep(job, input);
@@ -49,6 +69,8 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
     if (blocker) solved = { notSolved: `not evaluated: the modes were not solved because ${blocker.file}: ${blocker.reason}.` };
     else solved = runSolveStep(job, constrained, { onProgress: options.onProgress, onError: options.onCaughtError });
     const modes = solved.modes;
+    // "rules": everything after the solve that feeds the rules (geometry facts, baseline comparison) and the rules
+    const rulesStart = performance.now();
     if (modes) {
       report.solve = solveReport(modes, job);
       report.modes = modeRows(modes);
@@ -77,6 +99,7 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
       comparison,
     };
     report.rules = runRules(context, job.rules, unavailable);
+    options.onPhases?.({ readMs, ...solvePhases(modes), rulesMs: performance.now() - rulesStart });
     // --save-baseline after the rules; a failed save keeps the rule results and ends in exit 2
     const saved = await runBaselineSave(job, { modes, mass: constrained.mass, dofMap: constrained.dofMap, geometry }, verdictOf(report.rules));
     if (saved.saved) report.baselineSaved = saved.saved;
@@ -94,6 +117,13 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
   report.timeMs = performance.now() - t0;
   report.verdict = report.problem ? 'error' : verdictOf(report.rules);
   return report;
+}
+
+function solvePhases(modes: SolveOutcome['modes']): Omit<PhaseTimes, 'readMs' | 'rulesMs'> {
+  if (!modes) return {};
+  // the ordering and the symbolic analysis run once, before the numeric factorizations that factorMs counts
+  const orderMs = modes.factor.timings.orderingMs + modes.factor.timings.symbolicMs;
+  return { orderMs, factorMs: modes.timings.factorMs, iterateMs: modes.timings.iterateMs, verifyMs: modes.timings.verifyMs };
 }
 
 function notEvaluated(ruleId: string, description: string, severity: RuleResult['severity'], options: Record<string, unknown>, why: string): RuleResult {

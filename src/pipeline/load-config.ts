@@ -31,7 +31,14 @@ export interface ConfigOverrides {
 
 /** Load, validate and resolve the config at `path`. */
 export function loadConfig(path: string, overrides: ConfigOverrides = {}): LoadedConfig {
-  const config = readConfigFile(path);
+  return resolveConfig(readConfigFile(path), path, overrides);
+}
+
+/**
+ * Resolve a config already read and schema-checked (checkConfigObject): relative paths from the
+ * folder of `path`, which also names the config in errors.
+ */
+export function resolveConfig(config: RawConfig, path: string, overrides: ConfigOverrides = {}): LoadedConfig {
   const dir = dirname(path);
   const reports = {
     junit: reportPath(config.reports?.junit, dir, path, 'reports.junit'),

@@ -13,6 +13,7 @@ import { Worker } from 'node:worker_threads';
 import type { ConfigOverrides } from './load-config.js';
 import type { ModelJob } from './job-types.js';
 import { problemOf, stackOf } from './problem.js';
+import type { PhaseTimes } from './analyze-model.js';
 import { junitTimestamp, type ModelReport, type ProblemReport } from './result-types.js';
 import type { ModelWorkerInput, ModelWorkerMessage, ModelWorkerRequest } from './model-worker.js';
 
@@ -23,6 +24,8 @@ export interface RunModelOptions {
   /** Wall-clock limit for this model, milliseconds (none when undefined). */
   timeLimitMs?: number;
   onProgress?: (message: string) => void;
+  /** Where the model's time went, once its rules have run (analyze-model.ts). */
+  onPhases?: (times: PhaseTimes) => void;
   /** Stack traces of the exceptions the model's check caught (asked for only under MODALGATE_DEBUG). */
   onCaughtErrorStack?: (stack: string) => void;
 }
@@ -48,7 +51,7 @@ export class ModelRunner {
     if (!canIsolate) {
       const onCaughtError = onStack ? (e: unknown) => onStack(stackOf(e)) : undefined;
       // loaded here only: the main thread of an isolated run never needs the solver
-      const report = import('./analyze-model.js').then(({ analyzeModel }) => analyzeModel(job, { onProgress: options.onProgress, onCaughtError }));
+      const report = import('./analyze-model.js').then(({ analyzeModel }) => analyzeModel(job, { onProgress: options.onProgress, onPhases: options.onPhases, onCaughtError }));
       return { report, stop: () => {} };
     }
     const worker = (this.worker ??= this.start());
@@ -73,7 +76,8 @@ export class ModelRunner {
       if (m.kind === 'progress') {
         lastStage = m.message;
         options.onProgress?.(m.message);
-      } else if (m.kind === 'caught') onStack?.(m.stack);
+      } else if (m.kind === 'phases') options.onPhases?.(m.times);
+      else if (m.kind === 'caught') onStack?.(m.stack);
       else finish(m.kind === 'report' ? m.report : stopped(m.problem));
     };
     const onExit = (code: number): void => finish(stopped({ kind: 'internal', message: `internal error: the worker thread checking ${job.name} ended (code ${code}) without a report` }));

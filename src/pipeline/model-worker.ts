@@ -8,7 +8,7 @@
 import { parentPort, workerData } from 'node:worker_threads';
 import { loadConfig, type ConfigOverrides } from './load-config.js';
 import type { LoadedConfig } from './job-types.js';
-import { analyzeModel, problemOf, stackOf } from './analyze-model.js';
+import { analyzeModel, problemOf, stackOf, type PhaseTimes } from './analyze-model.js';
 
 export interface ModelWorkerInput {
   configPath: string;
@@ -21,6 +21,7 @@ export type ModelWorkerRequest = { kind: 'check'; id: number; modelName: string;
 export type ModelWorkerMessage =
   | { kind: 'progress'; id: number; message: string }
   | { kind: 'caught'; id: number; stack: string }
+  | { kind: 'phases'; id: number; times: PhaseTimes }
   | { kind: 'report'; id: number; report: Awaited<ReturnType<typeof analyzeModel>> }
   | { kind: 'failed'; id: number; problem: ReturnType<typeof problemOf> };
 
@@ -37,7 +38,7 @@ async function check({ id, modelName, sendStacks }: ModelWorkerRequest): Promise
     config ??= loadConfig(input.configPath, input.overrides);
     const job = config.models.find((m) => m.name === modelName);
     if (!job) throw new Error(`model ${modelName} is not in ${input.configPath}`);
-    const report = await analyzeModel(job, { onProgress: (message) => post({ kind: 'progress', id, message }), onCaughtError });
+    const report = await analyzeModel(job, { onProgress: (message) => post({ kind: 'progress', id, message }), onPhases: (times) => post({ kind: 'phases', id, times }), onCaughtError });
     post({ kind: 'report', id, report });
   } catch (e) {
     onCaughtError?.(e);

@@ -37,7 +37,7 @@ export function ensureBuilt(): void {
 
 export function runCli(args: string[], cwd = repoRoot, env: Record<string, string> = {}): Promise<CliRun> {
   return new Promise((done) => {
-    execFile(process.execPath, [mainJs, ...args], { cwd, env: { ...process.env, MODALGATE_DEBUG: '', NO_COLOR: '1', FORCE_COLOR: undefined, ...env } }, (err, stdout, stderr) => {
+    execFile(process.execPath, [mainJs, ...args], { cwd, env: { ...process.env, MODALGATE_DEBUG: '', GITHUB_STEP_SUMMARY: '', NO_COLOR: '1', FORCE_COLOR: undefined, ...env } }, (err, stdout, stderr) => {
       done({ code: err ? ((err as { code?: number }).code ?? -1) : 0, stdout, stderr });
     });
   });

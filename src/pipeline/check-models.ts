@@ -1,0 +1,63 @@
+/**
+ * `modalgate check` as a library call: a parsed config (the shape of modalgate.yaml) and the
+ * folder its relative paths start from in, the typed CheckReport out. The models run one after
+ * another on this thread (no worker, so no time limit); nothing is printed or written except a
+ * baseline the options ask to save. A bad config or a model that cannot be read is not thrown:
+ * it is in the report (`problem`, verdict `error`), as the command line reports it.
+ */
+import { join, resolve } from 'node:path';
+import { checkConfigObject } from '../io/config-loader.js';
+import { InputError } from '../io/errors.js';
+import type { RawConfig } from '../io/config-types.js';
+import { analyzeModel, problemOf, type PhaseTimes } from './analyze-model.js';
+import { checkReport } from './check-report.js';
+import { resolveConfig } from './load-config.js';
+import type { CheckReport, ModelReport, ProblemReport } from './result-types.js';
+
+export interface CheckModelsOptions {
+  /** Check only these models (by name). */
+  models?: string[];
+  /** Compare every model with its baseline in this folder (overrides baseline.dir of the config). */
+  baselineDir?: string;
+  /** Save every checked model's baseline into this folder. */
+  saveBaselineDir?: string;
+  /** Refuse a model whose solve is predicted to need more bytes than this. */
+  memoryLimitBytes?: number;
+  /** Progress of a long solve. */
+  onProgress?: (model: string, message: string) => void;
+  /** Where a model's time went, once its rules have run. */
+  onPhases?: (model: string, times: PhaseTimes) => void;
+}
+
+/** The name errors give the config object: a file name in `baseDir` that is not read. */
+export const CONFIG_OBJECT_NAME = '(config object)';
+
+export async function checkModels(config: RawConfig, baseDir: string, options: CheckModelsOptions = {}): Promise<CheckReport> {
+  const started = new Date();
+  const t0 = performance.now();
+  const models: ModelReport[] = [];
+  let problem: ProblemReport | undefined;
+  const where = join(resolve(baseDir), CONFIG_OBJECT_NAME);
+  try {
+    const loaded = resolveConfig(checkConfigObject(config, where), where, {
+      baselineDir: options.baselineDir !== undefined ? resolve(baseDir, options.baselineDir) : undefined,
+      saveBaselineDir: options.saveBaselineDir !== undefined ? resolve(baseDir, options.saveBaselineDir) : undefined,
+      memoryLimitBytes: options.memoryLimitBytes,
+    });
+    const known = loaded.models.map((m) => m.name);
+    for (const n of options.models ?? []) if (!known.includes(n)) throw new InputError(where, `no model named ${n} (models: ${known.join(', ')})`);
+    const jobs = options.models ? loaded.models.filter((m) => options.models!.includes(m.name)) : loaded.models;
+    for (const job of jobs) {
+      const { onProgress, onPhases } = options;
+      models.push(
+        await analyzeModel(job, {
+          onProgress: onProgress ? (message) => onProgress(job.name, message) : undefined,
+          onPhases: onPhases ? (times) => onPhases(job.name, times) : undefined,
+        }),
+      );
+    }
+  } catch (e) {
+    problem = problemOf(e);
+  }
+  return checkReport({ started, timeMs: performance.now() - t0, models, problem });
+}
