@@ -17,7 +17,7 @@ const messages = {
   location: '{{file}}{{line}} ({{row}}, {{col}})',
   line: ':{{line}}',
   unknownLocation: 'an unknown line',
-  fail: '{{list}} non-finite entr{{plural}} (NaN or infinity), which make every result meaningless; first at {{where}}.',
+  fail: '{{list}} non-finite entr{{plural}} (NaN or infinity); such values make every result meaningless; first at {{where}}.',
 };
 const { outcome, text } = ruleMessages(messages);
 

@@ -156,7 +156,8 @@ describe('non-finite values in check', () => {
     // exit 2: the rules that need the modes are errors ("not evaluated"), as for any unsolvable model
     expect(r.code).toBe(2);
     const xml = readFileSync(junit, 'utf8');
-    expect(xml).toMatch(new RegExp(`<failure [^>]*message="[^"]*${k.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}:4 \\(2, 2\\)[^"]*" type="matrix-finite"`));
+    // the JUnit text shows paths relative to the working directory: the file is named by its name and line
+    expect(xml).toMatch(/<failure [^>]*message="[^"]*k-nan\.mtx:4 \(2, 2\)[^"]*" type="matrix-finite"/);
     expect(xml).toContain('the modes were not solved because');
   });
 });
