@@ -34,10 +34,18 @@ export interface RawModelConfig extends RawSolveSettings {
 }
 
 /** A constraint set as written in the config (`dofsFile` relative to the config file). */
+/** Nodes selected by where they are (coordinates of the DOF map, model units). */
+export type NodeRegion =
+  | { plane: { axis: 'x' | 'y' | 'z'; at: number }; tolerance?: number }
+  | { box: { min: [number, number, number]; max: [number, number, number] }; tolerance?: number }
+  | { cylinder: { axis: 'x' | 'y' | 'z'; through: [number, number, number]; radius: number; from?: number; to?: number }; tolerance?: number };
+
 export interface RawConstraintSet {
   name?: string;
   nodes?: number[];
   nodeRange?: [number, number];
+  /** Every node on a plane, in a box, or on a cylinder's surface (coordinates from the DOF map). */
+  region?: NodeRegion;
   components?: ComponentSelector[];
   dofs?: number[];
   dofsFile?: string;

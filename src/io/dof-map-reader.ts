@@ -89,8 +89,9 @@ class DofMapBuilder {
       this.fail(`node '${nodeText}' is not a positive whole number`, line);
     }
     const node = Number(nodeText);
-    const comp = COMPONENTS.indexOf(compText.toLowerCase() as (typeof COMPONENTS)[number]);
-    if (comp < 0) this.fail(`unknown component '${compText}' (expected one of ${COMPONENTS.join(' ')})`, line);
+    // a component by name (ux … rz, any case) or by number 1 … 6 in the same order
+    const comp = /^[1-6]$/.test(compText) ? Number(compText) - 1 : COMPONENTS.indexOf(compText.toLowerCase() as (typeof COMPONENTS)[number]);
+    if (comp < 0) this.fail(`unknown component '${compText}' (expected one of ${COMPONENTS.join(' ')}, or 1 to 6)`, line);
     const xyz = [f[3], f[4], f[5]].map((t, k) => {
       const v = Number(t);
       if (!REAL.test(t) || !Number.isFinite(v)) this.fail(`coordinate ${'xyz'[k]} '${t}' is not a finite number`, line);

@@ -10,9 +10,9 @@ import type { SymmetricCsc } from '../sparse/csc.js';
 import { principalSubmatrix } from '../sparse/permute.js';
 import { COMPONENTS, type DofMap } from '../io/dof-map.js';
 import { InputError } from '../io/errors.js';
-import type { ComponentSelector } from '../io/config-types.js';
+import type { ComponentSelector, NodeRegion } from '../io/config-types.js';
 
-export type { ComponentSelector };
+export type { ComponentSelector, NodeRegion };
 
 export interface ConstraintSet {
   /** Name shown in reports (e.g. "base clamp"). */
@@ -21,6 +21,8 @@ export interface ConstraintSet {
   nodes?: number[];
   /** Inclusive node id range [first, last]. */
   nodeRange?: [number, number];
+  /** Nodes on a plane, in a box or on a cylinder's surface (DOF-map coordinates). */
+  region?: NodeRegion;
   /** Components held at those nodes (default `all`). */
   components?: ComponentSelector[];
   /** 1-based DOF numbers (rows of K) to hold, e.g. read from a file. */
@@ -71,28 +73,72 @@ export function constrainedDofMask(n: number, dofMap: DofMap | undefined, sets: 
       if (!mask[d - 1]) matched++;
       mask[d - 1] = 1;
     }
-    if (set.nodes === undefined && set.nodeRange === undefined) {
-      if (!set.dofs?.length) throw new InputError(source, 'a constraint set needs nodes, nodeRange or dofs', { where });
+    if (set.nodes === undefined && set.nodeRange === undefined && set.region === undefined) {
+      if (!set.dofs?.length) throw new InputError(source, 'a constraint set needs nodes, nodeRange, region or dofs', { where });
       return;
     }
-    if (!dofMap) throw new InputError(source, 'constraints by node need a DOF map (dof,node,component,x,y,z)', { where });
+    if (!dofMap) throw new InputError(source, 'constraints by node or region need a DOF map (dof,node,component,x,y,z)', { where });
     const codes = new Set(componentCodes(set.components, `${where}.components`));
     const nodes = new Set(set.nodes ?? []);
     const [lo, hi] = set.nodeRange ?? [1, 0];
+    const inRegion = set.region ? regionTest(set.region, dofMap) : () => false;
     let nodeHits = 0;
     // every DOF at a selected node with a selected component
     for (let i = 0; i < n; i++) {
       const node = dofMap.node[i];
-      if (!nodes.has(node) && !(node >= lo && node <= hi)) continue;
+      if (!nodes.has(node) && !(node >= lo && node <= hi) && !inRegion(i)) continue;
       nodeHits++;
       if (!codes.has(dofMap.component[i])) continue;
       mask[i] = 1;
       matched++;
     }
-    if (nodeHits === 0) throw new InputError(source, 'no DOF of the DOF map belongs to the listed nodes', { where });
+    if (nodeHits === 0) throw new InputError(source, set.region ? 'no node of the DOF map lies in the region (check its coordinates and tolerance)' : 'no DOF of the DOF map belongs to the listed nodes', { where });
     if (matched === 0) throw new InputError(source, 'the listed nodes carry none of the listed components', { where });
   });
   return mask;
+}
+
+/** Relative default tolerance of a region: this share of the model's largest extent (our choice). */
+export const REGION_TOLERANCE_SHARE = 1e-6;
+
+/**
+ * Whether DOF i's node lies in the region: on the plane (|x_a − at| ≤ tol), in the box
+ * (min − tol ≤ x ≤ max + tol componentwise), or on the cylinder's surface (| ‖p − c‖⊥ − r | ≤ tol,
+ * the distance taken across the axis, and from − tol ≤ x_a ≤ to + tol when given).
+ */
+function regionTest(region: NodeRegion, map: DofMap): (i: number) => boolean {
+  const coords = [map.x, map.y, map.z];
+  // the model's largest extent sets the default tolerance
+  let extent = 0;
+  for (const c of coords) {
+    let lo = Infinity;
+    let hi = -Infinity;
+    for (let i = 0; i < map.n; i++) {
+      lo = Math.min(lo, c[i]);
+      hi = Math.max(hi, c[i]);
+    }
+    if (hi > lo) extent = Math.max(extent, hi - lo);
+  }
+  const tol = region.tolerance ?? REGION_TOLERANCE_SHARE * (extent > 0 ? extent : 1);
+  const axisIndex = (a: 'x' | 'y' | 'z'): number => 'xyz'.indexOf(a);
+  if ('plane' in region) {
+    const c = coords[axisIndex(region.plane.axis)];
+    return (i) => Math.abs(c[i] - region.plane.at) <= tol;
+  }
+  if ('box' in region) {
+    const { min, max } = region.box;
+    return (i) => coords.every((c, k) => c[i] >= min[k] - tol && c[i] <= max[k] + tol);
+  }
+  const { axis, through, radius, from, to } = region.cylinder;
+  const a = axisIndex(axis);
+  const [u, v] = [0, 1, 2].filter((k) => k !== a);
+  return (i) => {
+    const along = coords[a][i];
+    if (from !== undefined && along < from - tol) return false;
+    if (to !== undefined && along > to + tol) return false;
+    const r = Math.hypot(coords[u][i] - through[u], coords[v][i] - through[v]);
+    return Math.abs(r - radius) <= tol;
+  };
 }
 
 /** The DOF map restricted to the kept DOFs. */

@@ -75,3 +75,15 @@ describe('inspect report', () => {
     expect(formatInspection(summary)).toMatch(/zero diagonals\s+1: dof 2/);
   });
 });
+
+describe('DOF map components by number', () => {
+  it('1 to 6 stand for ux uy uz rx ry rz; 0 and 7 are refused naming the line', async () => {
+    const p = join(dir, 'numeric.csv');
+    writeFileSync(p, 'dof,node,component,x,y,z\n1,5,1,0,0,0\n2,5,3,0,0,0\n3,5,6,0,0,0\n');
+    const map = await readDofMap(p, 3);
+    expect(Array.from(map.component)).toEqual([0, 2, 5]);
+    const bad = join(dir, 'numeric-bad.csv');
+    writeFileSync(bad, 'dof,node,component,x,y,z\n1,5,1,0,0,0\n2,5,7,0,0,0\n');
+    await expect(readDofMap(bad, 2)).rejects.toThrow(/numeric-bad\.csv:3: unknown component '7' \(expected one of ux uy uz rx ry rz, or 1 to 6\)/);
+  });
+});

@@ -49,7 +49,7 @@ describe('constraint sets', () => {
     expect(() => constrainedDofMask(n, undefined, [{ nodes: [1] }])).toThrow(InputError);
     expect(() => constrainedDofMask(n, beam.dofMap, [{ dofs: [n + 1] }])).toThrow(/outside 1\.\./);
     expect(() => constrainedDofMask(n, beam.dofMap, [{ nodes: [1], components: ['uw' as 'ux'] }])).toThrow(/unknown component "uw"/);
-    expect(() => constrainedDofMask(n, beam.dofMap, [{}])).toThrow(/needs nodes, nodeRange or dofs/);
+    expect(() => constrainedDofMask(n, beam.dofMap, [{}])).toThrow(/needs nodes, nodeRange, region or dofs/);
   });
 
   it('DOF number files: whitespace, commas, comments; a bad token names its line', () => {
