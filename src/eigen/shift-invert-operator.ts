@@ -6,8 +6,8 @@
  * C is self-adjoint in the M-inner product ⟨x, y⟩_M = xᵀMy (Ericsson & Ruhe 1980), so the
  * eigenvalues of (K, M) nearest σ are the θ of largest magnitude — what block Lanczos and
  * subspace iteration find first. Algorithms see only this interface: they apply C to blocks,
- * multiply by M and K, and never touch the factorization itself (the operator layer of the
- * Spectra library's design, see STYLE.md).
+ * multiply by M and K, and never touch the factorization itself (the operator layer
+ * of the Spectra library, yixuan/spectra: MatOp operators kept apart from the solvers).
  *
  * Blocks are column-major n×k Float64Arrays; one pass over the factor serves all k columns.
  */
