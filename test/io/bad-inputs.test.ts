@@ -10,7 +10,8 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { readMatrixMarket, readStiffnessAndMass } from '../../src/io/matrix-market-reader.js';
 import { readDofMap } from '../../src/io/dof-map-reader.js';
-import { InputError, oneLineMessage } from '../../src/io/errors.js';
+import { oneLineMessage } from '../../src/io/errors.js';
+import { caught } from './caught-input-error.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const corpus = join(here, 'bad-inputs');
@@ -18,15 +19,6 @@ const good = join(here, 'good-inputs');
 interface Case { file: string; kind: 'matrix' | 'dofmap'; line: number; says: string }
 const cases = JSON.parse(readFileSync(join(corpus, 'manifest.json'), 'utf8')) as Case[];
 
-async function caught(p: Promise<unknown>): Promise<InputError> {
-  try {
-    await p;
-  } catch (e) {
-    if (e instanceof InputError) return e;
-    throw e;
-  }
-  throw new Error('no error raised');
-}
 
 describe('bad-input corpus', () => {
   it('holds at least 25 distinct defective matrix files and lists every file', () => {

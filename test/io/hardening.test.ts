@@ -20,12 +20,13 @@ import { gzipSync } from 'node:zlib';
 import { readMatrixMarket, readStiffnessAndMass } from '../../src/io/matrix-market-reader.js';
 import { MatrixMarketLines, FILLER_BYTES, BYTES_PER_ENTRY } from '../../src/io/matrix-market-lines.js';
 import { forEachLine, probeFile } from '../../src/io/byte-lines.js';
-import { InputError, oneLineMessage } from '../../src/io/errors.js';
+import { oneLineMessage } from '../../src/io/errors.js';
 import { sumDuplicateTriplets } from '../../src/sparse/assemble.js';
 import { matrixFinite } from '../../src/rules/matrix-finite.js';
 import { matrixSymmetry } from '../../src/rules/matrix-symmetry.js';
 import type { RuleContext } from '../../src/rules/rule-types.js';
 import type { MatrixSummary } from '../../src/io/matrix-summary.js';
+import { caught } from './caught-input-error.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const corpus = join(here, 'bad-inputs');
@@ -38,15 +39,6 @@ function file(name: string, content: string | Buffer): string {
   return p;
 }
 
-async function caught(p: Promise<unknown>): Promise<InputError> {
-  try {
-    await p;
-  } catch (e) {
-    if (e instanceof InputError) return e;
-    throw e;
-  }
-  throw new Error('no error raised');
-}
 
 /** The parser's triplet arrays after a whole file (to see how much it kept). */
 async function parse(path: string, options: { compactFrom?: number; fillerBytes?: number } = {}): Promise<MatrixMarketLines> {

@@ -2,35 +2,14 @@ import { describe, expect, it } from 'vitest';
 import { buildHexBox } from '../../fixtures/generator/hex-solid.js';
 import { buildCantilever } from '../../fixtures/generator/cantilever.js';
 import { STEEL } from '../../fixtures/generator/sections.js';
-import type { GeneratedModel } from '../../fixtures/generator/model-types.js';
-import { computeGeometry } from '../../src/model/compute-geometry.js';
-import type { RuleContext, RuleDefinition } from '../../src/rules/rule-types.js';
-import type { MatrixSummary } from '../../src/io/matrix-summary.js';
-import type { ModesResult } from '../../src/eigen/modes-types.js';
 import { rigidBodyEnergy } from '../../src/rules/rigid-body-energy.js';
 import { totalMass } from '../../src/rules/total-mass.js';
 import { centerOfMass } from '../../src/rules/center-of-mass.js';
 import { massConsistency } from '../../src/rules/mass-consistency.js';
 import { massParticipation } from '../../src/rules/mass-participation.js';
 import { denseModes } from './helpers.js';
-
-function contextOf(model: GeneratedModel, modes?: ModesResult, expectedRigidBodyModes?: number): RuleContext {
-  const summary = {} as MatrixSummary;
-  return {
-    modelName: 'test',
-    stiffness: model.stiffness,
-    mass: model.mass,
-    stiffnessSummary: summary,
-    massSummary: summary,
-    dofMap: model.dofMap,
-    modes,
-    geometry: computeGeometry({ stiffness: model.stiffness, mass: model.mass, dofMap: model.dofMap, modes, expectedRigidBodyModes }),
-  };
-}
-
-function run<O extends object>(rule: RuleDefinition<O, keyof O>, context: RuleContext, options: Partial<O> = {}) {
-  return rule.evaluate(context, { ...rule.defaults, ...options } as O);
-}
+import { geometryContext as contextOf } from '../rules/geometry-context.js';
+import { runRule as run } from '../rules/rule-tester.js';
 
 const size = [0.3, 0.2, 0.5] as const;
 const free = buildHexBox({ sizeM: size, elements: [2, 2, 3], material: STEEL });

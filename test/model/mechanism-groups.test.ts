@@ -11,11 +11,7 @@ import { buildHexBox, buildHexGrid } from '../../fixtures/generator/hex-solid.js
 import { buildFrame, type FrameSpec } from '../../fixtures/generator/frame-builder.js';
 import { STEEL, rectangularSection, roundBarSection } from '../../fixtures/generator/sections.js';
 import { dofOfNode, type GeneratedModel } from '../../fixtures/generator/model-types.js';
-import { computeGeometry, type GeometryInput } from '../../src/model/compute-geometry.js';
 import { applyConstraints } from '../../src/model/constraints.js';
-import type { RuleContext, RuleDefinition } from '../../src/rules/rule-types.js';
-import type { MatrixSummary } from '../../src/io/matrix-summary.js';
-import type { ModesResult } from '../../src/eigen/modes-types.js';
 import type { MechanismGroup } from '../../src/model/mechanism-groups.js';
 import type { FreeMotionFacts } from '../../src/model/free-motions.js';
 import type { NodeShare } from '../../src/model/energy-shares.js';
@@ -27,24 +23,12 @@ import { sampleReport } from '../report/sample-report.js';
 import { formatConsole } from '../../src/report/console-reporter.js';
 import { formatJunit } from '../../src/report/junit-reporter.js';
 import { formatMarkdown } from '../../src/report/markdown.js';
+import { geometryContext } from '../rules/geometry-context.js';
+import { runRule as run } from '../rules/rule-tester.js';
 
-function contextOf(model: Pick<GeneratedModel, 'stiffness' | 'mass' | 'dofMap'>, modes: ModesResult, extra: Partial<GeometryInput> = {}, withMap = true): RuleContext {
-  const summary = {} as MatrixSummary;
-  return {
-    modelName: 'test',
-    stiffness: model.stiffness,
-    mass: model.mass,
-    stiffnessSummary: summary,
-    massSummary: summary,
-    dofMap: withMap ? model.dofMap : undefined,
-    modes,
-    geometry: withMap ? computeGeometry({ stiffness: model.stiffness, mass: model.mass, dofMap: model.dofMap, modes, ...extra }) : undefined,
-  };
-}
-
-function run<O extends object>(rule: RuleDefinition<O, keyof O>, context: RuleContext, options: Partial<O> = {}) {
-  return rule.evaluate(context, { ...rule.defaults, ...options } as O);
-}
+/** The model's rule context; `extra` adds geometry inputs, `withMap: false` drops the DOF map. */
+const contextOf = (model: Parameters<typeof geometryContext>[0], modes: Parameters<typeof geometryContext>[1], extra: Parameters<typeof geometryContext>[3] = {}, withMap = true) =>
+  geometryContext(model, modes, undefined, extra, withMap);
 
 /**
  * A hex block clamped at its bottom (cells i 1..2, j 0..1, k 0) with two sub-parts joined wrongly:

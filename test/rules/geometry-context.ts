@@ -7,13 +7,23 @@ import { buildHexBox } from '../../fixtures/generator/hex-solid.js';
 import { buildCantilever } from '../../fixtures/generator/cantilever.js';
 import { STEEL } from '../../fixtures/generator/sections.js';
 import type { GeneratedModel } from '../../fixtures/generator/model-types.js';
-import { computeGeometry } from '../../src/model/compute-geometry.js';
+import { computeGeometry, type GeometryInput } from '../../src/model/compute-geometry.js';
 import type { RuleContext } from '../../src/rules/rule-types.js';
 import type { ModesResult } from '../../src/eigen/modes-types.js';
 import { denseModes } from '../model/helpers.js';
 import { cleanSummary } from './fake-model.js';
 
-export function geometryContext(model: GeneratedModel, modes?: ModesResult, expectedRigidBodyModes?: number): RuleContext {
+/**
+ * A rule context with the model's geometry facts; `extra` adds geometry inputs (supported DOFs…),
+ * `withMap: false` drops the DOF map (and so the geometry facts).
+ */
+export function geometryContext(
+  model: Pick<GeneratedModel, 'stiffness' | 'mass' | 'dofMap'>,
+  modes?: ModesResult,
+  expectedRigidBodyModes?: number,
+  extra: Partial<GeometryInput> = {},
+  withMap = true,
+): RuleContext {
   const n = model.stiffness.n;
   return {
     modelName: 'test',
@@ -21,9 +31,9 @@ export function geometryContext(model: GeneratedModel, modes?: ModesResult, expe
     mass: model.mass,
     stiffnessSummary: cleanSummary('K.mtx', n),
     massSummary: cleanSummary('M.mtx', n),
-    dofMap: model.dofMap,
+    dofMap: withMap ? model.dofMap : undefined,
     modes,
-    geometry: computeGeometry({ stiffness: model.stiffness, mass: model.mass, dofMap: model.dofMap, modes, expectedRigidBodyModes }),
+    geometry: withMap ? computeGeometry({ stiffness: model.stiffness, mass: model.mass, dofMap: model.dofMap, modes, expectedRigidBodyModes, ...extra }) : undefined,
   };
 }
 
