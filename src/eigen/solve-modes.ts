@@ -36,7 +36,7 @@ import { mOrthonormalize } from './m-orthonormalize.js';
 import { rayleighRitz } from './rayleigh-ritz.js';
 import { EIGENPAIR_RESIDUAL_LIMIT } from './residual-measure.js';
 import { checkShapes, CLUSTER_RELATIVE_TOLERANCE, placeSturmShift } from './verification.js';
-import { diagonalScale, firstShiftGuess, judgeShift, RIGID_BODY_FRACTION, type DiagonalScale } from './shift-placement.js';
+import { diagonalScale, firstShiftGuess, judgeShift, rigidBodyZero, type DiagonalScale } from './shift-placement.js';
 import type { EigenSearch, EigenSearchResult } from './search-types.js';
 
 /** The method used when the request names none (block Lanczos: fewer solves in test/bench/modes-bench.ts). */
@@ -100,7 +100,7 @@ export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request:
     scale,
     stiffnessNorm: symOneNorm(stiffness),
     rankM,
-    zero: RIGID_BODY_FRACTION * scale.maxRatio,
+    zero: rigidBodyZero(scale),
     factorAt,
     warnings,
     diagnostics,

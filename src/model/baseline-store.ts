@@ -55,7 +55,7 @@ import { join } from 'node:path';
 import type { ModesResult } from '../eigen/modes-types.js';
 import { COMPONENTS, type DofMap } from '../io/dof-map.js';
 import { InputError } from '../io/errors.js';
-import { writeFileAtomic } from '../io/atomic-write.js';
+import { writeFileAtomic, removeTempFiles } from '../io/atomic-write.js';
 import { writeDenseArray } from '../io/matrix-market-writer.js';
 import { readDenseArray } from '../io/matrix-market-reader.js';
 import { writeDofMap } from '../io/dof-map-writer.js';
@@ -169,7 +169,7 @@ export async function saveBaseline(dir: string, input: SaveBaselineInput): Promi
   let committed = false;
   // on a signal before the commit: our temporary files, our data files and the lock go
   const cleanup = (): void => {
-    removeOurTemporaryFiles(dir);
+    removeTempFiles([dir], process.pid);
     if (!committed) for (const p of [paths.shapes, paths.dofs]) rmSync(p, { force: true });
     lock.release();
   };
@@ -231,7 +231,7 @@ export async function saveBaseline(dir: string, input: SaveBaselineInput): Promi
  * process's lock go; the committed snapshot, if any, stays as it was.
  */
 export function clearStoppedSave(dir: string, model: string): void {
-  removeOurTemporaryFiles(dir);
+  removeTempFiles([dir], process.pid);
   let committedRun = '';
   try {
     committedRun = String((JSON.parse(readFileSync(baselineJsonFile(dir, model), 'utf8')) as { runId?: unknown }).runId ?? '');
@@ -240,12 +240,6 @@ export function clearStoppedSave(dir: string, model: string): void {
   }
   removeOlderUnits(dir, model, committedRun);
   releaseIfOurs(baselineLockFile(dir, model));
-}
-
-/** Temporary files of this process in `dir` (`.<name>.<pid>.<time>.tmp`, see ../io/atomic-write.ts). */
-function removeOurTemporaryFiles(dir: string): void {
-  const mine = new RegExp(`^\\..*\\.${process.pid}\\.\\d+\\.tmp$`);
-  for (const name of safeList(dir)) if (mine.test(name)) rmSync(join(dir, name), { force: true });
 }
 
 /** Data files of this model from other runs (and the version-1 shapes file), after a commit. */

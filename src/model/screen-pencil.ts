@@ -16,7 +16,7 @@
  *
  * Each reason names the file, so the CLI can print one line and exit 2.
  */
-import type { SymmetricCsc } from '../sparse/csc.js';
+import { diagonalOf, type SymmetricCsc } from '../sparse/csc.js';
 import type { MatrixSummary } from '../io/matrix-summary.js';
 
 export interface PencilBlocker {
@@ -48,13 +48,9 @@ export function screenPencil(k: MatrixSummary, m: MatrixSummary, mass?: Symmetri
 /** The first 2×2 principal minor of M that is negative beyond rounding, or null. */
 export function negativeMinor(mass: SymmetricCsc): { i: number; j: number; mij: number; mii: number; mjj: number } | null {
   const n = mass.n;
-  const d = new Float64Array(n);
+  const d = diagonalOf(mass);
   let maxDiagonal = 0;
-  // the diagonal m_jj, first entry of each column when present
-  for (let j = 0; j < n; j++) {
-    for (let p = mass.colPtr[j]; p < mass.colPtr[j + 1]; p++) if (mass.rowIdx[p] === j) d[j] = mass.values[p];
-    maxDiagonal = Math.max(maxDiagonal, Math.abs(d[j]));
-  }
+  for (let j = 0; j < n; j++) maxDiagonal = Math.max(maxDiagonal, Math.abs(d[j]));
   const floor = MINOR_ABSOLUTE_MARGIN * maxDiagonal;
   // every stored off-diagonal entry m_ij (i > j): m_ij² ≤ m_ii m_jj (1 + margin) + floor²
   for (let j = 0; j < n; j++) {

@@ -60,12 +60,13 @@ export function createShiftedSolver(
   const order = chooseOrdering(stiffness, mass, { ordering: options.ordering ?? 'auto', coordinates: options.coordinates, threads });
   const t1 = performance.now();
   const analyzed = analyzeShiftedPair(stiffness, mass, order.perm);
-  if (options.memoryLimitBytes !== undefined) {
-    const predicted = predictedFactorBytes(analyzed, threads) + (options.extraBytes ?? 0);
-    if (predicted > options.memoryLimitBytes) throw new MemoryLimitError(predicted, options.memoryLimitBytes, analyzed.nnzL);
-  }
   const candidate = threads >= 2 && analyzed.flops >= PARALLEL_MIN_FLOPS ? splitSubtrees(analyzed, 2) : null;
   const split = candidate !== null && candidate.timeRatio <= PARALLEL_MAX_TIME_RATIO ? candidate : null;
+  if (options.memoryLimitBytes !== undefined) {
+    // scratch for the threads that will factor: two only when the tree was split between them
+    const predicted = predictedFactorBytes(analyzed, split ? 2 : 1) + (options.extraBytes ?? 0);
+    if (predicted > options.memoryLimitBytes) throw new MemoryLimitError(predicted, options.memoryLimitBytes, analyzed.nnzL);
+  }
   // shared memory lets the helper thread read the structure without a copy
   const structure = split ? shareStructure(analyzed) : analyzed;
   const solvePlan = split ? prepareSplitSolve(structure, split) : null;
