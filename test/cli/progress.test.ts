@@ -94,6 +94,7 @@ describe('step summary size', () => {
     expect(cut).not.toContain('\uFFFD');
   });
   it('the 1 MiB default limit', () => {
+    // GitHub documentation, "Workflow commands for GitHub Actions", adding a job summary: at most 1 MiB per step (from memory)
     const big = 'x'.repeat(1023) + '\n';
     const cut = fitStepSummary(big.repeat(2048), undefined);
     expect(Buffer.byteLength(cut)).toBeLessThanOrEqual(1024 * 1024);

@@ -129,6 +129,8 @@ export interface CliFuzzResult {
   failures: FuzzFailure[];
   /** Largest peak RSS of a CLI run, bytes (0 when /usr/bin/time is missing). */
   largestPeakBytes: number;
+  /** Runs that were refused (exit 2): the ones whose one-line error was checked. */
+  refused: number;
 }
 
 /** A sample of mutated matrix files and configs through the built CLI (`inspect`, `check`). */
@@ -137,7 +139,7 @@ export function fuzzCli(runs: number, seed: number): CliFuzzResult {
   const seeds = seedFiles();
   const dir = scratch();
   const haveTime = existsSync('/usr/bin/time');
-  const result: CliFuzzResult = { runs: 0, failures: [], largestPeakBytes: 0 };
+  const result: CliFuzzResult = { runs: 0, failures: [], largestPeakBytes: 0, refused: 0 };
   const inputs = [
     ...fc.sample(mutatedInputs('matrix', seeds.matrix), { numRuns: Math.ceil(runs / 2), seed }),
     ...fc.sample(mutatedInputs('config', seeds.config), { numRuns: Math.floor(runs / 2), seed: seed + 7 }),
@@ -162,6 +164,7 @@ export function fuzzCli(runs: number, seed: number): CliFuzzResult {
       if (![0, 1, 2].includes(r.status ?? -1)) return fail(`exit code ${r.status}`);
       if (/\n\s+at .+:\d+:\d+/.test(r.stderr)) return fail(`stack trace on stderr: ${r.stderr.slice(0, 300)}`);
       if (r.status === 2) {
+        result.refused++;
         const lines = r.stderr.trim().split('\n');
         if (lines.length !== 1) fail(`${lines.length} stderr lines: ${r.stderr.slice(0, 300)}`);
         else if (!lines[0].includes('fuzz-') && !lines[0].includes('tiny.')) fail(`stderr line names no file: ${lines[0]}`);

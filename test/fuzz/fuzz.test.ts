@@ -4,6 +4,7 @@
  * the property-testing library fast-check. Every input is read or refused with an InputError that
  * names the file; the CLI sample exits 0, 1 or 2, with one stderr line and no stack trace.
  */
+import { existsSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { ensureBuilt } from '../cli/built-cli.js';
 import { describeFailures, fuzzCli, fuzzReaders } from './fuzz-harness.js';
@@ -23,5 +24,8 @@ describe('fuzzed inputs (seeded)', () => {
     ensureBuilt();
     const r = fuzzCli(3, 7);
     expect(r.failures, describeFailures(r.failures)).toEqual([]);
+    // the sample holds refused inputs, so the one-line-error checks ran; and the memory was measured
+    expect(r.refused).toBeGreaterThan(0);
+    if (existsSync('/usr/bin/time')) expect(r.largestPeakBytes).toBeGreaterThan(0);
   }, 120_000);
 });

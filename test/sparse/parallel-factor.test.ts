@@ -6,18 +6,18 @@
  * residual bound of the serial tests; the reference for the pivots is the serial factorization,
  * itself checked against ml-matrix in supernodal.test.ts.
  */
-import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { diagonalOf, maxAbsEntry, symMultiplyBlock } from '../../src/sparse/csc.js';
 import { hexGridPair } from './fe-like-matrices.js';
+import { ensureBuilt } from '../cli/built-cli.js';
 
 const dist = path.resolve(import.meta.dirname, '../../dist/src/sparse');
-const built = existsSync(path.join(dist, 'helper-worker.js')) && existsSync(path.join(dist, 'shifted-solver.js'));
-if (!built) console.warn('parallel factorization test skipped: dist/ not built (run `npm run build`)');
+// the helper thread runs from the compiled files only: build them when missing or older than the sources
+ensureBuilt();
 
-describe.skipIf(!built)('two-thread LDLᵀ from the compiled modules', () => {
+describe('two-thread LDLᵀ from the compiled modules', () => {
   it('matches the serial factor (inertia, pivot ratio) and solves to the serial residual bound', async () => {
     const { createShiftedSolver } = (await import(pathToFileURL(path.join(dist, 'shifted-solver.js')).href)) as typeof import('../../src/sparse/shifted-solver.js');
     const { stiffness, mass } = hexGridPair(14, 13, 12, 3);
@@ -75,7 +75,7 @@ describe.skipIf(!built)('two-thread LDLᵀ from the compiled modules', () => {
 
 const eigenDist = path.resolve(import.meta.dirname, '../../dist/src/eigen/shared-block-products.js');
 
-describe.skipIf(!built || !existsSync(eigenDist))('basis products split between threads, from the compiled modules', () => {
+describe('basis products split between threads, from the compiled modules', () => {
   it('equal the one-thread block kernels (src/dense/block-ops.ts) on a shared basis', async () => {
     const shared = (await import(pathToFileURL(eigenDist).href)) as typeof import('../../src/eigen/shared-block-products.js');
     const { addTimesSmall, transposeTimes } = await import('../../src/dense/block-ops.js');
@@ -97,7 +97,7 @@ describe.skipIf(!built || !existsSync(eigenDist))('basis products split between 
   });
 });
 
-describe.skipIf(!built)('ordering with the multilevel dissection on the helper thread, from the compiled modules', () => {
+describe('ordering with the multilevel dissection on the helper thread, from the compiled modules', () => {
   it('gives the same ordering as on one thread (the dissection is deterministic)', async () => {
     const { chooseOrdering } = (await import(pathToFileURL(path.join(dist, 'ordering/choose-ordering.js')).href)) as typeof import('../../src/sparse/ordering/choose-ordering.js');
     const { stiffness, mass } = hexGridPair(18, 17, 16, 5);
