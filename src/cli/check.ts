@@ -8,7 +8,7 @@ import { existsSync, statSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { findConfig, checkWritableTarget, readStructuredFile } from '../io/config-loader.js';
-import { loadConfig } from '../pipeline/load-config.js';
+import { loadConfig, selectModels } from '../pipeline/load-config.js';
 import type { LoadedConfig, ModelJob } from '../pipeline/job-types.js';
 import { InputError } from '../io/errors.js';
 import { removeTempFiles, writeFileAtomic } from '../io/atomic-write.js';
@@ -232,15 +232,6 @@ function outputDirs(targets: CheckOutcome['written'], baselineDirs: { saveBaseli
   const dirs = Object.values(targets).filter((p): p is string => typeof p === 'string').map((p) => dirname(p));
   if (baselineDirs.saveBaselineDir) dirs.push(baselineDirs.saveBaselineDir);
   return [...new Set(dirs)];
-}
-
-function selectModels(config: LoadedConfig, names: string[] | undefined): ModelJob[] {
-  if (!names || names.length === 0) return config.models;
-  const known = config.models.map((m) => m.name);
-  for (const n of names) {
-    if (!known.includes(n)) throw new InputError(config.path, `--model ${n}: no model of that name (models: ${known.join(', ')})`);
-  }
-  return config.models.filter((m) => names.includes(m.name));
 }
 
 /** When the config itself is broken, still try to learn where the CI expects the report. */

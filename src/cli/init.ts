@@ -5,11 +5,11 @@
  */
 import { existsSync, readFileSync } from 'node:fs';
 import { dirname, join, relative, resolve, sep } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { Option, type Command } from 'commander';
 import { writeFileAtomic } from '../io/atomic-write.js';
 import { InputError } from '../io/errors.js';
 import { runAction } from './run-action.js';
+import { packageRoot, packageVersion } from '../io/package-root.js';
 
 /** The folder the reports go to (CI templates, starter config and the .gitignore entry agree). */
 export const REPORT_DIR = 'modalgate-report';
@@ -72,22 +72,6 @@ export function registerInit(program: Command): void {
     );
 }
 
-/** The installed modalgate package: its root folder, name and version. */
-function ownPackage(): { root: string; name: string; version: string } {
-  // src/cli/init.ts or dist/src/cli/init.js: walk up to the package.json naming this package
-  let dir = dirname(fileURLToPath(import.meta.url));
-  for (;;) {
-    const file = join(dir, 'package.json');
-    if (existsSync(file)) {
-      const pkg = JSON.parse(readFileSync(file, 'utf8')) as { name?: string; version?: string; bin?: unknown };
-      if (pkg.name && pkg.version && pkg.bin) return { root: dir, name: pkg.name, version: pkg.version };
-    }
-    const up = dirname(dir);
-    if (up === dir) throw new Error('cannot find the package.json of modalgate itself');
-    dir = up;
-  }
-}
-
 /** Forward slashes: the path goes into YAML and CI scripts, read the same on every OS. */
 function posix(p: string): string {
   return p.split(sep).join('/');
@@ -112,7 +96,7 @@ export function repositoryPackageJson(name: string, version: string): string {
 }
 
 /** The CI template for `server`, pointed at the config when it is not the default one. */
-export function ciJobFile(server: CiServer, configArg: string | undefined, root = ownPackage().root): string {
+export function ciJobFile(server: CiServer, configArg: string | undefined, root = packageRoot()): string {
   const text = readFileSync(join(root, 'ci', CI_TARGETS[server].template), 'utf8');
   return configArg ? text.replaceAll('npx modalgate check', `npx modalgate check --config ${configArg}`) : text;
 }
@@ -135,7 +119,7 @@ export function withIgnored(existing: string | undefined, entries: string[]): st
  * before any is written, so a refusal leaves the folder as it was.
  */
 export function initRepository(repoDir: string, opts: InitOptions): string {
-  const pkg = ownPackage();
+  const pkg = { root: packageRoot(), name: 'modalgate', version: packageVersion() };
   const configPath = resolve(repoDir, opts.output);
   const files: { path: string; text: string }[] = [
     { path: configPath, text: starterConfig(schemaPathFrom(dirname(configPath), repoDir, pkg.name)) },

@@ -88,7 +88,7 @@ export function mechanismGroups(
   const regions = [...rowsOf.entries()].map(([r, rows]) => ({ r, rows, e: regionEnergy(rows) })).sort((a, b) => b.e - a.e);
   const groups: MechanismGroup[] = [];
   for (const { r, rows } of regions.slice(0, MAX_DESCRIBED_PARTS)) {
-    const g = regionMotions(mass, local, m, rows, d, labels, [...(border.get(r) ?? [])], top);
+    const g = regionMotions(mass, local, m, rows, d, labels, nodeOfRow, [...(border.get(r) ?? [])], top);
     if (g) groups.push(g);
   }
   return { groups: groups.sort((a, b) => b.motions - a.motions || b.nodeCount - a.nodeCount), unlisted: Math.max(0, regions.length - MAX_DESCRIBED_PARTS) };
@@ -208,6 +208,7 @@ function regionMotions(
   rows: number[],
   d: Float64Array,
   labels: DofLabels,
+  nodeOfRow: Int32Array,
   borderNodes: number[],
   top: number,
 ): MechanismGroup | null {
@@ -250,7 +251,6 @@ function regionMotions(
   const borderRows: number[] = [];
   const borderSet = new Set(borderNodes);
   // translations of the still nodes next to the region (their index is the dense node index)
-  const { nodeOfRow } = nodeIndexCached(labels);
   for (let i = 0; i < n; i++) if (borderSet.has(nodeOfRow[i]) && map.component[i] < 3) borderRows.push(i);
   const centroid = meanPoint(map.x, map.y, map.z, rows);
   const fit = rigidFit(basis, keep.length, rows, borderRows, map, centroid);
@@ -260,13 +260,6 @@ function regionMotions(
   const size = Math.max(1e-12, ...all.map((i) => Math.hypot(map.x[i] - centroid[0], map.y[i] - centroid[1], map.z[i] - centroid[2])));
   group.motion = classifyRigidMotions(fit.motions, keep.length, centroid, size, nodePoints(map.node, map.x, map.y, map.z, all));
   return group;
-}
-
-const nodeIndexCache = new WeakMap<DofLabels, { nodeOfRow: Int32Array; count: number }>();
-function nodeIndexCached(labels: DofLabels): { nodeOfRow: Int32Array; count: number } {
-  let v = nodeIndexCache.get(labels);
-  if (!v) nodeIndexCache.set(labels, (v = nodeIndex(labels)));
-  return v;
 }
 
 /** Rigid motions (t, ω about `p`) fitted to each basis motion; the worst explained fraction. */

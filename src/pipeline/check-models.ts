@@ -7,11 +7,10 @@
  */
 import { join, resolve } from 'node:path';
 import { checkConfigObject } from '../io/config-loader.js';
-import { InputError } from '../io/errors.js';
 import type { RawConfig } from '../io/config-types.js';
 import { analyzeModel, problemOf, type PhaseTimes } from './analyze-model.js';
 import { checkReport } from './check-report.js';
-import { resolveConfig } from './load-config.js';
+import { resolveConfig, selectModels } from './load-config.js';
 import type { CheckReport, ModelReport, ProblemReport } from './result-types.js';
 
 export interface CheckModelsOptions {
@@ -44,9 +43,7 @@ export async function checkModels(config: RawConfig, baseDir: string, options: C
       saveBaselineDir: options.saveBaselineDir !== undefined ? resolve(baseDir, options.saveBaselineDir) : undefined,
       memoryLimitBytes: options.memoryLimitBytes,
     });
-    const known = loaded.models.map((m) => m.name);
-    for (const n of options.models ?? []) if (!known.includes(n)) throw new InputError(where, `no model named ${n} (models: ${known.join(', ')})`);
-    const jobs = options.models ? loaded.models.filter((m) => options.models!.includes(m.name)) : loaded.models;
+    const jobs = selectModels(loaded, options.models);
     for (const job of jobs) {
       const { onProgress, onPhases } = options;
       models.push(

@@ -267,3 +267,13 @@ function editDistance(a: string, b: string): number {
   }
   return prev[b.length];
 }
+
+/** The jobs of the models named (all of them when none is named); an unknown name is an input error listing the known ones. */
+export function selectModels(config: LoadedConfig, names: string[] | undefined): ModelJob[] {
+  if (!names || names.length === 0) return config.models;
+  const known = config.models.map((m) => m.name);
+  for (const n of names) {
+    if (!known.includes(n)) throw new InputError(config.path, `no model named ${n} (models: ${known.join(', ')})`);
+  }
+  return config.models.filter((m) => names.includes(m.name));
+}

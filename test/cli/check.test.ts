@@ -54,7 +54,7 @@ describe('modalgate check', () => {
   it('exits 2 on an unknown --model name', async () => {
     const r = await runCli(['check', '--config', 'good/modalgate.yaml', '--model', 'nope'], work);
     expect(r.code).toBe(2);
-    expect(r.stderr).toContain('--model nope: no model of that name (models: tiny, tiny-free)');
+    expect(r.stderr).toContain('no model named nope (models: tiny, tiny-free)');
   });
   it('exits 2 on an unreadable matrix, checks the other models, and reports an <error>', async () => {
     writeFileSync(join(work, 'models/broken.mass.mtx'), '%%MatrixMarket matrix coordinate real symmetric\n3 3 2\n1 1 1\n0 2 1\n');
