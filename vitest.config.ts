@@ -8,5 +8,8 @@ export default defineConfig({
     hookTimeout: 120_000,
     pool: 'forks',
     maxWorkers: 2,
+    // @actions/workflow-parser imports its JSON schema without an import attribute, which Node's
+    // loader refuses; vite's transform handles it when the package is inlined.
+    server: { deps: { inline: ['@actions/workflow-parser'] } },
   },
 });
