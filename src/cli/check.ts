@@ -278,7 +278,7 @@ export function writeReports(report: CheckReport, targets: CheckOutcome['written
 }
 
 /** "cannot write /x/junit.xml: ENOSPC (no space left on device)" */
-function writeFailureMessage(path: string, e: unknown): string {
+export function writeFailureMessage(path: string, e: unknown): string {
   const code = (e as NodeJS.ErrnoException).code;
   const causes: Record<string, string> = {
     ENOSPC: 'no space left on device',

@@ -3,6 +3,7 @@
  * checks of one config) into one JUnit XML, Markdown, HTML and JSON report, print the console
  * summary and exit as `check` would: 0 pass, 1 a rule failed, 2 a shard errored, a report is
  * missing or unreadable, or the reports do not belong together (pipeline/merge-reports.ts).
+ * Under GitHub Actions the Markdown summary goes to the job summary too, as with `check`.
  */
 import { readFileSync, statSync } from 'node:fs';
 import { resolve } from 'node:path';
@@ -11,7 +12,9 @@ import { checkWritableTarget } from '../io/config-loader.js';
 import { mergeReports, type ShardReport } from '../pipeline/merge-reports.js';
 import type { CheckReport, ProblemReport } from '../pipeline/result-types.js';
 import { formatConsole } from '../report/console-reporter.js';
-import { writeReports, type CheckOutcome } from './check.js';
+import { writeFailureMessage, writeReports, type CheckOutcome } from './check.js';
+import { appendStepSummary, shownPath, withShownPaths } from './ci-output.js';
+import { formatMarkdown } from '../report/markdown.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, runAction } from './run-action.js';
 
 /** A JSON report larger than this is refused (a real one is a few MB at most; our choice). */
@@ -24,6 +27,8 @@ export interface MergeOptions {
   markdownAll?: boolean;
   html?: string;
   quiet?: boolean;
+  /** Append the Markdown summary to this file (GITHUB_STEP_SUMMARY), cut to 1 MiB, as `check` does. */
+  stepSummary?: string;
   cwd?: string;
   print?: (text: string) => void;
   printError?: (line: string) => void;
@@ -40,7 +45,7 @@ export function registerMerge(program: Command): void {
     .option('--markdown-all', 'Markdown: list every mode of the baseline comparison, not only the flagged ones')
     .option('--html <file>', 'write the merged HTML report here')
     .option('-q, --quiet', 'print only failures, errors and the verdict')
-    .action(runAction(async (files: string[], opts: MergeOptions) => (await runMerge(files, opts)).code));
+    .action(runAction(async (files: string[], opts: MergeOptions) => (await runMerge(files, { ...opts, stepSummary: process.env.GITHUB_STEP_SUMMARY || undefined })).code));
 }
 
 export async function runMerge(files: string[], opts: MergeOptions): Promise<CheckOutcome> {
@@ -62,6 +67,14 @@ export async function runMerge(files: string[], opts: MergeOptions): Promise<Che
   const print = opts.print ?? ((t: string) => process.stdout.write(t));
   print(formatConsole(report, { quiet: opts.quiet }));
   const { written, failures } = writeReports(report, targets, opts.markdownAll);
+  if (opts.stepSummary) {
+    try {
+      const full = written.markdown ?? written.html ?? written.json ?? written.junit;
+      appendStepSummary(opts.stepSummary, formatMarkdown(withShownPaths(report, cwd), { allModes: opts.markdownAll }), full ? shownPath(full, cwd) : undefined);
+    } catch (e) {
+      failures.push({ kind: 'write', file: opts.stepSummary, message: writeFailureMessage(`${opts.stepSummary} (GITHUB_STEP_SUMMARY)`, e) });
+    }
+  }
   const labels: Record<string, string> = { junit: 'JUnit XML', json: 'JSON report', markdown: 'Markdown summary', html: 'HTML report' };
   if (!opts.quiet) for (const [kind, p] of Object.entries(written)) print(`${labels[kind]}: ${p}\n`);
   const printError = opts.printError ?? ((l: string) => process.stderr.write(l));

@@ -1,8 +1,8 @@
 /**
  * `modalgate init --ci github|gitlab|jenkins` in an empty folder (a model repository that is not
  * a Node project), run through the built CLI: the files it writes, refusal without --force, the
- * .gitignore entry written once, a `$schema` path that resolves from the config's folder, and
- * every CI template parsing as YAML with the structure its CI server documents.
+ * .gitignore entry written once, and a `$schema` path that resolves from the config's folder. The
+ * templates themselves are checked in test/ci/templates.test.ts.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
@@ -33,40 +33,6 @@ function schemaPaths(configFile: string): { key: string; modeline: string } {
   const text = readFileSync(configFile, 'utf8');
   const modeline = /^# yaml-language-server: \$schema=(\S+)$/m.exec(text)?.[1] ?? '';
   return { key: (parse(text) as { $schema: string }).$schema, modeline };
-}
-
-/**
- * GitHub Actions workflow structure as GitHub documents it (no workflow JSON schema is installed
- * in node_modules): `on`, `jobs`, each job with `runs-on` and `steps`, each step exactly one of
- * `uses` / `run`.
- */
-function githubWorkflowProblems(doc: Record<string, unknown>): string[] {
-  const problems: string[] = [];
-  if (!('on' in doc)) problems.push('no `on`');
-  const jobs = doc.jobs as Record<string, { 'runs-on'?: unknown; steps?: Record<string, unknown>[] }> | undefined;
-  if (!jobs || Object.keys(jobs).length === 0) return [...problems, 'no jobs'];
-  for (const [id, job] of Object.entries(jobs)) {
-    if (!/^[A-Za-z_][A-Za-z0-9_-]*$/.test(id)) problems.push(`job id ${id}`);
-    if (typeof job['runs-on'] !== 'string') problems.push(`${id}: no runs-on`);
-    if (!Array.isArray(job.steps) || job.steps.length === 0) problems.push(`${id}: no steps`);
-    for (const [i, step] of (job.steps ?? []).entries()) {
-      if (('uses' in step) === ('run' in step)) problems.push(`${id}.steps[${i}]: needs exactly one of uses/run`);
-    }
-  }
-  return problems;
-}
-
-/** GitLab CI: every job (a key not a keyword, not hidden) has a script; JUnit kept as a report. */
-function gitlabProblems(doc: Record<string, unknown>): string[] {
-  const keywords = new Set(['stages', 'variables', 'default', 'include', 'workflow', 'image', 'services', 'cache', 'before_script', 'after_script']);
-  const problems: string[] = [];
-  const jobs = Object.entries(doc).filter(([k]) => !keywords.has(k) && !k.startsWith('.'));
-  if (jobs.length === 0) problems.push('no jobs');
-  for (const [id, job] of jobs as [string, { script?: unknown; artifacts?: { reports?: { junit?: unknown } } }][]) {
-    if (!Array.isArray(job.script)) problems.push(`${id}: no script`);
-    if (job.artifacts?.reports?.junit !== 'modalgate-report/junit.xml') problems.push(`${id}: no JUnit report`);
-  }
-  return problems;
 }
 
 const servers = Object.keys(CI_TARGETS) as CiServer[];
@@ -132,7 +98,6 @@ describe('init --ci', () => {
     const runs = JSON.stringify(parse(workflow));
     expect(runs).toContain('npx modalgate check --config configs/modalgate.yaml --baseline baselines/');
     expect(runs).not.toMatch(/modalgate check (?!--config)/);
-    expect(githubWorkflowProblems(parse(workflow) as Record<string, unknown>)).toEqual([]);
   });
 
   it('plain init writes the config and the .gitignore entry only, appending to an existing .gitignore once', async () => {
@@ -165,58 +130,5 @@ describe('init --ci', () => {
     expect(r.code).toBe(2);
     expect(r.stderr).toMatch(/--ci.*travis|travis.*--ci|Allowed choices are github, gitlab, jenkins/);
     expect(existsSync(join(dir, 'modalgate.yaml'))).toBe(false);
-  });
-});
-
-describe('CI templates', () => {
-  const read = (name: string): string => readFileSync(join(repoRoot, 'ci', name), 'utf8');
-
-  it('GitHub Actions: parses as YAML, workflow structure, Node 22 with npm cache, baselines compared on every run and refreshed by workflow_dispatch', () => {
-    const doc = parse(read('github-actions.yml')) as Record<string, unknown>;
-    expect(githubWorkflowProblems(doc)).toEqual([]);
-    expect(Object.keys(doc.on as object)).toEqual(['push', 'pull_request', 'workflow_dispatch']);
-    const jobs = doc.jobs as Record<string, { steps: { uses?: string; run?: string; with?: Record<string, unknown> }[] }>;
-    for (const job of Object.values(jobs)) {
-      const setup = job.steps.find((s) => s.uses?.startsWith('actions/setup-node@'));
-      expect(setup?.with).toEqual({ 'node-version': 22, cache: 'npm' });
-      expect(job.steps.some((s) => s.run === 'npm ci')).toBe(true);
-    }
-    const runs = Object.values(jobs).flatMap((j) => j.steps.map((s) => s.run ?? ''));
-    expect(runs.some((r) => r.includes('modalgate check --baseline baselines/'))).toBe(true);
-    expect(runs.some((r) => r.includes('modalgate check --save-baseline baselines/'))).toBe(true);
-    expect(runs.some((r) => r.includes('gh pr create'))).toBe(true);
-    expect(Object.values(jobs).flatMap((j) => j.steps).some((s) => s.with?.report_paths === 'modalgate-report/junit.xml')).toBe(true);
-  });
-
-  it('GitLab CI: parses as YAML, jobs with scripts and JUnit reports, npm cache, Node 22, a manual refresh job', () => {
-    const doc = parse(read('gitlab-ci.yml')) as Record<string, Record<string, unknown>>;
-    expect(gitlabProblems(doc)).toEqual([]);
-    const base = doc['.modalgate'];
-    expect(base.image).toBe('node:22');
-    expect(base.cache).toEqual({ key: { files: ['package-lock.json'] }, paths: ['.npm/'] });
-    expect(base.before_script).toEqual(['npm ci --cache .npm --prefer-offline']);
-    expect((doc.modalgate.script as string[])[0]).toContain('modalgate check --baseline baselines/');
-    const refresh = doc['modalgate-refresh-baselines'];
-    expect((refresh.rules as { when: string }[])[0].when).toBe('manual');
-    expect((refresh.script as string[])[0]).toContain('modalgate check --save-baseline baselines/');
-    expect((refresh.artifacts as { paths: string[] }).paths).toContain('baselines/');
-  });
-
-  it('Jenkinsfile: Node 22, a refresh parameter, and archive + JUnit in post { always } (archive first)', () => {
-    // No maintained npm package checks Jenkinsfile syntax offline (npm-groovy-lint needs Java and
-    // is not installed): this checks the structure the template promises.
-    const text = read('Jenkinsfile');
-    expect(text).toContain("image 'node:22'");
-    expect(text).toMatch(/booleanParam\(name: 'REFRESH_BASELINES'/);
-    expect(text).toContain("sh 'npm ci --prefer-offline'");
-    expect(text).toContain('npx modalgate check --baseline baselines/');
-    expect(text).toContain('npx modalgate check --save-baseline baselines/');
-    const post = /post \{\s*always \{([^}]*)\}\s*\}/.exec(text)?.[1] ?? '';
-    expect(post.indexOf('archiveArtifacts')).toBeGreaterThanOrEqual(0);
-    expect(post.indexOf('junit ')).toBeGreaterThan(post.indexOf('archiveArtifacts'));
-    // braces balance (outside strings and comments there are none in quotes)
-    const code = text.replace(/\/\/.*$/gm, '').replace(/'[^']*'|"[^"]*"/g, '');
-    expect(code.split('{').length).toBe(code.split('}').length);
-    expect(text).not.toContain('returnStatus'); // the sh step's exit code fails the build
   });
 });

@@ -1,18 +1,22 @@
 /**
- * Scale-out on a CI server's parallel jobs: `check --shard k/n` on the demo config (6 models)
- * three times, then `merge` of the three JSON reports. The merged JUnit equals a single
- * `check` run's, times and timestamps aside, and so does the exit code (1: the demo's intended
- * failure). Also: the shards partition the models, the split is deterministic and balanced,
+ * Scale-out on a CI server's parallel jobs, with the commands of the CI templates (ci/, as
+ * `init --ci -o <config>` writes them): the refresh job saves baselines, then `check --shard k/3`
+ * on the demo config (6 models) three times comparing with them, then `merge` of the three JSON
+ * reports. The merged JUnit equals a single `check` run's (the template's shard command without
+ * --shard), times and timestamps aside, and so does the exit code (1: the demo's intended
+ * failure); under GitHub Actions merge writes the job summary. Also: the shards partition the models, the split is deterministic and balanced,
  * bad --shard values and bad merges exit 2 with one line, an empty shard passes with a note.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { copyFileSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { ensureBuilt, repoRoot, runCli, type CliRun } from './built-cli.js';
 import { loadConfig } from '../../src/pipeline/load-config.js';
 import { assignShards, modelCosts, predictedCosts, readTimings, shardJobs, type ModelCost } from '../../src/pipeline/shard.js';
 import { structuralProblems } from '../report/junit-validation.js';
+import { ciJobFile } from '../../src/cli/init.js';
+import { expandGlob, findCommand, optionValue, templateCommands } from '../ci/template-commands.js';
 
 const config = join(repoRoot, 'fixtures/demo/modalgate.yaml');
 const demoModels = ['mast', 'mast-free', 'mast-guyed', 'mast-guyed-loose-anchor', 'mast-thin-brace', 'bracket'];
@@ -26,31 +30,46 @@ beforeAll(() => {
 });
 afterAll(() => rmSync(work, { recursive: true, force: true }));
 
-describe('check --shard k/n, then merge', () => {
+describe('check --shard k/n, then merge, as the CI templates run them', () => {
   let shards: CliRun[];
   let single: CliRun;
   let merged: CliRun;
-  const shardReport = (k: number) => JSON.parse(readFileSync(join(work, `s${k}.json`), 'utf8')) as { models: { name: string }[]; shard: { index: number; count: number; configModels: string[] }; configHash: string };
+  let saved: CliRun;
+  const shardFile = (k: number) => `modalgate-report/shard-${k}.json`;
+  const shardReport = (k: number) => JSON.parse(readFileSync(join(work, shardFile(k)), 'utf8')) as { models: { name: string }[]; shard: { index: number; count: number; configModels: string[] }; configHash: string };
+  const template = ciJobFile('github', config);
   beforeAll(async () => {
-    [single, ...shards] = await Promise.all([
-      runCli(['check', '-c', config, '--junit', 'single.xml', '-q'], work),
-      ...[1, 2, 3].map((k) => runCli(['check', '-c', config, '--shard', `${k}/3`, '--json', `s${k}.json`, '-q'], work)),
-    ]);
-    merged = await runCli(['merge', 's1.json', 's2.json', 's3.json', '--junit', 'merged.xml', '--json', 'merged.json', '--markdown', 'merged.md', '--html', 'merged.html'], work);
+    const save = findCommand(templateCommands('github', template), (a) => a.includes('--save-baseline')).argv;
+    saved = await runCli([...save, '-q'], work);
+    const shardArgv = (k: number) => findCommand(templateCommands('github', template, k, 3), (a) => a.includes('--shard')).argv;
+    // the single-job variant: the shard command without --shard, with a JUnit report instead
+    const singleArgv = shardArgv(1).filter((w, i, a) => w !== '--shard' && a[i - 1] !== '--shard').map((w, i, a) => (a[i - 1] === '--json' ? 'single.xml' : w === '--json' ? '--junit' : w));
+    [single, ...shards] = await Promise.all([runCli([...singleArgv, '-q'], work), ...[1, 2, 3].map((k) => runCli([...shardArgv(k), '-q'], work))]);
+    const merge = findCommand(templateCommands('github', template), (a) => a[0] === 'merge').argv;
+    merged = await runCli(merge.flatMap((w) => expandGlob(w, work)), work, { GITHUB_STEP_SUMMARY: join(work, 'step-summary.md') });
+  });
+
+  it('the commands are the templates’: baselines saved, shards compared with them', () => {
+    expect(saved.code, saved.stderr).toBe(1); // the demo's intended failure; the other models are saved
+    expect(readdirSync(join(work, 'baselines')).filter((f) => f.endsWith('.baseline.json')).sort()).toEqual(demoModels.map((m) => `${m}.baseline.json`).sort());
+    const merged = JSON.parse(readFileSync(join(work, 'modalgate-report/report.json'), 'utf8')) as { models: { name: string; rules: { ruleId: string; status: string }[] }[] };
+    const drift = merged.models.map((m) => m.rules.find((r) => r.ruleId === 'frequency-drift')?.status);
+    expect(drift).toEqual(demoModels.map(() => 'pass'));
   });
 
   it('the merged JUnit equals a single run’s, times and timestamps aside, and the exit code matches (1)', () => {
     expect(single.code, single.stderr).toBe(1);
     expect(merged.code, merged.stderr).toBe(single.code);
-    const mergedXml = readFileSync(join(work, 'merged.xml'), 'utf8');
+    const mergedXml = readFileSync(join(work, 'modalgate-report/junit.xml'), 'utf8');
     expect(structuralProblems(mergedXml)).toEqual([]);
     expect(withoutTimes(mergedXml)).toBe(withoutTimes(readFileSync(join(work, 'single.xml'), 'utf8')));
-    const json = JSON.parse(readFileSync(join(work, 'merged.json'), 'utf8'));
+    const json = JSON.parse(readFileSync(join(work, 'modalgate-report/report.json'), 'utf8'));
     expect(json.verdict).toBe('fail');
     expect(json.models.map((m: { name: string }) => m.name)).toEqual(demoModels);
     expect(json.shard).toBeUndefined();
-    expect(readFileSync(join(work, 'merged.md'), 'utf8')).toContain('mast-guyed-loose-anchor');
-    expect(readFileSync(join(work, 'merged.html'), 'utf8')).toContain('qualified engineer');
+    expect(readFileSync(join(work, 'modalgate-report/summary.md'), 'utf8')).toContain('mast-guyed-loose-anchor');
+    expect(readFileSync(join(work, 'step-summary.md'), 'utf8')).toBe(readFileSync(join(work, 'modalgate-report/summary.md'), 'utf8'));
+    expect(readFileSync(join(work, 'modalgate-report/report.html'), 'utf8')).toContain('qualified engineer');
   });
 
   it('the shards partition the models: every model in exactly one shard', () => {
@@ -82,6 +101,7 @@ describe('check --shard k/n, then merge', () => {
   });
 
   it('merge refuses a missing report, a duplicate, another config and a missing shard: exit 2, one line, a JUnit <error>', async () => {
+    for (const k of [1, 2, 3]) copyFileSync(join(work, shardFile(k)), join(work, `s${k}.json`));
     const other = shardReport(2);
     writeFileSync(join(work, 'other.json'), JSON.stringify({ ...other, reportVersion: 1, configHash: '0123456789abcdef' }));
     writeFileSync(join(work, 'narrow.json'), JSON.stringify({ ...other, reportVersion: 1, shard: { ...other.shard, configModels: ['mast', 'bracket'] } }));
