@@ -51,6 +51,13 @@ export const CI_TARGETS = {
 } as const;
 export type CiServer = keyof typeof CI_TARGETS;
 
+/** Where each template keeps its shard count (ci/README.md "Shards and the merge"). */
+const SHARD_COUNT_AT: Record<CiServer, string> = {
+  github: 'the list `shard: [1, 2, 3]`',
+  gitlab: '`parallel: 3`',
+  jenkins: '`def SHARDS = 3`',
+};
+
 interface InitOptions {
   output: string;
   force?: boolean;
@@ -151,6 +158,7 @@ export function initRepository(repoDir: string, opts: InitOptions): string {
   if (opts.ci) {
     steps.unshift('run `npm install` (it installs modalgate and writes package-lock.json), then commit\n     package.json and package-lock.json: the CI job runs `npm ci`, which needs the lockfile;');
     steps.push('run `npx modalgate check` until it passes, then `npx modalgate check --save-baseline baselines/`\n     and commit baselines/ (refresh them later on purpose: see node_modules/modalgate/ci/README.md);');
+    steps.push(`set the shard count (parallel check jobs, ${SHARD_COUNT_AT[opts.ci]}) at the top of ${CI_TARGETS[opts.ci].target}\n     from your models' check time;`);
     steps.push(`commit ${CI_TARGETS[opts.ci].target} and the config; see \`npx modalgate rules\` for every rule and default.`);
   } else {
     steps.push('run `npx modalgate check` and see `npx modalgate rules` for every rule and default;');

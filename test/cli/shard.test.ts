@@ -16,7 +16,7 @@ import { loadConfig } from '../../src/pipeline/load-config.js';
 import { assignShards, modelCosts, predictedCosts, readTimings, shardJobs, type ModelCost } from '../../src/pipeline/shard.js';
 import { structuralProblems } from '../report/junit-validation.js';
 import { ciJobFile } from '../../src/cli/init.js';
-import { expandGlob, findCommand, optionValue, templateCommands } from '../ci/template-commands.js';
+import { expandGlob, findCommand, templateCommands } from '../ci/template-commands.js';
 
 const config = join(repoRoot, 'fixtures/demo/modalgate.yaml');
 const demoModels = ['mast', 'mast-free', 'mast-guyed', 'mast-guyed-loose-anchor', 'mast-thin-brace', 'bracket'];
