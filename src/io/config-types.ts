@@ -31,6 +31,19 @@ export interface RawModelConfig extends RawSolveSettings {
   baseline?: RawBaselineConfig;
   /** Constraint sets removing DOFs before the solve (src/model/constraints.ts). */
   constraints?: RawConstraintSet[];
+  /** Units of this model's reports (over the top-level `units`, key by key). */
+  units?: RawUnits;
+}
+
+/**
+ * `units:` (top level or per model; the model's keys win): names for reporting and for mass
+ * targets. `massScale`: how many of the model's mass units make one `mass` unit (kg model,
+ * t reported: 1000). Lengths are not scaled; frequencies stay in Hz.
+ */
+export interface RawUnits {
+  length?: string;
+  mass?: string;
+  massScale?: number;
 }
 
 /** A constraint set as written in the config (`dofsFile` relative to the config file). */
@@ -56,6 +69,7 @@ export interface RawConfig {
   reports?: { junit?: string; json?: string; html?: string };
   defaults?: RawSolveSettings;
   baseline?: RawBaselineConfig;
+  units?: RawUnits;
   models: RawModelConfig[];
 }
 

@@ -78,6 +78,7 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
     // geometry facts (rigid-body energy, mass properties, participation, mechanisms) need the DOF map
     const geometry = runGeometryStep(job, constrained, modes);
     if (geometry) report.geometry = geometry;
+    if (job.units) report.units = job.units;
     // baseline: compare with the stored snapshot before the rules
     const compared = await runBaselineComparison(job, { modes, mass: constrained.mass, dofMap: constrained.dofMap });
     const comparison = compared.comparison;
@@ -97,6 +98,7 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
       modes,
       geometry,
       comparison,
+      units: job.units,
     };
     report.rules = runRules(context, job.rules, unavailable);
     options.onPhases?.({ readMs, ...solvePhases(modes), rulesMs: performance.now() - rulesStart });

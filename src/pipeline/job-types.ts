@@ -6,6 +6,7 @@
 import type { RawBaselineConfig } from '../io/config-types.js';
 import type { ConstraintSet } from '../model/constraints.js';
 import type { ResolvedRule } from '../rules/engine.js';
+import type { ReportUnits } from '../rules/utils/units.js';
 
 /** A constraint set with its DOF-number file (if any) as an absolute, existing path. */
 export interface ConstraintJob extends ConstraintSet {
@@ -56,6 +57,8 @@ export interface ModelJob {
   constraints: ConstraintJob[];
   /** Baseline comparison / saving for this model, when configured or asked for on the command line. */
   baseline?: BaselineJob;
+  /** Units for reporting and mass targets (`units:` of the config), when given. */
+  units?: ReportUnits;
 }
 
 export interface LoadedConfig {

@@ -105,6 +105,8 @@ function resolveModel(config: RawConfig, m: RawModelConfig, i: number, file: str
     }),
     baseline,
   };
+  const units = config.units || m.units ? { ...config.units, ...m.units } : undefined;
+  if (units) job.units = units;
   return job;
 }
 

@@ -8,6 +8,7 @@ import type { RuleResult } from '../rules/engine.js';
 import type { ClusterExtension, SturmCheck } from '../eigen/modes-types.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
 import type { ComparisonFacts } from '../model/comparison-facts.js';
+import type { ReportUnits } from '../rules/utils/units.js';
 
 export const CAUTION =
   'modalgate screens models and does not certify structures: its results support, never replace, review by a qualified engineer under the applicable codes.';
@@ -88,6 +89,8 @@ export interface ModelReport {
   geometry?: GeometryFacts;
   /** Comparison with the stored baseline, when one was compared. */
   comparison?: ComparisonFacts;
+  /** Units of the config (`units:`) the texts show masses and lengths in; the facts stay in the model's units. */
+  units?: ReportUnits;
   /** Baseline files written for this model by `check --save-baseline`. */
   baselineSaved?: { json: string; shapes: string; dofs?: string };
   /** Why a baseline comparison asked for was not made (missing directory or baseline): a warning. */

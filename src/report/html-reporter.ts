@@ -11,6 +11,7 @@
  */
 import type { RuleResult } from '../rules/engine.js';
 import { formatNumber } from '../rules/utils/message.js';
+import { inertiaIn, inertiaUnit, massIn, unitSuffix, type ReportUnits } from '../rules/utils/units.js';
 import type { ComparisonFacts } from '../model/comparison-facts.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
 import type { CheckReport, ModelReport } from '../pipeline/result-types.js';
@@ -67,7 +68,7 @@ function modelSection(m: ModelReport, i: number): string {
   const plots = figures(m);
   if (plots.length > 0) out.push('<h3>Plots</h3>', ...plots);
   const g = m.geometry;
-  if (g) out.push(geometrySection(g));
+  if (g) out.push(geometrySection(g, m.units));
   const c = m.comparison;
   if (c) out.push(comparisonSection(c));
   if (m.baselineSaved) out.push(`<p>Baseline saved: ${esc(m.baselineSaved.json)}</p>`);
@@ -126,15 +127,18 @@ function figures(m: ModelReport): string[] {
   return list.map((x) => `<figure>${x.svg}<figcaption>${esc(x.caption)}</figcaption></figure>`);
 }
 
-function geometrySection(g: GeometryFacts): string {
+function geometrySection(g: GeometryFacts, units: ReportUnits | undefined): string {
   const mp = g.massProperties;
   const c = mp.centerOfMass;
+  // in the config's units when it names them (shown mass = model mass ÷ massScale), else the model's
+  const mass = (x: number) => formatNumber(massIn(units, x));
+  const massUnit = unitSuffix(units?.mass);
   const items: string[][] = [
-    ['total mass', `${formatNumber(mp.totalMass)} (the whole export; mass at DOFs removed before export is not in the files)`],
-    ...(g.keptMass ? [['mass on the kept DOFs', `${formatNumber(g.keptMass.totalMass)} (what mass participation is relative to)`]] : []),
-    ['translational mass x, y, z', mp.translationalMass.map(formatNumber).join(', ')],
-    ['centre of mass', `(${c.map(formatNumber).join(', ')})`],
-    ['principal moments', mp.principalMoments.map(formatNumber).join(', ')],
+    ['total mass', `${mass(mp.totalMass)}${massUnit} (the whole export; mass at DOFs removed before export is not in the files)`],
+    ...(g.keptMass ? [['mass on the kept DOFs', `${mass(g.keptMass.totalMass)}${massUnit} (what mass participation is relative to)`]] : []),
+    ['translational mass x, y, z', `${mp.translationalMass.map(mass).join(', ')}${massUnit}`],
+    ['centre of mass', `(${c.map(formatNumber).join(', ')})${unitSuffix(units?.length)}`],
+    ['principal moments', `${mp.principalMoments.map((x) => formatNumber(inertiaIn(units, x))).join(', ')}${unitSuffix(inertiaUnit(units))}`],
     ['free rigid-body motions', String(g.freeRigidBodyMotions)],
     ['near-zero modes', g.nearZeroModes === null ? '—' : String(g.nearZeroModes)],
   ];

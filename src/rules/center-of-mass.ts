@@ -1,11 +1,12 @@
 /**
  * center-of-mass: the centre of mass (from the rigid-body mass matrix RᵀMR) lies within
- * maxDistance of the expected point (model length unit). Both numbers come from the project's
- * mass budget; there is no default distance.
+ * maxDistance of the expected point (model length unit, named in messages by the config's
+ * `units.length`). Both numbers come from the project's mass budget; there is no default distance.
  */
 import type { RuleDefinition } from './rule-types.js';
 import { ruleMessages } from './utils/outcome.js';
 import { geometryMessages, geometryOrSkip, isOutcome } from './utils/geometry-common.js';
+import { unitSuffix, withUnit } from './utils/units.js';
 
 export interface CenterOfMassOptions {
   expected: [number, number, number];
@@ -14,8 +15,8 @@ export interface CenterOfMassOptions {
 
 const messages = {
   ...geometryMessages,
-  pass: 'centre of mass ({{x}}, {{y}}, {{z}}) is {{distance}} from the expected point (allowed {{maxDistance}}).',
-  fail: 'centre of mass ({{x}}, {{y}}, {{z}}) is {{distance}} from the expected ({{ex}}, {{ey}}, {{ez}}); allowed {{maxDistance}}.',
+  pass: 'centre of mass ({{x}}, {{y}}, {{z}}){{unit}} is {{distance}} from the expected point (allowed {{maxDistance}}).',
+  fail: 'centre of mass ({{x}}, {{y}}, {{z}}){{unit}} is {{distance}} from the expected ({{ex}}, {{ey}}, {{ez}}){{unit}}; allowed {{maxDistance}}.',
 };
 const { outcome } = ruleMessages(messages);
 
@@ -39,7 +40,8 @@ export const centerOfMass: RuleDefinition<CenterOfMassOptions, 'expected' | 'max
     if (isOutcome(g)) return g;
     const c = g.massProperties.centerOfMass;
     const distance = Math.hypot(c[0] - o.expected[0], c[1] - o.expected[1], c[2] - o.expected[2]);
-    const values = { x: c[0], y: c[1], z: c[2], ex: o.expected[0], ey: o.expected[1], ez: o.expected[2], distance, maxDistance: o.maxDistance };
+    const length = context.units?.length;
+    const values = { x: c[0], y: c[1], z: c[2], ex: o.expected[0], ey: o.expected[1], ez: o.expected[2], unit: unitSuffix(length), distance: withUnit(distance, length), maxDistance: withUnit(o.maxDistance, length) };
     const details = { centerOfMass: c, expected: o.expected, distance };
     const status = distance <= o.maxDistance ? 'pass' : 'fail';
     return outcome(status, status, values, distance, o.maxDistance, details);

@@ -8,6 +8,7 @@
 import type { RuleDefinition } from './rule-types.js';
 import { ruleMessages } from './utils/outcome.js';
 import { geometryMessages, geometryOrSkip, isOutcome } from './utils/geometry-common.js';
+import { massIn, unitSuffix } from './utils/units.js';
 
 export interface MassConsistencyOptions {
   maxRelativeSpread: number;
@@ -42,7 +43,8 @@ export const massConsistency: RuleDefinition<MassConsistencyOptions> = {
     const max = Math.max(...present.map((e) => e.m));
     const low = present.reduce((a, b) => (b.m < a.m ? b : a));
     const spread = max > 0 ? (max - low.m) / max : 0;
-    const masses = present.map((e) => text('mass', { direction: e.d, mass: e.m.toPrecision(6) })).join(', ');
+    const u = context.units;
+    const masses = present.map((e) => text('mass', { direction: e.d, mass: `${massIn(u, e.m).toPrecision(6)}${unitSuffix(u?.mass)}` })).join(', ');
     const values = { masses, spread, limit: o.maxRelativeSpread, low: low.d };
     const details = { translationalMass: g.massProperties.translationalMass, relativeSpread: spread };
     const status = spread <= o.maxRelativeSpread ? 'pass' : 'fail';

@@ -11,7 +11,8 @@
  * mass (for a body, trace I = 2 Σ m r², so r_b is the root-mean-square distance of the mass from
  * the centre: a shift is measured against the model's own size, whatever the length unit). Mass
  * properties come from RᵀMR with the rigid-body vectors (src/model/mass-properties.ts), so both
- * sides need a DOF map. Defaults 1 % each: ours (the same order as total-mass's default; set
+ * sides need a DOF map. Masses and lengths in messages are in the config's `units` when it has
+ * them (the limits are percentages, whatever the unit). Defaults 1 % each: ours (the same order as total-mass's default; set
  * them to what your mass control allows).
  */
 import type { RuleDefinition } from './rule-types.js';
@@ -19,6 +20,7 @@ import type { MassProperties } from '../model/mass-properties.js';
 import { ruleMessages } from './utils/outcome.js';
 import { formatList } from './utils/message.js';
 import { geometryMessages, geometryOrSkip, isOutcome } from './utils/geometry-common.js';
+import { massIn, withUnit } from './utils/units.js';
 
 export interface MassDriftOptions {
   maxMassChangePercent: number;
@@ -65,12 +67,15 @@ export const massDrift: RuleDefinition<MassDriftOptions> = {
     const radius = Math.sqrt((before.principalMoments[0] + before.principalMoments[1] + before.principalMoments[2]) / (2 * before.totalMass));
     const shiftPercent = radius > 0 ? (100 * shift) / radius : shift === 0 ? 0 : Infinity;
     const inertiaChange = (100 * frobenius(now.inertiaAboutCenterOfMass.map((v, k) => v - before.inertiaAboutCenterOfMass[k]))) / frobenius(before.inertiaAboutCenterOfMass);
+    const u = context.units;
+    const mass = (x: number) => withUnit(massIn(u, x), u?.mass);
+    const length = (x: number) => withUnit(x, u?.length);
     const values = {
-      mass: now.totalMass,
+      mass: mass(now.totalMass),
       massChange: signed(massChange),
-      shift,
+      shift: length(shift),
       shiftPercent,
-      radius,
+      radius: length(radius),
       inertiaChange: Number.isFinite(inertiaChange) ? inertiaChange : 0,
     };
     const details = {
@@ -83,8 +88,8 @@ export const massDrift: RuleDefinition<MassDriftOptions> = {
       inertiaChangePercent: values.inertiaChange,
     };
     const bad: string[] = [];
-    if (Math.abs(massChange) > o.maxMassChangePercent) bad.push(text('massChanged', { before: before.totalMass, now: now.totalMass, change: signed(massChange), allowed: String(o.maxMassChangePercent) }));
-    if (shiftPercent > o.maxCenterShiftPercent) bad.push(text('centreMoved', { shift, shiftPercent, radius, allowed: String(o.maxCenterShiftPercent) }));
+    if (Math.abs(massChange) > o.maxMassChangePercent) bad.push(text('massChanged', { before: mass(before.totalMass), now: mass(now.totalMass), change: signed(massChange), allowed: String(o.maxMassChangePercent) }));
+    if (shiftPercent > o.maxCenterShiftPercent) bad.push(text('centreMoved', { shift: length(shift), shiftPercent, radius: length(radius), allowed: String(o.maxCenterShiftPercent) }));
     if (values.inertiaChange > o.maxInertiaChangePercent) bad.push(text('inertiaChanged', { change: values.inertiaChange, allowed: String(o.maxInertiaChangePercent) }));
     const limit = text('limit', { mass: String(o.maxMassChangePercent), centre: String(o.maxCenterShiftPercent), inertia: String(o.maxInertiaChangePercent) });
     if (bad.length > 0) return outcome('fail', 'fail', { list: formatList(bad, 3) }, Math.abs(massChange), limit, details);

@@ -14,6 +14,7 @@ import type { RuleDefinition } from './rule-types.js';
 import { ruleMessages } from './utils/outcome.js';
 import { formatList } from './utils/message.js';
 import { geometryMessages, geometryOrSkip, isOutcome } from './utils/geometry-common.js';
+import { massIn, withUnit } from './utils/units.js';
 import { RIGID_BODY_DIRECTIONS, type RigidBodyDirection } from '../model/rigid-body-vectors.js';
 
 export interface MassParticipationOptions {
@@ -75,7 +76,8 @@ export const massParticipation: RuleDefinition<MassParticipationOptions> = {
     const exportMass = g.massProperties.totalMass;
     const keptMass = g.keptMass?.totalMass ?? exportMass;
     const keptDofs = g.constraints?.keptDofs ?? context.stiffness.n;
-    const basis = g.keptMass ? text('basis', { keptMass, keptDofs, exportedDofs: context.stiffnessSummary.n, exportMass }) : '';
+    const mass = (x: number) => withUnit(massIn(context.units, x), context.units?.mass);
+    const basis = g.keptMass ? text('basis', { keptMass: mass(keptMass), keptDofs, exportedDofs: context.stiffnessSummary.n, exportMass: mass(exportMass) }) : '';
     const details = { modesConsidered: last + 1, directions: rows, rigidBodyMass: p.rigidBodyMass, keptMass, keptDofs, exportMass, exportedDofs: context.stiffnessSummary.n };
     const values = {
       basis,

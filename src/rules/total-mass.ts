@@ -1,7 +1,9 @@
 /**
  * total-mass: the model's mass (mean of the three translational rigid-body masses rᵀMr) lies
- * within ± tolerancePercent of the expected value from the mass budget. Units: the model's mass
- * unit (kg for SI models, t for N-mm-t models). The tolerance comes from the project's budget;
+ * within ± tolerancePercent of the expected value from the mass budget. Units: the config's
+ * `units.mass` when given (the model's mass ÷ `units.massScale`: a kg model with `mass: t,
+ * massScale: 1000` is compared in t), else the model's own mass unit (kg for SI models, t for
+ * N-mm-t models). The tolerance comes from the project's budget;
  * the default 1 % is our choice (the ECSS mass-property tolerance was not recovered, [M]
  * docs/sources.md §1a).
  * The mass is that of the whole export (constraint sets do not change it); when constraint sets
@@ -11,6 +13,7 @@
 import type { RuleDefinition } from './rule-types.js';
 import { ruleMessages } from './utils/outcome.js';
 import { geometryMessages, geometryOrSkip, isOutcome } from './utils/geometry-common.js';
+import { massIn, withUnit } from './utils/units.js';
 
 export interface TotalMassOptions {
   expected: number;
@@ -29,11 +32,11 @@ const { outcome, text } = ruleMessages(messages);
 
 export const totalMass: RuleDefinition<TotalMassOptions, 'expected'> = {
   id: 'total-mass',
-  description: "The model's total mass lies within ± tolerancePercent of the expected value (model mass unit).",
+  description: "The model's total mass lies within ± tolerancePercent of the expected value (in units.mass when the config sets it, else the model's mass unit).",
   optionsSchema: {
     type: 'object',
     properties: {
-      expected: { type: 'number', exclusiveMinimum: 0, description: "expected mass in the model's mass unit" },
+      expected: { type: 'number', exclusiveMinimum: 0, description: "expected mass in the config's units.mass (else the model's mass unit)" },
       tolerancePercent: { type: 'number', minimum: 0 },
     },
     required: ['expected'],
@@ -46,9 +49,12 @@ export const totalMass: RuleDefinition<TotalMassOptions, 'expected'> = {
     const g = geometryOrSkip(context);
     if (isOutcome(g)) return g;
     const mp = g.massProperties;
-    const deviation = (100 * (mp.totalMass - o.expected)) / o.expected;
-    const kept = g.keptMass && g.constraints ? text('kept', { keptMass: g.keptMass.totalMass, keptDofs: g.constraints.keptDofs }) : '';
-    const values = { mass: mp.totalMass, kept, expected: o.expected, deviation, tolerancePercent: o.tolerancePercent, note: text('note') };
+    const u = context.units;
+    // the comparison is made in the unit the target is written in
+    const mass = massIn(u, mp.totalMass);
+    const deviation = (100 * (mass - o.expected)) / o.expected;
+    const kept = g.keptMass && g.constraints ? text('kept', { keptMass: withUnit(massIn(u, g.keptMass.totalMass), u?.mass), keptDofs: g.constraints.keptDofs }) : '';
+    const values = { mass: withUnit(mass, u?.mass), kept, expected: withUnit(o.expected, u?.mass), deviation, tolerancePercent: o.tolerancePercent, note: text('note') };
     const details = {
       totalMass: mp.totalMass,
       translationalMass: mp.translationalMass,
@@ -57,8 +63,10 @@ export const totalMass: RuleDefinition<TotalMassOptions, 'expected'> = {
       keptDofs: g.constraints?.keptDofs ?? context.stiffness.n,
       exportedDofs: context.stiffnessSummary.n,
       note: text('note'),
+      ...(u ? { units: u, totalMassInUnits: mass } : {}),
     };
     const status = Math.abs(deviation) <= o.tolerancePercent ? 'pass' : 'fail';
-    return outcome(status, status, values, mp.totalMass, text('limit', { expected: String(o.expected), tolerancePercent: String(o.tolerancePercent) }), details);
+    const expected = u?.mass ? `${o.expected} ${u.mass}` : String(o.expected);
+    return outcome(status, status, values, mass, text('limit', { expected, tolerancePercent: String(o.tolerancePercent) }), details);
   },
 };
