@@ -31,6 +31,9 @@ reports:
 defaults:
   count: 20                             # solve the lowest 20 modes (or maxHz: 200 for every mode below 200 Hz)
 
+# units: { length: m, mass: t, massScale: 1000 }   # optional names for reports and mass targets
+#                                       # (here a kg/m model reported in t; frequencies stay in Hz)
+
 models:
   - name: my-model                      # EDIT: a short unique name (JUnit classname modalgate.my-model)
     stiffness: model/my-model.stiffness.mtx.gz   # EDIT: K exported as Matrix Market (.mtx or .mtx.gz)
