@@ -233,16 +233,26 @@ describe('Jenkinsfile', () => {
     return { body: '', at: -1 };
   }
 
-  it('braces, brackets and parentheses balance, never closing before they open', () => {
+  /** Where brackets first go wrong in `groovy` (comments and strings already blanked), or undefined. */
+  function unbalanced(groovy: string): string | undefined {
     for (const [open, close] of [['{', '}'], ['(', ')'], ['[', ']']]) {
       let depth = 0;
-      for (const ch of code) {
+      for (const [i, ch] of [...groovy].entries()) {
         if (ch === open) depth++;
-        else if (ch === close) depth--;
-        expect(depth).toBeGreaterThanOrEqual(0);
+        else if (ch === close && --depth < 0) return `${close} without ${open} at line ${groovy.slice(0, i).split('\n').length}`;
       }
-      expect(depth, `${open}${close}`).toBe(0);
+      if (depth !== 0) return `${depth} ${open} not closed`;
     }
+    return undefined;
+  }
+
+  it('braces, brackets and parentheses balance, never closing before they open (and a broken file is caught)', () => {
+    expect(unbalanced(code)).toBeUndefined();
+    expect(unbalanced(code.replace('parallel branches\n        }', 'parallel branches\n'))).toBe('1 { not closed');
+    expect(unbalanced(code.replace("when { expression { params.REFRESH_BASELINES } }", "when { expression { params.REFRESH_BASELINES } } }"))).toMatch(/^} without \{ at line \d+/);
+    // a misspelt option in an sh step is refused by the option parser
+    const broken = templateCommands('jenkins', text.replace('--shard ${k}/${SHARDS}', '--shards ${k}/${SHARDS}'));
+    expect(broken.map((c) => parseCli(c.argv)).filter((r) => 'error' in r)).toHaveLength(1);
   });
 
   it('pipeline with agent, parameters, environment and stages; the shard count at the top; parallel shard branches stash, merge unstashes', () => {
