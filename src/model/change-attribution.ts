@@ -1,0 +1,170 @@
+/**
+ * Where each paired mode's eigenvalue change came from, with no extra solve: first-order
+ * perturbation of the symmetric pencil (Fox & Kapoor 1968, docs/sources.md §2b).
+ *
+ * The baseline stores mode i as λ_i and φ_i with φ_iᵀM₀φ_i = 1, so (K₀ − λ_iM₀)φ_i = 0 row by
+ * row. For the model now (K₁, M₁), to first order in the change,
+ *     δλ_i ≈ φ_iᵀ(K₁ − λ_iM₁)φ_i            (dλ/dp = φᵀ(∂K/∂p − λ ∂M/∂p)φ),
+ * and the vector r_i = φ_i ∘ ((K₁ − λ_iM₁)φ_i) splits that number over the DOFs: on a row whose
+ * K and M entries did not change, (K₁ − λM₁)φ = (K₀ − λM₀)φ = 0 up to round-off and the
+ * baseline solve's residual. Summing r_i over a node's DOFs gives the node's part.
+ * When the baseline also stored M₀φ_i, r_i splits exactly into
+ *     stiffness  φ_i ∘ (K₁φ_i − λ_i M₀φ_i)   (= φ ∘ (K₁ − K₀)φ, because K₀φ = λM₀φ)
+ *     mass      −λ_i φ_i ∘ ((M₁ − M₀)φ_i).
+ *
+ * φ_i is put on the model's DOFs now by the baseline comparison's DOF matching (node and
+ * component, or position, or index); DOFs new in the model get φ = 0, and baseline DOFs that are
+ * gone drop out (then the estimate is not the full first-order term: the facts say so).
+ *
+ * Reported per mode: δλ measured (λ_now − λ_i) and estimated, the frequency changes they mean
+ * (f ∝ √λ, so the estimate's frequency change is 100(√(1 + δλ_est/λ) − 1) %: a δλ estimate equal
+ * to the measured δλ gives exactly the measured frequency change), their disagreement
+ * |δλ_est − δλ|/|δλ| (second order in the change when the change is small and the mode did not
+ * mix with another), and the parts of regions and of the top nodes, each split into stiffness
+ * and mass when M₀φ is known. Regions are the change map's (./change-map.ts) when fingerprints
+ * were stored; otherwise nodes whose |part| is at least 1e-6 of Σ|parts| of some mode (our
+ * choice) grouped by K's connectivity.
+ */
+import type { DofMap } from '../io/dof-map.js';
+import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
+import { nodeIndexOf } from './node-index.js';
+import { connectedRegions } from './node-regions.js';
+import { centroid, nodeCoordinates, nodeRanges } from './node-regions.js';
+import type { AttributionFacts, AttributionRegion, ModeAttribution, NodeShare, RegionShare, ShareOfChange } from './change-facts.js';
+
+/** Nodes with at least this share of Σ|parts| of a mode form regions when no change map is known (our choice). */
+const NOTABLE_SHARE = 1e-6;
+const TOP_NODES = 10;
+
+export interface AttributionInput {
+  stiffness: SymmetricCsc;
+  mass: SymmetricCsc;
+  dofMap?: DofMap;
+  /** Baseline shapes on all its DOFs, column-major rows × modes, mass-normalized. */
+  baselineShapes: { rows: number; cols: number; values: Float64Array };
+  /** M₀φ in the same layout, when stored. */
+  baselineMassShapes: Float64Array | null;
+  baselineEigenvalues: ArrayLike<number>;
+  /** Pairs (0-based baseline mode, 0-based current mode) with the current eigenvalue. */
+  pairs: { baselineMode: number; currentMode: number; currentEigenvalue: number; repeated: boolean }[];
+  /** Baseline row of each compared current DOF: rowOf[c] = stored row, or −1 for a DOF new in the model. */
+  rowOf: Int32Array;
+  /** Change-map region of each node of the model now (nodeIndexOf order), −1 outside; null when no change map. */
+  regionOfNode: Int32Array | null;
+  regions: AttributionRegion[] | null;
+  /** What the baseline lacked (shown with the facts). */
+  missing: string[];
+}
+
+export function attributeChanges(input: AttributionInput): AttributionFacts {
+  const { stiffness, mass, pairs, rowOf } = input;
+  const n = stiffness.n;
+  const m = pairs.length;
+  const index = nodeIndexOf(n, input.dofMap);
+  const nNodes = index.ids.length;
+  const split = input.baselineMassShapes !== null;
+  const rows = input.baselineShapes.rows;
+  // Φ̃ (and M₀Φ̃): baseline shapes of the paired modes on the DOFs now, 0 on new DOFs
+  const phi = new Float64Array(n * m);
+  const massPhi0 = split ? new Float64Array(n * m) : null;
+  pairs.forEach((p, k) => {
+    for (let c = 0; c < n; c++) {
+      const r = rowOf[c];
+      if (r < 0) continue;
+      phi[k * n + c] = input.baselineShapes.values[p.baselineMode * rows + r];
+      if (massPhi0) massPhi0[k * n + c] = input.baselineMassShapes![p.baselineMode * rows + r];
+    }
+  });
+  const kPhi = symMultiplyBlock(stiffness, phi, m);
+  const mPhi = symMultiplyBlock(mass, phi, m);
+  // per mode and node: total part Σ φ(K₁φ − λM₁φ), stiffness part Σ φ(K₁φ − λM₀φ)
+  const total = new Float64Array(m * nNodes);
+  const stiff = new Float64Array(m * nNodes);
+  for (let k = 0; k < m; k++) {
+    const lambda = input.baselineEigenvalues[pairs[k].baselineMode];
+    for (let c = 0, o = k * n; c < n; c++) {
+      const f = phi[o + c];
+      if (f === 0) continue;
+      const node = k * nNodes + index.nodeOf[c];
+      total[node] += f * (kPhi[o + c] - lambda * mPhi[o + c]);
+      if (massPhi0) stiff[node] += f * (kPhi[o + c] - lambda * massPhi0[o + c]);
+    }
+  }
+  const { regionOfNode, regions, regionsFrom } = input.regionOfNode && input.regions
+    ? { regionOfNode: input.regionOfNode, regions: input.regions, regionsFrom: 'change map' as const }
+    : { ...regionsFromShares(total, m, nNodes, index, stiffness, input.dofMap), regionsFrom: 'shares' as const };
+  const coords = nodeCoordinates(index.ids, input.dofMap);
+  const modes = pairs.map((p, k) => modeFacts(p, input.baselineEigenvalues[p.baselineMode], total.subarray(k * nNodes, (k + 1) * nNodes), split ? stiff.subarray(k * nNodes, (k + 1) * nNodes) : null, regionOfNode, regions.length, index.ids, coords));
+  return { regionsFrom, split, missing: input.missing, regions, modes };
+}
+
+function modeFacts(
+  p: AttributionInput['pairs'][number],
+  lambda: number,
+  parts: Float64Array,
+  stiffParts: Float64Array | null,
+  regionOfNode: Int32Array,
+  regionCount: number,
+  ids: Int32Array,
+  coords: [number, number, number][] | null,
+): ModeAttribution {
+  let estimate = 0;
+  for (let q = 0; q < parts.length; q++) estimate += parts[q];
+  const share = (delta: number, stiffDelta: number | null): ShareOfChange => ({
+    share: estimate !== 0 ? delta / estimate : 0,
+    deltaEigenvalue: delta,
+    stiffnessDelta: stiffDelta,
+    massDelta: stiffDelta === null ? null : delta - stiffDelta,
+  });
+  const regionTotal = new Float64Array(regionCount + 1), regionStiff = new Float64Array(regionCount + 1);
+  // Σ over each region's nodes (last slot: nodes outside every region)
+  for (let q = 0; q < parts.length; q++) {
+    const r = regionOfNode[q] >= 0 ? regionOfNode[q] : regionCount;
+    regionTotal[r] += parts[q];
+    if (stiffParts) regionStiff[r] += stiffParts[q];
+  }
+  const regions: RegionShare[] = [];
+  for (let r = 0; r < regionCount; r++) regions.push({ region: r, ...share(regionTotal[r], stiffParts ? regionStiff[r] : null) });
+  regions.sort((a, b) => Math.abs(b.deltaEigenvalue) - Math.abs(a.deltaEigenvalue) || a.region - b.region);
+  const order = Array.from(parts.keys()).sort((a, b) => Math.abs(parts[b]) - Math.abs(parts[a]) || a - b).slice(0, TOP_NODES);
+  const topNodes: NodeShare[] = order.filter((q) => parts[q] !== 0).map((q) => ({ node: ids[q], at: coords ? coords[q] : null, ...share(parts[q], stiffParts ? stiffParts[q] : null) }));
+  const measured = p.currentEigenvalue - lambda;
+  const implied = (d: number): number => 100 * (Math.sqrt(Math.max(0, 1 + d / lambda)) - 1);
+  return {
+    baselineMode: p.baselineMode + 1,
+    currentMode: p.currentMode + 1,
+    eigenvalue: lambda,
+    measuredDelta: measured,
+    estimatedDelta: estimate,
+    measuredPercent: implied(measured),
+    estimatedPercent: implied(estimate),
+    disagreement: measured === 0 ? (estimate === 0 ? 0 : Infinity) : Math.abs(estimate - measured) / Math.abs(measured),
+    repeated: p.repeated,
+    regions,
+    elsewhere: share(regionTotal[regionCount], stiffParts ? regionStiff[regionCount] : null),
+    topNodes,
+  };
+}
+
+/** Without a change map: nodes with a notable part in some mode, joined by K's connectivity. */
+function regionsFromShares(total: Float64Array, m: number, nNodes: number, index: ReturnType<typeof nodeIndexOf>, stiffness: SymmetricCsc, map: DofMap | undefined): { regionOfNode: Int32Array; regions: AttributionRegion[] } {
+  const flagged = new Int8Array(nNodes);
+  for (let k = 0; k < m; k++) {
+    const parts = total.subarray(k * nNodes, (k + 1) * nNodes);
+    let sum = 0;
+    for (const v of parts) sum += Math.abs(v);
+    // |part| ≥ NOTABLE_SHARE · Σ|parts|
+    for (let q = 0; q < nNodes; q++) if (sum > 0 && Math.abs(parts[q]) >= NOTABLE_SHARE * sum) flagged[q] = 1;
+  }
+  const regionOfNode = connectedRegions(flagged, index, [stiffness]);
+  const coords = nodeCoordinates(index.ids, map);
+  const members: number[][] = [];
+  for (let q = 0; q < nNodes; q++) if (regionOfNode[q] >= 0) (members[regionOfNode[q]] ??= []).push(q);
+  const regions = members.map((list, r) => ({
+    region: r,
+    nodeCount: list.length,
+    nodeRanges: nodeRanges(list.map((q) => index.ids[q])),
+    centroid: centroid(list.map((q) => ({ at: coords ? coords[q] : null }))),
+  }));
+  return { regionOfNode, regions };
+}
