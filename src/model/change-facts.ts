@@ -107,3 +107,13 @@ export interface AttributionFacts {
   /** Paired elastic modes, baseline order. */
   modes: ModeAttribution[];
 }
+
+/** The change map and the attribution of one model against its baseline; each missing part says why. */
+export interface ExplainedChanges {
+  changeMap: ChangeMapFacts | null;
+  /** Why there is no change map. */
+  changeMapMissing: string | null;
+  attribution: AttributionFacts | null;
+  /** Why there is no attribution. */
+  attributionMissing: string | null;
+}

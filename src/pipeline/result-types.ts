@@ -8,6 +8,7 @@ import type { RuleResult } from '../rules/engine.js';
 import type { ClusterExtension, SturmCheck } from '../eigen/modes-types.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
 import type { ComparisonFacts } from '../model/comparison-facts.js';
+import type { ExplainedChanges } from '../model/change-facts.js';
 
 export const CAUTION =
   'modalgate screens models and does not certify structures: its results support, never replace, review by a qualified engineer under the applicable codes.';
@@ -88,8 +89,10 @@ export interface ModelReport {
   geometry?: GeometryFacts;
   /** Comparison with the stored baseline, when one was compared. */
   comparison?: ComparisonFacts;
+  /** What changed since the baseline (change map) and where each frequency change came from (attribution). */
+  changes?: ExplainedChanges;
   /** Baseline files written for this model by `check --save-baseline`. */
-  baselineSaved?: { json: string; shapes: string; dofs?: string };
+  baselineSaved?: { json: string; shapes: string; dofs?: string; massShapes?: string; nodes?: string };
   /** Why a baseline comparison asked for was not made (missing directory or baseline): a warning. */
   baselineWarning?: string;
   /** Why `check --save-baseline` saved nothing for this model (e.g. its verdict is error). */

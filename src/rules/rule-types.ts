@@ -4,6 +4,7 @@ import type { ModesResult } from '../eigen/modes-types.js';
 import type { MatrixSummary } from '../io/matrix-summary.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
 import type { ComparisonFacts } from '../model/comparison-facts.js';
+import type { ExplainedChanges } from '../model/change-facts.js';
 
 /** `error` fails the gate, `warning` reports without failing, `off` does not run. */
 export type Severity = 'error' | 'warning' | 'off';
@@ -40,6 +41,8 @@ export interface RuleContext {
   modes?: ModesResult;
   geometry?: GeometryFacts;
   comparison?: ComparisonFacts;
+  /** Change map and frequency-change attribution against the baseline (src/model/explain-changes.ts). */
+  changes?: ExplainedChanges;
 }
 
 export type RuleNeed = 'modes' | 'dofMap' | 'baseline';
