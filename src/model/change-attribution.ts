@@ -29,7 +29,7 @@ import type { DofMap } from '../io/dof-map.js';
 import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
 import { nodeIndexOf } from './node-index.js';
 import { connectedRegions } from './node-regions.js';
-import { centroid, nodeCoordinates, nodeRanges } from './node-regions.js';
+import { centroid, nodeCoordinates, nodeRanges, regionLabel } from './node-regions.js';
 import type { AttributionFacts, AttributionRegion, ModeAttribution, NodeShare, RegionShare, ShareOfChange } from './change-facts.js';
 
 /** Nodes with at least this share of Σ|parts| of a mode form regions when no change map is known (our choice). */
@@ -160,11 +160,10 @@ function regionsFromShares(total: Float64Array, m: number, nNodes: number, index
   const coords = nodeCoordinates(index.ids, map);
   const members: number[][] = [];
   for (let q = 0; q < nNodes; q++) if (regionOfNode[q] >= 0) (members[regionOfNode[q]] ??= []).push(q);
-  const regions = members.map((list, r) => ({
-    region: r,
-    nodeCount: list.length,
-    nodeRanges: nodeRanges(list.map((q) => index.ids[q])),
-    centroid: centroid(list.map((q) => ({ at: coords ? coords[q] : null }))),
-  }));
+  const regions = members.map((list, r) => {
+    const ranges = nodeRanges(list.map((q) => index.ids[q]));
+    const at = centroid(list.map((q) => ({ at: coords ? coords[q] : null })));
+    return { region: r, nodeCount: list.length, nodeRanges: ranges, centroid: at, label: regionLabel(ranges, at) };
+  });
   return { regionOfNode, regions };
 }

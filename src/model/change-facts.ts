@@ -25,6 +25,8 @@ export interface ChangeRegion {
   nodeCount: number;
   nodeRanges: NodeRanges;
   centroid: [number, number, number] | null;
+  /** "nodes 1201–1240 near (2.0, 0.4, 1.1)" (coordinates in the DOF map's unit). */
+  label: string;
   /** Nodes whose stiffness rows changed, whose mass rows changed, that are new. */
   stiffnessChanged: number;
   massChanged: number;
@@ -42,7 +44,7 @@ export interface ChangeMapFacts {
   regions: ChangeRegion[];
   /** Every changed, added and removed node. */
   nodes: ChangedNode[];
-  removed: { nodeCount: number; nodeRanges: NodeRanges; centroid: [number, number, number] | null } | null;
+  removed: { nodeCount: number; nodeRanges: NodeRanges; centroid: [number, number, number] | null; label: string } | null;
 }
 
 /** One group of nodes' part in a mode's first-order eigenvalue change. */
@@ -94,6 +96,8 @@ export interface AttributionRegion {
   nodeCount: number;
   nodeRanges: NodeRanges;
   centroid: [number, number, number] | null;
+  /** "nodes 1201–1240 near (2.0, 0.4, 1.1)". */
+  label: string;
 }
 
 export interface AttributionFacts {

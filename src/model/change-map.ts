@@ -26,7 +26,7 @@
 import type { DofMap } from '../io/dof-map.js';
 import type { SymmetricCsc } from '../sparse/csc.js';
 import { nodeIndexOf, type NodeIndex } from './node-index.js';
-import { centroid, connectedRegions, nodeCoordinates, nodeRanges } from './node-regions.js';
+import { centroid, connectedRegions, nodeCoordinates, nodeRanges, regionLabel } from './node-regions.js';
 import type { ChangeMapFacts, ChangeRegion, ChangedNode } from './change-facts.js';
 
 /** Entries below this share of the matrix's largest |entry| count as zero (our choice). */
@@ -177,7 +177,7 @@ export function compareFingerprints(baseline: ChangeMapSide, now: ChangeMapSide,
     removedNodes: removed.length,
     regions,
     nodes: [...touched, ...removed],
-    removed: removed.length > 0 ? { nodeCount: removed.length, nodeRanges: nodeRanges(removed.map((r) => r.node)), centroid: centroid(removed) } : null,
+    removed: removed.length > 0 ? labelled({ nodeCount: removed.length, nodeRanges: nodeRanges(removed.map((r) => r.node)), centroid: centroid(removed) }) : null,
   };
 }
 
@@ -225,12 +225,14 @@ function regionSummaries(touched: ChangedNode[]): ChangeRegion[] {
   for (const t of touched) (byRegion[t.region!] ??= []).push(t);
   return byRegion.map((list, r) => ({
     region: r,
-    nodeCount: list.length,
-    nodeRanges: nodeRanges(list.map((t) => t.node)),
-    centroid: centroid(list),
+    ...labelled({ nodeCount: list.length, nodeRanges: nodeRanges(list.map((t) => t.node)), centroid: centroid(list) }),
     stiffnessChanged: list.filter((t) => t.change === 'stiffness' || t.change === 'stiffness and mass').length,
     massChanged: list.filter((t) => t.change === 'mass' || t.change === 'stiffness and mass').length,
     added: list.filter((t) => t.change === 'added').length,
   }));
 }
 
+
+function labelled<T extends { nodeRanges: [number, number][]; centroid: [number, number, number] | null }>(g: T): T & { label: string } {
+  return { ...g, label: regionLabel(g.nodeRanges, g.centroid) };
+}

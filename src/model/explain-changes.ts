@@ -83,5 +83,5 @@ function changeMapRegions(map: ChangeMapFacts, n: number, dofMap: DofMap | undef
   index.ids.forEach((id, q) => position.set(id, q));
   const regionOfNode = new Int32Array(index.ids.length).fill(-1);
   for (const node of map.nodes) if (node.region !== null && position.has(node.node)) regionOfNode[position.get(node.node)!] = node.region;
-  return { regionOfNode, regions: map.regions.map((r) => ({ region: r.region, nodeCount: r.nodeCount, nodeRanges: r.nodeRanges, centroid: r.centroid })) };
+  return { regionOfNode, regions: map.regions.map((r) => ({ region: r.region, nodeCount: r.nodeCount, nodeRanges: r.nodeRanges, centroid: r.centroid, label: r.label })) };
 }

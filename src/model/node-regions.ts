@@ -69,3 +69,26 @@ export function centroid(nodes: { at: [number, number, number] | null }[]): [num
   return [s[0], s[1], s[2]];
 }
 
+
+/** "1201–1240, 1250" (at most `cap` runs, then "and N more nodes"). */
+export function describeRanges(ranges: NodeRanges, cap = 4): string {
+  const shown = ranges.slice(0, cap).map(([lo, hi]) => (lo === hi ? String(lo) : `${lo}–${hi}`));
+  const rest = ranges.slice(cap).reduce((s, [lo, hi]) => s + hi - lo + 1, 0);
+  return rest > 0 ? `${shown.join(', ')} and ${rest} more` : shown.join(', ');
+}
+
+/** "(2.0, 0.4, 1.1)": three significant digits, at least one decimal; −0 shown as 0. */
+export function describePoint(p: readonly [number, number, number]): string {
+  const f = (v: number): string => {
+    const r = Number(v.toPrecision(3));
+    const t = Math.abs(r) < 1e-12 ? '0' : String(r);
+    return /[.e]/.test(t) ? t : `${t}.0`;
+  };
+  return `(${p.map(f).join(', ')})`;
+}
+
+/** How a group of nodes is named in messages and reports: "nodes 1201–1240 near (2.0, 0.4, 1.1)". */
+export function regionLabel(ranges: NodeRanges, at: readonly [number, number, number] | null): string {
+  const count = ranges.reduce((s, [lo, hi]) => s + hi - lo + 1, 0);
+  return `${count === 1 ? 'node' : 'nodes'} ${describeRanges(ranges)}${at ? ` near ${describePoint(at)}` : ''}`;
+}
