@@ -35,6 +35,8 @@ import type { AttributionFacts, AttributionRegion, ModeAttribution, NodeShare, R
 /** Nodes with at least this share of Σ|parts| of a mode form regions when no change map is known (our choice). */
 const NOTABLE_SHARE = 1e-6;
 const TOP_NODES = 10;
+/** A mode whose measured or estimated frequency change reaches this (percent) is shown in reports (our choice). */
+const NOTABLE_PERCENT = 0.01;
 
 export interface AttributionInput {
   stiffness: SymmetricCsc;
@@ -110,11 +112,14 @@ function modeFacts(
 ): ModeAttribution {
   let estimate = 0;
   for (let q = 0; q < parts.length; q++) estimate += parts[q];
+  const of = (d: number): number => (estimate !== 0 ? d / estimate : 0);
   const share = (delta: number, stiffDelta: number | null): ShareOfChange => ({
-    share: estimate !== 0 ? delta / estimate : 0,
+    share: of(delta),
     deltaEigenvalue: delta,
     stiffnessDelta: stiffDelta,
     massDelta: stiffDelta === null ? null : delta - stiffDelta,
+    stiffnessShare: stiffDelta === null ? null : of(stiffDelta),
+    massShare: stiffDelta === null ? null : of(delta - stiffDelta),
   });
   const regionTotal = new Float64Array(regionCount + 1), regionStiff = new Float64Array(regionCount + 1);
   // Σ over each region's nodes (last slot: nodes outside every region)
@@ -130,14 +135,16 @@ function modeFacts(
   const topNodes: NodeShare[] = order.filter((q) => parts[q] !== 0).map((q) => ({ node: ids[q], at: coords ? coords[q] : null, ...share(parts[q], stiffParts ? stiffParts[q] : null) }));
   const measured = p.currentEigenvalue - lambda;
   const implied = (d: number): number => 100 * (Math.sqrt(Math.max(0, 1 + d / lambda)) - 1);
+  const measuredPercent = implied(measured), estimatedPercent = implied(estimate);
   return {
     baselineMode: p.baselineMode + 1,
     currentMode: p.currentMode + 1,
     eigenvalue: lambda,
     measuredDelta: measured,
     estimatedDelta: estimate,
-    measuredPercent: implied(measured),
-    estimatedPercent: implied(estimate),
+    measuredPercent,
+    estimatedPercent,
+    notable: Math.max(Math.abs(measuredPercent), Math.abs(estimatedPercent)) >= NOTABLE_PERCENT,
     disagreement: measured === 0 ? (estimate === 0 ? 0 : Infinity) : Math.abs(estimate - measured) / Math.abs(measured),
     repeated: p.repeated,
     regions,

@@ -56,6 +56,9 @@ export interface ShareOfChange {
   /** Stiffness and mass parts of deltaEigenvalue; null when the baseline did not store M₀φ. */
   stiffnessDelta: number | null;
   massDelta: number | null;
+  /** stiffnessDelta / δλ_estimate and massDelta / δλ_estimate (they add up to `share`); null without M₀φ. */
+  stiffnessShare: number | null;
+  massShare: number | null;
 }
 
 export interface RegionShare extends ShareOfChange {
@@ -83,6 +86,8 @@ export interface ModeAttribution {
   disagreement: number;
   /** Either side of the pair is in a group of near-repeated modes: a per-mode estimate may not hold. */
   repeated: boolean;
+  /** The measured or the estimated frequency change is at least 0.01 % (our choice): reports show this mode. */
+  notable: boolean;
   /** By |share|, largest first. */
   regions: RegionShare[];
   /** Share of the nodes outside every region (round-off and the baseline's residual when regions come from the change map). */
