@@ -155,6 +155,9 @@ export interface SaveBaselineInput {
   /** Config file and place, for errors in the selection. */
   configFile?: string;
   where?: string;
+  /** Fixed run id (16 hex digits) and save time, for fixtures that must come out byte-identical; default random and now. */
+  runId?: string;
+  createdAt?: string;
 }
 
 export interface SavedBaselineFiles {
@@ -186,7 +189,7 @@ export async function saveBaseline(dir: string, input: SaveBaselineInput): Promi
   const { modes } = input;
   const m = modes.eigenvalues.length;
   const dofs = selectShapeDofs(input);
-  const runId = randomBytes(8).toString('hex');
+  const runId = input.runId ?? randomBytes(8).toString('hex');
   const names = dataFileNames(input.model, runId);
   const paths = { json: baselineJsonFile(dir, input.model), shapes: join(dir, names.shapes), dofs: join(dir, names.dofs), massShapes: join(dir, names.massShapes), nodes: join(dir, names.nodes) };
   const dataPaths = [paths.shapes, paths.dofs, paths.massShapes, paths.nodes];
@@ -219,7 +222,7 @@ export async function saveBaseline(dir: string, input: SaveBaselineInput): Promi
         kind: 'modalgate-baseline',
         model: input.model,
         runId,
-        createdAt: new Date().toISOString(),
+        createdAt: input.createdAt ?? new Date().toISOString(),
         toolVersion: input.toolVersion,
         dofCount: modes.n,
         eigenvalues: Array.from(modes.eigenvalues),

@@ -16,6 +16,12 @@
  * component, or position, or index); DOFs new in the model get φ = 0, and baseline DOFs that are
  * gone drop out (then the estimate is not the full first-order term: the facts say so).
  *
+ * A mode of a near-repeated baseline group (equal or nearly equal eigenvalues, a symmetric
+ * structure's bending pair) has no meaningful φ of its own: any combination of the group's
+ * shapes is an eigenvector. There the degenerate form of the same first-order theory applies
+ * (see groupVector): the change picks the combinations ψ_k, and r = ψ ∘ ((K₁ − λ̄M₁)ψ) splits
+ * each one's estimate; the group's spread λ̄ − λ_i is counted with the unchanged nodes.
+ *
  * Reported per mode: δλ measured (λ_now − λ_i) and estimated, the frequency changes they mean
  * (f ∝ √λ, so the estimate's frequency change is 100(√(1 + δλ_est/λ) − 1) %: a δλ estimate equal
  * to the measured δλ gives exactly the measured frequency change), their disagreement
@@ -27,6 +33,7 @@
  */
 import type { DofMap } from '../io/dof-map.js';
 import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
+import { symmetricEigen } from '../dense/symmetric-eigen.js';
 import { nodeIndexOf } from './node-index.js';
 import { connectedRegions } from './node-regions.js';
 import { centroid, nodeCoordinates, nodeRanges, regionLabel } from './node-regions.js';
@@ -47,6 +54,8 @@ export interface AttributionInput {
   /** M₀φ in the same layout, when stored. */
   baselineMassShapes: Float64Array | null;
   baselineEigenvalues: ArrayLike<number>;
+  /** Near-repeated groups of the baseline (0-based elastic modes, size ≥ 2). */
+  groups: number[][];
   /** Pairs (0-based baseline mode, 0-based current mode) with the current eigenvalue. */
   pairs: { baselineMode: number; currentMode: number; currentEigenvalue: number; repeated: boolean }[];
   /** Baseline row of each compared current DOF: rowOf[c] = stored row, or −1 for a DOF new in the model. */
@@ -66,51 +75,121 @@ export function attributeChanges(input: AttributionInput): AttributionFacts {
   const nNodes = index.ids.length;
   const split = input.baselineMassShapes !== null;
   const rows = input.baselineShapes.rows;
-  // Φ̃ (and M₀Φ̃): baseline shapes of the paired modes on the DOFs now, 0 on new DOFs
-  const phi = new Float64Array(n * m);
-  const massPhi0 = split ? new Float64Array(n * m) : null;
-  pairs.forEach((p, k) => {
+  const lambdaOf = (i: number): number => input.baselineEigenvalues[i];
+  // baseline modes needed: the paired ones and every member of a near-repeated group holding one
+  const paired = new Set(pairs.map((p) => p.baselineMode));
+  const groupOf = new Map<number, number[]>();
+  for (const g of input.groups) if (g.some((i) => paired.has(i))) for (const i of g) groupOf.set(i, [...g].sort((x, y) => x - y));
+  const columns = [...new Set([...paired, ...groupOf.keys()])].sort((x, y) => x - y);
+  const colOf = new Map(columns.map((i, k) => [i, k]));
+  const nc = columns.length;
+  // Φ̃ (and M₀Φ̃): those baseline shapes on the DOFs now, 0 on new DOFs
+  const phi = new Float64Array(n * nc);
+  const massPhi0 = split ? new Float64Array(n * nc) : null;
+  columns.forEach((i, k) => {
     for (let c = 0; c < n; c++) {
       const r = rowOf[c];
       if (r < 0) continue;
-      phi[k * n + c] = input.baselineShapes.values[p.baselineMode * rows + r];
-      if (massPhi0) massPhi0[k * n + c] = input.baselineMassShapes![p.baselineMode * rows + r];
+      phi[k * n + c] = input.baselineShapes.values[i * rows + r];
+      if (massPhi0) massPhi0[k * n + c] = input.baselineMassShapes![i * rows + r];
     }
   });
-  const kPhi = symMultiplyBlock(stiffness, phi, m);
-  const mPhi = symMultiplyBlock(mass, phi, m);
-  // per mode and node: total part Σ φ(K₁φ − λM₁φ), stiffness part Σ φ(K₁φ − λM₀φ)
+  const kPhi = symMultiplyBlock(stiffness, phi, nc);
+  const mPhi = symMultiplyBlock(mass, phi, nc);
+  const blocks: Blocks = { n, phi, kPhi, mPhi };
+  const combos = pairs.map((p) => {
+    const g = groupOf.get(p.baselineMode);
+    if (!g) return { columns: [colOf.get(p.baselineMode)!], coefficients: [1], lambdaRef: lambdaOf(p.baselineMode), group: null };
+    return { ...groupVector(g, g.indexOf(p.baselineMode), colOf, blocks, lambdaOf), group: g };
+  });
+  // per mode and node: total part Σ ψ(K₁ψ − λ_ref M₁ψ), stiffness part Σ ψ(K₁ψ − λ_ref M₀ψ)
   const total = new Float64Array(m * nNodes);
   const stiff = new Float64Array(m * nNodes);
-  for (let k = 0; k < m; k++) {
-    const lambda = input.baselineEigenvalues[pairs[k].baselineMode];
-    for (let c = 0, o = k * n; c < n; c++) {
-      const f = phi[o + c];
+  combos.forEach((v, k) => {
+    const psi = combine(v, phi, n), kPsi = combine(v, kPhi, n), mPsi = combine(v, mPhi, n);
+    const m0Psi = massPhi0 ? combine(v, massPhi0, n) : null;
+    for (let c = 0; c < n; c++) {
+      const f = psi[c];
       if (f === 0) continue;
       const node = k * nNodes + index.nodeOf[c];
-      total[node] += f * (kPhi[o + c] - lambda * mPhi[o + c]);
-      if (massPhi0) stiff[node] += f * (kPhi[o + c] - lambda * massPhi0[o + c]);
+      total[node] += f * (kPsi[c] - v.lambdaRef * mPsi[c]);
+      if (m0Psi) stiff[node] += f * (kPsi[c] - v.lambdaRef * m0Psi[c]);
     }
-  }
+  });
   const { regionOfNode, regions, regionsFrom } = input.regionOfNode && input.regions
     ? { regionOfNode: input.regionOfNode, regions: input.regions, regionsFrom: 'change map' as const }
     : { ...regionsFromShares(total, m, nNodes, index, stiffness, input.dofMap), regionsFrom: 'shares' as const };
   const coords = nodeCoordinates(index.ids, input.dofMap);
-  const modes = pairs.map((p, k) => modeFacts(p, input.baselineEigenvalues[p.baselineMode], total.subarray(k * nNodes, (k + 1) * nNodes), split ? stiff.subarray(k * nNodes, (k + 1) * nNodes) : null, regionOfNode, regions.length, index.ids, coords));
+  const modes = pairs.map((p, k) => {
+    const lambda = lambdaOf(p.baselineMode);
+    const parts = { total: total.subarray(k * nNodes, (k + 1) * nNodes), stiffness: split ? stiff.subarray(k * nNodes, (k + 1) * nNodes) : null, offset: combos[k].lambdaRef - lambda };
+    const facts = modeFacts(p, lambda, parts, regionOfNode, regions.length, index.ids, coords);
+    return { ...facts, group: combos[k].group ? combos[k].group!.map((i) => i + 1) : null };
+  });
   return { regionsFrom, split, missing: input.missing, regions, modes };
+}
+
+interface Blocks {
+  n: number;
+  phi: Float64Array;
+  kPhi: Float64Array;
+  mPhi: Float64Array;
+}
+
+interface Combination {
+  columns: number[];
+  coefficients: number[];
+  lambdaRef: number;
+}
+
+/** Σ_a coefficient_a · column_a of a column-major block. */
+function combine(v: Combination, block: Float64Array, n: number): Float64Array {
+  if (v.columns.length === 1 && v.coefficients[0] === 1) return block.subarray(v.columns[0] * n, (v.columns[0] + 1) * n);
+  const out = new Float64Array(n);
+  v.columns.forEach((k, a) => {
+    const w = v.coefficients[a];
+    for (let c = 0; c < n; c++) out[c] += w * block[k * n + c];
+  });
+  return out;
+}
+
+/**
+ * The rank-th vector of a near-repeated baseline group (first-order perturbation of a repeated
+ * eigenvalue): with λ̄ the group's mean eigenvalue and Φ_g its shapes, the new eigenvalues are to
+ * first order λ̄ + g_k with g_k, q_k the eigenpairs of G = Φ_gᵀ(K₁ − λ̄M₁)Φ_g (symmetric, k × k),
+ * because Φ_gᵀK₀Φ_g = diag(λ_a) ≈ λ̄I and Φ_gᵀM₀Φ_g = I. The baseline's own basis inside the group
+ * is arbitrary; ψ_k = Φ_g q_k is the combination the change picks. ψ_k is given to the group's
+ * members in ascending order of g_k, as mode tracking pairs them in frequency order.
+ */
+function groupVector(group: number[], rank: number, colOf: Map<number, number>, b: Blocks, lambdaOf: (i: number) => number): Combination {
+  const k = group.length, n = b.n;
+  const lambdaBar = group.reduce((s, i) => s + lambdaOf(i), 0) / k;
+  const g = new Float64Array(k * k);
+  // G_ab = φ_aᵀK₁φ_b − λ̄ φ_aᵀM₁φ_b, symmetrized
+  for (let a = 0; a < k; a++) {
+    for (let c = 0; c <= a; c++) {
+      const pa = colOf.get(group[a])!, pc = colOf.get(group[c])!;
+      let v = 0;
+      for (let d = 0; d < n; d++) v += 0.5 * (b.phi[pa * n + d] * (b.kPhi[pc * n + d] - lambdaBar * b.mPhi[pc * n + d]) + b.phi[pc * n + d] * (b.kPhi[pa * n + d] - lambdaBar * b.mPhi[pa * n + d]));
+      g[a * k + c] = g[c * k + a] = v;
+    }
+  }
+  const { vectors } = symmetricEigen(g, k);
+  return { columns: group.map((i) => colOf.get(i)!), coefficients: Array.from(vectors.subarray(rank * k, (rank + 1) * k)), lambdaRef: lambdaBar };
 }
 
 function modeFacts(
   p: AttributionInput['pairs'][number],
   lambda: number,
-  parts: Float64Array,
-  stiffParts: Float64Array | null,
+  split: { total: Float64Array; stiffness: Float64Array | null; offset: number },
   regionOfNode: Int32Array,
   regionCount: number,
   ids: Int32Array,
   coords: [number, number, number][] | null,
-): ModeAttribution {
-  let estimate = 0;
+): Omit<ModeAttribution, 'group'> {
+  const parts = split.total, stiffParts = split.stiffness;
+  // δλ_est = Σ node parts + (λ_ref − λ_i) (the spread inside a near-repeated group, 0 for a single mode)
+  let estimate = split.offset;
   for (let q = 0; q < parts.length; q++) estimate += parts[q];
   const of = (d: number): number => (estimate !== 0 ? d / estimate : 0);
   const share = (delta: number, stiffDelta: number | null): ShareOfChange => ({
@@ -148,7 +227,7 @@ function modeFacts(
     disagreement: measured === 0 ? (estimate === 0 ? 0 : Infinity) : Math.abs(estimate - measured) / Math.abs(measured),
     repeated: p.repeated,
     regions,
-    elsewhere: share(regionTotal[regionCount], stiffParts ? regionStiff[regionCount] : null),
+    elsewhere: share(regionTotal[regionCount] + split.offset, stiffParts ? regionStiff[regionCount] + split.offset : null),
     topNodes,
   };
 }

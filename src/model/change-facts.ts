@@ -84,8 +84,10 @@ export interface ModeAttribution {
   estimatedPercent: number;
   /** |δλ_est − δλ_measured| / |δλ_measured| (0 when both are 0; a large value: the change is not small, or modes mixed). */
   disagreement: number;
-  /** Either side of the pair is in a group of near-repeated modes: a per-mode estimate may not hold. */
+  /** Either side of the pair is in a group of near-repeated modes. */
   repeated: boolean;
+  /** The baseline's near-repeated group the estimate was made for as a whole (1-based modes), or null. */
+  group: number[] | null;
   /** The measured or the estimated frequency change is at least 0.01 % (our choice): reports show this mode. */
   notable: boolean;
   /** By |share|, largest first. */

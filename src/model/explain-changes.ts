@@ -50,6 +50,9 @@ export function explainChanges(input: ExplainInput): ExplainedChanges {
   const pairs = comparison.pairs
     .filter((p) => !p.rigidBody && p.changePercent !== null)
     .map((p) => ({ baselineMode: p.baselineMode - 1, currentMode: p.currentMode - 1, currentEigenvalue: modes.eigenvalues[p.currentMode - 1], repeated: p.repeated }));
+  // near-repeated groups of elastic baseline modes
+  const rigid = new Set(comparison.pairs.filter((p) => p.rigidBody).map((p) => p.baselineMode));
+  const groups = comparison.baselineGroups.filter((g) => !g.some((i) => rigid.has(i))).map((g) => g.map((i) => i - 1));
   const regions = out.changeMap ? changeMapRegions(out.changeMap, modes.n, input.dofMap) : null;
   out.attribution = attributeChanges({
     stiffness: input.stiffness,
@@ -58,6 +61,7 @@ export function explainChanges(input: ExplainInput): ExplainedChanges {
     baselineShapes: baseline.shapes,
     baselineMassShapes: baseline.massShapes ? baseline.massShapes.values : null,
     baselineEigenvalues: baseline.snapshot.eigenvalues,
+    groups,
     pairs,
     rowOf,
     regionOfNode: regions ? regions.regionOfNode : null,
