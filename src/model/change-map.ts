@@ -8,7 +8,8 @@
  * coordinates and its component (or its index, without a DOF map) — and q rounds a value to 28
  * bits of mantissa (relative rounding; an exponent step at a power of two is folded, so
  * 2^e(1−ε) and 2^e(1+ε) round alike). Entries below 1e-13 of the matrix's largest |entry| count
- * as zero (assembly round-off), so they change neither pattern nor values. Summing hashes
+ * as zero (assembly round-off), so they change neither pattern nor values. The rounding reads
+ * the IEEE 754 bits: the 52-bit mantissa rounded to 28 bits, carrying into the exponent. Summing hashes
  * (two independent 32-bit lanes, mod 2³²) makes the fingerprint independent of the order of
  * rows, columns and entries: a renumbered model (node ids or DOF order) with the same physics
  * gives the same fingerprints; a changed value, an added or removed entry, or a moved node
@@ -78,15 +79,16 @@ function matrixFingerprints(a: SymmetricCsc, index: NodeIndex, keys: Uint32Array
   const add = (row: number, col: number, e: number, q: number): void => {
     const node = index.nodeOf[row];
     // lane sums of hash(key(row), key(col), q(a))
-    out[2 * node] = (out[2 * node] + mixWords(keys[2 * row], [keys[2 * col], e, q])) >>> 0;
-    out[2 * node + 1] = (out[2 * node + 1] + mixWords(keys[2 * row + 1], [keys[2 * col + 1], e, q])) >>> 0;
+    out[2 * node] = (out[2 * node] + mix3(keys[2 * row], keys[2 * col], e, q)) >>> 0;
+    out[2 * node + 1] = (out[2 * node + 1] + mix3(keys[2 * row + 1], keys[2 * col + 1], e, q)) >>> 0;
   };
   // every stored a_ij (i ≥ j) is row i's entry in column j and, off the diagonal, row j's in column i
   for (let j = 0; j < a.n; j++) {
     for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) {
       const v = a.values[p];
       if (!(Math.abs(v) > floor)) continue;
-      const [e, q] = rounded(v);
+      const q = roundedMantissa(v);
+      const e = roundedExponent;
       const i = a.rowIdx[p];
       add(i, j, e, q);
       if (i !== j) add(j, i, e, q);
@@ -95,41 +97,63 @@ function matrixFingerprints(a: SymmetricCsc, index: NodeIndex, keys: Uint32Array
   return out;
 }
 
-/** v = ±m·2^e with m ∈ [1, 2): (e, ±round(m·2^28)), with round(m·2^28) = 2^29 folded into (e+1, 2^28). */
-function rounded(v: number): [number, number] {
-  const s = v < 0 ? -1 : 1;
-  let e = Math.floor(Math.log2(Math.abs(v)));
-  let q = Math.round(Math.abs(v) * 2 ** (MANTISSA_BITS - e));
-  // log2 may land one off near powers of two: bring q into [2^28, 2^29)
-  while (q >= 2 ** (MANTISSA_BITS + 1)) {
-    e++;
-    q = Math.round(Math.abs(v) * 2 ** (MANTISSA_BITS - e));
+/** Exponent word (sign and biased exponent) of the last roundedMantissa call: a module scratch, so the hot loop allocates nothing. */
+let roundedExponent = 0;
+const bitsF64 = new Float64Array(1);
+const bitsU32 = new Uint32Array(bitsF64.buffer);
+const HIGH = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1 ? 1 : 0; // index of the high word
+
+/**
+ * v's 52-bit mantissa rounded to MANTISSA_BITS bits (read from the IEEE 754 bits: no log, no
+ * power); sets roundedExponent to the sign and exponent bits. A mantissa that rounds up to
+ * 2^MANTISSA_BITS carries into the exponent, so 2^e(1 − ε) and 2^e(1 + ε) round alike.
+ */
+function roundedMantissa(v: number): number {
+  bitsF64[0] = v;
+  const hi = bitsU32[HIGH], lo = bitsU32[1 - HIGH];
+  const mantissa = (hi & 0xfffff) * 4294967296 + lo;
+  let q = Math.round(mantissa / 2 ** (52 - MANTISSA_BITS));
+  let exponentWord = hi >>> 20; // sign and biased exponent
+  if (q === 2 ** MANTISSA_BITS) {
+    q = 0;
+    exponentWord++;
   }
-  while (q < 2 ** MANTISSA_BITS) {
-    e--;
-    q = Math.round(Math.abs(v) * 2 ** (MANTISSA_BITS - e));
-  }
-  return [e + 1024, (s * q) | 0];
+  roundedExponent = exponentWord;
+  return q;
 }
 
-/** 32-bit hash of a word list from a seed (murmur3's mixing steps and finalizer). */
-function mixWords(seed: number, words: readonly number[]): number {
-  let h = seed >>> 0;
-  for (const w of words) {
-    let k = Math.imul(w | 0, 0xcc9e2d51);
-    k = (k << 15) | (k >>> 17);
-    k = Math.imul(k, 0x1b873593);
-    h ^= k;
-    h = (h << 13) | (h >>> 19);
-    h = (Math.imul(h, 5) + 0xe6546b64) | 0;
-  }
-  h ^= words.length * 4;
+/** mixWords(seed, [a, b, c]) without the array. */
+function mix3(seed: number, a: number, b: number, c: number): number {
+  let h = round32(seed >>> 0, a);
+  h = round32(h, b);
+  h = round32(h, c);
+  return finish32(h, 3);
+}
+
+function round32(h: number, w: number): number {
+  let k = Math.imul(w | 0, 0xcc9e2d51);
+  k = (k << 15) | (k >>> 17);
+  k = Math.imul(k, 0x1b873593);
+  h ^= k;
+  h = (h << 13) | (h >>> 19);
+  return (Math.imul(h, 5) + 0xe6546b64) | 0;
+}
+
+function finish32(h: number, words: number): number {
+  h ^= words * 4;
   h ^= h >>> 16;
   h = Math.imul(h, 0x85ebca6b);
   h ^= h >>> 13;
   h = Math.imul(h, 0xc2b2ae35);
   h ^= h >>> 16;
   return h >>> 0;
+}
+
+/** 32-bit hash of a word list from a seed (murmur3's mixing steps and finalizer). */
+function mixWords(seed: number, words: readonly number[]): number {
+  let h = seed >>> 0;
+  for (const w of words) h = round32(h, w);
+  return finish32(h, words.length);
 }
 
 /** What the change map needs of one side: fingerprints and (optionally) the DOF map for coordinates. */
