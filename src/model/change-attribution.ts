@@ -224,7 +224,7 @@ function modeFacts(
     measuredPercent,
     estimatedPercent,
     notable: Math.max(Math.abs(measuredPercent), Math.abs(estimatedPercent)) >= NOTABLE_PERCENT,
-    disagreement: measured === 0 ? (estimate === 0 ? 0 : Infinity) : Math.abs(estimate - measured) / Math.abs(measured),
+    disagreement: measured === 0 ? null : Math.abs(estimate - measured) / Math.abs(measured),
     repeated: p.repeated,
     regions,
     elsewhere: share(regionTotal[regionCount] + split.offset, stiffParts ? regionStiff[regionCount] + split.offset : null),

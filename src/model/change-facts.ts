@@ -82,8 +82,8 @@ export interface ModeAttribution {
   /** Frequency change, %: measured, and implied by the estimate, 100(√(1 + δλ_est/λ) − 1). */
   measuredPercent: number;
   estimatedPercent: number;
-  /** |δλ_est − δλ_measured| / |δλ_measured| (0 when both are 0; a large value: the change is not small, or modes mixed). */
-  disagreement: number;
+  /** |δλ_est − δλ_measured| / |δλ_measured| (a large value: the change is not small, or modes mixed); null when δλ_measured is 0. */
+  disagreement: number | null;
   /** Either side of the pair is in a group of near-repeated modes. */
   repeated: boolean;
   /** The baseline's near-repeated group the estimate was made for as a whole (1-based modes), or null. */

@@ -12,6 +12,7 @@ import { barChart, escapeText as esc, linearScale } from './svg-plots.js';
 /** Regions drawn per mode and modes drawn (the JSON report has all; our choice). */
 const REGIONS_SHOWN = 8;
 const MODES_SHOWN = 6;
+const MAP_REGIONS_SHOWN = 20;
 
 export function changesSection(changes: ExplainedChanges | undefined): string {
   if (!changes) return '';
@@ -34,7 +35,8 @@ function changeMap(changes: ExplainedChanges): string {
   const map = changes.changeMap;
   if (!map) return `<p>No change map: ${esc(changes.changeMapMissing ?? 'not made')}.</p>`;
   if (map.nodes.length === 0) return `<p class="change-map">Change map: no node's rows of K or M changed (nodes matched by ${esc(map.matchedBy)}, ${map.nodesCompared} compared).</p>`;
-  const rows = map.regions.map((r) => `<tr><td>R${r.region + 1}</td><td>${esc(r.label)}</td><td class="num">${r.nodeCount}</td><td class="num">${r.stiffnessChanged}</td><td class="num">${r.massChanged}</td><td class="num">${r.added}</td></tr>`);
+  const rows = map.regions.slice(0, MAP_REGIONS_SHOWN).map((r) => `<tr><td>R${r.region + 1}</td><td>${esc(r.label)}</td><td class="num">${r.nodeCount}</td><td class="num">${r.stiffnessChanged}</td><td class="num">${r.massChanged}</td><td class="num">${r.added}</td></tr>`);
+  if (map.regions.length > MAP_REGIONS_SHOWN) rows.push(`<tr><td colspan="6">${map.regions.length - MAP_REGIONS_SHOWN} smaller regions in the JSON report</td></tr>`);
   if (map.removed) rows.push(`<tr><td>removed</td><td>${esc(map.removed.label)}</td><td class="num">${map.removed.nodeCount}</td><td class="num">—</td><td class="num">—</td><td class="num">—</td></tr>`);
   const head = `<p class="change-map">Change map: ${map.changedNodes} changed, ${map.addedNodes} added and ${map.removedNodes} removed nodes in ${map.regions.length} connected region(s) (nodes matched by ${esc(map.matchedBy)}).</p>`;
   return `${head}<table class="change-map"><thead><tr><th>region</th><th>nodes</th><th>count</th><th>stiffness changed</th><th>mass changed</th><th>added</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
@@ -47,7 +49,7 @@ function modeFigure(m: ModeAttribution, a: AttributionFacts): string {
   const svg = barChart({ title: `Mode ${m.baselineMode}: share of the first-order change per region`, yLabel: 'share (%)', xLabel: 'region (rest: unchanged nodes)', bars, y: linearScale(Math.min(...values), Math.max(...values)) });
   const rows = [...shown.map((r) => tableRow(`R${r.region + 1}`, a.regions[r.region].label, r, a.split)), tableRow('rest', 'unchanged nodes (round-off, the baseline\'s residual)', m.elsewhere, a.split)];
   const moved = m.currentMode === m.baselineMode ? '' : ` (now mode ${m.currentMode})`;
-  const caption = `Mode ${m.baselineMode}${moved}: measured ${signed(m.measuredPercent)} %, first order ${signed(m.estimatedPercent)} % (the two δλ differ by ${formatNumber(100 * m.disagreement)} %)${m.group ? `; estimated with its near-repeated group (baseline modes ${m.group.join(', ')})` : ''}. Red: the region with the largest share.`;
+  const caption = `Mode ${m.baselineMode}${moved}: measured ${signed(m.measuredPercent)} %, first order ${signed(m.estimatedPercent)} % (${m.disagreement === null ? 'no measured change' : `the two δλ differ by ${formatNumber(100 * m.disagreement)} %`})${m.group ? `; estimated with its near-repeated group (baseline modes ${m.group.join(', ')})` : ''}. Red: the region with the largest share.`;
   const split = a.split ? '<th>stiffness %</th><th>mass %</th>' : '';
   return `<figure class="attribution">${svg}<figcaption>${esc(caption)}</figcaption><table class="attribution"><thead><tr><th>region</th><th>nodes</th><th>share %</th>${split}</tr></thead><tbody>${rows.join('')}</tbody></table></figure>`;
 }

@@ -43,7 +43,7 @@ export function changesMarkdown(changes: ExplainedChanges | undefined): string[]
 
 function modeTable(m: ModeAttribution, labels: string[], split: boolean): string[] {
   const moved = m.currentMode === m.baselineMode ? '' : ` (now mode ${m.currentMode})`;
-  const head = `Mode ${m.baselineMode}${moved}: measured ${signed(m.measuredPercent)} %, first order ${signed(m.estimatedPercent)} % (estimates differ by ${formatNumber(100 * m.disagreement)} % of δλ)${m.group ? `; estimated with its near-repeated group (baseline modes ${m.group.join(', ')})` : ''}.`;
+  const head = `Mode ${m.baselineMode}${moved}: measured ${signed(m.measuredPercent)} %, first order ${signed(m.estimatedPercent)} % (${m.disagreement === null ? 'no measured change' : `estimates differ by ${formatNumber(100 * m.disagreement)} % of δλ`})${m.group ? `; estimated with its near-repeated group (baseline modes ${m.group.join(', ')})` : ''}.`;
   const rows = m.regions.slice(0, REGIONS_SHOWN).map((r) => row(`R${r.region + 1} ${inline(labels[r.region])}`, r, split));
   rows.push(row('unchanged nodes (round-off, the baseline\'s residual)', m.elsewhere, split));
   const more = m.regions.length > REGIONS_SHOWN ? [`${m.regions.length - REGIONS_SHOWN} smaller regions in the JSON report.`, ''] : [];
