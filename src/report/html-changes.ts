@@ -13,6 +13,7 @@ import { barChart, escapeText as esc, linearScale } from './svg-plots.js';
 const REGIONS_SHOWN = 8;
 const MODES_SHOWN = 6;
 const MAP_REGIONS_SHOWN = 20;
+const TOP_NODES_SHOWN = 5;
 
 export function changesSection(changes: ExplainedChanges | undefined): string {
   if (!changes) return '';
@@ -51,7 +52,9 @@ function modeFigure(m: ModeAttribution, a: AttributionFacts): string {
   const moved = m.currentMode === m.baselineMode ? '' : ` (now mode ${m.currentMode})`;
   const caption = `Mode ${m.baselineMode}${moved}: measured ${signed(m.measuredPercent)} %, first order ${signed(m.estimatedPercent)} % (${m.disagreement === null ? 'no measured change' : `the two δλ differ by ${formatNumber(100 * m.disagreement)} %`})${m.group ? `; estimated with its near-repeated group (baseline modes ${m.group.join(', ')})` : ''}. Red: the region with the largest share.`;
   const split = a.split ? '<th>stiffness %</th><th>mass %</th>' : '';
-  return `<figure class="attribution">${svg}<figcaption>${esc(caption)}</figcaption><table class="attribution"><thead><tr><th>region</th><th>nodes</th><th>share %</th>${split}</tr></thead><tbody>${rows.join('')}</tbody></table></figure>`;
+  const nodes = m.topNodes.slice(0, TOP_NODES_SHOWN).map((t) => `node ${t.node} ${pct(t.share)} %${a.split ? ` (stiffness ${pct(t.stiffnessShare)}, mass ${pct(t.massShare)})` : ''}`);
+  const top = nodes.length > 0 ? `<p class="top-nodes">Largest node shares: ${esc(nodes.join('; '))}.</p>` : '';
+  return `<figure class="attribution">${svg}<figcaption>${esc(caption)}</figcaption><table class="attribution"><thead><tr><th>region</th><th>nodes</th><th>share %</th>${split}</tr></thead><tbody>${rows.join('')}</tbody></table>${top}</figure>`;
 }
 
 function tableRow(name: string, label: string, s: ShareOfChange, split: boolean): string {
@@ -60,7 +63,9 @@ function tableRow(name: string, label: string, s: ShareOfChange, split: boolean)
 }
 
 function pct(x: number | null): string {
-  return x === null ? '—' : (100 * x).toFixed(1);
+  if (x === null) return '—';
+  const t = (100 * x).toFixed(1);
+  return t === '-0.0' ? '0.0' : t;
 }
 
 function signed(x: number): string {

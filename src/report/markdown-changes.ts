@@ -56,7 +56,9 @@ function row(name: string, s: ShareOfChange, split: boolean): string {
 
 /** A share as percent, one decimal. */
 function pct(x: number | null): string {
-  return x === null ? '—' : (100 * x).toFixed(1);
+  if (x === null) return '—';
+  const t = (100 * x).toFixed(1);
+  return t === '-0.0' ? '0.0' : t;
 }
 
 function signed(x: number): string {

@@ -69,6 +69,7 @@ describe('demo: the thinner brace of the mast is located', () => {
     expect(html).toMatch(/<table class="change-map">.*nodes 5, 1052 near \(-0\.375, -0\.0722, 1\.13\)/s);
     expect(html).toContain('share of the first-order change per region');
     expect((html.match(/<figure class="attribution">/g) ?? []).length).toBeGreaterThan(3);
+    expect(html).toMatch(/Largest node shares: node (5|1052) [\d.]+ % \(stiffness/);
   });
 
   it('the Markdown summary has a table per changed mode and the console a change line', () => {
