@@ -54,6 +54,20 @@ describe('baseline: M₀φ and node fingerprints', () => {
     }
   });
 
+  it('without modes (a solve that failed) the change map is still made, the attribution says why not', async () => {
+    const dir = await saved();
+    try {
+      const b = (await loadBaseline(dir, 'c'))!;
+      const heavier = springChain([900, 700, 1200, 500], [1.5, 1.0, 2.5, 1.2]);
+      const e = explainChanges({ baseline: b, stiffness: heavier.stiffness, mass: heavier.mass, dofMap: heavier.dofMap });
+      expect(e.changeMap!.nodes.map((n) => [n.node, n.change])).toEqual([[3, 'mass']]);
+      expect(e.attribution).toBeNull();
+      expect(e.attributionMissing).toMatch(/no modes were solved/);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+
   it('a fingerprint file from another save is refused by its SHA-256', async () => {
     const dir = await saved();
     try {
