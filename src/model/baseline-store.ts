@@ -30,6 +30,12 @@
  *                                      general` (gzip), rows = stored DOFs, one column per mode
  *   <model>.<run>.dofs.csv.gz          the model's DOF map (node, component, coordinates per
  *                                      1-based DOF), when the model has one
+ *   <model>.<run>.mass-shapes.mtx.gz   M₀φ of every mode, same layout as the shapes, when every
+ *                                      DOF is kept and DOFs × modes ≤ 4 000 000 (our choice): it
+ *                                      splits a frequency change into stiffness and mass
+ *                                      (./change-attribution.ts)
+ *   <model>.<run>.nodes.csv.gz         a fingerprint of each node's rows of K and of M
+ *                                      (./change-map.ts), when K was given to the save
  *
  * One unit: the data files carry the save's run id in their names and are written (atomically)
  * first; the JSON, renamed into place last, is the single commit point. A reader therefore sees
@@ -47,7 +53,9 @@
  * mode k's kinetic energy is e_ki = φ_ki (Mφ_k)_i with Σ_i e_ki = 1 (the modal kinetic-energy
  * distribution, common practice), DOFs ranked by Σ_k e_ki (ties: lower DOF first); the smallest
  * share of any mode's kinetic energy the subset keeps is stored and reported. Stored DOF numbers
- * are 1-based, as in every file modalgate writes.
+ * are 1-based, as in every file modalgate writes. Baselines saved before M₀φ and the
+ * fingerprints were stored still load (both entries are optional); the attribution then says
+ * what is missing.
  */
 import { createHash, randomBytes } from 'node:crypto';
 import { existsSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
@@ -64,9 +72,13 @@ import { acquireFileLock, releaseIfOurs } from '../io/file-lock.js';
 import { withSignalCleanup } from '../io/signal-cleanup.js';
 import { symMultiplyBlock, type SymmetricCsc } from '../sparse/csc.js';
 import { restrictRows, type ShapeBlock } from './mac.js';
+import { readNodeFingerprints, writeNodeFingerprints, type FingerprintTable } from '../io/node-fingerprint-file.js';
+import { nodeFingerprints } from './change-map.js';
 
 const BASELINE_SCHEMA_VERSION = 2;
 const DEFAULT_BASELINE_MAX_DOFS = 2000;
+/** Largest DOFs × modes for which M₀φ is stored beside the shapes (32 MB in memory; our choice). */
+export const MAX_MASS_SHAPE_VALUES = 4_000_000;
 
 /** Which DOFs keep their shape values: every DOF (default), the DOFs of listed nodes, or the automatic subset. */
 export type ShapeDofSelection = 'all' | 'auto' | { nodes: number[]; components?: string[] };
@@ -109,6 +121,10 @@ export interface BaselineSnapshot {
   };
   /** The model's DOF map, or null when it had none. */
   dofMap: BaselineDataFile | null;
+  /** M₀φ of every mode on every DOF (absent: not stored, or saved by an older modalgate). */
+  massShapes?: BaselineDataFile & { rows: number; cols: number };
+  /** Fingerprints of each node's K and M rows (absent: saved by an older modalgate). */
+  nodeFingerprints?: BaselineDataFile & { nodes: number };
 }
 
 export interface LoadedBaseline {
@@ -119,12 +135,18 @@ export interface LoadedBaseline {
   dofs: Int32Array | null;
   /** The DOF map stored with the baseline, or null. */
   dofMap: DofMap | null;
+  /** M₀φ on every DOF, column-major like `shapes`, or null when not stored. */
+  massShapes: ShapeBlock | null;
+  /** Node fingerprints of K and M, or null when not stored. */
+  fingerprints: FingerprintTable | null;
 }
 
 export interface SaveBaselineInput {
   model: string;
   modes: ModesResult;
   mass: SymmetricCsc;
+  /** The stiffness the modes were solved with: when given, the node fingerprints are stored. */
+  stiffness?: SymmetricCsc;
   dofMap?: DofMap;
   massProperties?: unknown;
   selection?: ShapeDofSelection;
@@ -133,12 +155,17 @@ export interface SaveBaselineInput {
   /** Config file and place, for errors in the selection. */
   configFile?: string;
   where?: string;
+  /** Fixed run id (16 hex digits) and save time, for fixtures that must come out byte-identical; default random and now. */
+  runId?: string;
+  createdAt?: string;
 }
 
 export interface SavedBaselineFiles {
   json: string;
   shapes: string;
   dofs?: string;
+  massShapes?: string;
+  nodes?: string;
 }
 
 export function baselineJsonFile(dir: string, model: string): string {
@@ -149,8 +176,8 @@ export function baselineLockFile(dir: string, model: string): string {
   return join(dir, `${model}.baseline.lock`);
 }
 
-function dataFileNames(model: string, runId: string): { shapes: string; dofs: string } {
-  return { shapes: `${model}.${runId}.shapes.mtx.gz`, dofs: `${model}.${runId}.dofs.csv.gz` };
+function dataFileNames(model: string, runId: string): { shapes: string; dofs: string; massShapes: string; nodes: string } {
+  return { shapes: `${model}.${runId}.shapes.mtx.gz`, dofs: `${model}.${runId}.dofs.csv.gz`, massShapes: `${model}.${runId}.mass-shapes.mtx.gz`, nodes: `${model}.${runId}.nodes.csv.gz` };
 }
 
 function sha256OfFile(path: string): string {
@@ -162,15 +189,16 @@ export async function saveBaseline(dir: string, input: SaveBaselineInput): Promi
   const { modes } = input;
   const m = modes.eigenvalues.length;
   const dofs = selectShapeDofs(input);
-  const runId = randomBytes(8).toString('hex');
+  const runId = input.runId ?? randomBytes(8).toString('hex');
   const names = dataFileNames(input.model, runId);
-  const paths = { json: baselineJsonFile(dir, input.model), shapes: join(dir, names.shapes), dofs: join(dir, names.dofs) };
+  const paths = { json: baselineJsonFile(dir, input.model), shapes: join(dir, names.shapes), dofs: join(dir, names.dofs), massShapes: join(dir, names.massShapes), nodes: join(dir, names.nodes) };
+  const dataPaths = [paths.shapes, paths.dofs, paths.massShapes, paths.nodes];
   const lock = await acquireFileLock(baselineLockFile(dir, input.model), `the baseline of model "${input.model}"`);
   let committed = false;
   // on a signal before the commit: our temporary files, our data files and the lock go
   const cleanup = (): void => {
     removeTempFiles([dir], process.pid);
-    if (!committed) for (const p of [paths.shapes, paths.dofs]) rmSync(p, { force: true });
+    if (!committed) for (const p of dataPaths) rmSync(p, { force: true });
     lock.release();
   };
   try {
@@ -181,12 +209,20 @@ export async function saveBaseline(dir: string, input: SaveBaselineInput): Promi
       const comment = `mass-normalized mode shapes of model ${input.model}: ${rows} DOFs (${selection}) x ${m} modes; modalgate baseline run ${runId}`;
       await writeDenseArray(paths.shapes, rows, m, values, { gzip: true, comment });
       if (input.dofMap) await writeDofMap(paths.dofs, input.dofMap, { gzip: true });
+      // M₀φ beside every-DOF shapes when the size allows; the fingerprints when K is known
+      const keepMassShapes = !dofs && m > 0 && modes.n * m <= MAX_MASS_SHAPE_VALUES;
+      if (keepMassShapes) {
+        const massShapes = symMultiplyBlock(input.mass, modes.shapes.subarray(0, modes.n * m), m);
+        await writeDenseArray(paths.massShapes, modes.n, m, massShapes, { gzip: true, comment: `M times the mass-normalized mode shapes of model ${input.model}; modalgate baseline run ${runId}` });
+      }
+      const fingerprints = input.stiffness ? nodeFingerprints(input.stiffness, input.mass, input.dofMap) : null;
+      if (fingerprints) await writeNodeFingerprints(paths.nodes, fingerprints);
       const snapshot: BaselineSnapshot = {
         schemaVersion: BASELINE_SCHEMA_VERSION,
         kind: 'modalgate-baseline',
         model: input.model,
         runId,
-        createdAt: new Date().toISOString(),
+        createdAt: input.createdAt ?? new Date().toISOString(),
         toolVersion: input.toolVersion,
         dofCount: modes.n,
         eigenvalues: Array.from(modes.eigenvalues),
@@ -210,15 +246,23 @@ export async function saveBaseline(dir: string, input: SaveBaselineInput): Promi
           energyShareKept: dofs ? keptEnergyShare(modes, input.mass, dofs) : 1,
         },
         dofMap: input.dofMap ? { file: names.dofs, sha256: sha256OfFile(paths.dofs) } : null,
+        massShapes: keepMassShapes ? { file: names.massShapes, sha256: sha256OfFile(paths.massShapes), rows: modes.n, cols: m } : undefined,
+        nodeFingerprints: fingerprints ? { file: names.nodes, sha256: sha256OfFile(paths.nodes), nodes: fingerprints.nodes.length } : undefined,
       };
       // the commit point: one rename
       writeFileAtomic(paths.json, `${JSON.stringify(snapshot, (_k, v: unknown) => (typeof v === 'number' && !Number.isFinite(v) ? String(v) : v), 2)}\n`);
       committed = true;
       removeOlderUnits(dir, input.model, runId);
-      return input.dofMap ? paths : { json: paths.json, shapes: paths.shapes };
+      return {
+        json: paths.json,
+        shapes: paths.shapes,
+        ...(input.dofMap ? { dofs: paths.dofs } : {}),
+        ...(keepMassShapes ? { massShapes: paths.massShapes } : {}),
+        ...(fingerprints ? { nodes: paths.nodes } : {}),
+      };
     });
   } catch (e) {
-    if (!committed) for (const p of [paths.shapes, paths.dofs]) rmSync(p, { force: true });
+    if (!committed) for (const p of dataPaths) rmSync(p, { force: true });
     throw e;
   } finally {
     lock.release();
@@ -245,7 +289,7 @@ export function clearStoppedSave(dir: string, model: string): void {
 /** Data files of this model from other runs (and the version-1 shapes file), after a commit. */
 function removeOlderUnits(dir: string, model: string, runId: string): void {
   const escaped = model.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
-  const unit = new RegExp(`^${escaped}\\.([0-9a-f]{16})\\.(shapes\\.mtx|dofs\\.csv)\\.gz$`);
+  const unit = new RegExp(`^${escaped}\\.([0-9a-f]{16})\\.(shapes\\.mtx|dofs\\.csv|mass-shapes\\.mtx|nodes\\.csv)\\.gz$`);
   for (const name of safeList(dir)) {
     const hit = unit.exec(name);
     if ((hit && hit[1] !== runId) || name === `${model}.shapes.mtx.gz`) rmSync(join(dir, name), { force: true });
@@ -339,7 +383,19 @@ export async function loadBaseline(dir: string, model: string): Promise<LoadedBa
   }
   const dofs = snapshot.shapes.dofs ? Int32Array.from(snapshot.shapes.dofs, (d) => d - 1) : null;
   const dofMap = snapshot.dofMap ? await readDofMap(checkedDataFile(dir, json, snapshot, snapshot.dofMap, 'DOF map'), snapshot.dofCount) : null;
-  return { file: json, snapshot, shapes: block, dofs, dofMap };
+  let massShapes: ShapeBlock | null = null;
+  if (snapshot.massShapes) {
+    const path = checkedDataFile(dir, json, snapshot, snapshot.massShapes, 'M·shapes');
+    massShapes = await readDenseArray(path);
+    if (massShapes.rows !== snapshot.dofCount || massShapes.cols !== snapshot.shapes.cols) throw new InputError(path, `holds ${massShapes.rows} x ${massShapes.cols} values but ${json} says ${snapshot.dofCount} x ${snapshot.shapes.cols}`);
+  }
+  let fingerprints: FingerprintTable | null = null;
+  if (snapshot.nodeFingerprints) {
+    const path = checkedDataFile(dir, json, snapshot, snapshot.nodeFingerprints, 'node fingerprint');
+    fingerprints = readNodeFingerprints(path);
+    if (fingerprints.nodes.length !== snapshot.nodeFingerprints.nodes) throw new InputError(path, `holds ${fingerprints.nodes.length} nodes but ${json} says ${snapshot.nodeFingerprints.nodes}`);
+  }
+  return { file: json, snapshot, shapes: block, dofs, dofMap, massShapes, fingerprints };
 }
 
 function checkedDataFile(dir: string, json: string, snapshot: BaselineSnapshot, entry: BaselineDataFile, what: string): string {
@@ -370,6 +426,8 @@ function parseSnapshot(file: string): BaselineSnapshot {
     s.frequenciesHz.every((f) => typeof f === 'number') &&
     dataFile(s.shapes) &&
     (s.dofMap === null || dataFile(s.dofMap)) &&
+    (s.massShapes === undefined || (dataFile(s.massShapes) && s.massShapes.rows === s.dofCount && s.massShapes.cols === s.frequenciesHz.length)) &&
+    (s.nodeFingerprints === undefined || (dataFile(s.nodeFingerprints) && Number.isInteger(s.nodeFingerprints.nodes))) &&
     s.shapes!.cols === s.frequenciesHz.length &&
     (s.shapes!.dofs === undefined ? s.shapes!.rows === s.dofCount : (s.shapes!.dofs.length === s.shapes!.rows && s.shapes!.dofs.every((d) => Number.isInteger(d) && d >= 1 && d <= s.dofCount!)));
   if (!ok) throw new InputError(file, 'is an incomplete or inconsistent baseline (frequencies, DOF count, shapes or DOF-map entry missing or out of range)');

@@ -174,7 +174,7 @@ export function compareWithBaseline(baseline: LoadedBaseline, current: CurrentMo
 }
 
 /** Match the stored shape rows with the model's DOFs (see step 1 above). */
-function matchDofs(baseline: LoadedBaseline, current: CurrentModel): DofMatch {
+export function matchDofs(baseline: LoadedBaseline, current: Pick<CurrentModel, 'modes' | 'dofMap'>): DofMatch {
   const s = baseline.snapshot;
   const n = current.modes.n;
   const stored = baseline.shapes.rows;

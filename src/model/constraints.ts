@@ -101,12 +101,19 @@ export function constrainedDofMask(n: number, dofMap: DofMap | undefined, sets: 
 /** Relative default tolerance of a region: this share of the model's largest extent (our choice). */
 export const REGION_TOLERANCE_SHARE = 1e-6;
 
-/**
- * Whether DOF i's node lies in the region: on the plane (|x_a − at| ≤ tol), in the box
- * (min − tol ≤ x ≤ max + tol componentwise), or on the cylinder's surface (| ‖p − c‖⊥ − r | ≤ tol,
- * the distance taken across the axis, and from − tol ≤ x_a ≤ to + tol when given).
- */
+/** Whether DOF i's node lies in the region (see regionPointTest). */
 function regionTest(region: NodeRegion, map: DofMap): (i: number) => boolean {
+  const inside = regionPointTest(region, map);
+  return (i) => inside(map.x[i], map.y[i], map.z[i]);
+}
+
+/**
+ * Whether a point lies in the region: on the plane (|x_a − at| ≤ tol), in the box
+ * (min − tol ≤ x ≤ max + tol componentwise), or on the cylinder's surface (| ‖p − c‖⊥ − r | ≤ tol,
+ * the distance taken across the axis, and from − tol ≤ x_a ≤ to + tol when given). The default
+ * tolerance is REGION_TOLERANCE_SHARE of the largest extent of `map`'s nodes.
+ */
+export function regionPointTest(region: NodeRegion, map: DofMap): (x: number, y: number, z: number) => boolean {
   const coords = [map.x, map.y, map.z];
   // the model's largest extent sets the default tolerance
   let extent = 0;
@@ -122,21 +129,21 @@ function regionTest(region: NodeRegion, map: DofMap): (i: number) => boolean {
   const tol = region.tolerance ?? REGION_TOLERANCE_SHARE * (extent > 0 ? extent : 1);
   const axisIndex = (a: 'x' | 'y' | 'z'): number => 'xyz'.indexOf(a);
   if ('plane' in region) {
-    const c = coords[axisIndex(region.plane.axis)];
-    return (i) => Math.abs(c[i] - region.plane.at) <= tol;
+    const a = axisIndex(region.plane.axis);
+    return (...p) => Math.abs(p[a] - region.plane.at) <= tol;
   }
   if ('box' in region) {
     const { min, max } = region.box;
-    return (i) => coords.every((c, k) => c[i] >= min[k] - tol && c[i] <= max[k] + tol);
+    return (...p) => p.every((c, k) => c >= min[k] - tol && c <= max[k] + tol);
   }
   const { axis, through, radius, from, to } = region.cylinder;
   const a = axisIndex(axis);
   const [u, v] = [0, 1, 2].filter((k) => k !== a);
-  return (i) => {
-    const along = coords[a][i];
+  return (...p) => {
+    const along = p[a];
     if (from !== undefined && along < from - tol) return false;
     if (to !== undefined && along > to + tol) return false;
-    const r = Math.hypot(coords[u][i] - through[u], coords[v][i] - through[v]);
+    const r = Math.hypot(p[u] - through[u], p[v] - through[v]);
     return Math.abs(r - radius) <= tol;
   };
 }

@@ -80,9 +80,10 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
     if (geometry) report.geometry = geometry;
     if (job.units) report.units = job.units;
     // baseline: compare with the stored snapshot before the rules
-    const compared = await runBaselineComparison(job, { modes, mass: constrained.mass, dofMap: constrained.dofMap });
+    const compared = await runBaselineComparison(job, { modes, mass: constrained.mass, stiffness: constrained.stiffness, dofMap: constrained.dofMap });
     const comparison = compared.comparison;
     if (comparison) report.comparison = comparison;
+    if (compared.changes) report.changes = compared.changes;
     if (compared.warning) {
       report.baselineWarning = compared.warning;
       unavailable.baseline = { status: 'skip', reason: `not evaluated: ${compared.warning}.` };
@@ -99,11 +100,12 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
       geometry,
       comparison,
       units: job.units,
+      changes: compared.changes,
     };
     report.rules = runRules(context, job.rules, unavailable);
     options.onPhases?.({ readMs, ...solvePhases(modes), rulesMs: performance.now() - rulesStart });
     // --save-baseline after the rules; a failed save keeps the rule results and ends in exit 2
-    const saved = await runBaselineSave(job, { modes, mass: constrained.mass, dofMap: constrained.dofMap, geometry }, verdictOf(report.rules));
+    const saved = await runBaselineSave(job, { modes, mass: constrained.mass, stiffness: constrained.stiffness, dofMap: constrained.dofMap, geometry }, verdictOf(report.rules));
     if (saved.saved) report.baselineSaved = saved.saved;
     if (saved.notSaved) report.baselineNotSaved = saved.notSaved;
     if (saved.failure) {

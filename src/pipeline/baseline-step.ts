@@ -2,7 +2,9 @@
  * The baseline stages of the per-model pipeline.
  *
  * Before the rules: compare the solved modes with the model's stored baseline when one is
- * configured (`baseline.dir` or `check --baseline`). A missing baseline directory (the first pull
+ * configured, and explain what changed (the change map of K and M rows, and each frequency
+ * change's first-order attribution to nodes, src/model/explain-changes.ts; the change map is
+ * made even when no modes were solved) (`baseline.dir` or `check --baseline`). A missing baseline directory (the first pull
  * request of a new project) or a model without a baseline there yet only makes the baseline rules
  * skip, each saying why, and leaves a warning on the model; a broken baseline unit is an
  * InputError (the model ends with exit 2).
@@ -23,17 +25,23 @@ import type { ComparisonFacts } from '../model/comparison-facts.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
 import { baselineJsonFile, loadBaseline, saveBaseline, type SavedBaselineFiles } from '../model/baseline-store.js';
 import { compareWithBaseline, defaultComparisonSettings } from '../model/compare-baseline.js';
+import { explainChanges } from '../model/explain-changes.js';
+import type { ExplainedChanges } from '../model/change-facts.js';
 
 /** The solved model as the baseline steps see it (constrained K/M and DOF map, as the rules do). */
 export interface BaselineInput {
   modes?: ModesResult;
   mass: SymmetricCsc;
+  /** The stiffness the modes were solved with (the change map and the attribution read it). */
+  stiffness?: SymmetricCsc;
   dofMap?: DofMap;
   geometry?: GeometryFacts;
 }
 
 export interface BaselineCompareResult {
   comparison?: ComparisonFacts;
+  /** Change map and attribution (made whenever a baseline was loaded and K is known, even without modes). */
+  changes?: ExplainedChanges;
   /** Why no comparison was made although one was asked for (shown as a warning; the baseline rules skip with it). */
   warning?: string;
 }
@@ -42,7 +50,7 @@ export async function runBaselineComparison(job: ModelJob, input: BaselineInput)
   const settings = job.baseline;
   const modes = input.modes;
   const dir = settings?.compareDir;
-  if (!settings || dir === undefined || !modes) return {};
+  if (!settings || dir === undefined || (!modes && !input.stiffness)) return {};
   if (!existsSync(dir) || !statSync(dir).isDirectory()) {
     return { warning: `baseline directory ${dir} not found: the baseline rules are skipped (a new project has none until a run with check --save-baseline)` };
   }
@@ -50,13 +58,17 @@ export async function runBaselineComparison(job: ModelJob, input: BaselineInput)
   if (!baseline) {
     return { warning: `no baseline for model "${job.name}" yet (${baselineJsonFile(dir, job.name)} is missing; save one with check --save-baseline)` };
   }
+  const explain = (comparison?: ComparisonFacts): ExplainedChanges | undefined =>
+    input.stiffness ? explainChanges({ baseline, stiffness: input.stiffness, mass: input.mass, dofMap: input.dofMap, modes, comparison }) : undefined;
+  if (!modes) return { changes: explain() };
   const comparison = defaultComparisonSettings({
     weighting: settings.weighting,
     minPairCorrelation: settings.minPairMac,
     windowPercent: settings.windowPercent,
     repeatedTolerancePercent: settings.repeatedTolerancePercent,
   });
-  return { comparison: compareWithBaseline(baseline, { modes, mass: input.mass, dofMap: input.dofMap }, comparison) };
+  const facts = compareWithBaseline(baseline, { modes, mass: input.mass, dofMap: input.dofMap }, comparison);
+  return { comparison: facts, changes: explain(facts) };
 }
 
 export interface BaselineSaveResult {
@@ -89,6 +101,7 @@ function save(job: ModelJob, settings: BaselineJob, dir: string, input: Baseline
     model: job.name,
     modes: input.modes,
     mass: input.mass,
+    stiffness: input.stiffness,
     dofMap: input.dofMap,
     massProperties: input.geometry?.massProperties,
     selection: settings.shapes,

@@ -9,6 +9,7 @@ import type { ClusterExtension, SturmCheck } from '../eigen/modes-types.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
 import type { ComparisonFacts } from '../model/comparison-facts.js';
 import type { ReportUnits } from '../rules/utils/units.js';
+import type { ExplainedChanges } from '../model/change-facts.js';
 
 export const CAUTION =
   'modalgate screens models and does not certify structures: its results support, never replace, review by a qualified engineer under the applicable codes.';
@@ -91,8 +92,10 @@ export interface ModelReport {
   comparison?: ComparisonFacts;
   /** Units of the config (`units:`) the texts show masses and lengths in; the facts stay in the model's units. */
   units?: ReportUnits;
+  /** What changed since the baseline (change map) and where each frequency change came from (attribution). */
+  changes?: ExplainedChanges;
   /** Baseline files written for this model by `check --save-baseline`. */
-  baselineSaved?: { json: string; shapes: string; dofs?: string };
+  baselineSaved?: { json: string; shapes: string; dofs?: string; massShapes?: string; nodes?: string };
   /** Why a baseline comparison asked for was not made (missing directory or baseline): a warning. */
   baselineWarning?: string;
   /** Why `check --save-baseline` saved nothing for this model (e.g. its verdict is error). */

@@ -28,7 +28,7 @@ export function formatConsole(report: CheckReport, options: ConsoleOptions = {})
   const level = options.colorLevel ?? colorLevelFromEnv();
   const c = level === undefined ? new Chalk() : new Chalk({ level });
   const out: string[] = [];
-  if (!options.quiet) for (const m of report.models) out.push(modelLine(m, c));
+  if (!options.quiet) for (const m of report.models) out.push(modelLine(m, c), ...changeLine(m, c));
   const rows = report.models.flatMap((m) => m.rules.filter(notable).map((r) => ({ m, r })));
   const problems = report.models.filter((m) => m.problem);
   if (rows.length > 0 || problems.length > 0) {
@@ -61,6 +61,15 @@ function modelLine(m: ModelReport, c: ChalkInstance): string {
   parts.push(counts.join(', '));
   parts.push(c.dim(`${(m.timeMs / 1000).toFixed(1)} s`));
   return parts.join('  ');
+}
+
+/** "  changed since the baseline: 3 nodes in 1 region, largest nodes 5, 1003 near (…); 0 added, 0 removed" */
+function changeLine(m: ModelReport, c: ChalkInstance): string[] {
+  const map = m.changes?.changeMap;
+  if (!map || map.nodes.length === 0) return [];
+  const top = map.regions[0];
+  const largest = top ? `, largest ${top.label}` : '';
+  return [c.dim(`    changed since the baseline: ${map.changedNodes} nodes in ${map.regions.length} region(s)${largest}; ${map.addedNodes} added, ${map.removedNodes} removed`)];
 }
 
 function firstElastic(m: ModelReport): number | null {

@@ -5,7 +5,8 @@
  * verdict, key figures, the rule outcomes, and plots of what the report already holds —
  * frequencies per mode, residual per mode against the eigen-residual limit, cumulative effective
  * mass per direction against the mass-participation fraction, and, after a baseline comparison,
- * the MAC matrix and the frequency change per paired mode.
+ * the MAC matrix and the frequency change per paired mode, and what changed since the baseline
+ * (the change map, and a bar chart per changed mode of where its change comes from).
  * Reporters never compute: every number shown comes from the CheckReport; the plots only scale
  * the values to pixels (./svg-plots.ts). Every text from the data is escaped.
  */
@@ -17,6 +18,7 @@ import type { GeometryFacts } from '../model/geometry-facts.js';
 import type { CheckReport, ModelReport } from '../pipeline/result-types.js';
 import { ruleCounts } from '../pipeline/result-types.js';
 import { firstElasticDetails, flaggedModes, participationDetails, relativeResiduals, rigidBodyModeCount } from '../pipeline/rule-details.js';
+import { changesSection } from './html-changes.js';
 import { barChart, escapeText as esc, heatMap, linearScale, logScale, stemChart, stepChart, valueScale, type ModeValue, type ReferenceLine } from './svg-plots.js';
 
 const VERDICT_WORD = { pass: 'PASS', fail: 'FAIL', error: 'ERROR' } as const;
@@ -71,6 +73,7 @@ function modelSection(m: ModelReport, i: number): string {
   if (g) out.push(geometrySection(g, m.units));
   const c = m.comparison;
   if (c) out.push(comparisonSection(c));
+  if (m.changes) out.push(changesSection(m.changes));
   if (m.baselineSaved) out.push(`<p>Baseline saved: ${esc(m.baselineSaved.json)}</p>`);
   out.push('</section>');
   return out.join('\n');

@@ -15,6 +15,7 @@ import { formatNumber } from '../rules/utils/message.js';
 import { flaggedModes as flaggedModesOf } from '../pipeline/rule-details.js';
 import type { ComparisonFacts, ModePair } from '../model/comparison-facts.js';
 import type { CheckReport, ModelReport } from '../pipeline/result-types.js';
+import { changesMarkdown } from './markdown-changes.js';
 
 export interface MarkdownOptions {
   /** Show every mode of the comparison, not only the flagged ones. */
@@ -47,6 +48,7 @@ function modelSection(m: ModelReport, options: MarkdownOptions): string[] {
   if (failing.length > 0) out.push('');
   const facts = m.comparison;
   if (facts) out.push(...comparisonTable(facts, m.rules, options));
+  out.push(...changesMarkdown(m.changes));
   const skipped = m.rules.find((r) => r.ruleId in FLAG_LABEL && r.status === 'skip');
   if (!facts && skipped) out.push(`No baseline comparison: ${inline(skipped.message.replace(/^not evaluated: /, ''))}`, '');
   return out;

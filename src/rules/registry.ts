@@ -21,6 +21,7 @@ import { modeShapeMatch } from './mode-shape-match.js';
 import { modeSwap } from './mode-swap.js';
 import { newOrLostModes } from './new-or-lost-modes.js';
 import { massDrift } from './mass-drift.js';
+import { changeOutsideRegion } from './change-outside-region.js';
 import { rigidBodyEnergy } from './rigid-body-energy.js';
 import { totalMass } from './total-mass.js';
 import { centerOfMass } from './center-of-mass.js';
@@ -53,6 +54,7 @@ export const builtInRules: readonly AnyRule[] = [
   modeSwap,
   newOrLostModes,
   massDrift,
+  changeOutsideRegion,
 ];
 
 const byId = new Map(builtInRules.map((r) => [r.id, r]));

@@ -5,6 +5,7 @@ import type { MatrixSummary } from '../io/matrix-summary.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
 import type { ComparisonFacts } from '../model/comparison-facts.js';
 import type { ReportUnits } from './utils/units.js';
+import type { ExplainedChanges } from '../model/change-facts.js';
 
 /** `error` fails the gate, `warning` reports without failing, `off` does not run. */
 export type Severity = 'error' | 'warning' | 'off';
@@ -43,6 +44,8 @@ export interface RuleContext {
   comparison?: ComparisonFacts;
   /** Units for messages and mass targets (`units:` of the config); none: the model's own, unnamed. */
   units?: ReportUnits;
+  /** Change map and frequency-change attribution against the baseline (src/model/explain-changes.ts). */
+  changes?: ExplainedChanges;
 }
 
 export type RuleNeed = 'modes' | 'dofMap' | 'baseline';

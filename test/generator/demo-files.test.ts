@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { mkdtempSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { join, relative, resolve } from 'node:path';
 import { DEMO_MODELS, makeDemo } from '../../fixtures/generator/make-demo.js';
 import { readMatrixMarket } from '../../src/io/matrix-market-reader.js';
 import { readDofMap } from '../../src/io/dof-map-reader.js';
@@ -25,9 +25,11 @@ describe('demo fixtures', () => {
     const tmp = mkdtempSync(join(tmpdir(), 'modalgate-demo-'));
     try {
       await makeDemo(tmp);
-      const made = readdirSync(tmp).sort();
+      // the models, scenario.json and the committed baseline in baselines/
+      const made = readdirSync(tmp, { recursive: true, withFileTypes: true }).filter((e) => e.isFile()).map((e) => relative(tmp, join(e.parentPath, e.name))).sort();
+      expect(made).toContain('baselines/mast-thin-brace.baseline.json');
       for (const f of made) expect(readFileSync(join(tmp, f)).equals(readFileSync(join(demoDir, f))), f).toBe(true);
-      const total = readdirSync(demoDir).reduce((s, f) => s + statSync(join(demoDir, f)).size, 0);
+      const total = made.reduce((s, f) => s + statSync(join(demoDir, f)).size, 0);
       expect(total).toBeLessThan(2 * 1024 * 1024);
     } finally {
       rmSync(tmp, { recursive: true, force: true });
