@@ -13,8 +13,9 @@ import { matchDofs } from './compare-baseline.js';
 import type { ComparisonFacts } from './comparison-facts.js';
 import { compareFingerprints, nodeFingerprints } from './change-map.js';
 import { nodeIndexOf } from './node-index.js';
+import { regionLabel } from './node-regions.js';
 import { attributeChanges } from './change-attribution.js';
-import type { AttributionRegion, ChangeMapFacts, ExplainedChanges } from './change-facts.js';
+import type { AttributionRegion, ChangeMapFacts, ExplainedChanges, NodeRanges } from './change-facts.js';
 
 export interface ExplainInput {
   baseline: LoadedBaseline;
@@ -24,6 +25,8 @@ export interface ExplainInput {
   /** Modes now and the comparison's pairs; without them only the change map is made. */
   modes?: ModesResult;
   comparison?: ComparisonFacts;
+  /** Name of the model's length unit (`units.length`), shown after region coordinates. */
+  lengthUnit?: string;
 }
 
 export function explainChanges(input: ExplainInput): ExplainedChanges {
@@ -36,7 +39,7 @@ export function explainChanges(input: ExplainInput): ExplainedChanges {
   const why = attributionBlocker(input);
   if (why) {
     out.attributionMissing = why;
-    return out;
+    return input.lengthUnit ? relabelled(out, input.lengthUnit) : out;
   }
   const modes = input.modes!, comparison = input.comparison!;
   const match = matchDofs(baseline, { modes, dofMap: input.dofMap });
@@ -68,7 +71,18 @@ export function explainChanges(input: ExplainInput): ExplainedChanges {
     regions: regions ? regions.regions : null,
     missing,
   });
-  return out;
+  return input.lengthUnit ? relabelled(out, input.lengthUnit) : out;
+}
+
+/** The same facts with every region label naming the length unit after its point. */
+function relabelled(out: ExplainedChanges, unit: string): ExplainedChanges {
+  const label = <T extends { nodeRanges: NodeRanges; centroid: [number, number, number] | null; label: string }>(g: T): T => ({ ...g, label: regionLabel(g.nodeRanges, g.centroid, unit) });
+  const map = out.changeMap;
+  return {
+    ...out,
+    changeMap: map ? { ...map, regions: map.regions.map(label), removed: map.removed ? label(map.removed) : null } : null,
+    attribution: out.attribution ? { ...out.attribution, regions: out.attribution.regions.map(label) } : null,
+  };
 }
 
 function attributionBlocker(input: ExplainInput): string | null {

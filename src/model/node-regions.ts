@@ -87,8 +87,12 @@ export function describePoint(p: readonly [number, number, number]): string {
   return `(${p.map(f).join(', ')})`;
 }
 
-/** How a group of nodes is named in messages and reports: "nodes 1201–1240 near (2.0, 0.4, 1.1)". */
-export function regionLabel(ranges: NodeRanges, at: readonly [number, number, number] | null): string {
+/**
+ * How a group of nodes is named in messages and reports: "nodes 1201–1240 near (2.0, 0.4, 1.1)",
+ * with the length unit's name after the point when the config names one ("… (2.0, 0.4, 1.1) m").
+ */
+export function regionLabel(ranges: NodeRanges, at: readonly [number, number, number] | null, lengthUnit?: string): string {
   const count = ranges.reduce((s, [lo, hi]) => s + hi - lo + 1, 0);
-  return `${count === 1 ? 'node' : 'nodes'} ${describeRanges(ranges)}${at ? ` near ${describePoint(at)}` : ''}`;
+  const unit = lengthUnit ? ` ${lengthUnit}` : '';
+  return `${count === 1 ? 'node' : 'nodes'} ${describeRanges(ranges)}${at ? ` near ${describePoint(at)}${unit}` : ''}`;
 }

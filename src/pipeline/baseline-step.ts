@@ -59,7 +59,7 @@ export async function runBaselineComparison(job: ModelJob, input: BaselineInput)
     return { warning: `no baseline for model "${job.name}" yet (${baselineJsonFile(dir, job.name)} is missing; save one with check --save-baseline)` };
   }
   const explain = (comparison?: ComparisonFacts): ExplainedChanges | undefined =>
-    input.stiffness ? explainChanges({ baseline, stiffness: input.stiffness, mass: input.mass, dofMap: input.dofMap, modes, comparison }) : undefined;
+    input.stiffness ? explainChanges({ baseline, stiffness: input.stiffness, mass: input.mass, dofMap: input.dofMap, modes, comparison, lengthUnit: job.units?.length }) : undefined;
   if (!modes) return { changes: explain() };
   const comparison = defaultComparisonSettings({
     weighting: settings.weighting,

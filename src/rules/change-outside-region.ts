@@ -104,7 +104,7 @@ export const changeOutsideRegion: RuleDefinition<ChangeOutsideRegionOptions, 'al
     const kinds = (k: ChangedNode['change'][]): number => counted.filter((n) => k.includes(n.change)).length;
     const counts = { changed: kinds(['stiffness', 'mass', 'stiffness and mass']), added: kinds(['added']), removed: kinds(['removed']), names };
     if (outside.length === 0) return outcome('pass', 'pass', counts, 0, 0, details);
-    return outcome('fail', 'fail', { count: outside.length, total: counted.length, names, list: formatList(groups(outside)) }, outside.length, 0, details);
+    return outcome('fail', 'fail', { count: outside.length, total: counted.length, names, list: formatList(groups(outside, context.units?.length)) }, outside.length, 0, details);
   },
 };
 
@@ -121,13 +121,13 @@ function allowedTest(a: AllowedNodes, dofMap: Parameters<typeof regionPointTest>
 }
 
 /** "stiffness at nodes 12–14 near (0.5, 0, 1.5)", one phrase per kind of change and region. */
-function groups(outside: ChangedNode[]): string[] {
+function groups(outside: ChangedNode[], lengthUnit: string | undefined): string[] {
   const by = new Map<string, ChangedNode[]>();
   for (const n of outside) {
     const key = `${n.change}|${n.region ?? 'removed'}`;
     by.set(key, [...(by.get(key) ?? []), n]);
   }
   return [...by.values()].map((list) => {
-    return text('group', { kind: list[0].change, where: regionLabel(nodeRanges(list.map((n) => n.node)), centroid(list)) });
+    return text('group', { kind: list[0].change, where: regionLabel(nodeRanges(list.map((n) => n.node)), centroid(list), lengthUnit) });
   });
 }

@@ -68,6 +68,21 @@ describe('baseline: M₀φ and node fingerprints', () => {
     }
   });
 
+  it('region labels name the length unit of the config after their point (units.length)', async () => {
+    const dir = await saved();
+    try {
+      const b = (await loadBaseline(dir, 'c'))!;
+      const heavier = springChain([900, 700, 1200, 500], [1.5, 1.0, 2.5, 1.2]);
+      const plain = explainChanges({ baseline: b, stiffness: heavier.stiffness, mass: heavier.mass, dofMap: heavier.dofMap });
+      const named = explainChanges({ baseline: b, stiffness: heavier.stiffness, mass: heavier.mass, dofMap: heavier.dofMap, lengthUnit: 'mm' });
+      const label = plain.changeMap!.regions[0].label;
+      expect(label).toMatch(/^node 3 near \([^)]*\)$/);
+      expect(named.changeMap!.regions[0].label).toBe(`${label} mm`);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+
   it('a fingerprint file from another save is refused by its SHA-256', async () => {
     const dir = await saved();
     try {
