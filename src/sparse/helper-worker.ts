@@ -1,5 +1,5 @@
 /**
- * The helper thread (helper-thread.ts). It waits for jobs on its message port, hands each to
+ * A helper thread (helper-thread.ts starts N − 1 of them, each with its own port). It waits for jobs on its message port, hands each to
  * its kind's handler (the job modules' handler tables), posts the answer (tagged with the job's
  * id) on the same port and then writes the id into the job's flag, so the main thread — blocked
  * in Atomics.wait — can take the answer with receiveMessageOnPort. Every job answers, an
