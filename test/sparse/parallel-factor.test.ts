@@ -11,7 +11,8 @@
  * the same N, bit for bit (the results must not depend on timing).
  */
 import path from 'node:path';
-import { spawnSync } from 'node:child_process';
+import { availableParallelism } from 'node:os';
+import { Worker } from 'node:worker_threads';
 import { pathToFileURL } from 'node:url';
 import { afterAll, describe, expect, it } from 'vitest';
 import { diagonalOf, maxAbsEntry, symMultiplyBlock, type SymmetricCsc } from '../../src/sparse/csc.js';
@@ -90,7 +91,7 @@ describe.each(models)('N-thread LDLᵀ and solves from the compiled modules: $na
     { shift: 0.5 * ratio, residual: 1e-11, acrossN: 1e-9 },
   ].filter((_, i) => i === which);
 
-  it(`N = 1…4 agree to rounding and each N repeats bit for bit (shift ${which === 0 ? 'below' : 'inside'} the spectrum)`, async () => {
+  it(`N = 1…4 agree to rounding and each N repeats bit for bit, also in recycled memory (shift ${which === 0 ? 'below' : 'inside'} the spectrum)`, async () => {
     const { createShiftedSolver } = await load<Solvers>('sparse/shifted-solver.js');
     const { setThreadCount } = await threadsModule();
     const serial: { x: Float64Array; inertia: unknown; ratio: number }[] = [];
@@ -98,9 +99,12 @@ describe.each(models)('N-thread LDLᵀ and solves from the compiled modules: $na
       setThreadCount(threads);
       const solver = createShiftedSolver(stiffness, mass, { ordering: 'nested-dissection' });
       shifts.forEach(({ shift, residual, acrossN }, i) => {
+        // the second factorization refactors into the first one's released memory
         const [first, second] = [0, 1].map(() => {
           const f = solver.factor(shift);
-          return { f, x: f.solveBlock(b, k) };
+          const x = f.solveBlock(b, k);
+          f.release();
+          return { f, x };
         });
         // the tree was split into N parts: every thread factored and swept
         expect(first.f.diagnostics.threads).toBe(threads);
@@ -115,32 +119,13 @@ describe.each(models)('N-thread LDLᵀ and solves from the compiled modules: $na
         expect(first.f.inertia).toEqual(serial[i].inertia);
         expect(Math.abs(first.f.diagnostics.maxDiagonalToPivotRatio / serial[i].ratio - 1)).toBeLessThan(1e-8);
         expect(relativeDifference(first.x, serial[i].x)).toBeLessThan(acrossN);
-        first.f.release();
       });
     }
   });
 });
 
-describe('N-thread factor memory and recycling, from the compiled modules', () => {
+describe('N-thread factor memory, from the compiled modules', () => {
   const { stiffness, mass } = hexGridPair(11, 10, 10, 3);
-
-  it('refactors into a released factor\'s memory with the same result as a fresh factor (N = 4)', async () => {
-    const { createShiftedSolver } = await load<Solvers>('sparse/shifted-solver.js');
-    const { setThreadCount } = await threadsModule();
-    for (const threads of [4]) {
-      setThreadCount(threads);
-      const options = { ordering: 'nested-dissection' } as const;
-      const solver = createShiftedSolver(stiffness, mass, options);
-      const first = solver.factor(0);
-      expect(first.diagnostics.threads).toBe(threads);
-      first.release();
-      const again = solver.factor(1e3);
-      const fresh = createShiftedSolver(stiffness, mass, options).factor(1e3);
-      const rhs = new Float64Array(stiffness.n).map((_, i) => Math.cos(0.11 * i));
-      expect(firstDifference(again.solve(rhs), fresh.solve(rhs))).toBe(-1);
-      expect(again.inertia).toEqual(fresh.inertia);
-    }
-  });
 
   it('the memory limit counts scratch for each of the N threads that factor', async () => {
     const { createShiftedSolver } = await load<Solvers>('sparse/shifted-solver.js');
@@ -230,38 +215,27 @@ describe('ordering with the multilevel dissection on N threads, from the compile
 });
 
 describe('the thread count N = min(cores, MODALGATE_THREADS)', () => {
-  const cores = (): number => Number(spawnSync(process.execPath, ['-p', 'require("node:os").availableParallelism()'], { encoding: 'utf8' }).stdout);
-  /** availableThreads() in a fresh process with this environment (undefined: unset). */
-  const threadsWith = (value: string | undefined): number => {
-    const env = { ...process.env };
-    delete env.MODALGATE_THREADS;
-    if (value !== undefined) env.MODALGATE_THREADS = value;
-    const code = `import(${JSON.stringify(pathToFileURL(path.join(dist, 'helper-thread.js')).href)}).then((m) => console.log(m.availableThreads()))`;
-    const r = spawnSync(process.execPath, ['-e', code], { encoding: 'utf8', env });
-    return Number(r.stdout.trim());
+  const url = pathToFileURL(path.join(dist, 'helper-thread.js')).href;
+  /** availableThreads() read in a fresh worker thread with MODALGATE_THREADS = value in its env (undefined: unset). */
+  const threadsWith = (value: string | undefined): Promise<number> => {
+    const env: Record<string, string | undefined> = { ...process.env, MODALGATE_THREADS: value };
+    if (value === undefined) delete env.MODALGATE_THREADS;
+    const code = `import(${JSON.stringify(url)}).then((m) => require('node:worker_threads').parentPort.postMessage(m.availableThreads()))`;
+    const worker = new Worker(code, { eval: true, env });
+    return new Promise((resolve, reject) => {
+      worker.once('message', (v: number) => void worker.terminate().then(() => resolve(v)));
+      worker.once('error', reject);
+    });
   };
 
-  it('is read from the environment, capped by the cores; 1 keeps everything on one thread', () => {
-    const c = cores();
-    expect(threadsWith(undefined)).toBe(c);
-    expect(threadsWith('1')).toBe(1);
-    expect(threadsWith('64')).toBe(c);
+  // the thread where the solver runs reads its own env: `check --jobs` gives each model worker its share there
+  it('is read from the env of the thread where the solver runs, capped by the cores; 1 keeps everything on one thread', async () => {
+    const cores = availableParallelism();
+    expect(await threadsWith(undefined)).toBe(cores);
+    expect(await threadsWith('1')).toBe(1);
+    expect(await threadsWith('64')).toBe(cores);
     // not a positive integer: ignored
-    expect(threadsWith('0')).toBe(c);
-    expect(threadsWith('two')).toBe(c);
-  });
-
-  it('is read in the thread where the solver runs: a worker given MODALGATE_THREADS=1 in its env stays on one thread', () => {
-    // the contract `check --jobs` relies on: each model worker gets its share of the cores in its own env
-    const url = pathToFileURL(path.join(dist, 'helper-thread.js')).href;
-    const code = [
-      `const { Worker } = require('node:worker_threads');`,
-      `const w = new Worker(${JSON.stringify(`import(${JSON.stringify(url)}).then((m) => require('node:worker_threads').parentPort.postMessage(m.availableThreads()))`)}, { eval: true, env: { ...process.env, MODALGATE_THREADS: '1' } });`,
-      `w.on('message', (v) => { console.log(v); w.terminate(); });`,
-    ].join('\n');
-    const env = { ...process.env };
-    delete env.MODALGATE_THREADS;
-    const r = spawnSync(process.execPath, ['-e', code], { encoding: 'utf8', env });
-    expect(r.stdout.trim()).toBe('1');
+    expect(await threadsWith('0')).toBe(cores);
+    expect(await threadsWith('two')).toBe(cores);
   });
 });
