@@ -79,7 +79,7 @@ export function createShiftedSolver(
     const predicted = predictedFactorBytes(analyzed, split ? split.parts.length : 1) + (options.extraBytes ?? 0);
     if (predicted > options.memoryLimitBytes) throw new MemoryLimitError(predicted, options.memoryLimitBytes, analyzed.nnzL);
   }
-  // shared memory lets the helper thread read the structure without a copy
+  // shared memory lets the helper threads read the structure without a copy
   const structure = split ? shareStructure(analyzed) : analyzed;
   const solvePlan = split ? prepareSplitSolve(structure, split) : null;
   const t2 = performance.now();

@@ -28,7 +28,7 @@ export function supernodalSolveInPlace(f: SupernodalFactor, x: Float64Array, k: 
 
 /**
  * Where a sweep over part of the tree sends its updates of rows outside the part: rows with
- * index[row] ≥ 0 are added to acc[c · count + index[row]] instead of X (so two threads sweeping
+ * index[row] ≥ 0 are added to acc[c · count + index[row]] instead of X (so threads sweeping
  * disjoint subtrees never write the same entry of X).
  */
 export interface RowRedirect {

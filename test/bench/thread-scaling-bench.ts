@@ -10,12 +10,22 @@
  * THREADS_BENCH_COUNTS=1,2,4 picks the counts (default 1 … the cores); counts above the cores
  * are capped by MODALGATE_THREADS's rule (min with the cores), so they measure nothing new.
  * On a shared machine the other processes take cores too: repeat and read the spread.
+ *
+ * Then, without running anything in parallel, what the design predicts for 2 … 16 threads on the
+ * bench's models (THREADS_BENCH_MODELS=hex30k,hex120k,frame60k,tet100k): from the subtree split
+ * of each (subtree-split.ts), the modelled factorization time over the serial one, the largest
+ * part's share of the work, the top's share of the flops (factored after the parts, its large
+ * supernodes shared) and of nnz(L) (swept on one thread in every solve).
  */
 import { spawnSync } from 'node:child_process';
 import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
-import { hexBar } from './bench-models.js';
+import { hexBar, spaceFrame60k, tetBracket100k } from './bench-models.js';
+import type { GeneratedModel } from '../../fixtures/generator/model-types.js';
 import { createShiftedSolver } from '../../src/sparse/shifted-solver.js';
+import { chooseOrdering } from '../../src/sparse/ordering/choose-ordering.js';
+import { analyzeShiftedPair, type SupernodalStructure } from '../../src/sparse/symbolic.js';
+import { splitSubtrees } from '../../src/sparse/subtree-split.js';
 import { availableThreads } from '../../src/sparse/helper-thread.js';
 import { basisAddTimesSmall, basisBlock, basisOperand, basisTransposeTimes } from '../../src/eigen/shared-block-products.js';
 
@@ -66,7 +76,55 @@ function runChild(): void {
   console.log(JSON.stringify(report));
 }
 
-export default async function threadScalingBench(): Promise<void> {
+/** Σ over supernodes in `ranges` of (flop weight as in subtree-split.ts, stored entries of L). */
+function workOf(s: SupernodalStructure, ranges: [number, number][]): { flops: number; entries: number } {
+  let flops = 0;
+  let entries = 0;
+  for (const [lo, hi] of ranges) {
+    for (let sn = lo; sn <= hi; sn++) {
+      const nc = s.superStart[sn + 1] - s.superStart[sn];
+      const nr = s.rowPtr[sn + 1] - s.rowPtr[sn];
+      for (let c = 0; c < nc; c++) flops += (nr - c) * (nr - c);
+      entries += nc * nr - (nc * (nc - 1)) / 2;
+    }
+  }
+  return { flops, entries };
+}
+
+const PREDICTION_MODELS: Record<string, () => GeneratedModel> = {
+  hex30k: () => hexBar([40, 15, 15], true),
+  hex120k: () => hexBar([64, 24, 24], false),
+  frame60k: () => spaceFrame60k(false),
+  tet100k: () => tetBracket100k(false),
+};
+
+/** The split the solver would choose for 2 … 16 threads on each model, and what it predicts. */
+function printPredictions(): void {
+  const names = (process.env.THREADS_BENCH_MODELS ?? Object.keys(PREDICTION_MODELS).join(',')).split(',');
+  for (const name of names) {
+    const build = PREDICTION_MODELS[name];
+    if (build === undefined) continue;
+    const { stiffness, mass } = build();
+    const order = chooseOrdering(stiffness, mass, { ordering: 'auto' });
+    const s = analyzeShiftedPair(stiffness, mass, order.perm);
+    const all = workOf(s, [[0, s.supernodes - 1]]);
+    console.log(`  ${name}: ${s.n} DOF, ${order.name}, flops ${s.flops.toExponential(2)}, nnz(L) ${s.nnzL.toExponential(2)}`);
+    for (const threads of [2, 4, 8, 16]) {
+      const split = splitSubtrees(s, threads);
+      if (split === null) {
+        console.log(`    N=${String(threads).padStart(2)}: no split`);
+        continue;
+      }
+      const top = workOf(s, split.top);
+      const largest = Math.max(...split.parts.map((p) => workOf(s, p).flops));
+      console.log(
+        `    N=${String(threads).padStart(2)}: factor time ${split.timeRatio.toFixed(3)} of serial (${(1 / split.timeRatio).toFixed(2)}×), largest part ${((100 * largest) / all.flops).toFixed(1)} % of the flops, top ${((100 * top.flops) / all.flops).toFixed(1)} % of the flops and ${((100 * top.entries) / all.entries).toFixed(1)} % of L`,
+      );
+    }
+  }
+}
+
+async function measure(): Promise<void> {
   const counts = (process.env.THREADS_BENCH_COUNTS ?? Array.from({ length: availableParallelism() }, (_, i) => i + 1).join(',')).split(',').map(Number);
   const rows: Phases[] = [];
   for (const threads of counts) {
@@ -90,5 +148,15 @@ export default async function threadScalingBench(): Promise<void> {
     );
   }
 }
+
+async function measureAndPredict(): Promise<void> {
+  if (process.env.THREADS_BENCH_PREDICT !== 'only') await measure();
+  if (process.env.THREADS_BENCH_PREDICT !== '0') {
+    console.log('  predicted by the subtree split (subtree-split.ts model; nothing run in parallel):');
+    printPredictions();
+  }
+}
+
+export default measureAndPredict;
 
 if (process.argv[2] === '--child') runChild();
