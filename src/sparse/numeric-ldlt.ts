@@ -57,6 +57,18 @@ function inPlaceScratchDoubles(s: SupernodalStructure): number {
   return SCRATCH_COLUMNS * (s.maxColumns + s.maxRows + 4);
 }
 
+/**
+ * Bytes one thread that factors or sweeps holds as scratch, at most: its scratch region of the
+ * factor's memory (or, without one, the update workspaces w and c of updateWorkspace and the
+ * sweeps' three gathered blocks), the relative-index arrays, and the n-long position map and
+ * shifted diagonal of factorSupernodes.
+ */
+export function threadScratchBytes(s: SupernodalStructure): number {
+  const region = Math.max(s.maxRows * KERNEL_RHS, inPlaceScratchDoubles(s));
+  const plain = (Math.max(CHUNK, PANEL) + CHUNK) * s.maxRows + 3 * KERNEL_RHS * s.maxRows;
+  return 8 * Math.max(region, plain) + 8 * (s.maxRows + 1) + 12 * s.n;
+}
+
 /** a_jj = k_jj − σ m_jj in pivot order. */
 function shiftedDiagonal(s: SupernodalStructure, shift: number): Float64Array {
   const { pair } = s;
