@@ -127,7 +127,7 @@ function onePass(
 ): PassResult {
   const dropTolerance = options.dropTolerance ?? 1e-12;
   const deadTolerance = options.deadTolerance ?? 1e-20;
-  // the working copy, projected in place (in shared memory when a helper thread shares the products)
+  // the working copy, projected in place (in shared memory when helper threads share the products)
   const x = basisOperand(x0, n * k);
   const projections: Float64Array[] = [];
   // M-norm² of each column taken away by the projections: Σ_B ‖P_B(:, j)‖²

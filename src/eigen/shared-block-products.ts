@@ -1,16 +1,17 @@
 /**
  * The products of a thin block with the large Krylov basis V (n × m, m up to a few hundred)
  * that dominate the dense work of block Lanczos — P = VᵀX, X ← X + α V S and the restart
- * V ← V S in place — split by rows between this thread and the helper thread of the sparse
- * layer (src/sparse/block-product-jobs.ts over helper-thread.ts), when V lives in shared memory (basisBlock) and the
- * product is large enough to pay for the hand-over. The small operands are copied into shared staging blocks (unless they are
- * in shared memory already, as basisOperand's blocks are); each thread sums its rows, the two
- * partial P are added (fixed order), the helper's rows of X are copied back. Otherwise the plain
- * kernels of src/dense/block-ops.ts run here.
+ * V ← V S in place — split by rows into near-equal shares, one per thread (N of the sparse
+ * layer's helper threads, src/sparse/block-product-jobs.ts over helper-thread.ts), when V lives
+ * in shared memory (basisBlock) and the product is large enough to pay for the hand-over. The
+ * small operands are copied into shared staging blocks (unless they are in shared memory
+ * already, as basisOperand's blocks are); each thread sums its rows, the partial P are added in
+ * share order (so a given N gives the same bits on every run), the helpers' rows of X are copied
+ * back. Otherwise the plain kernels of src/dense/block-ops.ts run here.
  */
 import { addTimesSmall, timesSmallInPlace, transposeTimes } from '../dense/block-ops.js';
 import { availableThreads, inSharedMemory, sharedBlock, sharedScratch } from '../sparse/helper-thread.js';
-import { SPLIT_MIN_WORK, runSplit } from '../sparse/block-product-jobs.js';
+import { productShares, runShares, shareBounds, type BlockProductJob } from '../sparse/block-product-jobs.js';
 
 /** Shared staging blocks for the small operands, reused from call to call. */
 const stage = sharedScratch();
@@ -18,16 +19,16 @@ const stageOut = sharedScratch();
 /** The block behind basisOperand. */
 const operand = sharedScratch();
 
-/** An n×m basis block, in shared memory when a helper thread may work on it. */
+/** An n×m basis block, in shared memory when helper threads may work on it. */
 export function basisBlock(length: number): Float64Array {
   return availableThreads() >= 2 ? sharedBlock(length) : new Float64Array(length);
 }
 
 /**
  * A copy of the first `length` entries of X to be projected against the basis (X ← X − V S after
- * P = VᵀX): in a shared block reused from call to call when a helper thread may take half of
- * those products, so neither has to stage X (a full copy for VᵀX, half of X in and out for
- * X − V S); a plain copy otherwise. Valid until the next call.
+ * P = VᵀX): in a shared block reused from call to call when helper threads may take shares of
+ * those products, so neither has to stage X (a full copy for VᵀX, the helpers' rows of X in and
+ * out for X − V S); a plain copy otherwise. Valid until the next call.
  */
 export function basisOperand(x: Float64Array, length: number): Float64Array {
   const copy = availableThreads() >= 2 ? operand(length) : new Float64Array(length);
@@ -35,43 +36,56 @@ export function basisOperand(x: Float64Array, length: number): Float64Array {
   return copy;
 }
 
-function splittable(a: Float64Array, work: number): boolean {
-  return work >= SPLIT_MIN_WORK && a.buffer instanceof SharedArrayBuffer;
+/** Shares of a product of `work` multiply-adds on `a`: 1 unless `a` is shared and the work large. */
+function sharesFor(a: Float64Array, work: number): number {
+  return a.buffer instanceof SharedArrayBuffer ? productShares(work) : 1;
 }
 
 /** P = AᵀB (A rows×p in shared memory: the basis; B rows×q), p×q. */
 export function basisTransposeTimes(a: Float64Array, b: Float64Array, rows: number, p: number, q: number): Float64Array {
-  if (!splittable(a, rows * p * q)) return transposeTimes(a, b, rows, p, q);
+  const shares = sharesFor(a, rows * p * q);
+  if (shares < 2) return transposeTimes(a, b, rows, p, q);
   const bs = inSharedMemory(b, rows * q, stage);
-  const theirs = stageOut(p * q);
-  const mid = rows >> 1;
+  const theirs = stageOut((shares - 1) * p * q);
+  const bounds = shareBounds(rows, shares);
   const mine = new Float64Array(p * q);
-  const ran = runSplit({ kind: 'transposeTimes', a, b: bs, rows, p, q, out: theirs, rowFrom: mid, rowTo: rows }, () => {
-    transposeTimes(a, bs, rows, p, q, mine, 0, mid);
+  const jobs: BlockProductJob[] = [];
+  for (let t = 1; t < shares; t++) {
+    jobs.push({ kind: 'transposeTimes', a, b: bs, rows, p, q, out: theirs.subarray((t - 1) * p * q, t * p * q), rowFrom: bounds[t], rowTo: bounds[t + 1] });
+  }
+  const ran = runShares(jobs, () => {
+    transposeTimes(a, bs, rows, p, q, mine, 0, bounds[1]);
   });
   if (!ran) return transposeTimes(a, b, rows, p, q);
-  // partial sums of both halves
-  for (let i = 0; i < p * q; i++) mine[i] += theirs[i];
+  // partial sums of every share, in share order
+  for (let t = 1; t < shares; t++) {
+    const o = (t - 1) * p * q;
+    for (let i = 0; i < p * q; i++) mine[i] += theirs[o + i];
+  }
   return mine;
 }
 
 /** C ← C + α A S (A rows×p in shared memory: the basis; S p×q; C rows×q). */
 export function basisAddTimesSmall(c: Float64Array, a: Float64Array, rows: number, p: number, s: Float64Array, q: number, alpha = 1): void {
-  if (!splittable(a, rows * p * q)) {
+  const shares = sharesFor(a, rows * p * q);
+  if (shares < 2) {
     addTimesSmall(c, a, rows, p, s, q, alpha);
     return;
   }
   const shared = c.buffer instanceof SharedArrayBuffer;
   const cs = shared ? c : stageOut(rows * q);
-  const mid = rows >> 1;
-  // the helper's rows of C, staged when C is not shared
+  const bounds = shareBounds(rows, shares);
+  const mid = bounds[1];
+  // the helpers' rows of C, staged when C is not shared
   if (!shared) for (let j = 0; j < q; j++) cs.set(c.subarray(j * rows + mid, (j + 1) * rows), j * rows + mid);
   const ss = inSharedMemory(s, p * q, stage);
-  const ran = runSplit({ kind: 'addTimesSmall', c: cs, a, rows, p, s: ss, q, alpha, rowFrom: mid, rowTo: rows }, () => {
+  const jobs: BlockProductJob[] = [];
+  for (let t = 1; t < shares; t++) jobs.push({ kind: 'addTimesSmall', c: cs, a, rows, p, s: ss, q, alpha, rowFrom: bounds[t], rowTo: bounds[t + 1] });
+  const ran = runShares(jobs, () => {
     addTimesSmall(c, a, rows, p, s, q, alpha, 0, mid);
   });
   if (!ran) {
-    // no helper after all (runSplit ran nothing): every row here
+    // no helpers after all (runShares ran nothing): every row here
     addTimesSmall(c, a, rows, p, s, q, alpha);
     return;
   }
@@ -80,14 +94,17 @@ export function basisAddTimesSmall(c: Float64Array, a: Float64Array, rows: numbe
 
 /** A(:, 0:q) ← A S in place (A rows×p, the basis; q ≤ p): a restart without a second basis. */
 export function basisTimesSmallInPlace(a: Float64Array, rows: number, p: number, s: Float64Array, q: number): void {
-  if (!splittable(a, rows * p * q)) {
+  const shares = sharesFor(a, rows * p * q);
+  if (shares < 2) {
     timesSmallInPlace(a, rows, p, s, q);
     return;
   }
   const ss = inSharedMemory(s, p * q, stage);
-  const mid = rows >> 1;
-  const ran = runSplit({ kind: 'timesSmallInPlace', a, rows, p, s: ss, q, rowFrom: mid, rowTo: rows }, () => timesSmallInPlace(a, rows, p, s, q, 0, mid));
-  // no helper after all (runSplit ran nothing): every row here
+  const bounds = shareBounds(rows, shares);
+  const jobs: BlockProductJob[] = [];
+  for (let t = 1; t < shares; t++) jobs.push({ kind: 'timesSmallInPlace', a, rows, p, s: ss, q, rowFrom: bounds[t], rowTo: bounds[t + 1] });
+  const ran = runShares(jobs, () => timesSmallInPlace(a, rows, p, s, q, 0, bounds[1]));
+  // no helpers after all (runShares ran nothing): every row here
   if (!ran) timesSmallInPlace(a, rows, p, s, q);
 }
 

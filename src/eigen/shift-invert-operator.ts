@@ -51,7 +51,7 @@ export function createShiftInvertOperator(
 ): ShiftInvertOperator {
   const n = stiffness.n;
   const counts: OperatorCounts = { solves: 0, factorPasses: 0, massProducts: 0, stiffnessProducts: 0 };
-  // shared copies (made once per matrix) let the helper thread take half of each product
+  // shared copies (made once per matrix) let the helper threads take shares of each product
   const sharedK = sharedMatrix(stiffness);
   const sharedM = sharedMatrix(mass);
   const times = (a: SymmetricCsc, s: SymmetricCsc | null, x: Float64Array, k: number): Float64Array => {

@@ -1,38 +1,59 @@
 /**
- * Block products on shared arrays that the helper thread (helper-thread.ts) runs on a share of
- * the rows or columns while this thread runs the rest: the eigen layer's basis products
+ * Block products on shared arrays that the helper threads (helper-thread.ts) run on shares of
+ * the rows or columns while this thread runs the first share: the eigen layer's basis products
  * (src/eigen/shared-block-products.ts) and the split product with a shared matrix.
  */
 import { addTimesSmall, timesSmallInPlace, transposeTimes } from '../dense/block-ops.js';
 import { symMultiplyColumns, type SymmetricCsc } from './csc.js';
-import { alongside, availableThreads, inSharedMemory, sharedCopy, sharedScratch, startHelper, type Answer } from './helper-thread.js';
+import { alongsideAll, availableThreads, inSharedMemory, sharedCopy, sharedScratch, startHelpers, type Answer } from './helper-thread.js';
 
-/** Block products on shared arrays that the helper runs on a share of the rows or columns. */
+/** Block products on shared arrays that a helper runs on a share of the rows or columns. */
 export type BlockProductJob =
   | { kind: 'transposeTimes'; a: Float64Array; b: Float64Array; rows: number; p: number; q: number; out: Float64Array; rowFrom: number; rowTo: number }
   | { kind: 'addTimesSmall'; c: Float64Array; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; alpha: number; rowFrom: number; rowTo: number }
   | { kind: 'timesSmallInPlace'; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; rowFrom: number; rowTo: number }
   | { kind: 'symMultiply'; a: SymmetricCsc; x: Float64Array; k: number; y: Float64Array; colFrom: number; colTo: number };
 
+/** Products below this many multiply-adds stay on this thread (our choice, about 1 ms of work). */
+export const SPLIT_MIN_WORK = 2e6;
+
 /**
- * Runs `job` (see src/eigen/shared-block-products.ts) on the helper while `mine` runs here;
- * false (and `mine` not run) when there is no helper.
+ * Shares a product of `work` multiply-adds is split into: 1 (this thread alone) below
+ * SPLIT_MIN_WORK, else one per thread (N of helper-thread.ts) but no more than make shares of
+ * SPLIT_MIN_WORK (at least two), and at most `most`.
  */
-export function runSplit(job: BlockProductJob, mine: () => void): boolean {
-  const h = startHelper();
-  if (h === null) return false;
-  alongside(h, job, mine);
+export function productShares(work: number, most = Infinity): number {
+  if (work < SPLIT_MIN_WORK) return 1;
+  return Math.max(1, Math.min(availableThreads(), most, Math.max(2, Math.floor(work / SPLIT_MIN_WORK))));
+}
+
+/** bounds[t] … bounds[t + 1] − 1: share t of `rows` rows in `shares` near-equal shares. */
+export function shareBounds(rows: number, shares: number): number[] {
+  return Array.from({ length: shares + 1 }, (_, t) => Math.round((t * rows) / shares));
+}
+
+/**
+ * Runs jobs[i] on helper i while `mine` (share 0) runs here; false (and nothing run) when there
+ * are fewer helpers than jobs.
+ */
+export function runShares(jobs: BlockProductJob[], mine: () => void): boolean {
+  const helpers = startHelpers(jobs.length);
+  if (helpers.length < jobs.length) return false;
+  alongsideAll(helpers, jobs, mine);
   return true;
 }
 
-/** Products below this many multiply-adds stay on this thread (our choice, about 1 ms of work). */
-export const SPLIT_MIN_WORK = 2e6;
+/**
+ * Shares of Y = A X: the partial outputs of the helpers (n × k each) are held at once, and the
+ * sparse product is bound by memory bandwidth, so more shares buy little (our choice).
+ */
+const SYM_MULTIPLY_MOST_SHARES = 4;
 
 const sharedMatrices = new WeakMap<SymmetricCsc, SymmetricCsc>();
 const productX = sharedScratch();
 const productY = sharedScratch();
 
-/** A copy of `a` in shared memory (made once per matrix), or null without a helper thread. */
+/** A copy of `a` in shared memory (made once per matrix), or null without helper threads. */
 export function sharedMatrix(a: SymmetricCsc): SymmetricCsc | null {
   if (availableThreads() < 2) return null;
   let s = sharedMatrices.get(a);
@@ -44,32 +65,43 @@ export function sharedMatrix(a: SymmetricCsc): SymmetricCsc | null {
 }
 
 /**
- * Y = A X (A from sharedMatrix, X n×k) with the stored columns split between the threads at half
- * the nonzeros; each thread sums into its own output and the helper's is added here. False when
- * it did not run (small product, no helper).
+ * Y = A X (A from sharedMatrix, X n×k) with the stored columns split between the threads at equal
+ * shares of the nonzeros; each thread sums into its own output and the helpers' are added here in
+ * helper order. False when it did not run (small product, no helper).
  */
 export function splitSymMultiplyBlock(a: SymmetricCsc, x: Float64Array, k: number, y: Float64Array): boolean {
   const n = a.n;
   const nnz = a.colPtr[n];
-  if (nnz * k < SPLIT_MIN_WORK || !(a.values.buffer instanceof SharedArrayBuffer)) return false;
-  const h = startHelper();
-  if (h === null) return false;
-  // X staged in shared memory unless it is there already; the helper's partial Y apart
+  const shares = productShares(nnz * k, SYM_MULTIPLY_MOST_SHARES);
+  if (shares < 2 || !(a.values.buffer instanceof SharedArrayBuffer)) return false;
+  // X staged in shared memory unless it is there already; each helper's partial Y apart
   const xs = inSharedMemory(x, n * k, productX);
-  const ys = productY(n * k).fill(0);
-  // the column where half of the stored entries lie before
-  let lo = 0;
-  let hi = n;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (a.colPtr[mid] < nnz / 2) lo = mid + 1;
-    else hi = mid;
+  const ys = productY((shares - 1) * n * k).fill(0);
+  // bounds[t]: the first column with t/shares of the stored entries before it
+  const bounds = [0];
+  for (let t = 1; t < shares; t++) {
+    let lo = bounds[t - 1];
+    let hi = n;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (a.colPtr[mid] < (t * nnz) / shares) lo = mid + 1;
+      else hi = mid;
+    }
+    bounds.push(lo);
   }
-  alongside(h, { kind: 'symMultiply', a, x: xs, k, y: ys, colFrom: lo, colTo: n }, () => {
+  bounds.push(n);
+  const jobs: BlockProductJob[] = [];
+  for (let t = 1; t < shares; t++) jobs.push({ kind: 'symMultiply', a, x: xs, k, y: ys.subarray((t - 1) * n * k, t * n * k), colFrom: bounds[t], colTo: bounds[t + 1] });
+  const ran = runShares(jobs, () => {
     y.fill(0, 0, n * k);
-    symMultiplyColumns(a, xs, k, y, 0, lo);
+    symMultiplyColumns(a, xs, k, y, 0, bounds[1]);
   });
-  for (let i = 0; i < n * k; i++) y[i] += ys[i];
+  if (!ran) return false;
+  // the helpers' partial products, in helper order
+  for (let t = 1; t < shares; t++) {
+    const o = (t - 1) * n * k;
+    for (let i = 0; i < n * k; i++) y[i] += ys[o + i];
+  }
   return true;
 }
 

@@ -57,7 +57,7 @@ export interface FactorDiagnostics {
   maxDiagonalToPivotRatio: number;
   maxRatioDof: number;
   tinyPivots: TinyPivot[];
-  /** Threads the numeric factorization ran on (1, or 2 when the elimination tree was split). */
+  /** Threads the numeric factorization ran on (1, or the N parts the elimination tree was split into). */
   threads?: number;
   /**
    * Which kernels this factor's products run in: the factorization's block updates and the
@@ -93,7 +93,7 @@ export interface ShiftedSolverOptions {
   coordinates?: Float64Array;
   /** Relative zero-pivot tolerance for inertia, default 1e-13 (our choice). */
   zeroPivotTolerance?: number;
-  /** Most threads the numeric factorization and block solves may use (default: 2 when available). */
+  /** Most threads the numeric factorization and block solves may use (default and cap: N of src/sparse/helper-thread.ts). */
   threads?: number;
   /**
    * Refuse (MemoryLimitError) before any numeric work when the factor, plus `extraBytes` the

@@ -1,26 +1,34 @@
 /**
- * The helper thread's runtime, main-thread side: starting the one helper, posting a job and
- * waiting for its answer synchronously, and the shared arrays jobs work on. It knows no job but
- * its own two (ping, collect); the kinds live next to the code that posts them:
+ * The helper threads' runtime, main-thread side: starting the pool of helpers, posting jobs and
+ * waiting for their answers synchronously, and the shared arrays jobs work on. It knows no job
+ * but its own two (ping, collect); the kinds live next to the code that posts them:
  *
- *   split-factor.ts        the two-thread LDLᵀ (factor, descendants, panel, dropWorkspace)
- *   split-solve.ts         the two-thread block solve (forward, backward)
+ *   split-factor.ts        the N-thread LDLᵀ (factor, descendants, panel, dropWorkspace)
+ *   split-solve.ts         the N-thread block solve (forward, backward)
  *   separator-jobs.ts      multilevel separator runs of the ordering (separatorRuns)
  *   block-product-jobs.ts  the eigen layer's basis products (transposeTimes, addTimesSmall,
  *                          timesSmallInPlace, symMultiply)
  *
  * and helper-worker.ts, the helper itself, hands each job to its kind's handler.
  *
- * Synchronisation: the job is posted on a MessagePort with an id; this thread works, then blocks
- * in Atomics.wait until the helper writes that id into the shared flag after posting its answer;
- * the answer is read with receiveMessageOnPort. Nothing needs the event loop, so the callers'
- * APIs stay synchronous.
+ * Threads. The numeric work runs on N threads: this one and N − 1 helpers, where
+ * N = min(os.availableParallelism(), MODALGATE_THREADS when it is a positive integer), read from
+ * this thread's environment at first use and fixed from then on (a model's worker thread gets
+ * its own environment: `check --jobs` gives each model worker its share of the cores there).
+ * MODALGATE_THREADS=1 keeps everything on this thread. setThreadCount overrides N (tests and
+ * benchmarks: it may exceed the cores, which then run the threads in turn).
  *
- * The helper is one module-wide thread, started on first use and unref'd (it never keeps the
- * process alive). It is used only where the compiled worker file exists next to this module
- * (not when the sources run untranspiled, as under the test runner), when the machine has at
- * least two cores, and unless MODALGATE_THREADS=1. A helper that does not answer a first ping
- * within 10 s is dropped and everything runs serially.
+ * Synchronisation: each helper has its own message port and shared flag. A job is posted with an
+ * id; this thread does its own share, then blocks in Atomics.wait until the helper writes that id
+ * into its flag after posting its answer; the answer is read with receiveMessageOnPort. Nothing
+ * needs the event loop, so the callers' APIs stay synchronous. Which thread does which share is
+ * fixed by the caller before anything runs, and partial results are combined in helper order,
+ * so results never depend on timing.
+ *
+ * The helpers are module-wide threads, started on first use and unref'd (they never keep the
+ * process alive). They are used only where the compiled worker file exists next to this module
+ * (not when the sources run untranspiled, as under the test runner). A helper that does not
+ * answer a first ping within 10 s is dropped, and no further helper is started.
  */
 import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
@@ -55,34 +63,67 @@ export interface Helper {
   flag: Int32Array;
 }
 
-let helper: Helper | null | undefined;
+/** Started helpers, in order: helper i runs the share of thread i + 1. */
+const pool: Helper[] = [];
+/** A helper did not start: no further one is tried. */
+let poolBroken = false;
+/** N from the environment, read at first use. */
+let fromEnvironment: number | undefined;
+/** N set by setThreadCount. */
+let override: number | undefined;
 
-/** Threads the parallel kernels may use here (1 or 2). */
-export function availableThreads(): number {
-  if (process.env.MODALGATE_THREADS === '1') return 1;
-  if (availableParallelism() < 2) return 1;
-  return workerBuilt ? 2 : 1;
+/** min(cores, MODALGATE_THREADS when a positive integer). */
+function environmentThreads(): number {
+  const cores = Math.max(1, availableParallelism());
+  const raw = process.env.MODALGATE_THREADS?.trim() ?? '';
+  const cap = /^[1-9][0-9]*$/.test(raw) ? Number(raw) : Infinity;
+  return Math.min(cores, cap);
 }
 
-/** The helper thread, started on first use; null when there is none (one thread, or it did not start). */
-export function startHelper(): Helper | null {
-  if (helper !== undefined) return helper;
-  helper = null;
-  if (availableThreads() < 2) return null;
-  const { port1, port2 } = new MessageChannel();
-  const worker = new Worker(workerUrl, { workerData: { port: port2 }, transferList: [port2] });
-  worker.unref();
-  port1.unref();
-  // an error after start-up shows as a failed job; before it, as a missing pong
-  worker.on('error', () => {});
-  const candidate = { port: port1, flag: new Int32Array(new SharedArrayBuffer(4)) };
-  const reply = postJob(candidate, { kind: 'ping' })(10_000);
-  if (reply?.kind !== 'pong') {
-    void worker.terminate();
-    return null;
+/** Threads the parallel kernels may use here (N ≥ 1: this thread and N − 1 helpers). */
+export function availableThreads(): number {
+  if (!workerBuilt) return 1;
+  const wanted = override ?? (fromEnvironment ??= environmentThreads());
+  // after a helper failed to start: only the threads there are
+  return poolBroken ? Math.min(wanted, 1 + pool.length) : wanted;
+}
+
+/**
+ * Sets N from now on (any count ≥ 1, also above the cores), or back to the environment's with
+ * undefined. For tests and benchmarks; objects made before (solvers, bases) keep their split.
+ */
+export function setThreadCount(threads: number | undefined): void {
+  override = threads === undefined ? undefined : Math.max(1, Math.floor(threads));
+}
+
+/**
+ * The first `count` helpers, started on first use (all missing ones at once, then each pinged);
+ * fewer when one did not start.
+ */
+export function startHelpers(count: number): Helper[] {
+  if (!workerBuilt) return [];
+  const starting: { helper: Helper; worker: Worker }[] = [];
+  // start the missing helpers together, then wait for each one's first answer
+  while (!poolBroken && pool.length + starting.length < count) {
+    const { port1, port2 } = new MessageChannel();
+    const worker = new Worker(workerUrl, { workerData: { port: port2 }, transferList: [port2] });
+    worker.unref();
+    port1.unref();
+    // an error after start-up shows as a failed job; before it, as a missing pong
+    worker.on('error', () => {});
+    starting.push({ helper: { port: port1, flag: new Int32Array(new SharedArrayBuffer(4)) }, worker });
   }
-  helper = candidate;
-  return helper;
+  const pings = starting.map(({ helper }) => postJob(helper, { kind: 'ping' }));
+  const deadline = performance.now() + 10_000;
+  for (let i = 0; i < starting.length; i++) {
+    const reply = poolBroken ? undefined : pings[i](Math.max(0, deadline - performance.now()));
+    if (reply?.kind === 'pong') pool.push(starting[i].helper);
+    else {
+      poolBroken = true;
+      void starting[i].worker.terminate();
+    }
+  }
+  return pool.slice(0, count);
 }
 
 let lastJobId = 0;
@@ -113,16 +154,24 @@ export function postJob<J extends Job>(h: Helper, body: J): (timeoutMs?: number)
 /** The answer `r` if it is of kind `expect`; otherwise throws (the helper failed, or gave none). */
 export function expectAnswer<R extends Answer>(r: Answer | undefined, expect: R['kind']): R {
   if (r?.kind !== expect) {
-    throw new Error(`parallel factorization helper ${r?.kind === 'failed' ? `failed: ${(r as Failed).message}` : 'gave no result'}`);
+    throw new Error(`helper thread ${r?.kind === 'failed' ? `failed: ${(r as Failed).message}` : 'gave no result'}`);
   }
   return r as R;
 }
 
 /** Runs `body` on the helper while `mine` runs here; returns the helper's answer, of kind `expect`. */
 export function alongside<R extends Answer = Answer, J extends Job = Job>(h: Helper, body: J, mine: () => void, expect: R['kind'] = 'done'): R {
-  const wait = postJob(h, body);
+  return alongsideAll<R, J>([h], [body], mine, expect)[0];
+}
+
+/**
+ * Runs bodies[i] on helpers[i] (every one posted first) while `mine` runs here; returns their
+ * answers in helper order, each of kind `expect`.
+ */
+export function alongsideAll<R extends Answer = Answer, J extends Job = Job>(helpers: Helper[], bodies: J[], mine: () => void, expect: R['kind'] = 'done'): R[] {
+  const waits = bodies.map((body, i) => postJob(helpers[i], body));
   mine();
-  return expectAnswer<R>(wait(), expect);
+  return waits.map((wait) => expectAnswer<R>(wait(), expect));
 }
 
 let collector: (() => void) | undefined;
@@ -145,9 +194,9 @@ function collectHere(): void {
   collector();
 }
 
-/** A full collection on both threads at once (the helper also drops the workspaces it keeps between jobs). */
-export function collectBoth(h: Helper): void {
-  alongside(h, { kind: 'collect' }, collectHere);
+/** A full collection on this thread and the given helpers at once (they also drop the workspaces they keep between jobs). */
+export function collectAll(helpers: Helper[]): void {
+  alongsideAll(helpers, helpers.map(() => ({ kind: 'collect' })), collectHere);
 }
 
 /** A zeroed Float64Array in shared memory. */

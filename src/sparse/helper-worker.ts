@@ -1,9 +1,10 @@
 /**
- * The helper thread (helper-thread.ts). It waits for jobs on its message port, hands each to
- * its kind's handler (the job modules' handler tables), posts the answer (tagged with the job's
- * id) on the same port and then writes the id into the job's flag, so the main thread — blocked
- * in Atomics.wait — can take the answer with receiveMessageOnPort. Every job answers, an
- * exception included, so the main thread never waits forever on a job that started.
+ * A helper thread (helper-thread.ts starts N − 1 of them, each with its own port). It waits for
+ * jobs on its message port, hands each to its kind's handler (the job modules' handler tables),
+ * posts the answer (tagged with the job's id) on the same port and then writes the id into the
+ * job's flag, so the main thread — blocked in Atomics.wait — can take the answer with
+ * receiveMessageOnPort. Every job answers, an exception included, so the main thread never
+ * waits forever on a job that started.
  */
 import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';

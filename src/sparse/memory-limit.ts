@@ -4,13 +4,16 @@
  *
  * One factor at a time is alive (factors are recycled), so the numeric phase holds
  *   8 · (stored entries of the supernode blocks) + 8 n (D) + 4 · (row indices)
- * plus, per thread, the largest update block and the largest supernode block as scratch;
- * the caller adds what it keeps beside the factor (an iteration basis, the mode shapes).
+ * plus, for each of the `threads` threads that factor (the N parts of the split), the scratch it
+ * is given (numeric-ldlt.ts threadScratchBytes: its region of the factor's memory, a few
+ * maxRows- and n-long arrays); the caller adds what it keeps beside the factor (an iteration
+ * basis, the mode shapes).
  */
 import type { SupernodalStructure } from './symbolic.js';
+import { threadScratchBytes } from './numeric-ldlt.js';
 
 export function predictedFactorBytes(s: SupernodalStructure, threads: number): number {
-  return 8 * s.storedEntries + 8 * s.n + 4 * s.rows.length + threads * 8 * (s.maxUpdateEntries + s.maxBlockEntries);
+  return 8 * s.storedEntries + 8 * s.n + 4 * s.rows.length + threads * threadScratchBytes(s);
 }
 
 export class MemoryLimitError extends Error {

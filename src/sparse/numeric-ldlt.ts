@@ -39,11 +39,11 @@ export interface SupernodalFactor {
 
 /**
  * Zeroed storage for a factor's values: in a shared WebAssembly memory with room for the
- * SIMD sweeps' scratch (simd-sweep-kernels.ts) when possible, else from `fallback`.
+ * scratch of `threads` threads (simd-sweep-kernels.ts) when possible, else from `fallback`.
  */
-function allocateFactorValues(s: SupernodalStructure, fallback: (length: number) => Float64Array): { values: Float64Array; storage?: FactorStorage } {
+function allocateFactorValues(s: SupernodalStructure, fallback: (length: number) => Float64Array, threads: number): { values: Float64Array; storage?: FactorStorage } {
   const length = s.valuePtr[s.supernodes];
-  return factorStorage(length, Math.max(s.maxRows * KERNEL_RHS, inPlaceScratchDoubles(s))) ?? { values: fallback(length) };
+  return factorStorage(length, Math.max(s.maxRows * KERNEL_RHS, inPlaceScratchDoubles(s)), threads) ?? { values: fallback(length) };
 }
 
 /** Widest target chunk or panel, rounded up to whole 4-column panels. */
@@ -55,6 +55,18 @@ const SCRATCH_COLUMNS = Math.ceil(Math.max(CHUNK, PANEL) / 4) * 4;
  */
 function inPlaceScratchDoubles(s: SupernodalStructure): number {
   return SCRATCH_COLUMNS * (s.maxColumns + s.maxRows + 4);
+}
+
+/**
+ * Bytes one thread that factors or sweeps holds as scratch, at most: its scratch region of the
+ * factor's memory (or, without one, the update workspaces w and c of updateWorkspace and the
+ * sweeps' three gathered blocks), the relative-index arrays, and the n-long position map and
+ * shifted diagonal of factorSupernodes.
+ */
+export function threadScratchBytes(s: SupernodalStructure): number {
+  const region = Math.max(s.maxRows * KERNEL_RHS, inPlaceScratchDoubles(s));
+  const plain = (Math.max(CHUNK, PANEL) + CHUNK) * s.maxRows + 3 * KERNEL_RHS * s.maxRows;
+  return 8 * Math.max(region, plain) + 8 * (s.maxRows + 1) + 12 * s.n;
 }
 
 /** a_jj = k_jj − σ m_jj in pivot order. */
@@ -75,10 +87,13 @@ export interface RecycledValues {
   storage?: FactorStorage;
 }
 
-/** The values of a new factor: `recycled` when given (marked for zeroing), else fresh zeroed storage. */
-export function factorValues(s: SupernodalStructure, recycled: RecycledValues | undefined, fallback: (length: number) => Float64Array): RecycledValues & { dirty: boolean } {
-  if (recycled && recycled.values.length === s.valuePtr[s.supernodes]) return { ...recycled, dirty: true };
-  return { ...allocateFactorValues(s, fallback), dirty: false };
+/**
+ * The values of a new factor that `threads` threads work on: `recycled` when given and it has
+ * their scratch (marked for zeroing), else fresh zeroed storage.
+ */
+export function factorValues(s: SupernodalStructure, recycled: RecycledValues | undefined, fallback: (length: number) => Float64Array, threads = 1): RecycledValues & { dirty: boolean } {
+  if (recycled && recycled.values.length === s.valuePtr[s.supernodes] && (recycled.storage?.regions ?? threads) >= threads) return { ...recycled, dirty: true };
+  return { ...allocateFactorValues(s, fallback, threads), dirty: false };
 }
 
 export function supernodalLdlt(s: SupernodalStructure, shift: number, monitor: PivotMonitor, recycled?: RecycledValues): SupernodalFactor {
@@ -110,7 +125,7 @@ export interface FactorArrays {
  * Descendants in earlier-factored supernodes outside the ranges (other threads' subtrees) are
  * found through their `nextRow` entries when `pendingFrom` lists them; a supernode queues itself
  * only on ancestors inside the ranges. `region` is this thread's scratch region of the factor's
- * memory (0 main thread, 1 helper).
+ * memory (0 main thread, i + 1 helper i).
  */
 export function factorSupernodes(
   s: SupernodalStructure,
@@ -120,7 +135,7 @@ export function factorSupernodes(
   ranges: [number, number][],
   pendingFrom: [number, number][] = [],
   cooperation?: SupernodeCooperation,
-  region: 0 | 1 = 0,
+  region = 0,
 ): void {
   const { n, supernodes: ns, superStart, superOf, rowPtr, rows, valuePtr, pair } = s;
   const { values, d, nextRow } = out;
@@ -299,11 +314,11 @@ export interface UpdateWorkspace {
   inPlace?: { kernels: StripKernels; heap: Float64Array; wOff: number; cOff: number };
 }
 
-/** Scratch for one thread; with `storage`, in scratch region `region` of the factor's memory. */
-export function updateWorkspace(s: SupernodalStructure, storage?: FactorStorage, region: 0 | 1 = 0): UpdateWorkspace {
+/** Scratch for one thread; with `storage`, in scratch region `region` of the factor's memory (when it has that region). */
+export function updateWorkspace(s: SupernodalStructure, storage?: FactorStorage, region = 0): UpdateWorkspace {
   const rel = new Int32Array(s.maxRows);
   const runAt = new Int32Array(s.maxRows + 1);
-  const kernels = storage && storage.scratchDoubles >= inPlaceScratchDoubles(s) ? stripKernels(storage.memory) : null;
+  const kernels = storage && region < storage.regions && storage.scratchDoubles >= inPlaceScratchDoubles(s) ? stripKernels(storage.memory) : null;
   if (storage && kernels) {
     const wOff = region * storage.scratchDoubles;
     const none = new Float64Array(0);

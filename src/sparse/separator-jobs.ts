@@ -1,10 +1,10 @@
 /**
  * Multilevel separator runs of the ordering (src/sparse/ordering/multilevel-bisection.ts) on the
- * helper thread (helper-thread.ts).
+ * helper threads (helper-thread.ts).
  */
 import { multilevelSeparator } from './ordering/multilevel-bisection.js';
 import type { WeightedGraph } from './ordering/coarsen-graph.js';
-import { expectAnswer, postJob, startHelper, type Answer } from './helper-thread.js';
+import { expectAnswer, postJob, startHelpers, type Answer } from './helper-thread.js';
 
 /** Independent separator runs of `graph`, one per seed. */
 export interface SeparatorRunsJob {
@@ -21,13 +21,14 @@ interface Separators extends Answer {
 
 /**
  * Starts independent multilevel separator runs (src/sparse/ordering/multilevel-bisection.ts) with
- * the given seeds on the helper thread and returns a function that waits for their labellings, in
- * seed order; null without a helper (the caller runs them here). The graph is copied.
+ * the given seeds on helper `helper` (0 … N − 2; one job in flight per helper) and returns a
+ * function that waits for their labellings, in seed order; null without that helper (the caller
+ * runs them here). The graph is copied.
  */
-export function startSeparatorRuns(graph: WeightedGraph, seeds: number[], threads: number): (() => Uint8Array[]) | null {
-  if (threads < 2 || seeds.length === 0) return null;
-  const h = startHelper();
-  if (h === null) return null;
+export function startSeparatorRuns(graph: WeightedGraph, seeds: number[], helper: number): (() => Uint8Array[]) | null {
+  if (seeds.length === 0) return null;
+  const h = startHelpers(helper + 1)[helper];
+  if (h === undefined) return null;
   const wait = postJob(h, { kind: 'separatorRuns', graph, seeds } satisfies SeparatorRunsJob);
   return () => expectAnswer<Separators>(wait(), 'separators').wheres;
 }

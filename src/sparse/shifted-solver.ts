@@ -13,7 +13,7 @@ import { supernodalSolveInPlace } from './triangular-solve.js';
 import { availableThreads, sharedScratch } from './helper-thread.js';
 import { parallelSupernodalLdlt, shareStructure } from './split-factor.js';
 import { prepareSplitSolve, splitSolveInPlace, type SplitSolve } from './split-solve.js';
-import { splitSubtrees } from './subtree-split.js';
+import { splitSubtrees, type SubtreeSplit } from './subtree-split.js';
 import { MemoryLimitError, predictedFactorBytes } from './memory-limit.js';
 import { simdTileKernelInUse } from './dense-block-kernels.js';
 import { tileKernelsAvailable } from './wasm-tile-kernel.js';
@@ -47,6 +47,19 @@ function maxShiftedDiagonal(s: SupernodalStructure, shift: number): number {
   return m;
 }
 
+/**
+ * The split of the tree over the most threads (up to `threads`) whose modelled time is within
+ * PARALLEL_MAX_TIME_RATIO of the serial one; null when none is (the factorization stays serial).
+ */
+function chooseSplit(s: SupernodalStructure, threads: number): SubtreeSplit | null {
+  // the most threads first: fewer only when the tree does not split that many ways
+  for (let t = threads; t >= 2; t--) {
+    const split = splitSubtrees(s, t);
+    if (split !== null && split.timeRatio <= PARALLEL_MAX_TIME_RATIO) return split;
+  }
+  return null;
+}
+
 export function createShiftedSolver(
   stiffness: SymmetricCsc,
   mass: SymmetricCsc,
@@ -56,18 +69,17 @@ export function createShiftedSolver(
   const n = stiffness.n;
   const tolerance = options.zeroPivotTolerance ?? DEFAULT_ZERO_PIVOT_TOLERANCE;
   const t0 = performance.now();
-  const threads = Math.min(options.threads ?? 2, availableThreads());
+  const threads = Math.min(options.threads ?? Infinity, availableThreads());
   const order = chooseOrdering(stiffness, mass, { ordering: options.ordering ?? 'auto', coordinates: options.coordinates, threads });
   const t1 = performance.now();
   const analyzed = analyzeShiftedPair(stiffness, mass, order.perm);
-  const candidate = threads >= 2 && analyzed.flops >= PARALLEL_MIN_FLOPS ? splitSubtrees(analyzed, 2) : null;
-  const split = candidate !== null && candidate.timeRatio <= PARALLEL_MAX_TIME_RATIO ? candidate : null;
+  const split = analyzed.flops >= PARALLEL_MIN_FLOPS ? chooseSplit(analyzed, threads) : null;
   if (options.memoryLimitBytes !== undefined) {
-    // scratch for the threads that will factor: two only when the tree was split between them
-    const predicted = predictedFactorBytes(analyzed, split ? 2 : 1) + (options.extraBytes ?? 0);
+    // scratch for the threads that will factor: as many as the tree was split into
+    const predicted = predictedFactorBytes(analyzed, split ? split.parts.length : 1) + (options.extraBytes ?? 0);
     if (predicted > options.memoryLimitBytes) throw new MemoryLimitError(predicted, options.memoryLimitBytes, analyzed.nnzL);
   }
-  // shared memory lets the helper thread read the structure without a copy
+  // shared memory lets the helper threads read the structure without a copy
   const structure = split ? shareStructure(analyzed) : analyzed;
   const solvePlan = split ? prepareSplitSolve(structure, split) : null;
   const t2 = performance.now();
@@ -94,7 +106,7 @@ export function createShiftedSolver(
       maxDiagonalToPivotRatio: monitor.maxRatio,
       maxRatioDof: monitor.maxRatioIndex >= 0 ? perm[monitor.maxRatioIndex] : -1,
       tinyPivots: monitor.tinyPivots(perm),
-      threads: parallel ? 2 : 1,
+      threads: parallel && split ? split.parts.length : 1,
       kernels: kernelKinds(f),
     };
     return makeFactor(f, shift, monitor, diagnostics, parallel ? solvePlan : null, (values) => {

@@ -2,7 +2,7 @@
  * WebAssembly SIMD kernels for the triangular sweeps, reading the factor L where it lives.
  *
  * The factor's values are allocated inside a shared WebAssembly memory (`factorStorage`), after
- * two scratch regions (one per thread) that hold the gathered right-hand sides of one
+ * one scratch region per thread that works on it (helper-thread.ts: N threads), which hold the gathered right-hand sides of one
  * supernode. The kernels then read L in place — no packing copy, which for a handful of
  * right-hand sides would cost as much as the arithmetic.
  *
@@ -37,13 +37,15 @@ const KERNEL_GROUP = 4;
 
 type Kernel = (pL: number, ld: number, count: number, cols: number, pX: number, ldx: number, pY: number, ldy: number) => void;
 
-/** Where a factor's values sit in its memory, and the two scratch regions before them. */
+/** Where a factor's values sit in its memory, and the scratch regions (one per thread) before them. */
 export interface FactorStorage {
   memory: WasmMemory;
   /** Tells factors apart in a helper thread, where each job brings a fresh copy of this object. */
   id: number;
   /** Doubles per scratch region (region r starts at double r · scratchDoubles). */
   scratchDoubles: number;
+  /** Scratch regions: thread t of a factorization or solve on this factor uses region t < regions. */
+  regions: number;
   /** First double of the values. */
   valuesOffset: number;
 }
@@ -169,19 +171,19 @@ export function useSimdSweepKernels(on: boolean): boolean {
 }
 
 /**
- * `length` zeroed doubles for a factor's values in a shared WebAssembly memory, after two
- * scratch regions of `scratchDoubles` each; null when the kernels are off or unavailable, or
- * the whole does not fit in 4 GiB.
+ * `length` zeroed doubles for a factor's values in a shared WebAssembly memory, after `regions`
+ * scratch regions (one per thread) of `scratchDoubles` each; null when the kernels are off or
+ * unavailable, or the whole does not fit in 4 GiB.
  */
-export function factorStorage(length: number, scratchDoubles: number): { values: Float64Array; storage: FactorStorage } | null {
+export function factorStorage(length: number, scratchDoubles: number, regions: number): { values: Float64Array; storage: FactorStorage } | null {
   if (!enabled || compiledModule() === null) return null;
   const scratch = Math.ceil(scratchDoubles / 8) * 8;
   // a few doubles past the values: the factor's strip kernels may read a whole strip of 4 rows at the end
-  const pages = Math.ceil((8 * (2 * scratch + length + 4)) / PAGE_BYTES);
+  const pages = Math.ceil((8 * (regions * scratch + length + 4)) / PAGE_BYTES);
   if (pages > MAX_PAGES - 1) return null;
   try {
     const memory = sharedMemory(Math.max(1, pages));
-    const storage = { memory, id: ++storageCount + Math.random(), scratchDoubles: scratch, valuesOffset: 2 * scratch };
+    const storage = { memory, id: ++storageCount + Math.random(), scratchDoubles: scratch, regions, valuesOffset: regions * scratch };
     return { values: new Float64Array(memory.buffer, 8 * storage.valuesOffset, length), storage };
   } catch {
     return null;

@@ -1,13 +1,15 @@
 /**
- * Two-thread LDLᵀ factorization, behind the same synchronous interface as the serial one, and
- * its jobs for the helper thread (helper-thread.ts).
+ * N-thread LDLᵀ factorization, behind the same synchronous interface as the serial one, and
+ * its jobs for the helper threads (helper-thread.ts).
  *
- * The supernodal tree is split (subtree-split.ts) into two sets of disjoint subtrees; the helper
- * factors one set while this thread factors the other, then this thread factors the top (their
+ * The supernodal tree is split (subtree-split.ts) into N sets of disjoint subtrees; helper i
+ * factors set i + 1 while this thread factors set 0, then this thread factors the top (their
  * common ancestors), applying the updates the subtrees still owe through the shared `nextRow`
- * record, and hands the helper a share of the top's large supernodes (descendant updates and
- * panel updates). Both threads write disjoint blocks of the same SharedArrayBuffer-backed
- * arrays, so nothing is copied or merged but the pivot counts.
+ * record, and hands every helper a share of the top's large supernodes (descendant updates by
+ * target columns, panel updates by rows). All threads write disjoint blocks of the same
+ * SharedArrayBuffer-backed arrays, so nothing is copied or merged but the pivot counts (merged
+ * in part order). Which thread computes which entry, and in which order the updates of an
+ * entry are added, is fixed by the split: the same split gives the same bits on every run.
  */
 import {
   applyDescendant,
@@ -25,14 +27,15 @@ import { PivotMonitor, type MonitorState } from './pivot-monitor.js';
 import type { SupernodalStructure } from './symbolic.js';
 import type { SubtreeSplit } from './subtree-split.js';
 import type { FactorStorage } from './simd-sweep-kernels.js';
-import { alongside, collectBoth, sharedBlock, sharedCopy, sharedInt32, startHelper, type Answer, type Helper } from './helper-thread.js';
+import { alongsideAll, collectAll, sharedBlock, sharedCopy, sharedInt32, startHelpers, type Answer, type Helper } from './helper-thread.js';
 
-/** The arrays every job on a factor brings (shared; `storage` when the values live in a WebAssembly memory). */
+/** The arrays every job on a factor brings (shared; `storage` when the values live in a WebAssembly memory), and the helper's scratch region. */
 interface FactorParts {
   structure: SupernodalStructure;
   values: Float64Array;
   d: Float64Array;
   storage?: FactorStorage;
+  region: number;
 }
 
 /** Factor the supernodes of `ranges` (the helper's part of the split). */
@@ -46,17 +49,18 @@ export interface FactorJob extends FactorParts {
   ranges: [number, number][];
 }
 
-/** The helper's share of a shared supernode's descendant updates. */
+/** A helper's share of a shared supernode's descendant updates. */
 export interface DescendantsJob extends FactorParts {
   kind: 'descendants';
   sn: number;
   /** (dn, start, stop) triples. */
   list: Int32Array;
-  /** The helper's share: target columns ≥ fromColumn. */
+  /** The helper's share: target columns fromColumn … toColumn − 1. */
   fromColumn: number;
+  toColumn: number;
 }
 
-/** The helper's share of a panel update: rows from … to−1 below the panel. */
+/** A helper's share of a panel update: rows from … to−1 below the panel. */
 export interface PanelJob extends FactorParts {
   kind: 'panel';
   sn: number;
@@ -92,47 +96,52 @@ export function shareStructure(s: SupernodalStructure): SupernodalStructure {
 }
 
 /**
- * LDLᵀ on two threads along `split` (two parts); null when no helper thread is available, so the
- * caller factors serially. `s` must come from shareStructure.
+ * LDLᵀ on N threads along `split` (N = its parts); null when N − 1 helper threads are not
+ * available, so the caller factors serially. `s` must come from shareStructure.
  */
 export function parallelSupernodalLdlt(s: SupernodalStructure, shift: number, monitor: PivotMonitor, split: SubtreeSplit, recycled?: RecycledValues): SupernodalFactor | null {
-  const h = startHelper();
-  if (h === null || split.parts.length !== 2) return null;
-  // before the factor's large allocation: let both threads drop the shared arrays of earlier work
-  collectBoth(h);
-  const { values, storage, dirty } = factorValues(s, recycled, sharedBlock);
+  const threads = split.parts.length;
+  const helpers = startHelpers(threads - 1);
+  if (threads < 2 || helpers.length !== threads - 1) return null;
+  // before the factor's large allocation: let every thread drop the shared arrays of earlier work
+  collectAll(helpers);
+  const { values, storage, dirty } = factorValues(s, recycled, sharedBlock, threads);
   const d = sharedBlock(s.n);
   const nextRow = sharedInt32(s.supernodes);
   const out = { values, d, nextRow, dirty, ...(storage ? { storage } : {}) };
-  const job: FactorJob = { kind: 'factor', structure: s, shift, tolerance: monitor.tolerance, diagonalScale: monitor.diagonalScale, ...out, ranges: split.parts[1] };
-  const theirs = alongside<Factored>(h, job, () => factorSupernodes(s, shift, monitor, out, split.parts[0]), 'factored');
-  monitor.merge(theirs.monitor);
-  factorSupernodes(s, shift, monitor, out, split.top, [...split.parts[0], ...split.parts[1]], cooperation(h, s, values, d, storage));
-  // the helper lets go of this factor's memory, so a released factor is not kept alive by it
-  alongside(h, { kind: 'dropWorkspace' }, () => {});
+  const common = { kind: 'factor', structure: s, shift, tolerance: monitor.tolerance, diagonalScale: monitor.diagonalScale, ...out } as const;
+  const jobs: FactorJob[] = helpers.map((_, i) => ({ ...common, ranges: split.parts[i + 1], region: i + 1 }));
+  const theirs = alongsideAll<Factored>(helpers, jobs, () => factorSupernodes(s, shift, monitor, out, split.parts[0]), 'factored');
+  // pivot counts in part order
+  for (const t of theirs) monitor.merge(t.monitor);
+  factorSupernodes(s, shift, monitor, out, split.top, split.parts.flat(), cooperation(helpers, s, values, d, storage));
+  // the helpers let go of this factor's memory, so a released factor is not kept alive by them
+  alongsideAll(helpers, helpers.map((): DropWorkspaceJob => ({ kind: 'dropWorkspace' })), () => {});
   return { structure: s, values, d, ...(storage ? { storage } : {}) };
 }
 
 /** Supernodes of the top with at least this many rows and columns share their work (our choice). */
 const SHARE_MIN_ROWS = 512;
 const SHARE_MIN_COLUMNS = 128;
-/** Panel updates of fewer rows stay on this thread. */
-const SHARE_MIN_PANEL_ROWS = 256;
+/** A share of a panel update has at least this many rows; panels of fewer than twice as many stay on this thread (our choice). */
+const SHARE_MIN_PANEL_ROWS = 128;
 
 /**
- * How the top's large supernodes are shared: descendants' updates split at the target column
- * where the estimated work (per target column: the updating rows at and below it times the
- * descendant's columns) is halved, panel updates split by rows.
+ * How the top's large supernodes are shared among the N threads: descendants' updates split at
+ * the target columns where the estimated work (per target column: the updating rows at and below
+ * it times the descendant's columns) reaches 1/N, 2/N, … of the whole; panel updates split by
+ * rows into near-equal shares, this thread's holding the panel's diagonal block.
  */
-function cooperation(h: Helper, s: SupernodalStructure, values: Float64Array, d: Float64Array, storage: FactorStorage | undefined): SupernodeCooperation {
+function cooperation(helpers: Helper[], s: SupernodalStructure, values: Float64Array, d: Float64Array, storage: FactorStorage | undefined): SupernodeCooperation {
   const inMemory = storage ? { storage } : {};
+  const threads = helpers.length + 1;
   const { superStart, rowPtr, valuePtr } = s;
   return {
     wants: (sn) => rowPtr[sn + 1] - rowPtr[sn] >= SHARE_MIN_ROWS && superStart[sn + 1] - superStart[sn] >= SHARE_MIN_COLUMNS,
     descendants(sn, list, count, map, work) {
       const f = superStart[sn];
-      const nc = superStart[sn + 1] - f;
-      const perColumn = new Float64Array(nc);
+      const l = superStart[sn + 1];
+      const perColumn = new Float64Array(l - f);
       let total = 0;
       // a descendant's row at position p inside S costs (rows from p down) × (its columns) in that target column
       for (let t = 0; t < count; t++) {
@@ -146,40 +155,70 @@ function cooperation(h: Helper, s: SupernodalStructure, values: Float64Array, d:
           total += cost;
         }
       }
-      // split where half of the work lies left
-      let mid = 0;
-      for (let acc = 0; mid < nc && acc + perColumn[mid] <= total / 2; mid++) acc += perColumn[mid];
-      const fromColumn = f + mid;
+      // share t: target columns bounds[t] … bounds[t + 1] − 1, cut where t/N of the work lies left
+      const bounds = [f];
+      let acc = 0;
+      let c = 0;
+      for (let t = 1; t < threads; t++) {
+        for (; c < l - f && acc + perColumn[c] <= (t * total) / threads; c++) acc += perColumn[c];
+        bounds.push(f + c);
+      }
+      bounds.push(l);
       const triples = list.slice(0, 3 * count);
-      const job: DescendantsJob = { kind: 'descendants', structure: s, values, d, ...inMemory, sn, list: triples, fromColumn };
-      alongside(h, job, () => {
-        // this thread: target columns before fromColumn
-        for (let t = 0; t < count; t++) {
-          const dn = triples[3 * t];
-          const start = triples[3 * t + 1];
-          const split = rowsBefore(s, dn, start, fromColumn);
-          if (split > start) applyDescendant(s, dn, sn, start, triples[3 * t + 2], values, d, map, work, 0, split - start);
-        }
-      });
+      const jobs: DescendantsJob[] = helpers.map((_, i) => ({ kind: 'descendants', structure: s, values, d, ...inMemory, region: i + 1, sn, list: triples, fromColumn: bounds[i + 1], toColumn: bounds[i + 2] }));
+      // this thread: target columns before bounds[1]
+      alongsideAll(helpers, jobs, () => applyColumns(s, sn, triples, f, bounds[1], values, d, map, work));
     },
     panel(sn, c0, c1, work) {
       const f = superStart[sn];
       const nr = rowPtr[sn + 1] - rowPtr[sn];
       const v0 = valuePtr[sn];
       const rows = nr - c0;
-      if (rows < SHARE_MIN_PANEL_ROWS) {
+      const shares = Math.min(threads, Math.floor(rows / SHARE_MIN_PANEL_ROWS));
+      if (shares < 2) {
         panelUpdateRows(values, v0, nr, c0, c1, f, d, work, 0, rows);
         return;
       }
-      // this thread: the top half with the panel's diagonal block; the helper: the rows below
-      const split = Math.max(c1 - c0, rows >> 1);
-      const job: PanelJob = { kind: 'panel', structure: s, values, d, ...inMemory, sn, c0, c1, from: split, to: rows };
-      alongside(h, job, () => panelUpdateRows(values, v0, nr, c0, c1, f, d, work, 0, split));
+      // share t: rows bounds[t] … bounds[t + 1] − 1 below c0; this thread's first share holds the diagonal block
+      const bounds = [0];
+      for (let t = 1; t < shares; t++) bounds.push(Math.max(c1 - c0, Math.round((t * rows) / shares)));
+      bounds.push(rows);
+      const jobs: PanelJob[] = [];
+      for (let t = 1; t < shares; t++) {
+        jobs.push({ kind: 'panel', structure: s, values, d, ...inMemory, region: t, sn, c0, c1, from: bounds[t], to: bounds[t + 1] });
+      }
+      alongsideAll(helpers.slice(0, shares - 1), jobs, () => panelUpdateRows(values, v0, nr, c0, c1, f, d, work, 0, bounds[1]));
     },
   };
 }
 
-/** The helper's share of a shared supernode's descendant updates (called in the helper). */
+/**
+ * S(·, fromColumn … toColumn − 1) −= the updates of every descendant of `triples` ((dn, start,
+ * stop) flattened) in those target columns; `map` holds S's local row positions.
+ */
+function applyColumns(
+  s: SupernodalStructure,
+  sn: number,
+  triples: Int32Array,
+  fromColumn: number,
+  toColumn: number,
+  values: Float64Array,
+  d: Float64Array,
+  map: Int32Array,
+  work: UpdateWorkspace,
+): void {
+  // each descendant's row positions whose target columns lie in the range
+  for (let t = 0; 3 * t < triples.length; t++) {
+    const dn = triples[3 * t];
+    const start = triples[3 * t + 1];
+    const stop = triples[3 * t + 2];
+    const from = rowsBefore(s, dn, start, fromColumn);
+    const to = Math.min(stop, rowsBefore(s, dn, from, toColumn));
+    if (to > from) applyDescendant(s, dn, sn, start, stop, values, d, map, work, from - start, to - start);
+  }
+}
+
+/** A helper's share of a shared supernode's descendant updates (called in the helper). */
 function helperDescendants(job: DescendantsJob, map: Int32Array, work: UpdateWorkspace): void {
   const s = job.structure;
   const sn = job.sn;
@@ -187,16 +226,10 @@ function helperDescendants(job: DescendantsJob, map: Int32Array, work: UpdateWor
   const nr = s.rowPtr[sn + 1] - r0;
   // local position of each row of S
   for (let i = 0; i < nr; i++) map[s.rows[r0 + i]] = i;
-  for (let t = 0; 3 * t < job.list.length; t++) {
-    const dn = job.list[3 * t];
-    const start = job.list[3 * t + 1];
-    const stop = job.list[3 * t + 2];
-    const split = rowsBefore(s, dn, start, job.fromColumn);
-    if (stop > split) applyDescendant(s, dn, sn, start, stop, job.values, job.d, map, work, split - start, stop - start);
-  }
+  applyColumns(s, sn, job.list, job.fromColumn, job.toColumn, job.values, job.d, map, work);
 }
 
-/** The helper's share of a panel update (called in the helper). */
+/** A helper's share of a panel update (called in the helper). */
 function helperPanel(job: PanelJob, work: UpdateWorkspace): void {
   const s = job.structure;
   const nr = s.rowPtr[job.sn + 1] - s.rowPtr[job.sn];
@@ -208,14 +241,14 @@ let map = new Int32Array(0);
 let work: UpdateWorkspace | null = null;
 let workFor = -1;
 
-/** The helper's workspaces for a job's factor (scratch region 1 of its memory when it lives in one). */
-function workspaces(job: { structure: SupernodalStructure; storage?: FactorStorage }): { map: Int32Array; work: UpdateWorkspace } {
+/** The helper's workspaces for a job's factor (its scratch region of the factor's memory when it lives in one). */
+function workspaces(job: FactorParts): { map: Int32Array; work: UpdateWorkspace } {
   const s = job.structure;
   if (map.length < s.n) map = new Int32Array(s.n);
   // a shared supernode sends one job per panel: the workspace is kept while the factor is the same
   const id = job.storage?.id ?? 0;
   if (work === null || id !== workFor || work.rel.length < s.maxRows) {
-    work = updateWorkspace(s, job.storage, 1);
+    work = updateWorkspace(s, job.storage, job.region);
     workFor = id;
   }
   return { map, work };
@@ -234,7 +267,7 @@ export const factorJobHandlers = {
   factor(job: FactorJob): Factored {
     const monitor = new PivotMonitor(job.tolerance, job.diagonalScale);
     const out = { values: job.values, d: job.d, nextRow: job.nextRow, dirty: job.dirty, ...(job.storage ? { storage: job.storage } : {}) };
-    factorSupernodes(job.structure, job.shift, monitor, out, job.ranges, [], undefined, 1);
+    factorSupernodes(job.structure, job.shift, monitor, out, job.ranges, [], undefined, job.region);
     return { kind: 'factored', monitor: monitor.state() };
   },
   descendants(job: DescendantsJob): Answer {

@@ -1,15 +1,15 @@
 /**
- * Two-thread block solves on a factor made by split-factor.ts, and their jobs for the helper
- * thread (helper-thread.ts): the two parts' sweeps run at once, the top's between them.
+ * N-thread block solves on a factor made by split-factor.ts, and their jobs for the helper
+ * threads (helper-thread.ts): the N parts' sweeps run at once, the top's between them.
  */
 import type { SupernodalFactor } from './numeric-ldlt.js';
 import type { SupernodalStructure } from './symbolic.js';
 import type { SubtreeSplit } from './subtree-split.js';
 import type { FactorStorage } from './simd-sweep-kernels.js';
 import { backwardSweepRanges, diagonalSolve, forwardSweepRanges, sweepWorkspace } from './triangular-solve.js';
-import { alongside, sharedInt32, sharedScratch, startHelper, type Answer } from './helper-thread.js';
+import { alongsideAll, sharedInt32, sharedScratch, startHelpers, type Answer } from './helper-thread.js';
 
-/** The factor and the block X (n × columns, in pivot order) a sweep job works on, all shared. */
+/** The factor and the block X (n × columns, in pivot order) a sweep job works on, all shared; the helper's scratch region. */
 interface SweepParts {
   structure: SupernodalStructure;
   values: Float64Array;
@@ -18,9 +18,10 @@ interface SweepParts {
   x: Float64Array;
   columns: number;
   ranges: [number, number][];
+  region: number;
 }
 
-/** The forward sweep over the helper's part; its updates of the top's rows go to acc (index, count as in RowRedirect). */
+/** The forward sweep over a helper's part; its updates of the top's rows go to acc (index, count as in RowRedirect). */
 export interface ForwardJob extends SweepParts {
   kind: 'forward';
   index: Int32Array;
@@ -28,7 +29,7 @@ export interface ForwardJob extends SweepParts {
   acc: Float64Array;
 }
 
-/** The backward sweep over the helper's part. */
+/** The backward sweep over a helper's part. */
 export interface BackwardJob extends SweepParts {
   kind: 'backward';
 }
@@ -41,7 +42,7 @@ export interface SplitSolve {
   count: number;
   /** The top's columns, ascending. */
   topColumns: Int32Array;
-  /** The helper's accumulator for the top's rows, reused from solve to solve. */
+  /** The helpers' accumulators for the top's rows (helper i's at i · count · k), reused from solve to solve. */
   helperAcc: (length: number) => Float64Array;
 }
 
@@ -59,32 +60,38 @@ export function prepareSplitSolve(s: SupernodalStructure, split: SubtreeSplit): 
 }
 
 /**
- * X ← (L D Lᵀ)⁻¹ X in pivot order on two threads: forward sweeps over the two parts at once
- * (their updates of the top's rows kept apart and added afterwards), the top's forward sweep,
- * D⁻¹, the top's backward sweep, then the parts' backward sweeps at once (they only read the
- * top's rows). False when it did not run (no helper, factor or X not in shared memory).
+ * X ← (L D Lᵀ)⁻¹ X in pivot order on N threads (N = the split's parts): forward sweeps over the
+ * N parts at once (their updates of the top's rows kept apart, one accumulator per thread, and
+ * added afterwards in part order), the top's forward sweep, D⁻¹, the top's backward sweep, then
+ * the parts' backward sweeps at once (they only read the top's rows). False when it did not run
+ * (too few helpers, factor or X not in shared memory).
  */
 export function splitSolveInPlace(f: SupernodalFactor, x: Float64Array, k: number, plan: SplitSolve): boolean {
   if (!(f.values.buffer instanceof SharedArrayBuffer) || !(x.buffer instanceof SharedArrayBuffer)) return false;
-  const h = startHelper();
-  if (h === null) return false;
   const { split, index, count, topColumns } = plan;
+  const helpers = startHelpers(split.parts.length - 1);
+  if (helpers.length !== split.parts.length - 1) return false;
   const n = f.structure.n;
   const ws = sweepWorkspace(f, k);
-  const mine = new Float64Array(count * k);
-  const theirs = plan.helperAcc(count * k).fill(0);
+  const size = count * k;
+  const mine = new Float64Array(size);
+  const theirs = plan.helperAcc(helpers.length * size).fill(0);
   const common = { structure: f.structure, values: f.values, d: f.d, storage: f.storage, x, columns: k };
-  alongside(h, { ...common, kind: 'forward', ranges: split.parts[1], index, count, acc: theirs } satisfies ForwardJob, () => {
-    forwardSweepRanges(f, x, k, ws, split.parts[0], { index, count, acc: mine });
-  });
-  // the parts' updates of the top's rows, in a fixed order
+  const forward = helpers.map((_, i): ForwardJob => ({ ...common, kind: 'forward', ranges: split.parts[i + 1], region: i + 1, index, count, acc: theirs.subarray(i * size, (i + 1) * size) }));
+  alongsideAll(helpers, forward, () => forwardSweepRanges(f, x, k, ws, split.parts[0], { index, count, acc: mine }));
+  // the parts' updates of the top's rows, in part order
   for (let c = 0; c < k; c++) {
-    for (let t = 0; t < count; t++) x[c * n + topColumns[t]] += mine[c * count + t] + theirs[c * count + t];
+    for (let t = 0; t < count; t++) {
+      let sum = mine[c * count + t];
+      for (let i = 0; i < helpers.length; i++) sum += theirs[i * size + c * count + t];
+      x[c * n + topColumns[t]] += sum;
+    }
   }
   forwardSweepRanges(f, x, k, ws, split.top);
   diagonalSolve(f, x, k);
   backwardSweepRanges(f, x, k, ws, split.top);
-  alongside(h, { ...common, kind: 'backward', ranges: split.parts[1] } satisfies BackwardJob, () => backwardSweepRanges(f, x, k, ws, split.parts[0]));
+  const backward = helpers.map((_, i): BackwardJob => ({ ...common, kind: 'backward', ranges: split.parts[i + 1], region: i + 1 }));
+  alongsideAll(helpers, backward, () => backwardSweepRanges(f, x, k, ws, split.parts[0]));
   return true;
 }
 
@@ -94,12 +101,12 @@ const DONE: Answer = { kind: 'done' };
 export const solveJobHandlers = {
   forward(job: ForwardJob): Answer {
     const f = { structure: job.structure, values: job.values, d: job.d, storage: job.storage };
-    forwardSweepRanges(f, job.x, job.columns, sweepWorkspace(f, job.columns, 1), job.ranges, { index: job.index, count: job.count, acc: job.acc });
+    forwardSweepRanges(f, job.x, job.columns, sweepWorkspace(f, job.columns, job.region), job.ranges, { index: job.index, count: job.count, acc: job.acc });
     return DONE;
   },
   backward(job: BackwardJob): Answer {
     const f = { structure: job.structure, values: job.values, d: job.d, storage: job.storage };
-    backwardSweepRanges(f, job.x, job.columns, sweepWorkspace(f, job.columns, 1), job.ranges);
+    backwardSweepRanges(f, job.x, job.columns, sweepWorkspace(f, job.columns, job.region), job.ranges);
     return DONE;
   },
 };

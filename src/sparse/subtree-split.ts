@@ -13,6 +13,7 @@
  * heaviest first, each to the least loaded thread (longest-processing-time rule), and keep the
  * step whose modelled time — the longest thread plus the shared top — is least. Weight = the
  * supernode's flop estimate Σ_c (nr − c)² over its columns (the dense work it does and sends up).
+ * The deal is a function of the tree and the thread count alone (ties go to the lower thread).
  */
 import type { SupernodalStructure } from './symbolic.js';
 
@@ -61,7 +62,7 @@ export function splitSubtrees(s: SupernodalStructure, threads: number): SubtreeS
   let candidates = roots.slice();
   const topSet: number[] = [];
   let best: SubtreeSplit | null = null;
-  for (let step = 0; step < MAX_OPENINGS; step++) {
+  for (let step = 0; step < OPENINGS_PER_THREAD * threads; step++) {
     const split = deal(candidates, threads, weight, first, topSet, total);
     if (split !== null && (best === null || split.timeRatio < best.timeRatio)) best = split;
     let heaviest = -1;
@@ -76,13 +77,21 @@ export function splitSubtrees(s: SupernodalStructure, threads: number): SubtreeS
   return best;
 }
 
-/** How many subtree roots may be moved to the top while searching (our choice). */
-const MAX_OPENINGS = 64;
+/** How many subtree roots may be moved to the top while searching, per thread (our choice: 64 served two threads). */
+const OPENINGS_PER_THREAD = 32;
 /**
- * Modelled time of the top per unit of work: its large supernodes are shared by both threads
- * (src/sparse/split-factor.ts), measured at about 0.6 of their serial time (our estimate).
+ * Share of the top's work that its shared supernodes spread over the threads
+ * (src/sparse/split-factor.ts); the rest (small top supernodes, each panel's own column loop)
+ * stays on one thread. On two threads the top took about 0.6 of its serial time (our
+ * measurement), 1 − p + p/2 = 0.6 gives p = 0.8; more threads are modelled as Amdahl's law on
+ * that p (an estimate: the top's products on many threads are also bound by memory bandwidth).
  */
-const TOP_TIME_FACTOR = 0.6;
+const TOP_PARALLEL_SHARE = 0.8;
+
+/** Modelled time of the top on `threads` threads per unit of its serial work. */
+export function topTimeFactor(threads: number): number {
+  return 1 - TOP_PARALLEL_SHARE + TOP_PARALLEL_SHARE / threads;
+}
 
 /** Longest-processing-time deal of the candidate subtrees to the threads, and its modelled time. */
 function deal(candidates: number[], threads: number, weight: Float64Array, first: Int32Array, topSet: number[], total: number): SubtreeSplit | null {
@@ -102,7 +111,7 @@ function deal(candidates: number[], threads: number, weight: Float64Array, first
   return {
     parts: assigned.map((list) => list.map((r) => [first[r], r] as [number, number]).sort((a, b) => a[0] - b[0])),
     top: runsOf(topSet.slice().sort((a, b) => a - b)),
-    timeRatio: (longest + TOP_TIME_FACTOR * (total - parallel)) / total,
+    timeRatio: (longest + topTimeFactor(threads) * (total - parallel)) / total,
   };
 }
 

@@ -28,7 +28,7 @@ export function supernodalSolveInPlace(f: SupernodalFactor, x: Float64Array, k: 
 
 /**
  * Where a sweep over part of the tree sends its updates of rows outside the part: rows with
- * index[row] ≥ 0 are added to acc[c · count + index[row]] instead of X (so two threads sweeping
+ * index[row] ≥ 0 are added to acc[c · count + index[row]] instead of X (so threads sweeping
  * disjoint subtrees never write the same entry of X).
  */
 export interface RowRedirect {
@@ -51,10 +51,10 @@ const kernelsOf = new WeakMap<FactorStorage, SweepKernels | null>();
 /**
  * Gathered rows of X for one supernode (y, z) and its k-major copy (w): maxRows × k each; with
  * the SIMD kernels, scratch region `region` of the factor's memory instead (0 for the main
- * thread, 1 for the helper).
+ * thread, i + 1 for helper i; plain arrays when the memory has no such region).
  */
-export function sweepWorkspace(f: SupernodalFactor, k: number, region: 0 | 1 = 0): SweepWorkspace {
-  if (f.storage) {
+export function sweepWorkspace(f: SupernodalFactor, k: number, region = 0): SweepWorkspace {
+  if (f.storage && region < f.storage.regions) {
     let kernels = kernelsOf.get(f.storage);
     if (kernels === undefined) {
       kernels = sweepKernels(f.storage);

@@ -17,7 +17,7 @@ describe('SIMD triangular sweeps', () => {
 
   it('are available on Node 20 (WebAssembly SIMD and shared memory)', () => {
     expect(useSimdSweepKernels(true)).toBe(true);
-    expect(factorStorage(10, 6)).not.toBeNull();
+    expect(factorStorage(10, 6, 2)).not.toBeNull();
   });
 
   it('solve every block width to the plain sweeps and to a residual ≤ 1e-12 (hex grid pair, both orderings)', () => {

@@ -33,7 +33,7 @@ export interface ChooseOrderingOptions {
   predictNnzL?: (perm: Int32Array) => number;
   /** Parts of at most this many supervariables end the dissection (default 64). */
   leafSize?: number;
-  /** Threads the orderings may use (default 1; with 2 the multilevel dissection shares its repeated runs with the helper thread). */
+  /** Threads the orderings may use (default 1; with N ≥ 2 the multilevel dissection deals its repeated runs to N − 1 helper threads, with the same result). */
   threads?: number;
 }
 

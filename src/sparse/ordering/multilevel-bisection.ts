@@ -32,10 +32,10 @@
  * bench solids' dissections within ±1 % (mean over four seeds) at less than half the time.
  *
  * Threads. The dissection tree is built one level at a time (dissection-driver.ts); a level's
- * work — its single-run parts and the halves of its large parts' runs — is dealt in pairs of
- * similar cost, one to the helper thread (separator-jobs.ts over helper-thread.ts, one job in flight at a time) and
- * one done here. Every separator is a function of its part's graph and its seed alone, so the
- * ordering is the same with one thread or two.
+ * work — its single-run parts and its large parts' runs in max(2, N) batches — is dealt in groups
+ * of N of similar cost, one to each helper thread (separator-jobs.ts over helper-thread.ts, one
+ * job in flight per helper) and the last done here. Every separator is a function of its part's
+ * graph and its seed alone, so the ordering is the same on any number of threads.
  *
  * Result of the ordering: perm[k] = vertex eliminated k-th.
  */
@@ -140,20 +140,25 @@ export function multilevelNestedDissection(graph: AdjacencyGraph, options: Multi
 }
 
 /**
- * Computes every run of the level's parts. Tasks — a single run, or one half of a large part's
- * runs — go out in decreasing cost, in pairs: the first of a pair to the helper thread, the
- * second computed here meanwhile, then the helper's result collected (the helper takes one job
- * at a time). Without a helper every task runs here.
+ * Computes every run of the level's parts. Tasks — a single run, or one batch of a large part's
+ * runs — go out in decreasing cost, in groups of `threads`: the group's first ones to helpers
+ * 0, 1, …, its last computed here meanwhile, then the helpers' results collected (a helper takes
+ * one job at a time). Without a helper a task runs here.
  */
 function runTasks(work: PartWork[], threads: number): void {
   const tasks: RunTask[] = [];
-  // a large part's runs in two halves, a single run as one task; cost ~ entries × runs
+  const batches = Math.max(2, threads);
+  // a large part's runs in batches, a single run as one task; cost ~ entries × runs
   for (let i = 0; i < work.length; i++) {
     const runs = work[i].seeds.length;
     const cost = work[i].g.adj.length + work[i].g.n;
-    const half = runs >> 1;
-    if (runs > 1) tasks.push({ part: i, from: 0, to: half, cost: cost * half }, { part: i, from: half, to: runs, cost: cost * (runs - half) });
-    else tasks.push({ part: i, from: 0, to: 1, cost });
+    const count = Math.min(runs, batches);
+    // batch b: runs ⌊b·runs/count⌋ … ⌊(b+1)·runs/count⌋ − 1
+    for (let b = 0; b < count; b++) {
+      const from = Math.floor((b * runs) / count);
+      const to = Math.floor(((b + 1) * runs) / count);
+      tasks.push({ part: i, from, to, cost: cost * (to - from) });
+    }
   }
   tasks.sort((x, y) => y.cost - x.cost || x.part - y.part || x.from - y.from);
   const runHere = (t: RunTask): void => {
@@ -161,22 +166,22 @@ function runTasks(work: PartWork[], threads: number): void {
     // the task's runs, one separator each
     for (let r = t.from; r < t.to; r++) w.wheres[r] = multilevelSeparator(w.g, w.seeds[r]);
   };
-  // pairs: the helper's task is posted, this thread's computed, then the helper's collected
-  for (let k = 0; k < tasks.length; k += 2) {
-    if (k + 1 === tasks.length) {
-      runHere(tasks[k]);
-      break;
+  // groups: the helpers' tasks posted, this thread's computed, then the helpers' collected in order
+  for (let k = 0; k < tasks.length; k += threads) {
+    const group = tasks.slice(k, k + threads);
+    const theirs = group.slice(0, -1);
+    const waits = theirs.map((t, i) => startSeparatorRuns(work[t.part].g, work[t.part].seeds.slice(t.from, t.to), i));
+    runHere(group[group.length - 1]);
+    for (let i = 0; i < theirs.length; i++) {
+      const t = theirs[i];
+      const wait = waits[i];
+      if (!wait) {
+        runHere(t);
+        continue;
+      }
+      const got = wait();
+      for (let r = t.from; r < t.to; r++) work[t.part].wheres[r] = got[r - t.from];
     }
-    const theirs = tasks[k];
-    const w = work[theirs.part];
-    const wait = startSeparatorRuns(w.g, w.seeds.slice(theirs.from, theirs.to), threads);
-    runHere(tasks[k + 1]);
-    if (!wait) {
-      runHere(theirs);
-      continue;
-    }
-    const got = wait();
-    for (let r = theirs.from; r < theirs.to; r++) w.wheres[r] = got[r - theirs.from];
   }
 }
 
