@@ -6,9 +6,15 @@
  * again here and no schema is compiled. The solver's thread count is this thread's
  * MODALGATE_THREADS, set by the runner when it starts the worker.
  */
+import module from 'node:module';
 import { parentPort } from 'node:worker_threads';
-import { analyzeModel, problemOf, stackOf, type PhaseTimes } from './analyze-model.js';
-import { fromPlainJob, type PlainModelJob } from './plain-job.js';
+import type { analyzeModel, PhaseTimes, problemOf } from './analyze-model.js';
+import type { PlainModelJob } from './plain-job.js';
+
+// Node ≥ 22.1 can keep the compiled code of the modules on disk between runs (the solver's modules load after this)
+(module as { enableCompileCache?: () => unknown }).enableCompileCache?.();
+const { analyzeModel: analyze, problemOf: problem, stackOf } = await import('./analyze-model.js');
+const { fromPlainJob } = await import('./plain-job.js');
 
 /** `sendStacks`: post the stack trace of every exception the check catches (MODALGATE_DEBUG). */
 export type ModelWorkerRequest = { kind: 'check'; id: number; job: PlainModelJob; sendStacks: boolean };
@@ -28,10 +34,10 @@ async function check({ id, job, sendStacks }: ModelWorkerRequest): Promise<void>
   const post = (m: ModelWorkerMessage): void => port.postMessage(m);
   const onCaughtError = sendStacks ? (e: unknown) => post({ kind: 'caught', id, stack: stackOf(e) }) : undefined;
   try {
-    const report = await analyzeModel(fromPlainJob(job), { onProgress: (message) => post({ kind: 'progress', id, message }), onPhases: (times) => post({ kind: 'phases', id, times }), onCaughtError });
+    const report = await analyze(fromPlainJob(job), { onProgress: (message) => post({ kind: 'progress', id, message }), onPhases: (times) => post({ kind: 'phases', id, times }), onCaughtError });
     post({ kind: 'report', id, report });
   } catch (e) {
     onCaughtError?.(e);
-    post({ kind: 'failed', id, problem: problemOf(e) });
+    post({ kind: 'failed', id, problem: problem(e) });
   }
 }
