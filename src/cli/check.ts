@@ -94,10 +94,10 @@ export function registerCheck(program: Command): void {
     .option('--markdown-all', 'Markdown: list every mode of the baseline comparison, not only the flagged ones')
     .option('-q, --quiet', 'print only failures, errors and the verdict')
     .option('--time-limit <seconds>', 'stop a model that runs longer than this (it becomes an <error>; the other models go on)', parseSeconds)
-    .option('--max-memory <size>', `refuse a model whose solve is predicted to need more memory (e.g. 6G; default ${DEFAULT_MEMORY_SHARE * 100} % of this machine's)`, parseMemorySize)
+    .option('--max-memory <size>', `refuse a model whose solve is predicted to need more memory (e.g. 6G; default ${DEFAULT_MEMORY_SHARE * 100} % of this machine's); the limit holds for the whole process: with --jobs n each model gets 1/n of it`, parseMemorySize)
     .option('--shard <k/n>', 'check only shard k of n (1-based): the models split by predicted cost, the same way on every CI job')
     .option('--timings <file>', '--shard: split by the times of an earlier run (its JSON report, or a JSON map model → seconds)')
-    .option('-j, --jobs <n>', 'check up to n models at once (auto or 0: one per core); the cores are shared out among them (solver threads = cores / n, capped by MODALGATE_THREADS), and so is --max-memory, which holds for the whole process: each model may use 1/n of it', '1')
+    .option('-j, --jobs <n>', 'check up to n models at once (auto or 0: one per core); each gets floor(cores / n) solver threads (at most MODALGATE_THREADS) and 1/n of --max-memory', '1')
     .action(
       runAction(async (opts: Omit<CheckOptions, 'shard' | 'jobs'> & { shard?: string; jobs: string }) => {
         const shard = opts.shard !== undefined ? parseShardSpec(opts.shard) : undefined;
