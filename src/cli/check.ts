@@ -5,6 +5,7 @@
  * (with an <error>) whenever its path is known from the options or the config.
  */
 import { existsSync, statSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
 import { dirname, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { findConfig, checkWritableTarget, readStructuredFile } from '../io/config-loader.js';
@@ -23,7 +24,8 @@ import { formatConsole } from '../report/console-reporter.js';
 import { formatMarkdown } from '../report/markdown.js';
 import { formatHtml } from '../report/html-reporter.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, debugging, printDebugStack, runAction } from './run-action.js';
-import { ModelRunner, type RunningModel } from '../pipeline/model-runner.js';
+import { runModels, type ModelBatch } from '../pipeline/run-models.js';
+import { concurrentJobs, parseJobs } from '../pipeline/job-threads.js';
 import { configDigest, parseShardSpec, shardJobs, type ShardSpec } from '../pipeline/shard.js';
 import { appendStepSummary, phaseLine, shownPath, withShownPaths } from './ci-output.js';
 import { DEFAULT_MEMORY_SHARE, defaultMemoryLimitBytes, parseMemorySize, parseSeconds } from './limits.js';
@@ -63,6 +65,8 @@ export interface CheckOptions {
   shard?: ShardSpec;
   /** Earlier run's times for the shard split: a JSON report or a map name → seconds (--timings). */
   timings?: string;
+  /** Models checked at once (--jobs; `auto`: one per core); each gets its share of the cores and of --max-memory. */
+  jobs?: number | 'auto';
   /** Print one plain line per model with the time of each phase (CI logs: no live progress there). */
   phaseLines?: boolean;
   /** Append the Markdown summary to this file (GITHUB_STEP_SUMMARY), cut to 1 MiB. */
@@ -90,11 +94,12 @@ export function registerCheck(program: Command): void {
     .option('--markdown-all', 'Markdown: list every mode of the baseline comparison, not only the flagged ones')
     .option('-q, --quiet', 'print only failures, errors and the verdict')
     .option('--time-limit <seconds>', 'stop a model that runs longer than this (it becomes an <error>; the other models go on)', parseSeconds)
-    .option('--max-memory <size>', `refuse a model whose solve is predicted to need more memory (e.g. 6G; default ${DEFAULT_MEMORY_SHARE * 100} % of this machine's)`, parseMemorySize)
+    .option('--max-memory <size>', `refuse a model whose solve is predicted to need more memory (e.g. 6G; default ${DEFAULT_MEMORY_SHARE * 100} % of this machine's); the limit holds for the whole process: with --jobs n each model gets 1/n of it`, parseMemorySize)
     .option('--shard <k/n>', 'check only shard k of n (1-based): the models split by predicted cost, the same way on every CI job')
     .option('--timings <file>', '--shard: split by the times of an earlier run (its JSON report, or a JSON map model → seconds)')
+    .option('-j, --jobs <n>', 'check up to n models at once (auto or 0: one per core); each gets floor(cores / n) solver threads (at most MODALGATE_THREADS) and 1/n of --max-memory', '1')
     .action(
-      runAction(async (opts: Omit<CheckOptions, 'shard'> & { shard?: string }) => {
+      runAction(async (opts: Omit<CheckOptions, 'shard' | 'jobs'> & { shard?: string; jobs: string }) => {
         const shard = opts.shard !== undefined ? parseShardSpec(opts.shard) : undefined;
         if (opts.shard !== undefined && !shard) {
           process.stderr.write(`modalgate: --shard ${opts.shard}: expected k/n, whole numbers with 1 ≤ k ≤ n (e.g. --shard 2/4)\n`);
@@ -104,7 +109,12 @@ export function registerCheck(program: Command): void {
           process.stderr.write('modalgate: --timings: only used to split the models, give --shard k/n with it\n');
           return EXIT_BAD_INPUT;
         }
-        return (await runCheck({ ...opts, shard, handleSignals: true, maxMemory: opts.maxMemory ?? defaultMemoryLimitBytes(), phaseLines: !process.stderr.isTTY, stepSummary: process.env.GITHUB_STEP_SUMMARY || undefined })).code;
+        const jobs = parseJobs(opts.jobs);
+        if (jobs === undefined) {
+          process.stderr.write(`modalgate: --jobs ${opts.jobs}: expected a whole number ≥ 1, or auto (or 0) for one per core\n`);
+          return EXIT_BAD_INPUT;
+        }
+        return (await runCheck({ ...opts, shard, jobs, handleSignals: true, maxMemory: opts.maxMemory ?? defaultMemoryLimitBytes(), phaseLines: !process.stderr.isTTY, stepSummary: process.env.GITHUB_STEP_SUMMARY || undefined })).code;
       }),
     );
 }
@@ -122,35 +132,39 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   let selected: ModelJob[] | undefined;
   const signals = opts.handleSignals ? watchSignals() : undefined;
   const print = opts.print ?? ((t: string) => process.stdout.write(t));
-  let runner: ModelRunner | undefined;
   try {
     for (const p of [cliPaths.junit, cliPaths.json, cliPaths.markdown, cliPaths.html]) if (p) checkWritableTarget(p, p);
     checkBaselineDirs(baselineDirs);
     configPath = findConfig(opts.config, cwd);
     config = loadConfig(configPath, baselineDirs);
-    runner = new ModelRunner(configPath, baselineDirs);
     selected = selectModels(config, opts.model);
     const jobs = opts.shard ? await shardJobs(selected, opts.shard, opts.timings !== undefined ? resolve(cwd, opts.timings) : undefined) : selected;
-    for (const job of jobs) {
-      if (signals?.received) break;
-      const onProgress = progressPrinter(job.name);
-      const timeLimitMs = opts.timeLimit !== undefined ? opts.timeLimit * 1000 : undefined;
-      // on stdout: stderr stays the one error line of a run that ends in exit 2
-      const onPhases = opts.phaseLines && !opts.quiet ? (t: PhaseTimes) => print(`${phaseLine(job.name, t)}\n`) : undefined;
-      const running = runner.run(job, { timeLimitMs, onProgress, onPhases, onCaughtErrorStack: debugging() ? printDebugStack : undefined });
-      if (signals) signals.current = running;
-      const result = await running.report;
-      models.push(result);
-      // a save cut short on the stopped worker leaves no temporary file, lock or stray data file
-      if (baselineDirs.saveBaselineDir && (result.problem?.kind === 'limit' || result.problem?.kind === 'interrupted')) clearStoppedSave(baselineDirs.saveBaselineDir, job.name);
-      if (signals) signals.current = undefined;
-      if (onProgress) process.stderr.write('\r\x1b[K');
+    if (!signals?.received) {
+      const atOnce = concurrentJobs(opts.jobs ?? 1, availableParallelism(), jobs.length);
+      const batch = runModels(jobs, {
+        jobs: atOnce,
+        timeLimitMs: opts.timeLimit !== undefined ? opts.timeLimit * 1000 : undefined,
+        callbacks: (job) => ({
+          onProgress: progressPrinter(job.name),
+          // on stdout: stderr stays the one error line of a run that ends in exit 2; the model's name starts the line
+          onPhases: opts.phaseLines && !opts.quiet ? (t: PhaseTimes) => print(`${phaseLine(job.name, t)}\n`) : undefined,
+          onCaughtErrorStack: debugging() ? printDebugStack : undefined,
+        }),
+        onFinished: (job, result) => {
+          // a save cut short on the stopped worker leaves no temporary file, lock or stray data file
+          if (baselineDirs.saveBaselineDir && (result.problem?.kind === 'limit' || result.problem?.kind === 'interrupted')) clearStoppedSave(baselineDirs.saveBaselineDir, job.name);
+        },
+      });
+      if (signals) signals.batch = batch;
+      // in config order, whatever the order they finished in
+      for (const r of await batch.reports) if (r) models.push(r);
+      if (signals) signals.batch = undefined;
+      if (process.stderr.isTTY) process.stderr.write('\r\x1b[K');
     }
   } catch (e) {
     printDebugStack(stackOf(e));
     problem = problemOf(e);
   }
-  await runner?.close();
   if (signals?.received) problem = interruptedProblem(signals.received, models.length, config?.models.length);
   const report = checkReport({ configPath, started, timeMs: performance.now() - t0, models, problem });
   if (config) report.configHash = configDigest(config.path);
@@ -204,17 +218,17 @@ function interruptedProblem(signal: 'SIGINT' | 'SIGTERM', finished: number, tota
 
 interface SignalWatch {
   received?: 'SIGINT' | 'SIGTERM';
-  current?: RunningModel;
+  batch?: ModelBatch;
   dispose(): void;
 }
 
-/** SIGINT/SIGTERM stop the running model at once; a second signal ends the process. */
+/** SIGINT/SIGTERM stop the running models at once; a second signal ends the process. */
 function watchSignals(): SignalWatch {
   const watch: SignalWatch = { dispose: () => {} };
   const on = (signal: 'SIGINT' | 'SIGTERM') => (): void => {
     if (watch.received) process.exit(EXIT_INTERRUPTED[signal]);
     watch.received = signal;
-    watch.current?.stop({ kind: 'interrupted', message: `stopped by ${signal} while it was being checked` });
+    watch.batch?.stopAll({ kind: 'interrupted', message: `stopped by ${signal} while it was being checked` });
   };
   const onInt = on('SIGINT');
   const onTerm = on('SIGTERM');

@@ -7,23 +7,18 @@
 import { existsSync, readFileSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { parseDocument } from 'yaml';
-import { Ajv2020, type ValidateFunction } from 'ajv/dist/2020.js';
 import { InputError } from './errors.js';
 import { packageRoot } from './package-root.js';
 import { describeSchemaError, pickError } from './config-errors.js';
 import { CONFIG_FILE_NAMES, type RawConfig, type RawRuleSet } from './config-types.js';
+import { schemaValidator } from './schema-validator.js';
 
+/** The JSON Schemas of rules/schema/ that files are checked against. */
+export const FILE_SCHEMAS = ['config.schema.json', 'rule-set.schema.json'] as const;
 
-const ajv = new Ajv2020({ allErrors: true, strict: false, verbose: true });
-const schemaCache = new Map<string, ValidateFunction>();
-
-function schemaValidator(file: string): ValidateFunction {
-  let v = schemaCache.get(file);
-  if (!v) {
-    v = ajv.compile(JSON.parse(readFileSync(join(packageRoot(), 'rules', 'schema', file), 'utf8')) as object);
-    schemaCache.set(file, v);
-  }
-  return v;
+/** A schema of rules/schema/, parsed. */
+export function fileSchema(file: (typeof FILE_SCHEMAS)[number]): object {
+  return JSON.parse(readFileSync(join(packageRoot(), 'rules', 'schema', file), 'utf8')) as object;
 }
 
 /** The config path: `explicit` if given (must exist), else the first of modalgate.yaml/.yml/.json in `cwd`. */
@@ -97,8 +92,8 @@ export function readRuleSetFile(path: string): RawRuleSet {
   return raw as RawRuleSet;
 }
 
-function validateAgainst(schemaFile: string, value: unknown, file: string, base: string): void {
-  const validate = schemaValidator(schemaFile);
+function validateAgainst(schemaFile: (typeof FILE_SCHEMAS)[number], value: unknown, file: string, base: string): void {
+  const validate = schemaValidator(schemaFile, fileSchema(schemaFile));
   if (value === null || value === undefined) throw new InputError(file, 'is empty: expected a mapping of keys to values');
   if (validate(value)) return;
   const errors = validate.errors ?? [];

@@ -7,8 +7,8 @@
  */
 import { existsSync, statSync } from 'node:fs';
 import { dirname, isAbsolute, resolve } from 'node:path';
-import { Ajv2020, type ValidateFunction } from 'ajv/dist/2020.js';
 import { InputError } from '../io/errors.js';
+import { schemaValidator } from '../io/schema-validator.js';
 import { describeSchemaError, pickError } from '../io/config-errors.js';
 import { builtInRuleSetNames, checkWritableTarget, readConfigFile, readRuleSetFile, resolveRuleSetPath } from '../io/config-loader.js';
 import type { RawConfig, RawModelConfig, RawRuleEntry } from '../io/config-types.js';
@@ -18,8 +18,6 @@ import type { Severity } from '../rules/rule-types.js';
 import { DEFAULT_MODE_COUNT, type BaselineJob, type LoadedConfig, type ModelJob } from './job-types.js';
 
 const SEVERITIES: Severity[] = ['error', 'warning', 'off'];
-
-const ajv = new Ajv2020({ allErrors: true, strict: false, verbose: true });
 
 /** Command-line settings that override the config: baseline directories (absolute). */
 export interface ConfigOverrides {
@@ -222,22 +220,25 @@ function mergeOptions(rule: AnyRule, lower: Record<string, unknown>, upper: Reco
   return { ...merged, ...upper };
 }
 
-const optionValidators = new Map<string, ValidateFunction>();
+/**
+ * The schema a rule's options are checked against: its own (`complete`, the merged options), or,
+ * for one layer of settings, the same without what only the merged options must meet (required
+ * keys, anyOf/oneOf alternatives). `key` names its validator (io/schema-validator.ts).
+ */
+export function optionsSchemaFor(rule: AnyRule, complete: boolean): { key: string; schema: object } {
+  const schema = { ...rule.optionsSchema };
+  if (!complete) {
+    delete schema.required;
+    delete schema.anyOf;
+    delete schema.oneOf;
+  }
+  return { key: `${complete ? 'options' : 'layer'}.${rule.id}`, schema };
+}
 
 /** Validate options with the rule's schema; `complete` false checks one layer (no required keys). */
 function checkOptions(rule: AnyRule, options: Record<string, unknown>, complete: boolean, file: string, where: string): void {
-  const key = `${rule.id}:${complete}`;
-  let validate = optionValidators.get(key);
-  if (!validate) {
-    const schema = { ...rule.optionsSchema };
-    if (!complete) {
-      delete schema.required;
-      delete schema.anyOf;
-      delete schema.oneOf;
-    }
-    validate = ajv.compile(schema);
-    optionValidators.set(key, validate);
-  }
+  const { key, schema } = optionsSchemaFor(rule, complete);
+  const validate = schemaValidator(key, schema);
   if (validate(options)) return;
   const errors = validate.errors ?? [];
   const { where: at, reason } = describeSchemaError(pickError(errors), where, errors);

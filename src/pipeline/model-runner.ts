@@ -1,21 +1,27 @@
 /**
- * Runs the models of `modalgate check` on a worker thread (model-worker.ts), one at a time, so that
- * the main thread can stop one: on SIGINT/SIGTERM and when a model exceeds its time limit. A
- * stopped worker is terminated outright (V8 ends its JavaScript wherever it is, even inside a
- * solve), the model gets an error report that says why, and the next model starts a new worker.
+ * Runs the models of `modalgate check` on worker threads (model-worker.ts), so that the main
+ * thread can stop one: on SIGINT/SIGTERM and when a model exceeds its time limit. A stopped
+ * worker is terminated outright (V8 ends its JavaScript wherever it is, even inside a solve), the
+ * model gets an error report that says why, and the next model starts a new worker.
+ *
+ * The runner keeps up to `maxWorkers` workers (one per model checked at once, `check --jobs`).
+ * Each is started with the MODALGATE_THREADS its model was given (job-threads.ts) and reused for
+ * the next model that gets the same count; a model with another count replaces an idle worker.
+ * A job crosses to the worker as plain data (plain-job.ts).
+ *
  * Where the compiled worker is not available (the TypeScript sources under the test runner), the
- * models run on this thread and cannot be stopped early. Nothing here prints: progress and the
- * stack traces of caught exceptions go to the caller's callbacks.
+ * models run on this thread, one at a time, and cannot be stopped early. Nothing here prints:
+ * progress and the stack traces of caught exceptions go to the caller's callbacks.
  */
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import type { ConfigOverrides } from './load-config.js';
 import type { ModelJob } from './job-types.js';
 import { problemOf, stackOf } from './problem.js';
 import type { PhaseTimes } from './analyze-model.js';
 import { junitTimestamp, type ModelReport, type ProblemReport } from './result-types.js';
-import type { ModelWorkerInput, ModelWorkerMessage, ModelWorkerRequest } from './model-worker.js';
+import type { ModelWorkerMessage, ModelWorkerRequest } from './model-worker.js';
+import { toPlainJob } from './plain-job.js';
 
 const workerFile = fileURLToPath(new URL('./model-worker.js', import.meta.url));
 const canIsolate = import.meta.url.endsWith('.js') && existsSync(workerFile);
@@ -23,6 +29,8 @@ const canIsolate = import.meta.url.endsWith('.js') && existsSync(workerFile);
 export interface RunModelOptions {
   /** Wall-clock limit for this model, milliseconds (none when undefined). */
   timeLimitMs?: number;
+  /** The worker's MODALGATE_THREADS (unset: the worker inherits this process's environment). */
+  threads?: number;
   onProgress?: (message: string) => void;
   /** Where the model's time went, once its rules have run (analyze-model.ts). */
   onPhases?: (times: PhaseTimes) => void;
@@ -37,14 +45,23 @@ export interface RunningModel {
   stop(why: ProblemReport): void;
 }
 
+interface PooledWorker {
+  worker: Worker;
+  threads: number | undefined;
+  /** Drops the worker from the idle list if it ends while idle. */
+  onIdleExit?: () => void;
+}
+
 export class ModelRunner {
-  private worker: Worker | undefined;
+  private idle: PooledWorker[] = [];
+  private busy = 0;
   private nextId = 1;
 
-  constructor(
-    private readonly configPath: string,
-    private readonly overrides: ConfigOverrides,
-  ) {}
+  /** `maxWorkers`: the most models run at once (and workers kept). */
+  constructor(private readonly maxWorkers = 1) {}
+
+  /** False when models run on this thread (no compiled worker): then they run one at a time and cannot be stopped. */
+  static readonly isolates = canIsolate;
 
   run(job: ModelJob, options: RunModelOptions = {}): RunningModel {
     const onStack = options.onCaughtErrorStack;
@@ -54,7 +71,9 @@ export class ModelRunner {
       const report = import('./analyze-model.js').then(({ analyzeModel }) => analyzeModel(job, { onProgress: options.onProgress, onPhases: options.onPhases, onCaughtError }));
       return { report, stop: () => {} };
     }
-    const worker = (this.worker ??= this.start());
+    const pooled = this.take(options.threads);
+    const worker = pooled.worker;
+    this.busy++;
     const id = this.nextId++;
     const started = new Date();
     const t0 = performance.now();
@@ -78,26 +97,25 @@ export class ModelRunner {
         options.onProgress?.(m.message);
       } else if (m.kind === 'phases') options.onPhases?.(m.times);
       else if (m.kind === 'caught') onStack?.(m.stack);
-      else finish(m.kind === 'report' ? m.report : stopped(m.problem));
+      else finish(m.kind === 'report' ? m.report : stopped(m.problem), true);
     };
-    const onExit = (code: number): void => finish(stopped({ kind: 'internal', message: `internal error: the worker thread checking ${job.name} ended (code ${code}) without a report` }));
+    const onExit = (code: number): void => finish(stopped({ kind: 'internal', message: `internal error: the worker thread checking ${job.name} ended (code ${code}) without a report` }), false);
     const onError = (e: Error): void => {
       onStack?.(stackOf(e));
-      finish(stopped(problemOf(e)));
+      finish(stopped(problemOf(e)), false);
     };
-    const finish = (r: ModelReport): void => {
+    /** `reusable`: the worker answered and may check the next model. */
+    const finish = (r: ModelReport, reusable: boolean): void => {
       if (done) return;
       done = true;
       if (timer) clearTimeout(timer);
       worker.off('message', onMessage).off('exit', onExit).off('error', onError);
+      this.busy--;
+      if (reusable) this.putIdle(pooled);
+      else void worker.terminate();
       settle(r);
     };
-    const stop = (why: ProblemReport): void => {
-      if (done) return;
-      finish(stopped(why));
-      this.worker = undefined;
-      void worker.terminate();
-    };
+    const stop = (why: ProblemReport): void => finish(stopped(why), false);
     const timer =
       options.timeLimitMs !== undefined
         ? setTimeout(() => {
@@ -106,22 +124,41 @@ export class ModelRunner {
           }, options.timeLimitMs)
         : undefined;
     worker.on('message', onMessage).on('exit', onExit).on('error', onError);
-    worker.postMessage({ kind: 'check', id, modelName: job.name, sendStacks: onStack !== undefined } satisfies ModelWorkerRequest);
+    worker.postMessage({ kind: 'check', id, job: toPlainJob(job), sendStacks: onStack !== undefined } satisfies ModelWorkerRequest);
     return { report, stop };
   }
 
-  /** Ends the worker (between runs it holds no work). */
+  /** Ends every idle worker (between runs they hold no work). */
   async close(): Promise<void> {
-    const w = this.worker;
-    this.worker = undefined;
-    if (w) await w.terminate();
+    const idle = this.idle;
+    this.idle = [];
+    await Promise.all(idle.map((p) => p.worker.terminate()));
   }
 
-  private start(): Worker {
-    const input: ModelWorkerInput = { configPath: this.configPath, overrides: this.overrides };
-    const w = new Worker(workerFile, { workerData: input });
-    w.unref();
-    return w;
+  /** An idle worker with `threads`, else a new one (ending an idle worker of another count when the pool is full). */
+  private take(threads: number | undefined): PooledWorker {
+    const i = this.idle.findIndex((p) => p.threads === threads);
+    if (i >= 0) return this.fromIdle(i);
+    if (this.idle.length > 0 && this.idle.length + this.busy >= this.maxWorkers) void this.fromIdle(0).worker.terminate();
+    const env = threads !== undefined ? { ...process.env, MODALGATE_THREADS: String(threads) } : process.env;
+    const worker = new Worker(workerFile, { env });
+    worker.unref();
+    return { worker, threads };
+  }
+
+  private putIdle(p: PooledWorker): void {
+    p.onIdleExit = () => {
+      const i = this.idle.indexOf(p);
+      if (i >= 0) this.idle.splice(i, 1);
+    };
+    p.worker.once('exit', p.onIdleExit);
+    this.idle.push(p);
+  }
+
+  private fromIdle(i: number): PooledWorker {
+    const [p] = this.idle.splice(i, 1);
+    if (p.onIdleExit) p.worker.off('exit', p.onIdleExit);
+    return p;
   }
 }
 

@@ -59,19 +59,24 @@ afterAll(() => rmSync(work, { recursive: true, force: true }));
 
 describe('interruption', () => {
   it.each([
-    ['SIGINT', 130],
-    ['SIGTERM', 143],
-  ] as const)('%s: exit %i, one stderr line, JUnit with an <error>, no temporary file', async (signal, exitCode) => {
+    ['SIGINT', 130, '1'],
+    ['SIGTERM', 143, '1'],
+    ['SIGTERM', 143, '2'],
+  ] as const)('%s: exit %i, one stderr line, JUnit with an <error>, no temporary file (--jobs %s)', async (signal, exitCode, jobs) => {
     rmSync(join(work, 'out'), { recursive: true, force: true });
-    // the signal goes once the first model's baseline is saved: the run is surely under way
-    const r = await checkWithSignal(['-c', 'many.yaml', '-q', '--save-baseline', 'out/baselines'], signal, 60_000, () => existsSync(join(work, 'out/baselines/block-1.baseline.json')));
+    // the signal goes once the first model's baseline is saved: the run is surely under way (with --jobs 2, two models are)
+    const r = await checkWithSignal(['-c', 'many.yaml', '-q', '--save-baseline', 'out/baselines', '--jobs', jobs], signal, 60_000, () => existsSync(join(work, 'out/baselines/block-1.baseline.json')));
     expect(r.code, r.stderr).toBe(exitCode);
     const lines = r.stderr.trim().split('\n');
     expect(lines).toHaveLength(1);
     expect(lines[0]).toMatch(new RegExp(`^modalgate: interrupted by ${signal}: \\d+ of 20 model\\(s\\) finished`));
     const junit = readFileSync(join(work, 'out/junit.xml'), 'utf8');
     expect(junit).toContain('type="interrupted-error"');
-    expect(JSON.parse(readFileSync(join(work, 'out/report.json'), 'utf8')).problem.kind).toBe('interrupted');
+    const json = JSON.parse(readFileSync(join(work, 'out/report.json'), 'utf8'));
+    expect(json.problem.kind).toBe('interrupted');
+    // the models started, in config order (with --jobs 2 as well)
+    const names = json.models.map((m: { name: string }) => m.name);
+    expect(names).toEqual(Array.from({ length: names.length }, (_, i) => `block-${i + 1}`));
     expect(tempFiles(join(work, 'out'))).toEqual([]);
     // the baselines saved before the signal are whole units; no lock is left
     const left = existsSync(join(work, 'out/baselines')) ? readdirSync(join(work, 'out/baselines')) : [];
@@ -120,6 +125,14 @@ describe('--time-limit', () => {
     expect(tempFiles(join(work, 'limit'))).toEqual([]);
   }, 120_000);
 
+  it('with --jobs 2 each running model has its own limit', async () => {
+    const r = await runCli(['check', '-c', 'two.yaml', '--time-limit', '0.2', '--jobs', '2', '--json', 'limit2/report.json'], work);
+    expect(r.code, r.stderr).toBe(2);
+    const report = JSON.parse(readFileSync(join(work, 'limit2/report.json'), 'utf8'));
+    expect(report.models.map((m: { name: string }) => m.name)).toEqual(['first', 'second']);
+    for (const m of report.models) expect(m.problem.message).toMatch(/^\w+: stopped at the time limit of 0\.2 s \(--time-limit\)/);
+  }, 120_000);
+
   it('refuses a limit that is not a positive number (a usage error: the first line says why, then the usage)', async () => {
     const r = await runCli(['check', '-c', 'two.yaml', '--time-limit', 'soon'], work);
     expect(r.code).toBe(2);
@@ -135,6 +148,17 @@ describe('--max-memory', () => {
     expect(m.problem.kind).toBe('limit');
     expect(m.problem.message).toMatch(/^the solve would need about [\d.]+ [kMG]?B \(a factor with .* nonzeros, predicted before any numeric work\), above the memory limit of 4\.2 MB \(--max-memory\)$/);
     expect(readFileSync(join(work, 'mem/junit.xml'), 'utf8')).toContain('<testcase name="model-limit"');
+  }, 120_000);
+
+  it('with --jobs 2 the limit is shared: each model may use half of it, and the message says so', async () => {
+    const r = await runCli(['check', '-c', 'two.yaml', '--max-memory', '8M', '--jobs', '2', '--json', 'mem2/report.json'], work);
+    expect(r.code, r.stderr).toBe(2);
+    const report = JSON.parse(readFileSync(join(work, 'mem2/report.json'), 'utf8'));
+    for (const m of report.models) {
+      expect(m.problem.kind).toBe('limit');
+      // 8 MiB / 2 = 4 MiB = 4.2 MB
+      expect(m.problem.message).toMatch(/above the memory limit of 4\.2 MB \(its 1\/2 share of --max-memory, 2 models at once with --jobs\)$/);
+    }
   }, 120_000);
 
   it('modes refuses the same way (exit 2, one line)', async () => {
