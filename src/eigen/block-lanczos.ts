@@ -32,7 +32,12 @@ import { columns, randomBlock } from './thin-block.js';
 
 /** Default block size: six rigid-body modes of a free-free model share one eigenvalue. */
 export const DEFAULT_BLOCK_SIZE = 6;
-/** Basis size per cycle: 5 vectors per wanted pair (our choice: on BCSSTK08's clustered spectrum it needed 26 % fewer solves than 3). */
+/**
+ * Basis size per cycle: 5 vectors per wanted pair (our choice: on BCSSTK08's clustered spectrum it
+ * needed 26 % fewer solves than 3). 7 was tried for the bench and dropped (DEVELOPERS.md, Known
+ * limits): one cycle instead of two for 20 modes of the hex bars, but the unfastened-anchor mast
+ * (test/eigen/near-mechanism.test.ts) then stalls at 5 of 6 modes.
+ */
 const BASIS_PER_WANTED = 5;
 /** A thick restart keeps the unconverged wanted Ritz vectors plus this many blocks more. */
 const KEPT_EXTRA_BLOCKS = 2;
@@ -51,6 +56,11 @@ const STALLED_ESTIMATE = 1e-13;
  */
 const REBUILD_AFTER_STALLED = 4;
 const STALLED_RESIDUAL = 1e-9;
+
+/** Vectors of one cycle's basis for p wanted pairs with blocks of b (before the rank(M) cap). */
+export function basisVectors(p: number, b = DEFAULT_BLOCK_SIZE): number {
+  return Math.min(Math.max(BASIS_PER_WANTED * p, p + 4 * b, 6 * b), p + 20 * b);
+}
 
 interface Cycle {
   /** Basis V (n×size) and MV, with room for `capacity` columns. */
@@ -78,7 +88,7 @@ export function blockLanczos(search: EigenSearch): EigenSearchResult {
   let locked = new LockedSet(n);
   const warnings: string[] = [];
   let rebuilt = false;
-  const capacityFor = () => Math.min(Math.max(BASIS_PER_WANTED * p, p + 4 * b, 6 * b), p + 20 * b, search.maxBasis - locked.count);
+  const capacityFor = () => Math.min(basisVectors(p, b), search.maxBasis - locked.count);
   let cycle = newCycle(n, capacityFor(), op.massTimes, startVectors(search, b), op.apply, fixedBlocks(search, locked));
   let cycles = 0;
   let stagnated = 0;
@@ -140,7 +150,9 @@ export function blockLanczos(search: EigenSearch): EigenSearchResult {
     const others = order.slice(candidates.length);
     const restartCapacity = capacityFor();
     const keepCount = Math.max(0, Math.min(keepZ.length + others.length, restartCapacity - 2 * b, wanted + KEPT_EXTRA_BLOCKS * b));
-    const sKeep = orthonormalColumns(keepColumns(sz, keepZ, s, others, cycle.size, keepCount), cycle.size, keepCount);
+    // the kept span must stay (nearly) invariant under T: all unlocked Z, or else whole eigenvectors of T
+    const kept = keepCount >= keepZ.length ? keepColumns(sz, keepZ, s, others, cycle.size, keepCount) : invariantColumns(s, order, sz, lockedNow, cycle.size, keepCount);
+    const sKeep = orthonormalColumns(kept, cycle.size, keepCount);
     cycle = restart(cycle, { sKeep, keep: keepCount, last: lastBlock, capacity: restartCapacity }, { search, locked, cycles });
     if (cycle.size === 0 && cycle.qCount === 0) break;
   }
@@ -320,6 +332,46 @@ function keepColumns(sz: Float64Array, keepZ: number[], s: Float64Array, others:
   let t = 0;
   for (const i of keepZ) if (t < keepCount) out.set(sz.subarray(i * m, (i + 1) * m), m * t++);
   for (const i of others) if (t < keepCount) out.set(s.subarray(i * m, (i + 1) * m), m * t++);
+  return out;
+}
+
+/**
+ * keepCount eigenvectors of T for a restart that cannot keep every unlocked K-rotated Ritz vector
+ * (a basis capped below wanted + 3 blocks). A subset of the Z = S_c G is not an invariant
+ * subspace of T (G mixes the candidates), and after V ← V S_keep the Krylov relation would not
+ * hold: the estimates of the next cycles read converged while the true residuals stay put (seen
+ * as a stall on a fixed–free chain, 8 wanted, basis 24, block 6). Eigenvectors of T are
+ * invariant; the one nearest each newly locked vector (its converged twin) is left out, the next
+ * nearest σ are taken, and the locked vectors' coefficient columns are projected out (they are
+ * converged, so this moves the span by their residual only).
+ */
+function invariantColumns(s: Float64Array, order: number[], sz: Float64Array, lockedNow: number[], m: number, keepCount: number): Float64Array {
+  const excluded = new Set<number>();
+  // the eigenvector of T closest to each locked coefficient vector z
+  for (const l of lockedNow) {
+    let best = -1;
+    let bestDot = -1;
+    for (const j of order) {
+      if (excluded.has(j)) continue;
+      let dot = 0;
+      for (let r = 0; r < m; r++) dot += s[r + j * m] * sz[r + l * m];
+      if (Math.abs(dot) > bestDot) {
+        bestDot = Math.abs(dot);
+        best = j;
+      }
+    }
+    if (best >= 0) excluded.add(best);
+  }
+  const picked = order.filter((j) => !excluded.has(j)).slice(0, keepCount);
+  const out = pickColumns(s, m, picked);
+  // out ← (I − Z_l Z_lᵀ) out, against each locked coefficient vector in turn
+  for (const l of lockedNow) {
+    for (let c = 0; c < picked.length; c++) {
+      let dot = 0;
+      for (let r = 0; r < m; r++) dot += sz[r + l * m] * out[r + c * m];
+      for (let r = 0; r < m; r++) out[r + c * m] -= dot * sz[r + l * m];
+    }
+  }
   return out;
 }
 

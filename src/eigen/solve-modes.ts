@@ -30,7 +30,7 @@ import {
   type SturmCheck,
 } from './modes-types.js';
 import { createShiftInvertOperator, massRankBound, type ShiftInvertOperator } from './shift-invert-operator.js';
-import { blockLanczos } from './block-lanczos.js';
+import { basisVectors, blockLanczos } from './block-lanczos.js';
 import { subspaceIteration } from './subspace-iteration.js';
 import { mOrthonormalize } from './m-orthonormalize.js';
 import { rayleighRitz } from './rayleigh-ritz.js';
@@ -496,11 +496,12 @@ function emptyResult(
 
 /**
  * Bytes a solve keeps beside its factor, for the memory limit: K and M as read and their permuted
- * copy (12 bytes a stored entry each), and the iteration's blocks (about six vectors per wanted
- * mode of a slice, as the block Lanczos basis holds five per mode, plus the returned shapes).
+ * copy (12 bytes a stored entry each), and the iteration's blocks: the block Lanczos basis V and
+ * MV (basisVectors each), the locked vectors and their M-images, and the returned shapes.
  */
 function besideFactorBytes(stiffness: SymmetricCsc, mass: SymmetricCsc, request: ModesRequest): number {
   const stored = stiffness.rowIdx.length + mass.rowIdx.length;
   const wanted = request.count ?? SLICE_SIZE;
-  return 2 * 12 * stored + 8 * stiffness.n * (6 * Math.min(wanted, SLICE_SIZE) + wanted);
+  const slice = Math.min(wanted, SLICE_SIZE);
+  return 2 * 12 * stored + 8 * stiffness.n * (2 * basisVectors(slice) + 2 * slice + wanted);
 }

@@ -3,13 +3,22 @@
  * compress DOFs of one node into supervariables (by node label, else by coordinates, else by
  * pattern), order the compressed graph, expand.
  *
- * With `ordering: 'auto'` every applicable candidate (natural, approximate minimum degree,
- * graph nested dissection with multilevel separators, and coordinate bisection when
- * coordinates are given) is computed
- * and the one with the smallest predicted nnz(L) — exact symbolic count, no numeric work, read
- * straight off the DOF graph (fill-count.ts) — wins.
+ * With `ordering: 'auto'` the cheap candidates (natural, approximate minimum degree, and
+ * coordinate bisection when coordinates are given) are computed first, then the graph nested
+ * dissection with multilevel separators unless the factorization is too small for it to pay
+ * (below), and the one with the smallest predicted nnz(L) — exact symbolic count, no numeric
+ * work, read straight off the DOF graph (fill-count.ts) — wins.
  * The factor's storage and, roughly, the flop count (Σ colcount²) follow nnz(L), so the
- * prediction is the cost model; the orderings themselves cost far less than one factorization.
+ * prediction is the cost model.
+ *
+ * The graph dissection is by far the dearest candidate (10–30× minimum degree), and on
+ * mid-size models it costs more than it can save: on the 26k-DOF quadratic-tet bracket it took
+ * 2.1 s for 9 % less fill (20 % fewer flops) than minimum degree, about a factorization's time
+ * (0.6–0.9 s) it could save over the two factorizations of a solve; on the 10k and 31k hex bars
+ * coordinate bisection came within 0.2 % of it (measured 2026-12-05, test/bench/modes-bench.ts
+ * models). So it runs only when the best cheap candidate's factorization needs at least
+ * DISSECTION_MIN_FLOPS; there (the 60k frame, 4e10 flops and 30 % less fill than minimum
+ * degree; the 100k tet, 5e10 and 19 % less than coordinate bisection) it pays.
  *
  * Convention: perm[k] = original DOF index of the k-th pivot (P A Pᵀ has row k = row perm[k] of A).
  */
@@ -21,7 +30,7 @@ import { approximateMinimumDegree } from './minimum-degree.js';
 import { multilevelNestedDissection } from './multilevel-bisection.js';
 import { graphNestedDissection } from './nested-dissection.js';
 import { coordinateBisection } from './coordinate-bisection.js';
-import { factorNonzerosOfGraph } from './fill-count.js';
+import { factorCountsOfGraph } from './fill-count.js';
 
 export interface ChooseOrderingOptions {
   ordering?: 'auto' | OrderingName;
@@ -35,7 +44,20 @@ export interface ChooseOrderingOptions {
   leafSize?: number;
   /** Threads the orderings may use (default 1; with N ≥ 2 the multilevel dissection deals its repeated runs to N − 1 helper threads, with the same result). */
   threads?: number;
+  /**
+   * With 'auto': compute the graph nested dissection only when the best cheap candidate's
+   * factorization needs at least this many flops (default DISSECTION_MIN_FLOPS; 0 always).
+   */
+  dissectionMinFlops?: number;
 }
+
+/**
+ * Factorization flops below which 'auto' does not compute the graph dissection (our choice, see
+ * the module comment): about 2 s of factorization on this project's 2-core bench machine, where
+ * a fifth fewer flops in each of a solve's two factorizations starts to repay the dissection's
+ * 1–3 s. The 31k hex bar's factorization needs 1.3e10, the 60k frame's 4e10.
+ */
+export const DISSECTION_MIN_FLOPS = 2e10;
 
 export interface OrderingChoice {
   /** perm[k] = original DOF of the k-th pivot. */
@@ -47,6 +69,8 @@ export interface OrderingChoice {
   supervariables: number;
   /** Time to build the adjacency graph and find supervariables, ms. */
   graphMs: number;
+  /** Why 'auto' left the graph nested dissection out, when it did. */
+  skipped?: string;
 }
 
 /** The union pattern of K and M as a lower-storage SymmetricCsc with unit values (for counting). */
@@ -139,27 +163,33 @@ export function chooseOrdering(
   const sv = findSupervariables(graph, { nodeOfVertex: options.nodeOfDof, coordinates: options.coordinates });
   const graphMs = performance.now() - t0;
   // exact count straight off the DOF graph (fill-count.ts): no permuted copy of the pattern
-  const count = options.predictNnzL ?? ((perm: Int32Array) => factorNonzerosOfGraph(graph, perm));
-  const counted = new Map<Int32Array, number>();
-  // each permutation is counted once, however often it is compared
-  const predict = (perm: Int32Array): number => {
-    if (!counted.has(perm)) counted.set(perm, count(perm));
+  const counted = new Map<Int32Array, { nnzL: number; flops: number }>();
+  // each permutation is counted once, however often it is compared (flops unknown with a caller's predictor)
+  const counts = (perm: Int32Array): { nnzL: number; flops: number } => {
+    if (!counted.has(perm)) counted.set(perm, options.predictNnzL ? { nnzL: options.predictNnzL(perm), flops: Infinity } : factorCountsOfGraph(graph, perm));
     return counted.get(perm)!;
   };
-  const names: OrderingName[] =
-    requested !== 'auto'
-      ? [requested]
-      : ['natural', 'amd', 'nested-dissection', ...(options.coordinates ? (['coordinate-bisection'] as const) : [])];
+  const predict = (perm: Int32Array): number => counts(perm).nnzL;
+  const cheap: OrderingName[] = ['natural', 'amd', ...(options.coordinates ? (['coordinate-bisection'] as const) : [])];
   const candidates: OrderingCandidate[] = [];
   let best: { perm: Int32Array; name: OrderingName; nnzL: number } | undefined;
-  // compute each candidate and keep the one of least predicted fill
-  for (const name of names) {
+  const tryOrdering = (name: OrderingName): void => {
     const t = performance.now();
     const perm = orderingOf(name, sv, options, predict);
     const ms = performance.now() - t;
     const nnzL = predict(perm);
     candidates.push({ name, nnzL, ms });
     if (!best || nnzL < best.nnzL) best = { perm, name, nnzL };
+  };
+  let skipped: string | undefined;
+  if (requested !== 'auto') tryOrdering(requested);
+  else {
+    // the cheap candidates, then the dissection when the factorization is large enough to repay it
+    for (const name of cheap) tryOrdering(name);
+    const flops = counts(best!.perm).flops;
+    const minFlops = options.dissectionMinFlops ?? DISSECTION_MIN_FLOPS;
+    if (flops >= minFlops) tryOrdering('nested-dissection');
+    else skipped = `nested dissection not computed: ${best!.name} needs ${flops.toExponential(2)} flops, below ${minFlops.toExponential(0)}`;
   }
   return {
     perm: best!.perm,
@@ -168,5 +198,6 @@ export function chooseOrdering(
     candidates,
     supervariables: sv.count,
     graphMs,
+    ...(skipped ? { skipped } : {}),
   };
 }

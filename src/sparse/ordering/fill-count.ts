@@ -31,6 +31,21 @@ import { postorderTree } from '../postorder.js';
 
 /** Exact nnz(L), unit diagonal included, of P A Pᵀ with A of the graph's pattern (perm[k] = k-th pivot). */
 export function factorNonzerosOfGraph(graph: AdjacencyGraph, perm: Int32Array): number {
+  return factorCountsOfGraph(graph, perm).nnzL;
+}
+
+/** What an ordering costs: nnz(L) and the flops of the numeric factorization, from the same column counts. */
+export interface FactorCounts {
+  nnzL: number;
+  /**
+   * Σ over columns of r + r(r + 1), r = the column's entries below the diagonal (r divisions and
+   * r(r+1)/2 multiply-adds): the count symbolic.ts makes per supernode, here per column.
+   */
+  flops: number;
+}
+
+/** nnz(L) and factorization flops of P A Pᵀ (see factorNonzerosOfGraph). */
+export function factorCountsOfGraph(graph: AdjacencyGraph, perm: Int32Array): FactorCounts {
   const { n, ptr, adj } = graph;
   const pinv = new Int32Array(n);
   // pivot position of every vertex
@@ -97,10 +112,13 @@ export function factorNonzerosOfGraph(graph: AdjacencyGraph, perm: Int32Array): 
     if (parent[j] !== -1) set[j] = parent[j];
   }
   let nnz = 0;
+  let flops = 0;
   // sum the differences up the tree (a parent's pivot is later than its children's)
   for (let j = 0; j < n; j++) {
     if (parent[j] !== -1) delta[parent[j]] += delta[j];
     nnz += delta[j];
+    const r = delta[j] - 1;
+    flops += r + r * (r + 1);
   }
-  return nnz;
+  return { nnzL: nnz, flops };
 }

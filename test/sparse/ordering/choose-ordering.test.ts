@@ -12,13 +12,25 @@ describe('chooseOrdering', () => {
   const { stiffness, mass, coordinates } = model;
 
   it('with auto computes every candidate and keeps the least predicted fill', () => {
-    const r = chooseOrdering(stiffness, mass, { ordering: 'auto', coordinates, nodeOfDof: model.dofMap.node });
+    const r = chooseOrdering(stiffness, mass, { ordering: 'auto', coordinates, nodeOfDof: model.dofMap.node, dissectionMinFlops: 0 });
     expectPermutation(r.perm, stiffness.n);
-    expect(r.candidates.map((c) => c.name)).toEqual(['natural', 'amd', 'nested-dissection', 'coordinate-bisection']);
+    expect(r.candidates.map((c) => c.name)).toEqual(['natural', 'amd', 'coordinate-bisection', 'nested-dissection']);
+    expect(r.skipped).toBeUndefined();
     expect(r.predictedNnzL).toBe(Math.min(...r.candidates.map((c) => c.nnzL)));
     expect(r.candidates.find((c) => c.name === r.name)!.nnzL).toBe(r.predictedNnzL);
     // every DOF of a node is one supervariable: 10·8·6 nodes less the clamped face
     expect(r.supervariables).toBe(10 * 8 * 6 - 8 * 6);
+  });
+
+  it('with auto leaves the graph dissection out when the best cheap ordering factors in few flops', () => {
+    const r = chooseOrdering(stiffness, mass, { ordering: 'auto', coordinates, nodeOfDof: model.dofMap.node });
+    expectPermutation(r.perm, stiffness.n);
+    expect(r.candidates.map((c) => c.name)).toEqual(['natural', 'amd', 'coordinate-bisection']);
+    expect(r.skipped).toMatch(/nested dissection not computed: \w[\w-]* needs [0-9.e+]+ flops, below 2e\+10/);
+    expect(r.predictedNnzL).toBe(Math.min(...r.candidates.map((c) => c.nnzL)));
+    // the threshold counts the flops of the best cheap candidate: just above them, the dissection runs
+    const again = chooseOrdering(stiffness, mass, { ordering: 'auto', coordinates, nodeOfDof: model.dofMap.node, dissectionMinFlops: 1 });
+    expect(again.candidates.map((c) => c.name)).toContain('nested-dissection');
   });
 
   it('predicts nnz(L) exactly: equals an independent symbolic count on the union pattern', () => {
