@@ -94,9 +94,18 @@ export function blockLanczos(search: EigenSearch): EigenSearchResult {
   let stagnated = 0;
   let abandoned = false;
   let extraValues: number[] = [];
-  let extraVectors = new Float64Array(0);
+  let extraVectors: Float64Array<ArrayBufferLike> = new Float64Array(0);
   while (locked.count < p && cycles < maxCycles) {
     cycles++;
+    if (cycles === 1 && search.checkpoint) {
+      const early = probe(cycle, locked, search, p, b);
+      if (early) {
+        extraValues = early.values;
+        extraVectors = early.vectors;
+        abandoned = true;
+        break;
+      }
+    }
     const lastBlock = extend(cycle, locked, search, p - locked.count);
     const wanted = p - locked.count;
     const { theta, s } = ritzOfT(cycle);
@@ -205,8 +214,37 @@ interface LastBlock {
   width: number;
 }
 
-/** Grow V block by block until full or until the wanted Ritz estimates are small. */
-function extend(cycle: Cycle, locked: LockedSet, search: EigenSearch, wanted: number): LastBlock {
+/** Blocks in the basis when the first cycle's shift is judged (probe). */
+const PROBE_BLOCKS = 4;
+
+/**
+ * The shift judged early: once the first cycle's basis holds PROBE_BLOCKS blocks, the Ritz values
+ * of T give rough estimates λ = σ + 1/θ (upper bounds of the eigenvalues nearest σ, by
+ * interlacing), enough to tell a shift far outside the window of shift-placement.ts. When the
+ * checkpoint rejects it, the search stops there with the b Ritz vectors nearest σ as estimates
+ * (the next shift's start) — a few blocks spent instead of a whole cycle. Otherwise the cycle
+ * goes on from where it stands (and is judged again at its end).
+ */
+function probe(cycle: Cycle, locked: LockedSet, search: EigenSearch, p: number, b: number): { values: number[]; vectors: Float64Array<ArrayBufferLike> } | null {
+  const size = PROBE_BLOCKS * b;
+  if (size + b > cycle.capacity) return null;
+  extend(cycle, locked, search, p, size);
+  if (cycle.size < size || cycle.qCount === 0) return null;
+  const n = search.operator.n;
+  const sigma = search.operator.shift;
+  const { theta, s } = ritzOfT(cycle);
+  const lambda = Array.from(theta, (t) => sigma + 1 / t);
+  if (search.checkpoint!(currentEstimates(locked, lambda))) return null;
+  const nearest = orderByMagnitude(theta).slice(0, b);
+  const vectors = basisTimesSmall(cycle.v, n, cycle.size, pickColumns(s, cycle.size, nearest), nearest.length);
+  return { values: nearest.map((i) => lambda[i]), vectors };
+}
+
+/**
+ * Grow V block by block until full, until the wanted Ritz estimates are small, or (probe) once
+ * it holds `stopAt` vectors.
+ */
+function extend(cycle: Cycle, locked: LockedSet, search: EigenSearch, wanted: number, stopAt = Infinity): LastBlock {
   const op = search.operator;
   const tolerance = search.tolerance;
   const n = op.n;
@@ -227,7 +265,7 @@ function extend(cycle: Cycle, locked: LockedSet, search: EigenSearch, wanted: nu
     cycle.mq = next.massVectors;
     cycle.qCount = next.count;
     last = { r: next.coefficients, rows: next.count, from, width };
-    if (estimatesSmall(cycle, last, wanted, tolerance)) break;
+    if (estimatesSmall(cycle, last, wanted, tolerance) || cycle.size >= stopAt) break;
   }
   return last;
 }

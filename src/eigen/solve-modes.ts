@@ -3,8 +3,9 @@
  * frequency cutoff, with the verification of verification.ts attached.
  *
  *   1. count (cutoff mode): N = negative pivots of LDLᵀ(K − σ_c M), σ_c = (2π f_max)²;
- *   2. shift: σ₁ from the diagonal (shift-placement.ts); a first pass that shows σ₁ badly
- *      placed is abandoned and the solve restarts at σ₂ = −0.01 λ_e from its Ritz vectors;
+ *   2. shift: σ₁ from the diagonal (shift-placement.ts); when the first pass's estimates show σ₁
+ *      badly placed (judged after four blocks of Lanczos, or after an iteration of subspace
+ *      iteration) it is abandoned and the solve restarts at σ₂ = −0.01 λ_e from its Ritz vectors;
  *   3. solve with block Lanczos or subspace iteration on (K − σM)⁻¹M;
  *   4. polish: one more step Φ ← (K − σM)⁻¹MΦ when M has massless DOFs (purifies the null(M)
  *      components, docs/sources.md §8) or a residual is above 1e-10 (PURIFY_ABOVE_RESIDUAL: it sharpens them); then

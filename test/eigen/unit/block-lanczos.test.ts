@@ -230,6 +230,29 @@ describe('block Lanczos: deflation, checkpoint, singular and indefinite M', () =
     for (let i = 0; i < 4; i++) expect(r.estimates[i]).toBeGreaterThanOrEqual(exact[i] * (1 - 1e-10));
   });
 
+  it('judges the first shift once the basis holds four blocks: a refused shift costs five block passes, not a cycle', () => {
+    const long = chain(300, 2, 1, true);
+    let seen = 0;
+    const search = searchAt(long, -1e-6, 20, { checkpoint: (e) => ((seen = e.length), false) });
+    const r = blockLanczos(search);
+    expect(r.abandoned).toBe(true);
+    // the start block and four Lanczos blocks of 6 (a whole first cycle would be 100 vectors)
+    expect(search.operator.counts.factorPasses).toBe(5);
+    expect(seen).toBe(4 * DEFAULT_BLOCK_SIZE);
+    // six Ritz vectors nearest σ come back as the next shift's start, ascending, above the true values (minimax)
+    expect(r.estimateCount).toBe(DEFAULT_BLOCK_SIZE);
+    const exactLong = fixedFreeEigenvalues(300, 2, 1);
+    for (let i = 0; i < r.estimateCount; i++) expect(r.estimates[i]).toBeGreaterThanOrEqual(exactLong[i] * (1 - 1e-10));
+  });
+
+  it('goes on with the same cycle when the early judgement accepts the shift (same result as without a checkpoint)', () => {
+    const long = chain(300, 2, 1, true);
+    const plain = blockLanczos(searchAt(long, -1e-6, 12));
+    const judged = blockLanczos(searchAt(long, -1e-6, 12, { checkpoint: () => true }));
+    expect(Array.from(judged.values)).toEqual(Array.from(plain.values));
+    expect(judged.iterations).toBe(plain.iterations);
+  });
+
   it('finds the finite eigenvalues of a chain with massless DOFs, basis capped at rank(M) (reversed pencil, ml-matrix)', () => {
     const masses = Array.from({ length: n }, (_, i) => (i % 5 === 4 ? 0 : 1));
     const q: Pencil = { stiffness: p.stiffness, mass: diagonalMatrix(masses) };
