@@ -187,14 +187,7 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
     ({ written, failures } = writeReports(report, targets, opts.markdownAll, cwd));
   }
   signals?.dispose();
-  if (opts.stepSummary) {
-    try {
-      const full = written.markdown ?? written.html ?? written.json ?? written.junit;
-      appendStepSummary(opts.stepSummary, formatMarkdown(withShownPaths(report, cwd), { allModes: opts.markdownAll }), full ? shownPath(full, cwd) : undefined);
-    } catch (e) {
-      failures.push({ kind: 'write', file: opts.stepSummary, message: writeFailureMessage(`${opts.stepSummary} (GITHUB_STEP_SUMMARY)`, e) });
-    }
-  }
+  writeStepSummary(report, written, failures, opts, cwd);
   const labels: Record<string, string> = { junit: 'JUnit XML', json: 'JSON report', markdown: 'Markdown summary', html: 'HTML report' };
   for (const [kind, p] of Object.entries(written)) if (!opts.quiet) print(`${labels[kind]}: ${shownPath(p, cwd)}\n`);
   for (const m of models) {
@@ -292,6 +285,26 @@ export function writeReports(report: CheckReport, targets: CheckOutcome['written
 }
 
 /** "cannot write /x/junit.xml: ENOSPC (no space left on device)" */
+/**
+ * Appends the Markdown summary to GITHUB_STEP_SUMMARY's file when one is given (check and merge),
+ * naming the fullest report written; a failure joins the write failures.
+ */
+export function writeStepSummary(
+  report: CheckReport,
+  written: Partial<Record<'junit' | 'json' | 'markdown' | 'html', string>>,
+  failures: ProblemReport[],
+  opts: { stepSummary?: string; markdownAll?: boolean },
+  cwd: string,
+): void {
+  if (!opts.stepSummary) return;
+  try {
+    const full = written.markdown ?? written.html ?? written.json ?? written.junit;
+    appendStepSummary(opts.stepSummary, formatMarkdown(withShownPaths(report, cwd), { allModes: opts.markdownAll }), full ? shownPath(full, cwd) : undefined);
+  } catch (e) {
+    failures.push({ kind: 'write', file: opts.stepSummary, message: writeFailureMessage(`${opts.stepSummary} (GITHUB_STEP_SUMMARY)`, e) });
+  }
+}
+
 export function writeFailureMessage(path: string, e: unknown): string {
   const code = (e as NodeJS.ErrnoException).code;
   const causes: Record<string, string> = {

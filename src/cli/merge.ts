@@ -12,9 +12,7 @@ import { checkWritableTarget } from '../io/config-loader.js';
 import { mergeReports, type ShardReport } from '../pipeline/merge-reports.js';
 import type { CheckReport, ProblemReport } from '../pipeline/result-types.js';
 import { formatConsole } from '../report/console-reporter.js';
-import { writeFailureMessage, writeReports, type CheckOutcome } from './check.js';
-import { appendStepSummary, shownPath, withShownPaths } from './ci-output.js';
-import { formatMarkdown } from '../report/markdown.js';
+import { writeReports, writeStepSummary, type CheckOutcome } from './check.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, runAction } from './run-action.js';
 
 /** A JSON report larger than this is refused (a real one is a few MB at most; our choice). */
@@ -67,14 +65,7 @@ export async function runMerge(files: string[], opts: MergeOptions): Promise<Che
   const print = opts.print ?? ((t: string) => process.stdout.write(t));
   print(formatConsole(report, { quiet: opts.quiet }));
   const { written, failures } = writeReports(report, targets, opts.markdownAll);
-  if (opts.stepSummary) {
-    try {
-      const full = written.markdown ?? written.html ?? written.json ?? written.junit;
-      appendStepSummary(opts.stepSummary, formatMarkdown(withShownPaths(report, cwd), { allModes: opts.markdownAll }), full ? shownPath(full, cwd) : undefined);
-    } catch (e) {
-      failures.push({ kind: 'write', file: opts.stepSummary, message: writeFailureMessage(`${opts.stepSummary} (GITHUB_STEP_SUMMARY)`, e) });
-    }
-  }
+  writeStepSummary(report, written, failures, opts, cwd);
   const labels: Record<string, string> = { junit: 'JUnit XML', json: 'JSON report', markdown: 'Markdown summary', html: 'HTML report' };
   if (!opts.quiet) for (const [kind, p] of Object.entries(written)) print(`${labels[kind]}: ${p}\n`);
   const printError = opts.printError ?? ((l: string) => process.stderr.write(l));

@@ -8,6 +8,7 @@
 import { formatNumber } from '../rules/utils/message.js';
 import type { AttributionFacts, ExplainedChanges, ModeAttribution, ShareOfChange } from '../model/change-facts.js';
 import { barChart, escapeText as esc, linearScale } from './svg-plots.js';
+import { percentText, signedText } from './change-text.js';
 
 /** Regions drawn per mode and modes drawn (the JSON report has all; our choice). */
 const REGIONS_SHOWN = 8;
@@ -50,24 +51,16 @@ function modeFigure(m: ModeAttribution, a: AttributionFacts): string {
   const svg = barChart({ title: `Mode ${m.baselineMode}: share of the first-order change per region`, yLabel: 'share (%)', xLabel: 'region (rest: unchanged nodes)', bars, y: linearScale(Math.min(...values), Math.max(...values)) });
   const rows = [...shown.map((r) => tableRow(`R${r.region + 1}`, a.regions[r.region].label, r, a.split)), tableRow('rest', 'unchanged nodes (round-off, the baseline\'s residual)', m.elsewhere, a.split)];
   const moved = m.currentMode === m.baselineMode ? '' : ` (now mode ${m.currentMode})`;
-  const caption = `Mode ${m.baselineMode}${moved}: measured ${signed(m.measuredPercent)} %, first order ${signed(m.estimatedPercent)} % (${m.disagreement === null ? 'no measured change' : `the two δλ differ by ${formatNumber(100 * m.disagreement)} %`})${m.group ? `; estimated with its near-repeated group (baseline modes ${m.group.join(', ')})` : ''}. Red: the region with the largest share.`;
+  const caption = `Mode ${m.baselineMode}${moved}: measured ${signedText(m.measuredPercent)} %, first order ${signedText(m.estimatedPercent)} % (${m.disagreement === null ? 'no measured change' : `the two δλ differ by ${formatNumber(100 * m.disagreement)} %`})${m.group ? `; estimated with its near-repeated group (baseline modes ${m.group.join(', ')})` : ''}. Red: the region with the largest share.`;
   const split = a.split ? '<th>stiffness %</th><th>mass %</th>' : '';
-  const nodes = m.topNodes.slice(0, TOP_NODES_SHOWN).map((t) => `node ${t.node} ${pct(t.share)} %${a.split ? ` (stiffness ${pct(t.stiffnessShare)}, mass ${pct(t.massShare)})` : ''}`);
+  const nodes = m.topNodes.slice(0, TOP_NODES_SHOWN).map((t) => `node ${t.node} ${percentText(t.share)} %${a.split ? ` (stiffness ${percentText(t.stiffnessShare)}, mass ${percentText(t.massShare)})` : ''}`);
   const top = nodes.length > 0 ? `<p class="top-nodes">Largest node shares: ${esc(nodes.join('; '))}.</p>` : '';
   return `<figure class="attribution">${svg}<figcaption>${esc(caption)}</figcaption><table class="attribution"><thead><tr><th>region</th><th>nodes</th><th>share %</th>${split}</tr></thead><tbody>${rows.join('')}</tbody></table>${top}</figure>`;
 }
 
 function tableRow(name: string, label: string, s: ShareOfChange, split: boolean): string {
-  const cells = split ? `<td class="num">${pct(s.stiffnessShare)}</td><td class="num">${pct(s.massShare)}</td>` : '';
-  return `<tr><td>${esc(name)}</td><td>${esc(label)}</td><td class="num">${pct(s.share)}</td>${cells}</tr>`;
+  const cells = split ? `<td class="num">${percentText(s.stiffnessShare)}</td><td class="num">${percentText(s.massShare)}</td>` : '';
+  return `<tr><td>${esc(name)}</td><td>${esc(label)}</td><td class="num">${percentText(s.share)}</td>${cells}</tr>`;
 }
 
-function pct(x: number | null): string {
-  if (x === null) return '—';
-  const t = (100 * x).toFixed(1);
-  return t === '-0.0' ? '0.0' : t;
-}
 
-function signed(x: number): string {
-  return `${x > 0 ? '+' : ''}${formatNumber(x)}`;
-}

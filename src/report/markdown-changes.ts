@@ -7,6 +7,7 @@
 import { formatNumber } from '../rules/utils/message.js';
 import type { ExplainedChanges, ModeAttribution, ShareOfChange } from '../model/change-facts.js';
 import { inline } from './markdown.js';
+import { percentText, signedText } from './change-text.js';
 
 /** Regions listed per mode and modes given a table (the JSON report has all; our choice). */
 const REGIONS_SHOWN = 5;
@@ -43,7 +44,7 @@ export function changesMarkdown(changes: ExplainedChanges | undefined): string[]
 
 function modeTable(m: ModeAttribution, labels: string[], split: boolean): string[] {
   const moved = m.currentMode === m.baselineMode ? '' : ` (now mode ${m.currentMode})`;
-  const head = `Mode ${m.baselineMode}${moved}: measured ${signed(m.measuredPercent)} %, first order ${signed(m.estimatedPercent)} % (${m.disagreement === null ? 'no measured change' : `estimates differ by ${formatNumber(100 * m.disagreement)} % of δλ`})${m.group ? `; estimated with its near-repeated group (baseline modes ${m.group.join(', ')})` : ''}.`;
+  const head = `Mode ${m.baselineMode}${moved}: measured ${signedText(m.measuredPercent)} %, first order ${signedText(m.estimatedPercent)} % (${m.disagreement === null ? 'no measured change' : `estimates differ by ${formatNumber(100 * m.disagreement)} % of δλ`})${m.group ? `; estimated with its near-repeated group (baseline modes ${m.group.join(', ')})` : ''}.`;
   const rows = m.regions.slice(0, REGIONS_SHOWN).map((r) => row(`R${r.region + 1} ${inline(labels[r.region])}`, r, split));
   rows.push(row('unchanged nodes (round-off, the baseline\'s residual)', m.elsewhere, split));
   const more = m.regions.length > REGIONS_SHOWN ? [`${m.regions.length - REGIONS_SHOWN} smaller regions in the JSON report.`, ''] : [];
@@ -51,16 +52,7 @@ function modeTable(m: ModeAttribution, labels: string[], split: boolean): string
 }
 
 function row(name: string, s: ShareOfChange, split: boolean): string {
-  return `| ${name} | ${pct(s.share)} |${split ? ` ${pct(s.stiffnessShare)} | ${pct(s.massShare)} |` : ''}`;
+  return `| ${name} | ${percentText(s.share)} |${split ? ` ${percentText(s.stiffnessShare)} | ${percentText(s.massShare)} |` : ''}`;
 }
 
-/** A share as percent, one decimal. */
-function pct(x: number | null): string {
-  if (x === null) return '—';
-  const t = (100 * x).toFixed(1);
-  return t === '-0.0' ? '0.0' : t;
-}
 
-function signed(x: number): string {
-  return `${x > 0 ? '+' : ''}${formatNumber(x)}`;
-}
