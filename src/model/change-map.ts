@@ -5,16 +5,27 @@
  * a_ij of the full symmetric matrix with row i a DOF of p, of a hash of
  *     (key(i), key(j), q(a_ij)),
  * where key(d) names DOF d by where it is and what it is — the bit patterns of its node's
- * coordinates and its component (or its index, without a DOF map) — and q rounds a value to 28
- * bits of mantissa (relative rounding; an exponent step at a power of two is folded, so
- * 2^e(1−ε) and 2^e(1+ε) round alike). Entries below 1e-13 of the matrix's largest |entry| count
- * as zero (assembly round-off), so they change neither pattern nor values. The rounding reads
- * the IEEE 754 bits: the 52-bit mantissa rounded to 28 bits, carrying into the exponent. Summing hashes
- * (two independent 32-bit lanes, mod 2³²) makes the fingerprint independent of the order of
+ * coordinates and its component (or its index, without a DOF map) — and q quantizes a value to
+ * 28 bits of mantissa (relative rounding).
+ *
+ * Two grids, one per 32-bit lane. Any fixed grid has boundaries: two exports of the same model
+ * whose values differ by round-off (another assembly order after renumbering) quantize apart
+ * whenever a value sits within that round-off of a boundary — with ~1e-16 relative round-off and
+ * 28 bits, about one entry in 10⁷, so somewhere in a 100k-DOF model. Lane A rounds to nearest
+ * (boundaries at half steps; an exponent step at a power of two is folded, so 2^e(1−ε) and
+ * 2^e(1+ε) round alike); lane B truncates (boundaries at whole steps, half a step from A's). A
+ * value within round-off of an A boundary is half a step from every B boundary, so a node whose
+ * rows only carry round-off keeps at least one lane equal unless two of its entries sit at
+ * boundaries of both grids (probability about the square of the one-grid figure per node). A
+ * node counts as changed only when both lanes differ; a real change alters both lanes' hashes,
+ * and goes unseen only when one lane's 32-bit sum collides (about 2·2⁻³² per changed node).
+ *
+ * Entries below 1e-13 of the matrix's largest |entry| count as zero (assembly round-off), so they
+ * change neither pattern nor values. Both quantizations read the IEEE 754 bits (no log, no
+ * power). Summing hashes (mod 2³² per lane) makes the fingerprint independent of the order of
  * rows, columns and entries: a renumbered model (node ids or DOF order) with the same physics
  * gives the same fingerprints; a changed value, an added or removed entry, or a moved node
- * changes them. Values equal to 28 bits compare equal (a relative change below about 4e-9 is
- * not seen; round-off of a re-export is far below that).
+ * changes them. A relative change below about 4e-9 (28 bits) can go unseen.
  *
  * Comparison: baseline nodes meet current nodes by node id, or by position when that matches
  * more nodes (node ids renumbered too; coincident nodes match nothing); without DOF maps,
@@ -76,11 +87,11 @@ function matrixFingerprints(a: SymmetricCsc, index: NodeIndex, keys: Uint32Array
   let largest = 0;
   for (let p = 0; p < a.colPtr[a.n]; p++) largest = Math.max(largest, Math.abs(a.values[p]));
   const floor = ZERO_SHARE * largest;
-  const add = (row: number, col: number, e: number, q: number): void => {
+  const add = (row: number, col: number, e: number, q: number, eB: number, qB: number): void => {
     const node = index.nodeOf[row];
-    // lane sums of hash(key(row), key(col), q(a))
+    // lane sums of hash(key(row), key(col), q(a)): lane A rounded, lane B truncated
     out[2 * node] = (out[2 * node] + mix3(keys[2 * row], keys[2 * col], e, q)) >>> 0;
-    out[2 * node + 1] = (out[2 * node + 1] + mix3(keys[2 * row + 1], keys[2 * col + 1], e, q)) >>> 0;
+    out[2 * node + 1] = (out[2 * node + 1] + mix3(keys[2 * row + 1], keys[2 * col + 1], eB, qB)) >>> 0;
   };
   // every stored a_ij (i ≥ j) is row i's entry in column j and, off the diagonal, row j's in column i
   for (let j = 0; j < a.n; j++) {
@@ -89,9 +100,11 @@ function matrixFingerprints(a: SymmetricCsc, index: NodeIndex, keys: Uint32Array
       if (!(Math.abs(v) > floor)) continue;
       const q = roundedMantissa(v);
       const e = roundedExponent;
+      const qB = truncatedMantissa(v);
+      const eB = roundedExponent;
       const i = a.rowIdx[p];
-      add(i, j, e, q);
-      if (i !== j) add(j, i, e, q);
+      add(i, j, e, q, eB, qB);
+      if (i !== j) add(j, i, e, q, eB, qB);
     }
   }
   return out;
@@ -120,6 +133,14 @@ function roundedMantissa(v: number): number {
   }
   roundedExponent = exponentWord;
   return q;
+}
+
+/** v's mantissa truncated to MANTISSA_BITS bits (grid B); sets roundedExponent to the sign and exponent bits. */
+function truncatedMantissa(v: number): number {
+  bitsF64[0] = v;
+  const hi = bitsU32[HIGH], lo = bitsU32[1 - HIGH];
+  roundedExponent = hi >>> 20;
+  return Math.floor(((hi & 0xfffff) * 4294967296 + lo) / 2 ** (52 - MANTISSA_BITS));
 }
 
 /** mixWords(seed, [a, b, c]) without the array. */
@@ -178,8 +199,9 @@ export function compareFingerprints(baseline: ChangeMapSide, now: ChangeMapSide,
       continue;
     }
     matchedBase[p] = 1;
-    const k = b.stiffness[2 * p] !== c.stiffness[2 * q] || b.stiffness[2 * p + 1] !== c.stiffness[2 * q + 1];
-    const m = b.mass[2 * p] !== c.mass[2 * q] || b.mass[2 * p + 1] !== c.mass[2 * q + 1];
+    // changed only when both lanes (both grids) differ, see the module comment
+    const k = b.stiffness[2 * p] !== c.stiffness[2 * q] && b.stiffness[2 * p + 1] !== c.stiffness[2 * q + 1];
+    const m = b.mass[2 * p] !== c.mass[2 * q] && b.mass[2 * p + 1] !== c.mass[2 * q + 1];
     kind[q] = (k ? 1 : 0) + (m ? 2 : 0);
   }
   const index = nodeIndexOf(stiffness.n, now.dofMap ?? undefined);
