@@ -65,6 +65,8 @@ export interface AttributionInput {
   regions: AttributionRegion[] | null;
   /** What the baseline lacked (shown with the facts). */
   missing: string[];
+  /** Name of the model's length unit, after region coordinates in labels (`units.length`). */
+  lengthUnit?: string;
 }
 
 export function attributeChanges(input: AttributionInput): AttributionFacts {
@@ -118,7 +120,7 @@ export function attributeChanges(input: AttributionInput): AttributionFacts {
   });
   const { regionOfNode, regions, regionsFrom } = input.regionOfNode && input.regions
     ? { regionOfNode: input.regionOfNode, regions: input.regions, regionsFrom: 'change map' as const }
-    : { ...regionsFromShares(total, m, nNodes, index, stiffness, input.dofMap), regionsFrom: 'shares' as const };
+    : { ...regionsFromShares(total, m, nNodes, index, stiffness, input.dofMap, input.lengthUnit), regionsFrom: 'shares' as const };
   const coords = nodeCoordinates(index.ids, input.dofMap);
   const modes = pairs.map((p, k) => {
     const lambda = lambdaOf(p.baselineMode);
@@ -233,7 +235,7 @@ function modeFacts(
 }
 
 /** Without a change map: nodes with a notable part in some mode, joined by K's connectivity. */
-function regionsFromShares(total: Float64Array, m: number, nNodes: number, index: ReturnType<typeof nodeIndexOf>, stiffness: SymmetricCsc, map: DofMap | undefined): { regionOfNode: Int32Array; regions: AttributionRegion[] } {
+function regionsFromShares(total: Float64Array, m: number, nNodes: number, index: ReturnType<typeof nodeIndexOf>, stiffness: SymmetricCsc, map: DofMap | undefined, lengthUnit: string | undefined): { regionOfNode: Int32Array; regions: AttributionRegion[] } {
   const flagged = new Int8Array(nNodes);
   for (let k = 0; k < m; k++) {
     const parts = total.subarray(k * nNodes, (k + 1) * nNodes);
@@ -249,7 +251,7 @@ function regionsFromShares(total: Float64Array, m: number, nNodes: number, index
   const regions = members.map((list, r) => {
     const ranges = nodeRanges(list.map((q) => index.ids[q]));
     const at = centroid(list.map((q) => ({ at: coords ? coords[q] : null })));
-    return { region: r, nodeCount: list.length, nodeRanges: ranges, centroid: at, label: regionLabel(ranges, at) };
+    return { region: r, nodeCount: list.length, nodeRanges: ranges, centroid: at, label: regionLabel(ranges, at, lengthUnit) };
   });
   return { regionOfNode, regions };
 }

@@ -184,7 +184,7 @@ export interface ChangeMapSide {
 }
 
 /** Compare baseline fingerprints with the model's now; regions by connectivity of the model now. */
-export function compareFingerprints(baseline: ChangeMapSide, now: ChangeMapSide, stiffness: SymmetricCsc, mass: SymmetricCsc): ChangeMapFacts {
+export function compareFingerprints(baseline: ChangeMapSide, now: ChangeMapSide, stiffness: SymmetricCsc, mass: SymmetricCsc, lengthUnit?: string): ChangeMapFacts {
   const b = baseline.fingerprints, c = now.fingerprints;
   const match = matchNodes(baseline, now);
   const coordsNow = nodeCoordinates(c.nodes, now.dofMap);
@@ -214,7 +214,7 @@ export function compareFingerprints(baseline: ChangeMapSide, now: ChangeMapSide,
   }
   const removed: ChangedNode[] = [];
   for (let p = 0; p < b.nodes.length; p++) if (!matchedBase[p]) removed.push({ node: b.nodes[p], change: 'removed', region: null, at: coordsBase ? coordsBase[p] : null });
-  const regions = regionSummaries(touched);
+  const regions = regionSummaries(touched, lengthUnit);
   return {
     matchedBy: match.by,
     nodesCompared: match.count,
@@ -223,7 +223,7 @@ export function compareFingerprints(baseline: ChangeMapSide, now: ChangeMapSide,
     removedNodes: removed.length,
     regions,
     nodes: [...touched, ...removed],
-    removed: removed.length > 0 ? labelled({ nodeCount: removed.length, nodeRanges: nodeRanges(removed.map((r) => r.node)), centroid: centroid(removed) }) : null,
+    removed: removed.length > 0 ? labelled({ nodeCount: removed.length, nodeRanges: nodeRanges(removed.map((r) => r.node)), centroid: centroid(removed) }, lengthUnit) : null,
   };
 }
 
@@ -266,12 +266,12 @@ function matchByKey<K>(b: Int32Array, c: Int32Array, key: (side: 0 | 1, ids: Int
   return m;
 }
 
-function regionSummaries(touched: ChangedNode[]): ChangeRegion[] {
+function regionSummaries(touched: ChangedNode[], lengthUnit: string | undefined): ChangeRegion[] {
   const byRegion: ChangedNode[][] = [];
   for (const t of touched) (byRegion[t.region!] ??= []).push(t);
   return byRegion.map((list, r) => ({
     region: r,
-    ...labelled({ nodeCount: list.length, nodeRanges: nodeRanges(list.map((t) => t.node)), centroid: centroid(list) }),
+    ...labelled({ nodeCount: list.length, nodeRanges: nodeRanges(list.map((t) => t.node)), centroid: centroid(list) }, lengthUnit),
     stiffnessChanged: list.filter((t) => t.change === 'stiffness' || t.change === 'stiffness and mass').length,
     massChanged: list.filter((t) => t.change === 'mass' || t.change === 'stiffness and mass').length,
     added: list.filter((t) => t.change === 'added').length,
@@ -279,6 +279,6 @@ function regionSummaries(touched: ChangedNode[]): ChangeRegion[] {
 }
 
 
-function labelled<T extends { nodeRanges: [number, number][]; centroid: [number, number, number] | null }>(g: T): T & { label: string } {
-  return { ...g, label: regionLabel(g.nodeRanges, g.centroid) };
+function labelled<T extends { nodeRanges: [number, number][]; centroid: [number, number, number] | null }>(g: T, lengthUnit: string | undefined): T & { label: string } {
+  return { ...g, label: regionLabel(g.nodeRanges, g.centroid, lengthUnit) };
 }

@@ -13,9 +13,8 @@ import { matchDofs } from './compare-baseline.js';
 import type { ComparisonFacts } from './comparison-facts.js';
 import { compareFingerprints, nodeFingerprints } from './change-map.js';
 import { nodeIndexOf } from './node-index.js';
-import { regionLabel } from './node-regions.js';
 import { attributeChanges } from './change-attribution.js';
-import type { AttributionRegion, ChangeMapFacts, ExplainedChanges, NodeRanges } from './change-facts.js';
+import type { AttributionRegion, ChangeMapFacts, ExplainedChanges } from './change-facts.js';
 
 export interface ExplainInput {
   baseline: LoadedBaseline;
@@ -34,12 +33,12 @@ export function explainChanges(input: ExplainInput): ExplainedChanges {
   const out: ExplainedChanges = { changeMap: null, changeMapMissing: null, attribution: null, attributionMissing: null };
   if (baseline.fingerprints) {
     const now = nodeFingerprints(input.stiffness, input.mass, input.dofMap);
-    out.changeMap = compareFingerprints({ fingerprints: baseline.fingerprints, dofMap: baseline.dofMap }, { fingerprints: now, dofMap: input.dofMap ?? null }, input.stiffness, input.mass);
+    out.changeMap = compareFingerprints({ fingerprints: baseline.fingerprints, dofMap: baseline.dofMap }, { fingerprints: now, dofMap: input.dofMap ?? null }, input.stiffness, input.mass, input.lengthUnit);
   } else out.changeMapMissing = 'the baseline holds no node fingerprints (saved by an older modalgate): save it again to get the change map';
   const why = attributionBlocker(input);
   if (why) {
     out.attributionMissing = why;
-    return input.lengthUnit ? relabelled(out, input.lengthUnit) : out;
+    return out;
   }
   const modes = input.modes!, comparison = input.comparison!;
   const match = matchDofs(baseline, { modes, dofMap: input.dofMap });
@@ -70,19 +69,9 @@ export function explainChanges(input: ExplainInput): ExplainedChanges {
     regionOfNode: regions ? regions.regionOfNode : null,
     regions: regions ? regions.regions : null,
     missing,
+    lengthUnit: input.lengthUnit,
   });
-  return input.lengthUnit ? relabelled(out, input.lengthUnit) : out;
-}
-
-/** The same facts with every region label naming the length unit after its point. */
-function relabelled(out: ExplainedChanges, unit: string): ExplainedChanges {
-  const label = <T extends { nodeRanges: NodeRanges; centroid: [number, number, number] | null; label: string }>(g: T): T => ({ ...g, label: regionLabel(g.nodeRanges, g.centroid, unit) });
-  const map = out.changeMap;
-  return {
-    ...out,
-    changeMap: map ? { ...map, regions: map.regions.map(label), removed: map.removed ? label(map.removed) : null } : null,
-    attribution: out.attribution ? { ...out.attribution, regions: out.attribution.regions.map(label) } : null,
-  };
+  return out;
 }
 
 function attributionBlocker(input: ExplainInput): string | null {

@@ -57,6 +57,18 @@ function beamSpec(): FrameSpec {
   };
 }
 
+/** The beam with node 99 (2 kg) on a rod from node `from`, at `at`; extra frame fields (supports, springs) as given. */
+function beamWithRodEnd(from: number, at: { x: number; y: number; z: number }, extra: Partial<FrameSpec> = {}): FrameSpec {
+  const spec = beamSpec();
+  return {
+    ...spec,
+    nodes: [...spec.nodes, { id: 99, ...at }],
+    members: [...spec.members, { kind: 'rod', nodes: [from, 99], section: roundBarSection(0.01), material: STEEL }],
+    pointMasses: [{ node: 99, massKg: 2 }],
+    ...extra,
+  };
+}
+
 describe('independent mechanisms, each named', () => {
   const model = twoLooseParts();
   // ml-matrix dense reference: four zero modes (3 rotations of part B about its node + 1 of part A about its line)
@@ -156,15 +168,10 @@ describe('shares with their component split, suspects down to 1 %, failing modes
 
   it('a local mode failing first-elastic-frequency says where it lives, with the component split', () => {
     // clamped beam, node 99 (2 kg) on a rod from node 9, held sideways by soft springs: f = √(k/m)/2π (common practice)
-    const spec = beamSpec();
-    const model = buildFrame({
-      ...spec,
-      nodes: [...spec.nodes, { id: 99, x: 2, y: 0.5, z: 0 }],
-      members: [...spec.members, { kind: 'rod', nodes: [9, 99], section: roundBarSection(0.01), material: STEEL }],
-      pointMasses: [{ node: 99, massKg: 2 }],
+    const model = buildFrame(beamWithRodEnd(9, { x: 2, y: 0.5, z: 0 }, {
       supports: [{ nodes: [1], kind: 'clamp' }],
       springs: [{ node: 99, component: 0, stiffness: 100 }, { node: 99, component: 2, stiffness: 400 }],
-    });
+    }));
     const modes = denseModes(model.stiffness, model.mass, 4);
     const r = run(firstElasticFrequency, contextOf(model, modes), { minHz: 5 });
     expect(r.status).toBe('fail');
@@ -177,14 +184,7 @@ describe('shares with their component split, suspects down to 1 %, failing modes
   });
 
   it('the loose node of a supported frame, with no DOF map: named by its DOF numbers (1-based)', () => {
-    const spec = beamSpec();
-    const model = buildFrame({
-      ...spec,
-      nodes: [...spec.nodes, { id: 99, x: 0.75, y: 0.6, z: 0 }],
-      members: [...spec.members, { kind: 'rod', nodes: [4, 99], section: roundBarSection(0.01), material: STEEL }],
-      pointMasses: [{ node: 99, massKg: 2 }],
-      supports: [{ nodes: [1], kind: 'clamp' }],
-    });
+    const model = buildFrame(beamWithRodEnd(4, { x: 0.75, y: 0.6, z: 0 }, { supports: [{ nodes: [1], kind: 'clamp' }] }));
     const modes = denseModes(model.stiffness, model.mass, 6);
     const r = run(rigidBodyModes, contextOf(model, modes, {}, false), { expected: 0 });
     expect(r.status).toBe('fail');
@@ -219,13 +219,7 @@ describe('supports seen only in the stiffness, and a mechanism of a free-free mo
   });
 
   it('free-free beam with a rod end swinging about node 4: one part, node 99, rotating about node 4 (2 free rotations)', () => {
-    const spec = beamSpec();
-    const model = buildFrame({
-      ...spec,
-      nodes: [...spec.nodes, { id: 99, x: 0.75, y: 0.6, z: 0 }],
-      members: [...spec.members, { kind: 'rod', nodes: [4, 99], section: roundBarSection(0.01), material: STEEL }],
-      pointMasses: [{ node: 99, massKg: 2 }],
-    });
+    const model = buildFrame(beamWithRodEnd(4, { x: 0.75, y: 0.6, z: 0 }));
     const modes = denseModes(model.stiffness, model.mass, 12);
     const r = run(rigidBodyModes, contextOf(model, modes), { expected: 6 });
     expect(r.status).toBe('fail');
