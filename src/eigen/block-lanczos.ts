@@ -97,16 +97,18 @@ export function blockLanczos(search: EigenSearch): EigenSearchResult {
   let extraVectors: Float64Array<ArrayBufferLike> = new Float64Array(0);
   while (locked.count < p && cycles < maxCycles) {
     cycles++;
+    let lastBlock: LastBlock | undefined;
     if (cycles === 1 && search.checkpoint) {
       const early = probe(cycle, locked, search, p, b);
-      if (early) {
-        extraValues = early.values;
-        extraVectors = early.vectors;
+      if (early.refused) {
+        extraValues = early.refused.values;
+        extraVectors = early.refused.vectors;
         abandoned = true;
         break;
       }
+      lastBlock = early.ended;
     }
-    const lastBlock = extend(cycle, locked, search, p - locked.count);
+    lastBlock ??= extend(cycle, locked, search, p - locked.count);
     const wanted = p - locked.count;
     const { theta, s } = ritzOfT(cycle);
     const order = orderByMagnitude(theta);
@@ -223,21 +225,22 @@ const PROBE_BLOCKS = 4;
  * interlacing), enough to tell a shift far outside the window of shift-placement.ts. When the
  * checkpoint rejects it, the search stops there with the b Ritz vectors nearest σ as estimates
  * (the next shift's start) — a few blocks spent instead of a whole cycle. Otherwise the cycle
- * goes on from where it stands (and is judged again at its end).
+ * goes on from where it stands (and is judged again at its end); when it already ended inside
+ * the probe (its estimates small, or the Krylov space closed), `ended` is its last block.
  */
-function probe(cycle: Cycle, locked: LockedSet, search: EigenSearch, p: number, b: number): { values: number[]; vectors: Float64Array<ArrayBufferLike> } | null {
+function probe(cycle: Cycle, locked: LockedSet, search: EigenSearch, p: number, b: number): { refused?: { values: number[]; vectors: Float64Array<ArrayBufferLike> }; ended?: LastBlock } {
   const size = PROBE_BLOCKS * b;
-  if (size + b > cycle.capacity) return null;
-  extend(cycle, locked, search, p, size);
-  if (cycle.size < size || cycle.qCount === 0) return null;
+  if (size + b > cycle.capacity) return {};
+  const last = extend(cycle, locked, search, p, size);
+  if (cycle.size < size || cycle.qCount === 0) return { ended: last };
   const n = search.operator.n;
   const sigma = search.operator.shift;
   const { theta, s } = ritzOfT(cycle);
   const lambda = Array.from(theta, (t) => sigma + 1 / t);
-  if (search.checkpoint!(currentEstimates(locked, lambda))) return null;
+  if (search.checkpoint!(currentEstimates(locked, lambda))) return {};
   const nearest = orderByMagnitude(theta).slice(0, b);
   const vectors = basisTimesSmall(cycle.v, n, cycle.size, pickColumns(s, cycle.size, nearest), nearest.length);
-  return { values: nearest.map((i) => lambda[i]), vectors };
+  return { refused: { values: nearest.map((i) => lambda[i]), vectors } };
 }
 
 /**
