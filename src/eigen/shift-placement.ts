@@ -59,15 +59,15 @@ export interface ShiftVerdict {
   rigidBodyCount: number;
 }
 
-/**
- * Judge σ against estimates of the lowest `wanted` eigenvalues (ascending, any accuracy) and
- * propose a better shift if it is outside the window of the module comment.
- */
 /** |λ| at or below this is a rigid-body (zero) eigenvalue of the pencil whose diagonal scale is `scale`. */
 export function rigidBodyZero(scale: DiagonalScale): number {
   return RIGID_BODY_FRACTION * scale.maxRatio;
 }
 
+/**
+ * Judge σ against estimates of the lowest `wanted` eigenvalues (ascending, any accuracy) and
+ * propose a better shift if it is outside the window of the module comment.
+ */
 export function judgeShift(sigma: number, estimates: Float64Array, wanted: number, scale: DiagonalScale): ShiftVerdict {
   const zero = rigidBodyZero(scale);
   const lowest = Array.from(estimates).slice(0, Math.max(wanted, 1));

@@ -75,7 +75,6 @@ interface SolveState {
   factorAt(sigma: number): ShiftedFactor;
   warnings: string[];
   diagnostics: string[];
-  shifts: number[];
   clock: Clock;
 }
 
@@ -105,7 +104,6 @@ export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request:
     factorAt,
     warnings,
     diagnostics,
-    shifts,
     clock,
   };
 

@@ -12,7 +12,7 @@
  */
 import type { RuleResult } from '../rules/engine.js';
 import { formatNumber } from '../rules/utils/message.js';
-import { inertiaIn, inertiaUnit, massIn, unitSuffix, type ReportUnits } from '../rules/utils/units.js';
+import { inertiaUnit, massIn, unitSuffix, type ReportUnits } from '../rules/utils/units.js';
 import type { ComparisonFacts } from '../model/comparison-facts.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
 import type { CheckReport, ModelReport } from '../pipeline/result-types.js';
@@ -141,7 +141,7 @@ function geometrySection(g: GeometryFacts, units: ReportUnits | undefined): stri
     ...(g.keptMass ? [['mass on the kept DOFs', `${mass(g.keptMass.totalMass)}${massUnit} (what mass participation is relative to)`]] : []),
     ['translational mass x, y, z', `${mp.translationalMass.map(mass).join(', ')}${massUnit}`],
     ['centre of mass', `(${c.map(formatNumber).join(', ')})${unitSuffix(units?.length)}`],
-    ['principal moments', `${mp.principalMoments.map((x) => formatNumber(inertiaIn(units, x))).join(', ')}${unitSuffix(inertiaUnit(units))}`],
+    ['principal moments', `${mp.principalMoments.map((x) => formatNumber(massIn(units, x))).join(', ')}${unitSuffix(inertiaUnit(units))}`],
     ['free rigid-body motions', String(g.freeRigidBodyMotions)],
     ['near-zero modes', g.nearZeroModes === null ? '—' : String(g.nearZeroModes)],
   ];

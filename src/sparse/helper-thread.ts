@@ -159,11 +159,6 @@ export function expectAnswer<R extends Answer>(r: Answer | undefined, expect: R[
   return r as R;
 }
 
-/** Runs `body` on the helper while `mine` runs here; returns the helper's answer, of kind `expect`. */
-export function alongside<R extends Answer = Answer, J extends Job = Job>(h: Helper, body: J, mine: () => void, expect: R['kind'] = 'done'): R {
-  return alongsideAll<R, J>([h], [body], mine, expect)[0];
-}
-
 /**
  * Runs bodies[i] on helpers[i] (every one posted first) while `mine` runs here; returns their
  * answers in helper order, each of kind `expect`.

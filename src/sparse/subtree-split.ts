@@ -89,7 +89,7 @@ const OPENINGS_PER_THREAD = 32;
 const TOP_PARALLEL_SHARE = 0.8;
 
 /** Modelled time of the top on `threads` threads per unit of its serial work. */
-export function topTimeFactor(threads: number): number {
+function topTimeFactor(threads: number): number {
   return 1 - TOP_PARALLEL_SHARE + TOP_PARALLEL_SHARE / threads;
 }
 

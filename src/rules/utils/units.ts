@@ -22,11 +22,6 @@ export function massIn(units: ReportUnits | undefined, modelMass: number): numbe
   return modelMass / (units?.massScale ?? 1);
 }
 
-/** A mass moment of inertia of the model (mass × length²) in the reporting mass unit × the model's length². */
-export function inertiaIn(units: ReportUnits | undefined, modelInertia: number): number {
-  return modelInertia / (units?.massScale ?? 1);
-}
-
 /** `x` for a message: the number itself without a unit name (formatted as before), "7.85 t" with one. */
 export function withUnit(x: number, unit: string | undefined): number | string {
   return unit ? `${formatNumber(x)} ${unit}` : x;
