@@ -7,7 +7,7 @@
  * docs/sources.md §1a). The drop is measured on the solver's last factor of K − σM.
  */
 import type { RuleDefinition } from './rule-types.js';
-import { COMPONENTS } from '../io/dof-map.js';
+import { dofMessages, dofName } from './utils/dof-name.js';
 import { ruleMessages } from './utils/outcome.js';
 
 export interface ConditioningOptions {
@@ -16,12 +16,11 @@ export interface ConditioningOptions {
 }
 
 const messages = {
-  dof: 'dof {{dof}}',
-  nodeDof: 'node {{node}} {{component}} (dof {{dof}})',
+  ...dofMessages,
   pass: 'largest pivot drop (diagonal / pivot) {{measured}} at {{where}}, within maxPivotDrop {{maxPivotDrop}}.',
   fail: 'pivot drop (diagonal / pivot) {{measured}} at {{where}} exceeds maxPivotDrop {{maxPivotDrop}}: about {{digits}} digits are lost there (a weakly connected or badly scaled DOF).',
 };
-const { outcome, text } = ruleMessages(messages);
+const { outcome } = ruleMessages(messages);
 
 export const conditioning: RuleDefinition<ConditioningOptions> = {
   id: 'conditioning',
@@ -43,11 +42,9 @@ export const conditioning: RuleDefinition<ConditioningOptions> = {
   evaluate(context, o) {
     const f = context.modes!.factor;
     const drop = f.maxDiagonalToPivotRatio;
-    const map = context.dofMap;
-    const dof = String(f.maxRatioDof + 1);
-    const where = map ? text('nodeDof', { node: String(map.node[f.maxRatioDof]), component: COMPONENTS[map.component[f.maxRatioDof]], dof }) : text('dof', { dof });
+    const where = dofName(context, f.maxRatioDof, messages);
     const values = { measured: drop, where, maxPivotDrop: o.maxPivotDrop, digits: Math.round(Math.log10(Math.max(drop, 1))) };
-    const details = { dof: f.maxRatioDof + 1, where, pivotDrop: drop };
+    const details = { dof: (context.keptDofs ? context.keptDofs[f.maxRatioDof] : f.maxRatioDof) + 1, where, pivotDrop: drop };
     const ok = drop <= o.maxPivotDrop;
     return outcome(ok ? 'pass' : 'fail', ok ? 'pass' : 'fail', values, drop, o.maxPivotDrop, details);
   },

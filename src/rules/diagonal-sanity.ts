@@ -16,7 +16,7 @@
  * are unknown and massless DOFs are judged as translations.
  */
 import type { RuleContext, RuleDefinition } from './rule-types.js';
-import { COMPONENTS } from '../io/dof-map.js';
+import { dofMessages, dofName } from './utils/dof-name.js';
 import { diagonalOf } from '../sparse/csc.js';
 import { ruleMessages } from './utils/outcome.js';
 import { formatList } from './utils/message.js';
@@ -45,8 +45,7 @@ const messages = {
   allowedUnknown: '; {{count}} massless DOF(s) of unknown component allowed by allowMasslessTranslations: true',
   assumedSix: ' (no DOF map: assumed 6 DOFs per node in the order ux uy uz rx ry rz)',
   unknownComponents: ' (no DOF map, and {{n}} DOFs is not a multiple of 6: components unknown)',
-  dof: 'dof {{dof}}',
-  nodeDof: 'node {{node}} {{component}} (dof {{dof}})',
+  ...dofMessages,
 };
 const { outcome, text } = ruleMessages(messages);
 
@@ -87,11 +86,7 @@ export const diagonalSanity: RuleDefinition<DiagonalSanityOptions> = {
   evaluate(context, o) {
     const source = componentSource(context);
     const found = scanDiagonals(context, source);
-    const originalDof = (d: number) => (context.keptDofs ? context.keptDofs[d] : d);
-    const nameOf = (d: number) => {
-      const dof = String(originalDof(d) + 1);
-      return context.dofMap ? text('nodeDof', { node: String(context.dofMap.node[d]), component: COMPONENTS[context.dofMap.component[d]], dof }) : text('dof', { dof });
-    };
+    const nameOf = (d: number) => dofName(context, d, messages);
     const allowed: Record<Kind, boolean> = {
       unconnected: false,
       zeroStiffness: false,

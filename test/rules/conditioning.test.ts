@@ -10,7 +10,7 @@ const withDrop = (drop: number | null) => () => {
   return chainContext(chain, modes, lineDofMap(6));
 };
 
-// default 1e7: a drop of 10^k loses about k digits (common practice, from memory)
+// default 1e7: a drop of 10^k loses about k digits (docs/sources.md §1a; common practice)
 testRule(conditioning, {
   valid: [
     { name: 'the fake factor drop 12 is within 1e7', context: withDrop(null), messageId: 'pass', measured: 12, limit: 1e7 },
@@ -25,6 +25,13 @@ testRule(conditioning, {
       measured: 3e9,
       limit: 1e7,
       check: (o) => expect(o.details).toMatchObject({ dof: 3, where: 'node 1 uz (dof 3)' }),
+    },
+    {
+      name: 'after constraint sets removed DOFs, the DOF is named by its number in the exported matrices',
+      context: () => ({ ...withDrop(3e9)(), dofMap: undefined, keptDofs: Int32Array.from([0, 4, 7, 9, 10, 11]) }),
+      status: 'fail',
+      messageId: 'fail',
+      check: (o) => expect(o.details).toMatchObject({ dof: 8, where: 'dof 8' }),
     },
   ],
   badOptions: [
