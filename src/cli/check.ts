@@ -130,6 +130,8 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   let problem: ProblemReport | undefined;
   const models: ModelReport[] = [];
   let selected: ModelJob[] | undefined;
+  /** The models this run checks (after --model and --shard). */
+  let toCheck: ModelJob[] | undefined;
   const signals = opts.handleSignals ? watchSignals() : undefined;
   const print = opts.print ?? ((t: string) => process.stdout.write(t));
   try {
@@ -138,7 +140,7 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
     configPath = findConfig(opts.config, cwd);
     config = loadConfig(configPath, baselineDirs);
     selected = selectModels(config, opts.model);
-    const jobs = opts.shard ? await shardJobs(selected, opts.shard, opts.timings !== undefined ? resolve(cwd, opts.timings) : undefined) : selected;
+    const jobs = (toCheck = opts.shard ? await shardJobs(selected, opts.shard, opts.timings !== undefined ? resolve(cwd, opts.timings) : undefined) : selected);
     if (!signals?.received) {
       const atOnce = concurrentJobs(opts.jobs ?? 1, availableParallelism(), jobs.length);
       const batch = runModels(jobs, {
@@ -165,7 +167,7 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
     printDebugStack(stackOf(e));
     problem = problemOf(e);
   }
-  if (signals?.received) problem = interruptedProblem(signals.received, models.length, config?.models.length);
+  if (signals?.received) problem = interruptedProblem(signals.received, models.length, toCheck?.length ?? config?.models.length);
   const report = checkReport({ configPath, started, timeMs: performance.now() - t0, models, problem });
   if (config) report.configHash = configDigest(config.path);
   if (opts.shard && selected) report.shard = { ...opts.shard, configModels: selected.map((j) => j.name) };

@@ -13,6 +13,7 @@ import { mergeReports, type ShardReport } from '../pipeline/merge-reports.js';
 import type { CheckReport, ProblemReport } from '../pipeline/result-types.js';
 import { formatConsole } from '../report/console-reporter.js';
 import { writeReports, writeStepSummary, type CheckOutcome } from './check.js';
+import { shownPath } from './ci-output.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, runAction } from './run-action.js';
 
 /** A JSON report larger than this is refused (a real one is a few MB at most; our choice). */
@@ -64,10 +65,10 @@ export async function runMerge(files: string[], opts: MergeOptions): Promise<Che
   const report = mergeReports(parts, unreadable);
   const print = opts.print ?? ((t: string) => process.stdout.write(t));
   print(formatConsole(report, { quiet: opts.quiet }));
-  const { written, failures } = writeReports(report, targets, opts.markdownAll);
+  const { written, failures } = writeReports(report, targets, opts.markdownAll, cwd);
   writeStepSummary(report, written, failures, opts, cwd);
   const labels: Record<string, string> = { junit: 'JUnit XML', json: 'JSON report', markdown: 'Markdown summary', html: 'HTML report' };
-  if (!opts.quiet) for (const [kind, p] of Object.entries(written)) print(`${labels[kind]}: ${p}\n`);
+  if (!opts.quiet) for (const [kind, p] of Object.entries(written)) print(`${labels[kind]}: ${shownPath(p, cwd)}\n`);
   const printError = opts.printError ?? ((l: string) => process.stderr.write(l));
   if (report.problem) printError(`modalgate: ${report.problem.message}\n`);
   else if (failures.length > 0) printError(`modalgate: ${failures.map((f) => f.message).join('; ')}\n`);

@@ -9,6 +9,7 @@
  * Each model worker gets `threads` as its MODALGATE_THREADS, which the solver reads in the
  * thread where it runs.
  */
+import { threadCapOf } from '../sparse/helper-thread.js';
 
 /** A model below this many DOFs is solved on one thread: starting and feeding helper threads costs more than they save. */
 export const ONE_THREAD_BELOW_DOFS = 5000;
@@ -28,12 +29,8 @@ export function concurrentJobs(requested: number | 'auto', cores: number, models
   return Math.max(1, Math.min(asked, models));
 }
 
-/** A MODALGATE_THREADS the user set: a whole number ≥ 1, else undefined (unset or not a number: no cap). */
-export function userThreadCap(value: string | undefined): number | undefined {
-  if (value === undefined || !/^\s*\d+\s*$/.test(value)) return undefined;
-  const n = Number(value);
-  return n >= 1 ? n : undefined;
-}
+/** A MODALGATE_THREADS the user set: a whole number ≥ 1, else undefined (unset or not a number: no cap); read as the solver reads it. */
+export const userThreadCap = threadCapOf;
 
 /** Solver threads of each of `jobs` concurrent models on `cores` cores: max(1, floor(cores / jobs)), at most `cap`. */
 export function solverThreads(cores: number, jobs: number, cap?: number): number {

@@ -72,12 +72,16 @@ let fromEnvironment: number | undefined;
 /** N set by setThreadCount. */
 let override: number | undefined;
 
+/** A MODALGATE_THREADS value as a cap: a whole number ≥ 1 (spaces around allowed), else undefined (no cap). */
+export function threadCapOf(raw: string | undefined): number | undefined {
+  const t = raw?.trim() ?? '';
+  return /^[0-9]+$/.test(t) && Number(t) >= 1 ? Number(t) : undefined;
+}
+
 /** min(cores, MODALGATE_THREADS when a positive integer). */
 function environmentThreads(): number {
   const cores = Math.max(1, availableParallelism());
-  const raw = process.env.MODALGATE_THREADS?.trim() ?? '';
-  const cap = /^[1-9][0-9]*$/.test(raw) ? Number(raw) : Infinity;
-  return Math.min(cores, cap);
+  return Math.min(cores, threadCapOf(process.env.MODALGATE_THREADS) ?? Infinity);
 }
 
 /** Threads the parallel kernels may use here (N ≥ 1: this thread and N − 1 helpers). */

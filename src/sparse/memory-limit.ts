@@ -22,12 +22,22 @@ export class MemoryLimitError extends Error {
     readonly limitBytes: number,
     readonly nnzL: number,
   ) {
-    super(`the solve would need about ${formatBytes(predictedBytes)} (a factor with ${nnzL.toExponential(2)} nonzeros, predicted before any numeric work), above the memory limit of ${formatBytes(limitBytes)} (--max-memory)`);
+    super(`the solve would need about ${formatBinaryBytes(predictedBytes)} (a factor with ${nnzL.toExponential(2)} nonzeros, predicted before any numeric work), above the memory limit of ${formatBinaryBytes(limitBytes)} (--max-memory)`);
     this.name = 'MemoryLimitError';
   }
 }
 
-/** "12.3 GB" (decimal units: 1 GB = 10⁹ bytes); the Matrix Market readers' memory messages use it too. */
+/**
+ * "6.0 GiB": binary units, as `--max-memory 6G` is read (src/cli/limits.ts), so the limit a
+ * refusal names is the number the user gave.
+ */
+export function formatBinaryBytes(bytes: number): string {
+  if (bytes >= 1024 ** 3) return `${(bytes / 1024 ** 3).toFixed(1)} GiB`;
+  if (bytes >= 1024 ** 2) return `${(bytes / 1024 ** 2).toFixed(1)} MiB`;
+  return `${Math.round(bytes / 1024)} KiB`;
+}
+
+/** "12.3 GB" (decimal units: 1 GB = 10⁹ bytes): the Matrix Market readers' memory messages. */
 export function formatBytes(bytes: number): string {
   if (bytes >= 1e9) return `${(bytes / 1e9).toFixed(1)} GB`;
   if (bytes >= 1e6) return `${(bytes / 1e6).toFixed(1)} MB`;

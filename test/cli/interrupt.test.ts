@@ -146,7 +146,7 @@ describe('--max-memory', () => {
     expect(r.code, r.stderr).toBe(2);
     const m = JSON.parse(readFileSync(join(work, 'mem/report.json'), 'utf8')).models[0];
     expect(m.problem.kind).toBe('limit');
-    expect(m.problem.message).toMatch(/^the solve would need about [\d.]+ [kMG]?B \(a factor with .* nonzeros, predicted before any numeric work\), above the memory limit of 4\.2 MB \(--max-memory\)$/);
+    expect(m.problem.message).toMatch(/^the solve would need about [\d.]+ [KMG]?i?B \(a factor with .* nonzeros, predicted before any numeric work\), above the memory limit of 4\.0 MiB \(--max-memory\)$/);
     expect(readFileSync(join(work, 'mem/junit.xml'), 'utf8')).toContain('<testcase name="model-limit"');
   }, 120_000);
 
@@ -156,8 +156,8 @@ describe('--max-memory', () => {
     const report = JSON.parse(readFileSync(join(work, 'mem2/report.json'), 'utf8'));
     for (const m of report.models) {
       expect(m.problem.kind).toBe('limit');
-      // 8 MiB / 2 = 4 MiB = 4.2 MB
-      expect(m.problem.message).toMatch(/above the memory limit of 4\.2 MB \(its 1\/2 share of --max-memory, 2 models at once with --jobs\)$/);
+      // 8 MiB / 2 = 4 MiB
+      expect(m.problem.message).toMatch(/above the memory limit of 4\.0 MiB \(its 1\/2 share of --max-memory, 2 models at once with --jobs\)$/);
     }
   }, 120_000);
 
@@ -165,7 +165,7 @@ describe('--max-memory', () => {
     const r = await runCli(['modes', '--stiffness', 'block.stiffness.mtx', '--mass', 'block.mass.mtx', '--count', '5', '--max-memory', '4M'], work);
     expect(r.code).toBe(2);
     expect(r.stderr.trim().split('\n')).toHaveLength(1);
-    expect(r.stderr).toMatch(/^modalgate: block\.stiffness\.mtx: the solve would need about .* above the memory limit of 4\.2 MB \(--max-memory\)\n$/);
+    expect(r.stderr).toMatch(/^modalgate: block\.stiffness\.mtx: the solve would need about .* above the memory limit of 4\.0 MiB \(--max-memory\)\n$/);
   }, 120_000);
 });
 
