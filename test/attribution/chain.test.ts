@@ -29,6 +29,7 @@ describe('attribution on a spring–mass chain (closed forms, Fox & Kapoor 1968)
     expect(changes.changeMap!.changedNodes).toBe(2);
     expect(a.regions).toHaveLength(1);
     expect(a.regions[0].nodeRanges).toEqual([[s, s + 1]]); // nodes s (mass s − 1) and s + 1 (mass s)
+    expect(a.modes).toHaveLength(baseModes.eigenvalues.length);
     for (const m of a.modes) {
       const k = m.baselineMode - 1;
       const phi = (i: number): number => baseModes.shapes[k * base.stiffness.n + i];
@@ -52,6 +53,7 @@ describe('attribution on a spring–mass chain (closed forms, Fox & Kapoor 1968)
     const { changes } = await explainAgainst(base, baseModes, after, denseModes(after.stiffness, after.mass));
     const a = changes.attribution!;
     expect(changes.changeMap!.nodes.map((n) => [n.node, n.change])).toEqual([[j + 1, 'mass']]);
+    expect(a.modes).toHaveLength(baseModes.eigenvalues.length);
     for (const m of a.modes) {
       const k = m.baselineMode - 1;
       const lambda = baseModes.eigenvalues[k];

@@ -64,6 +64,7 @@ describe('every template', () => {
   it.each(servers)('%s: every modalgate command parses with our own CLI option parser, --shard k/n valid for every k', (server) => {
     const text = read(server);
     const n = shardCount(server, text);
+    expect(n).toBeGreaterThanOrEqual(2);
     for (let k = 1; k <= n; k++) {
       const commands = templateCommands(server, text, k, n);
       expect(commands.length).toBeGreaterThanOrEqual(3);
@@ -98,6 +99,8 @@ describe('every template', () => {
 
   it.each(servers)('%s: init -o configs/modalgate.yaml passes --config to every check and to none of the merges', (server) => {
     const commands = templateCommands(server, ciJobFile(server, 'configs/modalgate.yaml'));
+    expect(commands.some((c) => c.argv[0] === 'check')).toBe(true);
+    expect(commands.some((c) => c.argv[0] === 'merge')).toBe(true);
     for (const c of commands) {
       if (c.argv[0] === 'check') expect(optionValue(c.argv, '--config'), c.where).toBe('configs/modalgate.yaml');
       else expect(c.argv).not.toContain('--config');

@@ -9,7 +9,7 @@ import { solveModes } from '../../src/eigen/solve-modes.js';
 
 describe('10-node tetrahedral cantilever', () => {
   it('first bending frequency converges to Euler–Bernoulli (within 0.5 % on the finest mesh)', () => {
-    // Blevins, Formulas for Natural Frequency and Mode Shape (1979), single-span beams, clamped–free (table from memory):
+    // Blevins, Formulas for Natural Frequency and Mode Shape (1979), single-span beams, clamped–free (docs/sources.md §7):
     // f₁ = (λ₁² / 2πL²) √(EI / m), λ₁ = 1.87510407, m = ρA per unit length.
     // Square section h × h, L/h = 20: the solid differs from the slender-beam formula by shear
     // deformation, rotary inertia and the clamp's restraint of lateral contraction, effects of

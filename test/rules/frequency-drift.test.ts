@@ -6,7 +6,7 @@ import { testRule } from './rule-tester.js';
 const within = [pair(1, 1, 10, 10.3), pair(2, 2, 20, 19.5)]; // +3 %, −2.5 %
 const drifted = [pair(1, 1, 10, 10.3), pair(2, 3, 20, 22)]; // +3 %, +10 % (now mode 3)
 
-// default 5 %: the agreement usually asked of significant modes (from memory; rules/README.md)
+// default 5 %: the agreement usually asked of significant modes (docs/sources.md §1b)
 testRule(frequencyDrift, {
   valid: [
     { name: 'changes of +3 % and −2.5 % within 5 %', context: () => comparisonContext({ pairs: within }), messageId: 'pass', measured: { closeTo: 3, digits: 9 }, limit: 5 },

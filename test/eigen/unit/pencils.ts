@@ -2,7 +2,7 @@
  * Small pencils (K, M) and their outside references for the unit tests of src/eigen:
  *
  *  - spring–mass chains with closed-form spectra (standard results of the discrete wave
- *    equation, from memory; e.g. any vibrations text treating the lumped string):
+ *    equation, docs/sources.md §7):
  *      fixed–free, n equal masses m and n springs k (the first to ground):
  *        λ_j = (4k/m) sin²((2j − 1)π / (2(2n + 1))),   j = 1..n
  *      free–free, n equal masses and n − 1 springs:
