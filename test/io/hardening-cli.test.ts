@@ -7,29 +7,14 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { execFile, execFileSync, spawn } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { dirname, join, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { join } from 'node:path';
+import { ensureBuilt, mainJs } from '../cli/built-cli.js';
 
-const here = dirname(fileURLToPath(import.meta.url));
-const repoRoot = resolve(here, '../..');
-const mainJs = join(repoRoot, 'dist/src/cli/main.js');
 const work = mkdtempSync(join(tmpdir(), 'modalgate-hardening-cli-'));
 const BANNER = '%%MatrixMarket matrix coordinate real symmetric\n';
 const hasTime = existsSync('/usr/bin/time');
-
-function distIsStale(): boolean {
-  if (!existsSync(mainJs)) return true;
-  for (const dir of ['src/cli', 'src/io', 'src/model', 'src/sparse', 'src/rules', 'src/report']) {
-    for (const f of readdirSync(join(repoRoot, dir))) {
-      if (!f.endsWith('.ts')) continue;
-      const js = join(repoRoot, 'dist', dir, f.replace(/\.ts$/, '.js'));
-      if (!existsSync(js) || statSync(js).mtimeMs < statSync(join(repoRoot, dir, f)).mtimeMs) return true;
-    }
-  }
-  return false;
-}
 
 function file(name: string, content: string): string {
   const p = join(work, name);
@@ -66,15 +51,7 @@ function oneLine(r: Run): string {
   return lines[0];
 }
 
-beforeAll(() => {
-  if (distIsStale()) {
-    try {
-      execFileSync(process.execPath, [join(repoRoot, 'node_modules/typescript/bin/tsc'), '-p', repoRoot], { stdio: 'pipe' });
-    } catch {
-      // type errors elsewhere still emit JavaScript
-    }
-  }
-}, 240_000);
+beforeAll(() => ensureBuilt(), 240_000);
 
 describe('a 10⁹ × 10⁹ header of 114 bytes', () => {
   const huge = () => file('huge.mtx', `${BANNER}1000000000 1000000000 3\n1 1 1.0\n2 2 1.0\n3 3 1.0\n`);
