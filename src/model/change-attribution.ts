@@ -99,10 +99,15 @@ export function attributeChanges(input: AttributionInput): AttributionFacts {
   const kPhi = symMultiplyBlock(stiffness, phi, nc);
   const mPhi = symMultiplyBlock(mass, phi, nc);
   const blocks: Blocks = { n, phi, kPhi, mPhi };
+  // one k × k eigenproblem per near-repeated group, shared by its members
+  const solvedGroups = new Map<number[], GroupBasis>();
   const combos = pairs.map((p) => {
     const g = groupOf.get(p.baselineMode);
     if (!g) return { columns: [colOf.get(p.baselineMode)!], coefficients: [1], lambdaRef: lambdaOf(p.baselineMode), group: null };
-    return { ...groupVector(g, g.indexOf(p.baselineMode), colOf, blocks, lambdaOf), group: g };
+    let basis = solvedGroups.get(g);
+    if (!basis) solvedGroups.set(g, (basis = groupBasis(g, colOf, blocks, lambdaOf)));
+    const k = g.length, rank = g.indexOf(p.baselineMode);
+    return { columns: g.map((i) => colOf.get(i)!), coefficients: Array.from(basis.vectors.subarray(rank * k, (rank + 1) * k)), lambdaRef: basis.lambdaBar, group: g };
   });
   // per mode and node: total part Σ ψ(K₁ψ − λ_ref M₁ψ), stiffness part Σ ψ(K₁ψ − λ_ref M₀ψ)
   const total = new Float64Array(m * nNodes);
@@ -163,7 +168,13 @@ function combine(v: Combination, block: Float64Array, n: number): Float64Array {
  * is arbitrary; ψ_k = Φ_g q_k is the combination the change picks. ψ_k is given to the group's
  * members in ascending order of g_k, as mode tracking pairs them in frequency order.
  */
-function groupVector(group: number[], rank: number, colOf: Map<number, number>, b: Blocks, lambdaOf: (i: number) => number): Combination {
+interface GroupBasis {
+  /** q_k, column k (ascending g_k), k × k column-major. */
+  vectors: Float64Array;
+  lambdaBar: number;
+}
+
+function groupBasis(group: number[], colOf: Map<number, number>, b: Blocks, lambdaOf: (i: number) => number): GroupBasis {
   const k = group.length, n = b.n;
   const lambdaBar = group.reduce((s, i) => s + lambdaOf(i), 0) / k;
   const g = new Float64Array(k * k);
@@ -176,8 +187,7 @@ function groupVector(group: number[], rank: number, colOf: Map<number, number>, 
       g[a * k + c] = g[c * k + a] = v;
     }
   }
-  const { vectors } = symmetricEigen(g, k);
-  return { columns: group.map((i) => colOf.get(i)!), coefficients: Array.from(vectors.subarray(rank * k, (rank + 1) * k)), lambdaRef: lambdaBar };
+  return { vectors: symmetricEigen(g, k).vectors, lambdaBar };
 }
 
 function modeFacts(

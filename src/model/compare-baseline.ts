@@ -66,8 +66,8 @@ export interface DofMatch {
   reason: string | null;
 }
 
-export function compareWithBaseline(baseline: LoadedBaseline, current: CurrentModel, settings: ComparisonSettings = defaultComparisonSettings()): ComparisonFacts {
-  const match = matchDofs(baseline, current);
+/** `match`: the DOF matching when the caller already made it (it also feeds explainChanges). */
+export function compareWithBaseline(baseline: LoadedBaseline, current: CurrentModel, settings: ComparisonSettings = defaultComparisonSettings(), match: DofMatch = matchDofs(baseline, current)): ComparisonFacts {
   const { modes } = current;
   const fb = baseline.snapshot.frequenciesHz;
   const fc = Array.from(modes.frequenciesHz);

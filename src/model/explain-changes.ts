@@ -9,7 +9,7 @@ import type { DofMap } from '../io/dof-map.js';
 import type { ModesResult } from '../eigen/modes-types.js';
 import type { SymmetricCsc } from '../sparse/csc.js';
 import type { LoadedBaseline } from './baseline-store.js';
-import { matchDofs } from './compare-baseline.js';
+import { matchDofs, type DofMatch } from './compare-baseline.js';
 import type { ComparisonFacts } from './comparison-facts.js';
 import { compareFingerprints, nodeFingerprints } from './change-map.js';
 import { nodeIndexOf } from './node-index.js';
@@ -26,6 +26,8 @@ export interface ExplainInput {
   comparison?: ComparisonFacts;
   /** Name of the model's length unit (`units.length`), shown after region coordinates. */
   lengthUnit?: string;
+  /** The DOF matching the comparison used (matchDofs), when the caller has it. */
+  match?: DofMatch;
 }
 
 export function explainChanges(input: ExplainInput): ExplainedChanges {
@@ -41,7 +43,7 @@ export function explainChanges(input: ExplainInput): ExplainedChanges {
     return out;
   }
   const modes = input.modes!, comparison = input.comparison!;
-  const match = matchDofs(baseline, { modes, dofMap: input.dofMap });
+  const match = input.match ?? matchDofs(baseline, { modes, dofMap: input.dofMap });
   const rowOf = new Int32Array(modes.n).fill(-1);
   // baseline shape row of each compared DOF now
   for (let s = 0; s < match.compared; s++) rowOf[match.currentDofs ? match.currentDofs[s] : s] = match.baselineRows ? match.baselineRows[s] : s;

@@ -24,7 +24,7 @@ import type { DofMap } from '../io/dof-map.js';
 import type { ComparisonFacts } from '../model/comparison-facts.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
 import { baselineJsonFile, loadBaseline, saveBaseline, type SavedBaselineFiles } from '../model/baseline-store.js';
-import { compareWithBaseline, defaultComparisonSettings } from '../model/compare-baseline.js';
+import { compareWithBaseline, defaultComparisonSettings, matchDofs, type DofMatch } from '../model/compare-baseline.js';
 import { explainChanges } from '../model/explain-changes.js';
 import type { ExplainedChanges } from '../model/change-facts.js';
 
@@ -58,8 +58,8 @@ export async function runBaselineComparison(job: ModelJob, input: BaselineInput)
   if (!baseline) {
     return { warning: `no baseline for model "${job.name}" yet (${baselineJsonFile(dir, job.name)} is missing; save one with check --save-baseline)` };
   }
-  const explain = (comparison?: ComparisonFacts): ExplainedChanges | undefined =>
-    input.stiffness ? explainChanges({ baseline, stiffness: input.stiffness, mass: input.mass, dofMap: input.dofMap, modes, comparison, lengthUnit: job.units?.length }) : undefined;
+  const explain = (comparison?: ComparisonFacts, match?: DofMatch): ExplainedChanges | undefined =>
+    input.stiffness ? explainChanges({ baseline, stiffness: input.stiffness, mass: input.mass, dofMap: input.dofMap, modes, comparison, lengthUnit: job.units?.length, match }) : undefined;
   if (!modes) return { changes: explain() };
   const comparison = defaultComparisonSettings({
     weighting: settings.weighting,
@@ -67,8 +67,10 @@ export async function runBaselineComparison(job: ModelJob, input: BaselineInput)
     windowPercent: settings.windowPercent,
     repeatedTolerancePercent: settings.repeatedTolerancePercent,
   });
-  const facts = compareWithBaseline(baseline, { modes, mass: input.mass, dofMap: input.dofMap }, comparison);
-  return { comparison: facts, changes: explain(facts) };
+  const current = { modes, mass: input.mass, dofMap: input.dofMap };
+  const match = matchDofs(baseline, current);
+  const facts = compareWithBaseline(baseline, current, comparison, match);
+  return { comparison: facts, changes: explain(facts, match) };
 }
 
 export interface BaselineSaveResult {
