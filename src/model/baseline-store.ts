@@ -188,7 +188,10 @@ function sha256OfFile(path: string): string {
 export async function saveBaseline(dir: string, input: SaveBaselineInput): Promise<SavedBaselineFiles> {
   const { modes } = input;
   const m = modes.eigenvalues.length;
-  const dofs = selectShapeDofs(input);
+  // M Φ: made at most once, for the DOF selection, the kept-energy share and M₀φ, whichever need it
+  let mPhi: Float64Array | undefined;
+  const massShapes = (): Float64Array => (mPhi ??= symMultiplyBlock(input.mass, modes.shapes.subarray(0, modes.n * m), m));
+  const dofs = selectShapeDofs(input, massShapes);
   const runId = input.runId ?? randomBytes(8).toString('hex');
   const names = dataFileNames(input.model, runId);
   const paths = { json: baselineJsonFile(dir, input.model), shapes: join(dir, names.shapes), dofs: join(dir, names.dofs), massShapes: join(dir, names.massShapes), nodes: join(dir, names.nodes) };
@@ -212,8 +215,7 @@ export async function saveBaseline(dir: string, input: SaveBaselineInput): Promi
       // M₀φ beside every-DOF shapes when the size allows; the fingerprints when K is known
       const keepMassShapes = !dofs && m > 0 && modes.n * m <= MAX_MASS_SHAPE_VALUES;
       if (keepMassShapes) {
-        const massShapes = symMultiplyBlock(input.mass, modes.shapes.subarray(0, modes.n * m), m);
-        await writeDenseArray(paths.massShapes, modes.n, m, massShapes, { gzip: true, comment: `M times the mass-normalized mode shapes of model ${input.model}; modalgate baseline run ${runId}` });
+        await writeDenseArray(paths.massShapes, modes.n, m, massShapes(), { gzip: true, comment: `M times the mass-normalized mode shapes of model ${input.model}; modalgate baseline run ${runId}` });
       }
       const fingerprints = input.stiffness ? nodeFingerprints(input.stiffness, input.mass, input.dofMap) : null;
       if (fingerprints) await writeNodeFingerprints(paths.nodes, fingerprints);
@@ -243,7 +245,7 @@ export async function saveBaseline(dir: string, input: SaveBaselineInput): Promi
           rows,
           cols: m,
           dofs: dofs ? Array.from(dofs, (d) => d + 1) : undefined,
-          energyShareKept: dofs ? keptEnergyShare(modes, input.mass, dofs) : 1,
+          energyShareKept: dofs ? keptEnergyShare(modes, massShapes(), dofs) : 1,
         },
         dofMap: input.dofMap ? { file: names.dofs, sha256: sha256OfFile(paths.dofs) } : null,
         massShapes: keepMassShapes ? { file: names.massShapes, sha256: sha256OfFile(paths.massShapes), rows: modes.n, cols: m } : undefined,
@@ -305,10 +307,9 @@ function safeList(dir: string): string[] {
 }
 
 /** min over modes k of Σ_{i∈S} φ_ki (Mφ_k)_i: the smallest share of a mode's kinetic energy on the subset S. */
-function keptEnergyShare(modes: ModesResult, mass: SymmetricCsc, dofs: Int32Array): number {
+function keptEnergyShare(modes: ModesResult, massShapes: Float64Array, dofs: Int32Array): number {
   const n = modes.n, m = modes.eigenvalues.length;
   if (m === 0) return 1;
-  const massShapes = symMultiplyBlock(mass, modes.shapes.subarray(0, n * m), m);
   let smallest = Infinity;
   // share_k = Σ_{i∈S} φ_ki (Mφ_k)_i / Σ_i φ_ki (Mφ_k)_i
   for (let k = 0, o = 0; k < m; k++, o += n) {
@@ -321,18 +322,18 @@ function keptEnergyShare(modes: ModesResult, mass: SymmetricCsc, dofs: Int32Arra
 }
 
 /** The DOFs to keep (ascending), or null for every DOF. */
-function selectShapeDofs(input: SaveBaselineInput): Int32Array | null {
+function selectShapeDofs(input: SaveBaselineInput, massShapes: () => Float64Array): Int32Array | null {
   const selection = input.selection ?? 'all';
   if (selection === 'all') return null;
-  if (selection === 'auto') return highestEnergyDofs(input.modes, input.mass, input.maxDofs ?? DEFAULT_BASELINE_MAX_DOFS);
+  if (selection === 'auto') return highestEnergyDofs(input.modes, massShapes, input.maxDofs ?? DEFAULT_BASELINE_MAX_DOFS);
   return nodeDofs(selection, input);
 }
 
 /** At most `maxDofs` DOFs with the largest Σ_k φ_ki (Mφ_k)_i, ascending; null when n ≤ maxDofs. */
-function highestEnergyDofs(modes: ModesResult, mass: SymmetricCsc, maxDofs: number): Int32Array | null {
+function highestEnergyDofs(modes: ModesResult, massShapesOf: () => Float64Array, maxDofs: number): Int32Array | null {
   const n = modes.n, m = modes.eigenvalues.length;
   if (n <= maxDofs) return null;
-  const massShapes = symMultiplyBlock(mass, modes.shapes.subarray(0, n * m), m);
+  const massShapes = massShapesOf();
   const energy = new Float64Array(n);
   // energy_i = Σ_k φ_ki (Mφ_k)_i
   for (let k = 0; k < m; k++) {
