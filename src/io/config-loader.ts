@@ -18,8 +18,13 @@ export const FILE_SCHEMAS = ['config.schema.json', 'rule-set.schema.json'] as co
 
 /** A schema of rules/schema/, parsed. */
 export function fileSchema(file: (typeof FILE_SCHEMAS)[number]): object {
-  return JSON.parse(readFileSync(join(packageRoot(), 'rules', 'schema', file), 'utf8')) as object;
+  let schema = schemaFiles.get(file);
+  if (!schema) schemaFiles.set(file, (schema = JSON.parse(readFileSync(join(packageRoot(), 'rules', 'schema', file), 'utf8')) as object));
+  return schema;
 }
+
+/** The schema files read so far (each is read once per process: a rule set is checked once per model that names it). */
+const schemaFiles = new Map<string, object>();
 
 /** The config path: `explicit` if given (must exist), else the first of modalgate.yaml/.yml/.json in `cwd`. */
 export function findConfig(explicit: string | undefined, cwd: string = process.cwd()): string {
