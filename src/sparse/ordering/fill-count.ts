@@ -28,6 +28,7 @@
  */
 import type { AdjacencyGraph } from './adjacency-graph.js';
 import { postorderTree } from '../postorder.js';
+import { columnFlops } from '../symbolic.js';
 
 /** Exact nnz(L), unit diagonal included, of P A Pᵀ with A of the graph's pattern (perm[k] = k-th pivot). */
 export function factorNonzerosOfGraph(graph: AdjacencyGraph, perm: Int32Array): number {
@@ -117,8 +118,7 @@ export function factorCountsOfGraph(graph: AdjacencyGraph, perm: Int32Array): Fa
   for (let j = 0; j < n; j++) {
     if (parent[j] !== -1) delta[parent[j]] += delta[j];
     nnz += delta[j];
-    const r = delta[j] - 1;
-    flops += r + r * (r + 1);
+    flops += columnFlops(delta[j] - 1);
   }
   return { nnzL: nnz, flops };
 }
