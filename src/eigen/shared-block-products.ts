@@ -11,7 +11,7 @@
  */
 import { addTimesSmall, timesSmallInPlace, transposeTimes } from '../dense/block-ops.js';
 import { availableThreads, inSharedMemory, sharedBlock, sharedScratch } from '../sparse/helper-thread.js';
-import { productShares, runShares, shareBounds, type BlockProductJob } from '../sparse/block-product-jobs.js';
+import { addPartials, productShares, runShares, shareBounds, type BlockProductJob } from '../sparse/block-product-jobs.js';
 
 /** Shared staging blocks for the small operands, reused from call to call. */
 const stage = sharedScratch();
@@ -57,11 +57,7 @@ export function basisTransposeTimes(a: Float64Array, b: Float64Array, rows: numb
     transposeTimes(a, bs, rows, p, q, mine, 0, bounds[1]);
   });
   if (!ran) return transposeTimes(a, b, rows, p, q);
-  // partial sums of every share, in share order
-  for (let t = 1; t < shares; t++) {
-    const o = (t - 1) * p * q;
-    for (let i = 0; i < p * q; i++) mine[i] += theirs[o + i];
-  }
+  addPartials(mine, theirs, shares, p * q);
   return mine;
 }
 

@@ -97,12 +97,19 @@ export function splitSymMultiplyBlock(a: SymmetricCsc, x: Float64Array, k: numbe
     symMultiplyColumns(a, xs, k, y, 0, bounds[1]);
   });
   if (!ran) return false;
-  // the helpers' partial products, in helper order
-  for (let t = 1; t < shares; t++) {
-    const o = (t - 1) * n * k;
-    for (let i = 0; i < n * k; i++) y[i] += ys[o + i];
-  }
+  addPartials(y, ys, shares, n * k);
   return true;
+}
+
+/**
+ * out[0, len) += the helpers' partial results (shares 1 … shares − 1, each `len` long in
+ * `partials`), in share order: a fixed order, so the sum does not depend on timing.
+ */
+export function addPartials(out: Float64Array, partials: Float64Array, shares: number, len: number): void {
+  for (let t = 1; t < shares; t++) {
+    const o = (t - 1) * len;
+    for (let i = 0; i < len; i++) out[i] += partials[o + i];
+  }
 }
 
 const DONE: Answer = { kind: 'done' };
