@@ -13,18 +13,8 @@ import { describeSchemaError, pickError } from './config-errors.js';
 import { CONFIG_FILE_NAMES, type RawConfig, type RawRuleSet } from './config-types.js';
 import { schemaValidator } from './schema-validator.js';
 
-/** The JSON Schemas of rules/schema/ that files are checked against. */
-export const FILE_SCHEMAS = ['config.schema.json', 'rule-set.schema.json'] as const;
-
-/** A schema of rules/schema/, parsed. */
-export function fileSchema(file: (typeof FILE_SCHEMAS)[number]): object {
-  let schema = schemaFiles.get(file);
-  if (!schema) schemaFiles.set(file, (schema = JSON.parse(readFileSync(join(packageRoot(), 'rules', 'schema', file), 'utf8')) as object));
-  return schema;
-}
-
-/** The schema files read so far (each is read once per process: a rule set is checked once per model that names it). */
-const schemaFiles = new Map<string, object>();
+export { FILE_SCHEMAS, fileSchema } from './schema-files.js';
+import { FILE_SCHEMAS, fileSchema } from './schema-files.js';
 
 /** The config path: `explicit` if given (must exist), else the first of modalgate.yaml/.yml/.json in `cwd`. */
 export function findConfig(explicit: string | undefined, cwd: string = process.cwd()): string {

@@ -13,6 +13,7 @@ import type { NodeRegion } from '../io/config-types.js';
 import type { ChangedNode } from '../model/change-facts.js';
 import { centroid, nodeRanges, regionLabel } from '../model/node-regions.js';
 import { regionPointTest } from '../model/constraints.js';
+import { configSchemaDefinition } from '../io/schema-files.js';
 import { ruleMessages } from './utils/outcome.js';
 import { formatList } from './utils/message.js';
 
@@ -41,23 +42,8 @@ const messages = {
 };
 const { outcome, text } = ruleMessages(messages);
 
-const xyz = { type: 'array', items: { type: 'number' }, minItems: 3, maxItems: 3 };
-const regionSchema = {
-  type: 'object',
-  properties: {
-    plane: { type: 'object', properties: { axis: { enum: ['x', 'y', 'z'] }, at: { type: 'number' } }, required: ['axis', 'at'], additionalProperties: false },
-    box: { type: 'object', properties: { min: xyz, max: xyz }, required: ['min', 'max'], additionalProperties: false },
-    cylinder: {
-      type: 'object',
-      properties: { axis: { enum: ['x', 'y', 'z'] }, through: xyz, radius: { type: 'number', exclusiveMinimum: 0 }, from: { type: 'number' }, to: { type: 'number' } },
-      required: ['axis', 'through', 'radius'],
-      additionalProperties: false,
-    },
-    tolerance: { type: 'number', exclusiveMinimum: 0 },
-  },
-  oneOf: [{ required: ['plane'] }, { required: ['box'] }, { required: ['cylinder'] }],
-  additionalProperties: false,
-};
+/** The place selectors of constraint sets (config.schema.json `$defs.nodeRegion`), one definition for both. */
+const regionSchema = configSchemaDefinition('nodeRegion');
 
 export const changeOutsideRegion: RuleDefinition<ChangeOutsideRegionOptions, 'allowed'> = {
   id: 'change-outside-region',
