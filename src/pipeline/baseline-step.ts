@@ -33,7 +33,7 @@ export interface BaselineInput {
   modes?: ModesResult;
   mass: SymmetricCsc;
   /** The stiffness the modes were solved with (the change map and the attribution read it). */
-  stiffness?: SymmetricCsc;
+  stiffness: SymmetricCsc;
   dofMap?: DofMap;
   geometry?: GeometryFacts;
 }
@@ -50,7 +50,7 @@ export async function runBaselineComparison(job: ModelJob, input: BaselineInput)
   const settings = job.baseline;
   const modes = input.modes;
   const dir = settings?.compareDir;
-  if (!settings || dir === undefined || (!modes && !input.stiffness)) return {};
+  if (!settings || dir === undefined) return {};
   if (!existsSync(dir) || !statSync(dir).isDirectory()) {
     return { warning: `baseline directory ${dir} not found: the baseline rules are skipped (a new project has none until a run with check --save-baseline)` };
   }
@@ -58,8 +58,8 @@ export async function runBaselineComparison(job: ModelJob, input: BaselineInput)
   if (!baseline) {
     return { warning: `no baseline for model "${job.name}" yet (${baselineJsonFile(dir, job.name)} is missing; save one with check --save-baseline)` };
   }
-  const explain = (comparison?: ComparisonFacts, match?: DofMatch): ExplainedChanges | undefined =>
-    input.stiffness ? explainChanges({ baseline, stiffness: input.stiffness, mass: input.mass, dofMap: input.dofMap, modes, comparison, lengthUnit: job.units?.length, match }) : undefined;
+  const explain = (comparison?: ComparisonFacts, match?: DofMatch): ExplainedChanges =>
+    explainChanges({ baseline, stiffness: input.stiffness, mass: input.mass, dofMap: input.dofMap, modes, comparison, lengthUnit: job.units?.length, match });
   if (!modes) return { changes: explain() };
   const comparison = defaultComparisonSettings({
     weighting: settings.weighting,

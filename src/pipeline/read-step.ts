@@ -31,7 +31,7 @@ export async function readModelInput(job: ModelJob): Promise<ModelInput> {
   return input;
 }
 
-/** Sizes and files of the model as read (solvedDofs is set again after the constraint sets). */
+/** Sizes and files of the model as read; solvedDofs is the same until constraint sets remove DOFs (analyze-model sets it after them). */
 export function modelStats(job: ModelJob, input: ModelInput): ModelStats {
   return {
     dofs: input.stiffness.n,

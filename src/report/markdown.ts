@@ -11,8 +11,8 @@
  * fence is longer than any backtick run inside.
  */
 import type { RuleResult } from '../rules/engine.js';
-import { formatNumber } from '../rules/utils/message.js';
-import { flaggedModes as flaggedModesOf } from '../pipeline/rule-details.js';
+import { flaggedModes as flaggedModesOf, type FlaggingRule } from '../pipeline/rule-details.js';
+import { signedText } from './change-text.js';
 import type { ComparisonFacts, ModePair } from '../model/comparison-facts.js';
 import type { CheckReport, ModelReport } from '../pipeline/result-types.js';
 import { changesMarkdown } from './markdown-changes.js';
@@ -23,7 +23,7 @@ export interface MarkdownOptions {
 }
 
 /** Status word of each regression rule when it flags a mode. */
-const FLAG_LABEL: Record<string, string> = {
+const FLAG_LABEL: Record<FlaggingRule, string> = {
   'frequency-drift': 'drift',
   'mode-shape-match': 'shape changed',
   'mode-swap': 'swapped',
@@ -118,7 +118,7 @@ function largestChange(rows: Row[]): Row[] {
 function flaggedModes(rules: RuleResult[]): { baseline: Map<number, string[]>; current: Map<number, string[]> } {
   const baseline = new Map<number, string[]>(), current = new Map<number, string[]>();
   for (const r of rules) {
-    const label = FLAG_LABEL[r.ruleId];
+    const label = (FLAG_LABEL as Record<string, string | undefined>)[r.ruleId];
     if (!label || r.status !== 'fail') continue;
     for (const f of flaggedModesOf(r)) {
       if (f.baselineMode !== undefined) baseline.set(f.baselineMode, [...(baseline.get(f.baselineMode) ?? []), label]);
@@ -133,8 +133,7 @@ function hz(x: number | null): string {
 }
 
 function percent(x: number | null): string {
-  if (x === null) return '—';
-  return `${x > 0 ? '+' : ''}${formatNumber(x)}`;
+  return x === null ? '—' : signedText(x);
 }
 
 /** One line of plain text, safe inside a heading, table cell or list item. */
