@@ -5,10 +5,9 @@
  * stiffness and mass. Formatting only: every number is in the report's `changes`
  * (src/model/change-facts.ts); the chart only scales shares to pixels.
  */
-import { formatNumber } from '../rules/utils/message.js';
 import type { AttributionFacts, ExplainedChanges, ModeAttribution, ShareOfChange } from '../model/change-facts.js';
 import { barChart, escapeText as esc, linearScale } from './svg-plots.js';
-import { percentText, signedText } from './change-text.js';
+import { modeChangeText, percentText } from './change-text.js';
 
 /** Regions drawn per mode and modes drawn (the JSON report has all; our choice). */
 const REGIONS_SHOWN = 8;
@@ -50,8 +49,7 @@ function modeFigure(m: ModeAttribution, a: AttributionFacts): string {
   const values = [0, ...bars.map((b) => b.value)];
   const svg = barChart({ title: `Mode ${m.baselineMode}: share of the first-order change per region`, yLabel: 'share (%)', xLabel: 'region (rest: unchanged nodes)', bars, y: linearScale(Math.min(...values), Math.max(...values)) });
   const rows = [...shown.map((r) => tableRow(`R${r.region + 1}`, a.regions[r.region].label, r, a.split)), tableRow('rest', 'unchanged nodes (round-off, the baseline\'s residual)', m.elsewhere, a.split)];
-  const moved = m.currentMode === m.baselineMode ? '' : ` (now mode ${m.currentMode})`;
-  const caption = `Mode ${m.baselineMode}${moved}: measured ${signedText(m.measuredPercent)} %, first order ${signedText(m.estimatedPercent)} % (${m.disagreement === null ? 'no measured change' : `the two δλ differ by ${formatNumber(100 * m.disagreement)} %`})${m.group ? `; estimated with its near-repeated group (baseline modes ${m.group.join(', ')})` : ''}. Red: the region with the largest share.`;
+  const caption = `${modeChangeText(m)} Red: the region with the largest share.`;
   const split = a.split ? '<th>stiffness %</th><th>mass %</th>' : '';
   const nodes = m.topNodes.slice(0, TOP_NODES_SHOWN).map((t) => `node ${t.node} ${percentText(t.share)} %${a.split ? ` (stiffness ${percentText(t.stiffnessShare)}, mass ${percentText(t.massShare)})` : ''}`);
   const top = nodes.length > 0 ? `<p class="top-nodes">Largest node shares: ${esc(nodes.join('; '))}.</p>` : '';

@@ -4,10 +4,9 @@
  * by share, each split into stiffness and mass when the baseline stored M₀φ). Formatting only:
  * every number is in the report's `changes` (src/model/change-facts.ts).
  */
-import { formatNumber } from '../rules/utils/message.js';
 import type { ExplainedChanges, ModeAttribution, ShareOfChange } from '../model/change-facts.js';
 import { inline } from './markdown.js';
-import { percentText, signedText } from './change-text.js';
+import { modeChangeText, percentText } from './change-text.js';
 
 /** Regions listed per mode and modes given a table (the JSON report has all; our choice). */
 const REGIONS_SHOWN = 5;
@@ -43,8 +42,7 @@ export function changesMarkdown(changes: ExplainedChanges | undefined): string[]
 }
 
 function modeTable(m: ModeAttribution, labels: string[], split: boolean): string[] {
-  const moved = m.currentMode === m.baselineMode ? '' : ` (now mode ${m.currentMode})`;
-  const head = `Mode ${m.baselineMode}${moved}: measured ${signedText(m.measuredPercent)} %, first order ${signedText(m.estimatedPercent)} % (${m.disagreement === null ? 'no measured change' : `estimates differ by ${formatNumber(100 * m.disagreement)} % of δλ`})${m.group ? `; estimated with its near-repeated group (baseline modes ${m.group.join(', ')})` : ''}.`;
+  const head = modeChangeText(m);
   const rows = m.regions.slice(0, REGIONS_SHOWN).map((r) => row(`R${r.region + 1} ${inline(labels[r.region])}`, r, split));
   rows.push(row('unchanged nodes (round-off, the baseline\'s residual)', m.elsewhere, split));
   const more = m.regions.length > REGIONS_SHOWN ? [`${m.regions.length - REGIONS_SHOWN} smaller regions in the JSON report.`, ''] : [];
