@@ -131,7 +131,7 @@ function localize(psi: Float64Array, m: number, free: FreeRigidMotions, d: Float
   // fit on all DOFs, then only on nodes moving less than 1e-1, 1e-2, 1e-4, 1e-6 of the largest (energy)
   for (const ratio of [1e-1, 1e-2, 1e-4, 1e-6, 0]) {
     out = Float64Array.from(psi);
-    for (let j = 0; j < m; j++) subtractFit(out, j, v, f, weight, n);
+    subtractFits(out, m, v, f, weight, n);
     if (ratio === 0) break;
     const e = nodeEnergy(out, m, d, nodeOfRow, count);
     const cut = ratio * Math.max(...e);
@@ -141,27 +141,31 @@ function localize(psi: Float64Array, m: number, free: FreeRigidMotions, d: Float
   return out;
 }
 
-/** x_j −= V a with (Vᵀ D V) a = Vᵀ D x_j (pseudo-inverse). */
-function subtractFit(x: Float64Array, j: number, v: Float64Array, f: number, weight: Float64Array, n: number): void {
+/** x_j −= V a_j with (Vᵀ D V) a_j = Vᵀ D x_j (pseudo-inverse) for every column j < m; Vᵀ D V is formed and decomposed once. */
+function subtractFits(x: Float64Array, m: number, v: Float64Array, f: number, weight: Float64Array, n: number): void {
   const a = new Float64Array(f * f);
-  const b = new Float64Array(f);
   for (let p = 0; p < f; p++) {
     for (let q = 0; q <= p; q++) {
       let s = 0;
       for (let i = 0; i < n; i++) s += v[p * n + i] * weight[i] * v[q * n + i];
       a[q * f + p] = a[p * f + q] = s;
     }
-    let s = 0;
-    for (let i = 0; i < n; i++) s += v[p * n + i] * weight[i] * x[j * n + i];
-    b[p] = s;
   }
-  const coef = pseudoSolve(a, b, f);
-  for (let p = 0; p < f; p++) if (coef[p] !== 0) for (let i = 0; i < n; i++) x[j * n + i] -= coef[p] * v[p * n + i];
+  const eig = symmetricEigen(Float64Array.from(a), f);
+  for (let j = 0; j < m; j++) {
+    const b = new Float64Array(f);
+    for (let p = 0; p < f; p++) {
+      let s = 0;
+      for (let i = 0; i < n; i++) s += v[p * n + i] * weight[i] * x[j * n + i];
+      b[p] = s;
+    }
+    const coef = pseudoSolve(eig, b, f);
+    for (let p = 0; p < f; p++) if (coef[p] !== 0) for (let i = 0; i < n; i++) x[j * n + i] -= coef[p] * v[p * n + i];
+  }
 }
 
-/** x = A⁺ b for symmetric A (eigenvalues under 1e-10 of the largest dropped). */
-function pseudoSolve(a: Float64Array, b: Float64Array, f: number): Float64Array {
-  const eig = symmetricEigen(Float64Array.from(a), f);
+/** x = A⁺ b for symmetric A given by its eigenpairs (eigenvalues under 1e-10 of the largest dropped). */
+function pseudoSolve(eig: { values: Float64Array; vectors: Float64Array }, b: Float64Array, f: number): Float64Array {
   const cut = 1e-10 * Math.max(0, ...eig.values);
   const x = new Float64Array(f);
   for (let e = 0; e < f; e++) {
@@ -289,7 +293,7 @@ function rigidFit(
       const r = rowOf(i);
       for (let q = 0; q < 6; q++) b[q] += r[q] * basis[c * n + i];
     }
-    const x = pseudoSolve(a, b, 6);
+    const x = pseudoSolve(symmetricEigen(Float64Array.from(a), 6), b, 6);
     motions.set(x, c * 6);
     let norm = 0;
     let residual = 0;
