@@ -154,6 +154,7 @@ describe('--max-memory', () => {
     const r = await runCli(['check', '-c', 'two.yaml', '--max-memory', '8M', '--jobs', '2', '--json', 'mem2/report.json'], work);
     expect(r.code, r.stderr).toBe(2);
     const report = JSON.parse(readFileSync(join(work, 'mem2/report.json'), 'utf8'));
+    expect(report.models).toHaveLength(2);
     for (const m of report.models) {
       expect(m.problem.kind).toBe('limit');
       // 8 MiB / 2 = 4 MiB

@@ -118,6 +118,7 @@ describe('the README example config on the bundled mast, count 20 (ends inside a
     expect(r.code, r.stdout + r.stderr).toBe(0);
     expect(r.stdout).not.toMatch(/modes-complete\s+FAIL/);
     const doc = JSON.parse(readFileSync(join(work, 'check.json'), 'utf8'));
+    expect(doc.models).toHaveLength(only.length / 2);
     for (const m of doc.models) {
       const rule = m.rules.find((x: { ruleId: string }) => x.ruleId === 'modes-complete');
       expect(rule.status).toBe('pass');

@@ -22,7 +22,7 @@ import { writeDofMap } from '../../src/io/dof-map-writer.js';
 import { runCheck } from '../../src/cli/check.js';
 
 /** Row-sum lumping: m_ii = Σ_j M_ij over translational j of i's direction; rotations get 0. */
-export function lumpTranslations(mass: SymmetricCsc, component: Uint8Array): SymmetricCsc {
+function lumpTranslations(mass: SymmetricCsc, component: Uint8Array): SymmetricCsc {
   const sums = new Float64Array(mass.n);
   // every stored entry (i, j), i ≥ j, counts in row i and, off the diagonal, in row j
   for (let j = 0; j < mass.n; j++) {
