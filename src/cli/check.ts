@@ -12,22 +12,19 @@ import { findConfig, checkWritableTarget, readStructuredFile } from '../io/confi
 import { loadConfig, selectModels } from '../pipeline/load-config.js';
 import type { LoadedConfig, ModelJob } from '../pipeline/job-types.js';
 import { InputError } from '../io/errors.js';
-import { removeTempFiles, writeFileAtomic } from '../io/atomic-write.js';
+import { removeTempFiles } from '../io/atomic-write.js';
 import { problemOf, stackOf } from '../pipeline/problem.js';
 import type { PhaseTimes } from '../pipeline/analyze-model.js';
 import { checkReport } from '../pipeline/check-report.js';
 import { clearStoppedSave } from '../model/baseline-store.js';
 import type { CheckReport, ModelReport, ProblemReport } from '../pipeline/result-types.js';
-import { formatJunit } from '../report/junit-reporter.js';
-import { formatJson } from '../report/json-reporter.js';
 import { formatConsole } from '../report/console-reporter.js';
-import { formatMarkdown } from '../report/markdown.js';
-import { formatHtml } from '../report/html-reporter.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, debugging, printDebugStack, runAction } from './run-action.js';
 import { runModels, type ModelBatch } from '../pipeline/run-models.js';
 import { concurrentJobs, parseJobs } from '../pipeline/job-threads.js';
 import { configDigest, parseShardSpec, shardJobs, type ShardSpec } from '../pipeline/shard.js';
-import { appendStepSummary, phaseLine, shownPath, withShownPaths } from './ci-output.js';
+import { phaseLine, shownPath, withShownPaths } from './ci-output.js';
+import { writeReports, writeStepSummary } from './write-reports.js';
 import { DEFAULT_MEMORY_SHARE, defaultMemoryLimitBytes, parseMemorySize, parseSeconds } from './limits.js';
 
 /** Exit codes after SIGINT and SIGTERM (128 + the signal's number, the shells' convention). */
@@ -256,72 +253,6 @@ function bestEffortReportPath(configPath: string | undefined, kind: 'junit' | 'j
   } catch {
     return undefined;
   }
-}
-
-/**
- * Writes every report it can. A report that cannot be written (a full disk, a read-only folder)
- * is named with its cause; the others still stand, and the run exits 2.
- */
-export function writeReports(report: CheckReport, targets: CheckOutcome['written'], markdownAll = false, cwd = process.cwd()): { written: CheckOutcome['written']; failures: ProblemReport[] } {
-  const written: CheckOutcome['written'] = {};
-  const failures: ProblemReport[] = [];
-  // JSON keeps absolute paths; the texts people read show them relative to the working directory
-  const shown = withShownPaths(report, cwd);
-  const formats: Record<keyof CheckOutcome['written'], () => string> = {
-    junit: () => formatJunit(shown),
-    json: () => formatJson(report),
-    markdown: () => formatMarkdown(shown, { allModes: markdownAll }),
-    html: () => formatHtml(shown),
-  };
-  for (const kind of ['junit', 'json', 'markdown', 'html'] as const) {
-    const path = targets[kind];
-    if (!path) continue;
-    try {
-      writeFileAtomic(path, formats[kind]());
-      written[kind] = path;
-    } catch (e) {
-      failures.push({ kind: 'write', file: path, message: writeFailureMessage(path, e) });
-    }
-  }
-  return { written, failures };
-}
-
-/** "cannot write /x/junit.xml: ENOSPC (no space left on device)" */
-/**
- * Appends the Markdown summary to GITHUB_STEP_SUMMARY's file when one is given (check and merge),
- * naming the fullest report written; a failure joins the write failures.
- */
-export function writeStepSummary(
-  report: CheckReport,
-  written: Partial<Record<'junit' | 'json' | 'markdown' | 'html', string>>,
-  failures: ProblemReport[],
-  opts: { stepSummary?: string; markdownAll?: boolean },
-  cwd: string,
-): void {
-  if (!opts.stepSummary) return;
-  try {
-    const full = written.markdown ?? written.html ?? written.json ?? written.junit;
-    appendStepSummary(opts.stepSummary, formatMarkdown(withShownPaths(report, cwd), { allModes: opts.markdownAll }), full ? shownPath(full, cwd) : undefined);
-  } catch (e) {
-    failures.push({ kind: 'write', file: opts.stepSummary, message: writeFailureMessage(`${opts.stepSummary} (GITHUB_STEP_SUMMARY)`, e) });
-  }
-}
-
-export function writeFailureMessage(path: string, e: unknown): string {
-  const code = (e as NodeJS.ErrnoException).code;
-  const causes: Record<string, string> = {
-    ENOSPC: 'no space left on device',
-    EROFS: 'read-only file system',
-    EACCES: 'permission denied',
-    EPERM: 'operation not permitted',
-    EDQUOT: 'disk quota exceeded',
-    ENOENT: 'a folder on the path does not exist',
-    ENOTDIR: 'a part of the path is a file, not a folder',
-    EISDIR: 'the path is a folder',
-    EIO: 'input/output error',
-  };
-  const cause = code ? `${code} (${causes[code] ?? (e as Error).message})` : (e as Error).message;
-  return `cannot write ${path}: ${cause}`;
 }
 
 /**

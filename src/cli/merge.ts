@@ -12,8 +12,9 @@ import { checkWritableTarget } from '../io/config-loader.js';
 import { mergeReports, type ShardReport } from '../pipeline/merge-reports.js';
 import type { CheckReport, ProblemReport } from '../pipeline/result-types.js';
 import { formatConsole } from '../report/console-reporter.js';
-import { writeReports, writeStepSummary, type CheckOutcome } from './check.js';
-import { shownPath } from './ci-output.js';
+import type { CheckOutcome } from './check.js';
+import { writeReports, writeStepSummary } from './write-reports.js';
+import { shownPath, withShownPaths } from './ci-output.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, runAction } from './run-action.js';
 
 /** A JSON report larger than this is refused (a real one is a few MB at most; our choice). */
@@ -64,7 +65,7 @@ export async function runMerge(files: string[], opts: MergeOptions): Promise<Che
   }
   const report = mergeReports(parts, unreadable);
   const print = opts.print ?? ((t: string) => process.stdout.write(t));
-  print(formatConsole(report, { quiet: opts.quiet }));
+  print(formatConsole(withShownPaths(report, cwd), { quiet: opts.quiet }));
   const { written, failures } = writeReports(report, targets, opts.markdownAll, cwd);
   writeStepSummary(report, written, failures, opts, cwd);
   const labels: Record<string, string> = { junit: 'JUnit XML', json: 'JSON report', markdown: 'Markdown summary', html: 'HTML report' };
