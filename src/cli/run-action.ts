@@ -27,7 +27,7 @@ export function runAction<A extends unknown[]>(
     try {
       code = await action(...args);
     } catch (e) {
-      if (debugging() && e instanceof Error) process.stderr.write(`${e.stack}\n`);
+      if (e instanceof Error && e.stack) printDebugStack(e.stack);
       process.stderr.write(`modalgate: ${oneLineMessage(e)}\n`);
       code = EXIT_BAD_INPUT;
     }

@@ -107,8 +107,13 @@ export function checkWritableTarget(p: string, file: string, where?: string): vo
 }
 
 /** A built-in name (rules/<name>.yaml) or a path relative to the config. */
+/** A rule-set name that is a file path (a folder separator or a YAML/JSON extension), not a built-in name. */
+export function namesRuleSetFile(name: string): boolean {
+  return /[\\/]/.test(name) || /\.(ya?ml|json)$/.test(name);
+}
+
 export function resolveRuleSetPath(name: string, dir: string): string | null {
-  if (/[\\/]/.test(name) || /\.(ya?ml|json)$/.test(name)) {
+  if (namesRuleSetFile(name)) {
     const p = resolve(dir, name);
     return existsSync(p) ? p : null;
   }

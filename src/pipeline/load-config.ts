@@ -10,7 +10,7 @@ import { dirname, isAbsolute, resolve } from 'node:path';
 import { InputError } from '../io/errors.js';
 import { schemaValidator } from '../io/schema-validator.js';
 import { describeSchemaError, pickError } from '../io/config-errors.js';
-import { builtInRuleSetNames, checkWritableTarget, readConfigFile, readRuleSetFile, resolveRuleSetPath } from '../io/config-loader.js';
+import { builtInRuleSetNames, checkWritableTarget, namesRuleSetFile, readConfigFile, readRuleSetFile, resolveRuleSetPath } from '../io/config-loader.js';
 import type { RawConfig, RawModelConfig, RawRuleEntry } from '../io/config-types.js';
 import { builtInRules, findRule, ruleIds, type AnyRule } from '../rules/registry.js';
 import type { ResolvedRule } from '../rules/engine.js';
@@ -160,7 +160,7 @@ interface RuleLayer {
 function loadRuleSetLayers(name: string, dir: string, file: string, where: string): RuleLayer[] {
   const p = resolveRuleSetPath(name, dir);
   if (p === null) {
-    const builtIn = /[\\/]/.test(name) || /\.(ya?ml|json)$/.test(name) ? `file not found: ${resolve(dir, name)}` : `unknown rule set "${name}" (built-in rule sets: ${builtInRuleSetNames().join(', ')}; or give a path to your own file)`;
+    const builtIn = namesRuleSetFile(name) ? `file not found: ${resolve(dir, name)}` : `unknown rule set "${name}" (built-in rule sets: ${builtInRuleSetNames().join(', ')}; or give a path to your own file)`;
     throw new InputError(file, builtIn, { where });
   }
   try {
