@@ -12,13 +12,13 @@ import { runAction } from './run-action.js';
 import { packageRoot, packageVersion } from '../io/package-root.js';
 
 /** The folder the reports go to (CI templates, starter config and the .gitignore entry agree). */
-export const REPORT_DIR = 'modalgate-report';
+const REPORT_DIR = 'modalgate-report';
 
 /** Node version the generated package.json asks for and the templates run (20 is past its end of life). */
 const NODE_RANGE = '>=22';
 
 /** The starter config; `schemaPath` is the editor schema's path relative to the config's folder. */
-export function starterConfig(schemaPath: string): string {
+function starterConfig(schemaPath: string): string {
   return `# yaml-language-server: $schema=${schemaPath}
 # modalgate config — checked by \`npx modalgate check\`. Paths are relative to this file.
 # Editors complete keys from the schema:
@@ -88,13 +88,13 @@ function posix(p: string): string {
 }
 
 /** The `$schema` path from the config's folder to the schema installed under `<repo>/node_modules`. */
-export function schemaPathFrom(configDir: string, repoDir: string, packageName: string): string {
+function schemaPathFrom(configDir: string, repoDir: string, packageName: string): string {
   const rel = posix(relative(configDir, join(repoDir, 'node_modules', packageName, 'rules', 'schema', 'config.schema.json')));
   return rel.startsWith('.') ? rel : `./${rel}`;
 }
 
 /** The minimal package.json of a model repository: private, pins modalgate, names the Node version. */
-export function repositoryPackageJson(name: string, version: string): string {
+function repositoryPackageJson(name: string, version: string): string {
   const pkg = {
     private: true,
     description: `Pins ${name} for the modal gate of this repository's FE models (written by \`${name} init --ci\`).`,
@@ -115,7 +115,7 @@ export function ciJobFile(server: CiServer, configArg: string | undefined, root 
  * `.gitignore` text with `entries` (folders, `name/`) added once each — an existing line `name`,
  * `name/`, `/name` or `/name/` counts — or undefined when every one is already listed.
  */
-export function withIgnored(existing: string | undefined, entries: string[]): string | undefined {
+function withIgnored(existing: string | undefined, entries: string[]): string | undefined {
   const listed = new Set((existing ?? '').split(/\r?\n/).map((l) => l.trim().replace(/^\//, '').replace(/\/$/, '')));
   const missing = entries.filter((e) => !listed.has(e.replace(/\/$/, '')));
   if (missing.length === 0) return undefined;
@@ -128,7 +128,7 @@ export function withIgnored(existing: string | undefined, entries: string[]): st
  * `repoDir`, append the report folder to .gitignore; returns what to print. Every file is checked
  * before any is written, so a refusal leaves the folder as it was.
  */
-export function initRepository(repoDir: string, opts: InitOptions): string {
+function initRepository(repoDir: string, opts: InitOptions): string {
   const pkg = { root: packageRoot(), name: 'modalgate', version: packageVersion() };
   const configPath = resolve(repoDir, opts.output);
   const files: { path: string; text: string }[] = [
