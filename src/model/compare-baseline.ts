@@ -33,6 +33,7 @@ import { principalSubmatrix } from '../sparse/permute.js';
 import { macFromProducts, principalAngleCosines, restrictRows, shapeProducts, subspaceShare, type ShapeProducts } from './mac.js';
 import { crossingPairs, DEFAULT_MIN_PAIR_CORRELATION, pairModes, type ModePairing } from './mode-pairing.js';
 import type { ComparisonFacts, ComparisonSettings, DofMatching, GroupMatch, ModePair, ModeSwap, UnpairedMode } from './comparison-facts.js';
+import { disjointSets } from './disjoint-sets.js';
 
 const DEFAULT_REPEATED_TOLERANCE_PERCENT = 0.1;
 
@@ -370,14 +371,7 @@ interface LinkedGroup {
  */
 function linkedGroups(pairing: ModePairing, gb: Int32Array, gc: Int32Array): LinkedGroup[] {
   const mb = gb.length, mc = gc.length;
-  const parent = Int32Array.from({ length: mb + mc }, (_v, k) => k);
-  const find = (x: number): number => {
-    while (parent[x] !== x) x = parent[x] = parent[parent[x]];
-    return x;
-  };
-  const join = (a: number, b: number): void => {
-    parent[find(a)] = find(b);
-  };
+  const { find, join } = disjointSets(mb + mc);
   // modes of one group; pairs across the sides
   for (let i = 1; i < mb; i++) if (gb[i] === gb[i - 1]) join(i, i - 1);
   for (let j = 1; j < mc; j++) if (gc[j] === gc[j - 1]) join(mb + j, mb + j - 1);

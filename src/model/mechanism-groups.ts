@@ -24,6 +24,7 @@ import { symmetricEigen } from '../dense/symmetric-eigen.js';
 import { energyShares, type DofLabels, type NodeShare } from './energy-shares.js';
 import { classifyRigidMotions, nodePoints, type RigidMotionKind } from './rigid-motion-kind.js';
 import type { Point3 } from './rigid-body-vectors.js';
+import { disjointSets } from './disjoint-sets.js';
 
 export interface MechanismGroup {
   /** Independent near-zero motions that live in this part. */
@@ -179,11 +180,7 @@ function pseudoSolve(eig: { values: Float64Array; vectors: Float64Array }, b: Fl
 
 /** Union-find of moving nodes over K's pattern, and each region's still neighbours. */
 function movingRegions(k: SymmetricCsc, nodeOfRow: Int32Array, count: number, moving: Uint8Array | number[] | Float64Array): { root: (a: number) => number; border: Map<number, Set<number>> } {
-  const parent = Int32Array.from({ length: count }, (_, a) => a);
-  const root = (a: number): number => {
-    while (parent[a] !== a) a = parent[a] = parent[parent[a]];
-    return a;
-  };
+  const { find: root, join } = disjointSets(count);
   const edges: [number, number][] = [];
   // K_ij ≠ 0 joins the nodes of rows i and j
   for (let j = 0; j < k.n; j++) {
@@ -192,7 +189,7 @@ function movingRegions(k: SymmetricCsc, nodeOfRow: Int32Array, count: number, mo
       const a = nodeOfRow[k.rowIdx[p]];
       const b = nodeOfRow[j];
       if (a === b) continue;
-      if (moving[a] && moving[b]) parent[root(a)] = root(b);
+      if (moving[a] && moving[b]) join(a, b);
       else if (moving[a] || moving[b]) edges.push(moving[a] ? [a, b] : [b, a]);
     }
   }

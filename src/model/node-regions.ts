@@ -7,6 +7,7 @@ import type { DofMap } from '../io/dof-map.js';
 import type { SymmetricCsc } from '../sparse/csc.js';
 import type { NodeIndex } from './node-index.js';
 import type { NodeRanges } from './change-facts.js';
+import { disjointSets } from './disjoint-sets.js';
 
 /** Coordinates of each node (first DOF of the node in the map), or null without a map. */
 export function nodeCoordinates(ids: Int32Array, map: DofMap | null | undefined): [number, number, number][] | null {
@@ -19,11 +20,7 @@ export function nodeCoordinates(ids: Int32Array, map: DofMap | null | undefined)
 /** Region number (0-based) of each flagged node, −1 for the others; numbered by descending size, then lowest node. */
 export function connectedRegions(flagged: Int8Array, index: NodeIndex, matrices: SymmetricCsc[]): Int32Array {
   const nNodes = flagged.length;
-  const parent = Int32Array.from({ length: nNodes }, (_v, k) => k);
-  const find = (x: number): number => {
-    while (parent[x] !== x) x = parent[x] = parent[parent[x]];
-    return x;
-  };
+  const { find, join } = disjointSets(nNodes);
   // link two flagged nodes that share an entry of K or M
   for (const a of matrices) {
     for (let j = 0; j < a.n; j++) {
@@ -31,7 +28,7 @@ export function connectedRegions(flagged: Int8Array, index: NodeIndex, matrices:
       if (!flagged[nj]) continue;
       for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) {
         const ni = index.nodeOf[a.rowIdx[p]];
-        if (ni !== nj && flagged[ni]) parent[find(ni)] = find(nj);
+        if (ni !== nj && flagged[ni]) join(ni, nj);
       }
     }
   }
