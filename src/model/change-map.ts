@@ -40,6 +40,7 @@ import type { SymmetricCsc } from '../sparse/csc.js';
 import { nodeIndexOf, type NodeIndex } from './node-index.js';
 import { centroid, connectedRegions, nodeCoordinates, nodeRanges, regionLabel } from './node-regions.js';
 import type { ChangeMapFacts, ChangeRegion, ChangedNode } from './change-facts.js';
+import { matchUniqueKeys } from './unique-key-match.js';
 
 /** Entries below this share of the matrix's largest |entry| count as zero (our choice). */
 const ZERO_SHARE = 1e-13;
@@ -240,30 +241,10 @@ function matchNodes(baseline: ChangeMapSide, now: ChangeMapSide): Int32Array & {
     if (b.length === c.length) for (let q = 0; q < c.length; q++) m[q] = q;
     return tag(m, b.length === c.length ? 'dof index' : 'none');
   }
-  const byId = matchByKey(b, c, (_side, ids, k) => ids[k]);
+  const byId = matchUniqueKeys(c.length, (q) => c[q], b.length, (p) => b[p]);
   const coordsB = nodeCoordinates(b, baseline.dofMap)!, coordsC = nodeCoordinates(c, now.dofMap)!;
-  const byPlace = matchByKey(b, c, (side, _ids, k) => (side === 0 ? coordsB[k] : coordsC[k]).join(' '));
-  const idCount = byId.filter((p) => p >= 0).length, placeCount = byPlace.filter((p) => p >= 0).length;
-  return placeCount > idCount ? tag(byPlace, 'position') : tag(byId, 'node id');
-}
-
-function matchByKey<K>(b: Int32Array, c: Int32Array, key: (side: 0 | 1, ids: Int32Array, k: number) => K): Int32Array {
-  const count = new Map<K, number>();
-  const at = new Map<K, number>();
-  for (let p = 0; p < b.length; p++) {
-    const k = key(0, b, p);
-    count.set(k, (count.get(k) ?? 0) + 1);
-    at.set(k, p);
-  }
-  const seenNow = new Map<K, number>();
-  for (let q = 0; q < c.length; q++) seenNow.set(key(1, c, q), (seenNow.get(key(1, c, q)) ?? 0) + 1);
-  const m = new Int32Array(c.length).fill(-1);
-  // keys held by exactly one node on each side
-  for (let q = 0; q < c.length; q++) {
-    const k = key(1, c, q);
-    if (count.get(k) === 1 && seenNow.get(k) === 1) m[q] = at.get(k)!;
-  }
-  return m;
+  const byPlace = matchUniqueKeys(c.length, (q) => coordsC[q].join(' '), b.length, (p) => coordsB[p].join(' '));
+  return byPlace.matched > byId.matched ? tag(byPlace.match, 'position') : tag(byId.match, 'node id');
 }
 
 function regionSummaries(touched: ChangedNode[], lengthUnit: string | undefined): ChangeRegion[] {

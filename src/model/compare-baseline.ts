@@ -34,6 +34,7 @@ import { macFromProducts, principalAngleCosines, restrictRows, shapeProducts, su
 import { crossingPairs, DEFAULT_MIN_PAIR_CORRELATION, pairModes, type ModePairing } from './mode-pairing.js';
 import type { ComparisonFacts, ComparisonSettings, DofMatching, GroupMatch, ModePair, ModeSwap, UnpairedMode } from './comparison-facts.js';
 import { disjointSets } from './disjoint-sets.js';
+import { matchUniqueKeys } from './unique-key-match.js';
 
 const DEFAULT_REPEATED_TOLERANCE_PERCENT = 0.1;
 
@@ -183,9 +184,11 @@ export function matchDofs(baseline: LoadedBaseline, current: Pick<CurrentModel, 
   const map = baseline.dofMap, now = current.dofMap;
   if (map && now) {
     // by node id, and by position where node ids changed too; the one that matches more DOFs wins
-    const byNode = matchByKey(map, now, (m, d) => m.node[d] * 8 + m.component[d]);
-    const byPlace = matchByKey(map, now, (m, d) => `${m.x[d]} ${m.y[d]} ${m.z[d]} ${m.component[d]}`);
-    const [toCurrent, matched, matchedBy] = byPlace.matched > byNode.matched ? [byPlace.toCurrent, byPlace.matched, 'position and component' as const] : [byNode.toCurrent, byNode.matched, 'node and component' as const];
+    const nodeKey = (m: DofMap) => (d: number) => m.node[d] * 8 + m.component[d];
+    const placeKey = (m: DofMap) => (d: number) => `${m.x[d]} ${m.y[d]} ${m.z[d]} ${m.component[d]}`;
+    const byNode = matchUniqueKeys(map.n, nodeKey(map), now.n, nodeKey(now));
+    const byPlace = matchUniqueKeys(map.n, placeKey(map), now.n, placeKey(now));
+    const [toCurrent, matched, matchedBy] = byPlace.matched > byNode.matched ? [byPlace.match, byPlace.matched, 'position and component' as const] : [byNode.match, byNode.matched, 'node and component' as const];
     let renumbered = map.n !== now.n;
     for (let d = 0; d < map.n && !renumbered; d++) if (toCurrent[d] >= 0 && toCurrent[d] !== d) renumbered = true;
     const rowsAndDofs: [number, number][] = [];
@@ -216,32 +219,6 @@ export function matchDofs(baseline: LoadedBaseline, current: Pick<CurrentModel, 
     renumbered: false,
     reason: `the baseline has ${s.dofCount} DOFs and the model now ${n}, and ${why}, so DOFs cannot be matched and the shapes cannot be compared`,
   };
-}
-
-/**
- * toCurrent[d] = the current DOF with the same key as baseline DOF d, or −1. Keys held by more
- * than one DOF on either side (coincident nodes, when matching by position) match nothing.
- */
-function matchByKey<K>(map: DofMap, now: DofMap, key: (m: DofMap, d: number) => K): { toCurrent: Int32Array; matched: number } {
-  const indexNow = new Map<K, number>();
-  // key → current DOF (−1 when ambiguous)
-  for (let d = 0; d < now.n; d++) {
-    const k = key(now, d);
-    indexNow.set(k, indexNow.has(k) ? -1 : d);
-  }
-  const seen = new Map<K, number>();
-  for (let d = 0; d < map.n; d++) seen.set(key(map, d), (seen.get(key(map, d)) ?? 0) + 1);
-  const toCurrent = new Int32Array(map.n).fill(-1);
-  let matched = 0;
-  // each baseline DOF's place in the model now
-  for (let d = 0; d < map.n; d++) {
-    const k = key(map, d);
-    const c = indexNow.get(k);
-    if (c === undefined || c < 0 || seen.get(k)! > 1) continue;
-    toCurrent[d] = c;
-    matched++;
-  }
-  return { toCurrent, matched };
 }
 
 /** Rigid-body modes with rigid-body modes and elastic with elastic, each in frequency order. */
