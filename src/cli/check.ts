@@ -16,7 +16,6 @@ import { removeTempFiles } from '../io/atomic-write.js';
 import { problemOf, stackOf } from '../pipeline/problem.js';
 import type { PhaseTimes } from '../pipeline/analyze-model.js';
 import { checkReport } from '../pipeline/check-report.js';
-import { clearStoppedSave } from '../model/baseline-store.js';
 import type { CheckReport, ModelReport, ProblemReport } from '../pipeline/result-types.js';
 import { formatConsole } from '../report/console-reporter.js';
 import { EXIT_BAD_INPUT, EXIT_PASS, EXIT_RULE_FAILED, debugging, printDebugStack, runAction } from './run-action.js';
@@ -138,6 +137,8 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
     config = loadConfig(configPath, baselineDirs);
     selected = selectModels(config, opts.model);
     const jobs = (toCheck = opts.shard ? await shardJobs(selected, opts.shard, opts.timings !== undefined ? resolve(cwd, opts.timings) : undefined) : selected);
+    // loaded only for a run that saves baselines
+    const clearStoppedSave = baselineDirs.saveBaselineDir ? (await import('../model/baseline-store.js')).clearStoppedSave : undefined;
     if (!signals?.received) {
       const atOnce = concurrentJobs(opts.jobs ?? 1, availableParallelism(), jobs.length);
       const batch = runModels(jobs, {
@@ -151,7 +152,7 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
         }),
         onFinished: (job, result) => {
           // a save cut short on the stopped worker leaves no temporary file, lock or stray data file
-          if (baselineDirs.saveBaselineDir && (result.problem?.kind === 'limit' || result.problem?.kind === 'interrupted')) clearStoppedSave(baselineDirs.saveBaselineDir, job.name);
+          if (clearStoppedSave && baselineDirs.saveBaselineDir && (result.problem?.kind === 'limit' || result.problem?.kind === 'interrupted')) clearStoppedSave(baselineDirs.saveBaselineDir, job.name);
         },
       });
       if (signals) signals.batch = batch;
@@ -178,15 +179,15 @@ export async function runCheck(opts: CheckOptions): Promise<CheckOutcome> {
   removeTempFiles(outputDirs(targets, baselineDirs), process.pid);
   print(formatConsole(withShownPaths(report, cwd), { quiet: opts.quiet }));
   if (report.shard && models.length === 0 && !problem) print(`shard ${report.shard.index}/${report.shard.count} is empty: ${report.shard.configModels.length} model(s) for ${report.shard.count} shards; it passes with nothing of its own to check.\n`);
-  let { written, failures } = writeReports(report, targets, opts.markdownAll, cwd);
+  let { written, failures } = await writeReports(report, targets, opts.markdownAll, cwd);
   if (signals?.received && !report.problem) {
     // the signal came while the reports were written: write them again, saying so
     report.problem = problem = interruptedProblem(signals.received, models.length, models.length);
     report.verdict = 'error';
-    ({ written, failures } = writeReports(report, targets, opts.markdownAll, cwd));
+    ({ written, failures } = await writeReports(report, targets, opts.markdownAll, cwd));
   }
   signals?.dispose();
-  writeStepSummary(report, written, failures, opts, cwd);
+  await writeStepSummary(report, written, failures, opts, cwd);
   const labels: Record<string, string> = { junit: 'JUnit XML', json: 'JSON report', markdown: 'Markdown summary', html: 'HTML report' };
   for (const [kind, p] of Object.entries(written)) if (!opts.quiet) print(`${labels[kind]}: ${shownPath(p, cwd)}\n`);
   for (const m of models) {

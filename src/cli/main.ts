@@ -39,7 +39,9 @@ const commands: Record<string, () => Promise<(p: InstanceType<typeof Command>) =
   merge: async () => (await import('./merge.js')).registerMerge,
 };
 const named = process.argv[2];
-for (const name of named !== undefined && Object.hasOwn(commands, named) ? [named] : Object.keys(commands)) (await commands[name]())(program);
+// `--version` needs no command; a command name loads its own; help and anything else list them all
+const toLoad = named === '-V' || named === '--version' ? [] : named !== undefined && Object.hasOwn(commands, named) ? [named] : Object.keys(commands);
+for (const name of toLoad) (await commands[name]())(program);
 
 try {
   await program.parseAsync(process.argv);

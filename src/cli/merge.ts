@@ -66,8 +66,8 @@ export async function runMerge(files: string[], opts: MergeOptions): Promise<Che
   const report = mergeReports(parts, unreadable);
   const print = opts.print ?? ((t: string) => process.stdout.write(t));
   print(formatConsole(withShownPaths(report, cwd), { quiet: opts.quiet }));
-  const { written, failures } = writeReports(report, targets, opts.markdownAll, cwd);
-  writeStepSummary(report, written, failures, opts, cwd);
+  const { written, failures } = await writeReports(report, targets, opts.markdownAll, cwd);
+  await writeStepSummary(report, written, failures, opts, cwd);
   const labels: Record<string, string> = { junit: 'JUnit XML', json: 'JSON report', markdown: 'Markdown summary', html: 'HTML report' };
   if (!opts.quiet) for (const [kind, p] of Object.entries(written)) print(`${labels[kind]}: ${shownPath(p, cwd)}\n`);
   const printError = opts.printError ?? ((l: string) => process.stderr.write(l));

@@ -33,7 +33,16 @@ export interface AnalyzeOptions {
   onCaughtError?: (e: unknown) => void;
   /** The time of each phase, once the model's rules have run (not for a model that could not be read). */
   onPhases?: (times: PhaseTimes) => void;
+  /**
+   * Awaited between the steps (after reading, after the solve, before a baseline save): the
+   * caller may end the model there by throwing ModelStopped, which leaves analyzeModel as it is
+   * (model-runner.ts stops a model it runs on its own thread this way).
+   */
+  checkpoint?: () => Promise<void>;
 }
+
+/** Thrown by a checkpoint to end the model there; the caller reports why. */
+export class ModelStopped extends Error {}
 
 /**
  * Where one model's time went, milliseconds: reading K, M and the DOF map, the fill-reducing
@@ -59,6 +68,7 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
     const readStart = performance.now();
     const input = await readModelInput(job);
     const readMs = performance.now() - readStart;
+    await options.checkpoint?.();
     report.stats = modelStats(job, input);
     // constraint sets from the model entry reduce K, M and the DOF map before the solve
     const constrained = applyConstraintStep(job, input);
@@ -68,6 +78,7 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
     let solved: SolveOutcome;
     if (blocker) solved = { notSolved: `not evaluated: the modes were not solved because ${blocker.file}: ${blocker.reason}.` };
     else solved = runSolveStep(job, constrained, { onProgress: options.onProgress, onError: options.onCaughtError });
+    await options.checkpoint?.();
     const modes = solved.modes;
     // "rules": everything after the solve that feeds the rules (geometry facts, baseline comparison) and the rules
     const rulesStart = performance.now();
@@ -105,6 +116,7 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
     report.rules = runRules(context, job.rules, unavailable);
     options.onPhases?.({ readMs, ...solvePhases(modes), rulesMs: performance.now() - rulesStart });
     // --save-baseline after the rules; a failed save keeps the rule results and ends in exit 2
+    if (job.baseline?.saveDir) await options.checkpoint?.();
     const saved = await runBaselineSave(job, { modes, mass: constrained.mass, stiffness: constrained.stiffness, dofMap: constrained.dofMap, geometry }, verdictOf(report.rules));
     if (saved.saved) report.baselineSaved = saved.saved;
     if (saved.notSaved) report.baselineNotSaved = saved.notSaved;
@@ -113,6 +125,7 @@ export async function analyzeModel(job: ModelJob, options: AnalyzeOptions = {}):
       report.problem = problemOf(saved.failure);
     }
   } catch (e) {
+    if (e instanceof ModelStopped) throw e;
     options.onCaughtError?.(e);
     report.problem = problemOf(e);
     const why = report.problem.kind === 'limit' ? 'the model was stopped at a resource limit' : "the model's input could not be read";

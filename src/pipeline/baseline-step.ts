@@ -23,9 +23,9 @@ import type { SymmetricCsc } from '../sparse/csc.js';
 import type { DofMap } from '../io/dof-map.js';
 import type { ComparisonFacts } from '../model/comparison-facts.js';
 import type { GeometryFacts } from '../model/geometry-facts.js';
-import { baselineJsonFile, loadBaseline, saveBaseline, type SavedBaselineFiles } from '../model/baseline-store.js';
-import { compareWithBaseline, defaultComparisonSettings, matchDofs, type DofMatch } from '../model/compare-baseline.js';
-import { explainChanges } from '../model/explain-changes.js';
+// the baseline modules load only for a model with baseline settings (a run without baselines never needs them)
+import type { SavedBaselineFiles } from '../model/baseline-store.js';
+import type { DofMatch } from '../model/compare-baseline.js';
 import type { ExplainedChanges } from '../model/change-facts.js';
 
 /** The solved model as the baseline steps see it (constrained K/M and DOF map, as the rules do). */
@@ -54,6 +54,9 @@ export async function runBaselineComparison(job: ModelJob, input: BaselineInput)
   if (!existsSync(dir) || !statSync(dir).isDirectory()) {
     return { warning: `baseline directory ${dir} not found: the baseline rules are skipped (a new project has none until a run with check --save-baseline)` };
   }
+  const { baselineJsonFile, loadBaseline } = await import('../model/baseline-store.js');
+  const { compareWithBaseline, defaultComparisonSettings, matchDofs } = await import('../model/compare-baseline.js');
+  const { explainChanges } = await import('../model/explain-changes.js');
   const baseline = await loadBaseline(dir, job.name);
   if (!baseline) {
     return { warning: `no baseline for model "${job.name}" yet (${baselineJsonFile(dir, job.name)} is missing; save one with check --save-baseline)` };
@@ -98,7 +101,8 @@ export async function runBaselineSave(job: ModelJob, input: BaselineInput, verdi
   }
 }
 
-function save(job: ModelJob, settings: BaselineJob, dir: string, input: BaselineInput & { modes: ModesResult }): Promise<SavedBaselineFiles> {
+async function save(job: ModelJob, settings: BaselineJob, dir: string, input: BaselineInput & { modes: ModesResult }): Promise<SavedBaselineFiles> {
+  const { saveBaseline } = await import('../model/baseline-store.js');
   return saveBaseline(dir, {
     model: job.name,
     modes: input.modes,

@@ -4,15 +4,16 @@
  *
  *   jobs    = the number asked for (auto or 0: the cores), never more than the models to check
  *   threads = max(1, floor(cores / jobs)), at most a MODALGATE_THREADS the user set,
- *             and 1 for a model too small to gain from a second thread
+ *             and 1 for a model too small to gain from a second thread (ONE_THREAD_BELOW_DOFS,
+ *             the rule every solve follows: sparse/helper-thread.ts withThreadsForDofs)
  *
  * Each model worker gets `threads` as its MODALGATE_THREADS, which the solver reads in the
  * thread where it runs.
  */
-import { threadCapOf } from '../sparse/helper-thread.js';
+import { ONE_THREAD_BELOW_DOFS, threadCapOf } from '../sparse/helper-thread.js';
 
-/** A model below this many DOFs is solved on one thread: starting and feeding helper threads costs more than they save. */
-export const ONE_THREAD_BELOW_DOFS = 5000;
+/** A model below this many DOFs is solved on one thread (the solver's one rule, sparse/helper-thread.ts). */
+export { ONE_THREAD_BELOW_DOFS };
 
 /** `--jobs` text: a whole number ≥ 1, or `auto` / `0` (choose from the cores); undefined when it is neither. */
 export function parseJobs(text: string): number | 'auto' | undefined {

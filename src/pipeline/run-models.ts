@@ -4,11 +4,12 @@
  * order in which they finish. Each model's worker gets its solver threads (job-threads.ts), and
  * with more than one model at once each gets its share of the memory limit (the limit is the
  * process's). `stopAll` stops every running model (its report says why) and starts no other.
+ * A small model checked alone runs on this thread (runsHere).
  */
 import { readMatrixHeader } from '../io/matrix-market-reader.js';
 import { availableParallelism } from 'node:os';
 import type { ModelJob } from './job-types.js';
-import { solverThreads, threadsForModel, userThreadCap } from './job-threads.js';
+import { ONE_THREAD_BELOW_DOFS, solverThreads, threadsForModel, userThreadCap } from './job-threads.js';
 import { ModelRunner, type RunModelOptions, type RunningModel } from './model-runner.js';
 import type { ModelReport, ProblemReport } from './result-types.js';
 
@@ -47,9 +48,10 @@ export function runModels(jobs: ModelJob[], settings: RunModelsSettings): ModelB
     while (!stopping && next < jobs.length) {
       const i = next++;
       const job = withMemoryShare(jobs[i], atOnce);
-      const threads = isolated ? threadsForModel(share, await dofsOf(job)) : undefined;
+      const dofs = isolated ? await dofsOf(job) : undefined;
       if (stopping) break;
-      const run = runner.run(job, { timeLimitMs: settings.timeLimitMs, threads, ...settings.callbacks?.(job) });
+      const here = !isolated || runsHere(dofs, atOnce, settings.timeLimitMs);
+      const run = runner.run(job, { timeLimitMs: settings.timeLimitMs, threads: here ? undefined : threadsForModel(share, dofs), here, ...settings.callbacks?.(job) });
       running.add(run);
       const report = sharedLimitNote(await run.report, atOnce);
       running.delete(run);
@@ -68,6 +70,16 @@ export function runModels(jobs: ModelJob[], settings: RunModelsSettings): ModelB
       for (const r of running) r.stop(why);
     },
   };
+}
+
+/**
+ * A model runs on this thread, not on a worker, when it is checked alone (one at a time), under no
+ * time limit (a timer cannot fire during a synchronous solve) and below ONE_THREAD_BELOW_DOFS (so
+ * a signal waits at most for one short step), or when its size line cannot be read (it will fail
+ * on reading). It spares the worker's start and second copy of the modules.
+ */
+function runsHere(dofs: number | undefined, atOnce: number, timeLimitMs: number | undefined): boolean {
+  return atOnce === 1 && timeLimitMs === undefined && (dofs === undefined || dofs < ONE_THREAD_BELOW_DOFS);
 }
 
 /** DOFs from the stiffness file's size line (undefined when it cannot be read: the model will say why). */

@@ -93,6 +93,29 @@ export function availableThreads(): number {
 }
 
 /**
+ * A model below this many DOFs is solved on this thread alone, in every command and the library:
+ * starting a helper (about 0.1 s of CPU for its isolate and modules, measured on the 975-DOF
+ * check1k model) and feeding it cost more than its share of so small a solve saves.
+ */
+export const ONE_THREAD_BELOW_DOFS = 5000;
+
+/**
+ * Runs `solve` (synchronous: nothing else runs meanwhile) with N = 1 when the model has fewer
+ * than ONE_THREAD_BELOW_DOFS DOFs, otherwise with N as it is. The front doors of a solve (the
+ * modes command, the check pipeline, the library's solveModes) go through here.
+ */
+export function withThreadsForDofs<T>(dofs: number, solve: () => T): T {
+  if (dofs >= ONE_THREAD_BELOW_DOFS) return solve();
+  const before = override;
+  override = 1;
+  try {
+    return solve();
+  } finally {
+    override = before;
+  }
+}
+
+/**
  * Sets N from now on (any count ≥ 1, also above the cores), or back to the environment's with
  * undefined. For tests and benchmarks; objects made before (solvers, bases) keep their split.
  */

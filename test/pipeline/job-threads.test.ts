@@ -3,7 +3,11 @@
  * (src/pipeline/job-threads.ts): jobs × threads never exceeds the cores, every model gets at
  * least one thread, a MODALGATE_THREADS the user set caps the threads, and small models get one.
  */
+import { Worker } from 'node:worker_threads';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
+import { ensureBuilt, repoRoot } from '../cli/built-cli.js';
 import { concurrentJobs, ONE_THREAD_BELOW_DOFS, parseJobs, solverThreads, threadsForModel, userThreadCap } from '../../src/pipeline/job-threads.js';
 
 describe('--jobs and the solver threads of each model', () => {
@@ -56,4 +60,25 @@ describe('--jobs and the solver threads of each model', () => {
     expect(threadsForModel(4, ONE_THREAD_BELOW_DOFS)).toBe(4);
     expect(threadsForModel(4, undefined)).toBe(4);
   });
+});
+
+describe('the one thread rule of every solve (sparse/helper-thread.ts withThreadsForDofs)', () => {
+  it('runs a model below ONE_THREAD_BELOW_DOFS on one thread, a larger one on N, and restores N afterwards (compiled modules: helpers exist there)', async () => {
+    ensureBuilt();
+    const url = pathToFileURL(join(repoRoot, 'dist/src/sparse/helper-thread.js')).href;
+    // in a fresh thread: the module's N is set there and nothing else sees it
+    const code = `import(${JSON.stringify(url)}).then((m) => {
+      m.setThreadCount(3);
+      const seen = [m.withThreadsForDofs(m.ONE_THREAD_BELOW_DOFS - 1, () => m.availableThreads()), m.withThreadsForDofs(m.ONE_THREAD_BELOW_DOFS, () => m.availableThreads())];
+      try { m.withThreadsForDofs(10, () => { throw new Error('solve failed'); }); } catch {}
+      seen.push(m.availableThreads(), m.ONE_THREAD_BELOW_DOFS);
+      require('node:worker_threads').parentPort.postMessage(seen);
+    })`;
+    const worker = new Worker(code, { eval: true });
+    const seen = await new Promise<number[]>((resolve, reject) => {
+      worker.once('message', (v: number[]) => void worker.terminate().then(() => resolve(v)));
+      worker.once('error', reject);
+    });
+    expect(seen).toEqual([1, 3, 3, ONE_THREAD_BELOW_DOFS]);
+  }, 120_000);
 });
