@@ -26,6 +26,7 @@ import { EXIT_PASS, EXIT_RULE_FAILED, runAction } from './run-action.js';
 import { MemoryLimitError } from '../sparse/memory-limit.js';
 import { withThreadsForDofs } from '../sparse/helper-thread.js';
 import { DEFAULT_MEMORY_SHARE, defaultMemoryLimitBytes, parseMemorySize } from './limits.js';
+import { prestartSolverThreads } from '../pipeline/read-step.js';
 
 interface ModesOptions {
   stiffness: string;
@@ -82,6 +83,7 @@ function parseRequest(opts: ModesOptions): ModesRequest {
 async function modes(opts: ModesOptions): Promise<number> {
   const request = parseRequest(opts);
   request.memoryLimitBytes = opts.maxMemory ?? defaultMemoryLimitBytes();
+  await prestartSolverThreads(opts.stiffness);
   const { stiffness, mass } = await readStiffnessAndMass(opts.stiffness, opts.mass);
   const n = stiffness.matrix.n;
   const blocker = screenPencil(stiffness.summary, mass.summary, mass.matrix);

@@ -5,7 +5,8 @@
  */
 import type { DofMap } from '../io/dof-map.js';
 import { readDofMap } from '../io/dof-map-reader.js';
-import { readStiffnessAndMass } from '../io/matrix-market-reader.js';
+import { readMatrixHeader, readStiffnessAndMass } from '../io/matrix-market-reader.js';
+import { prestartHelpers } from '../sparse/helper-thread.js';
 import type { MatrixSummary } from '../io/matrix-summary.js';
 import { fullNonzeros, type SymmetricCsc } from '../sparse/csc.js';
 import type { ModelJob } from './job-types.js';
@@ -19,7 +20,21 @@ export interface ModelInput {
   dofMap?: DofMap;
 }
 
+/**
+ * Starts the solver's helper threads for the model in `stiffnessPath` (by the DOFs of its size
+ * line) so they load while the matrices are read; nothing when the line cannot be read (reading
+ * the file will say why) or the model is solved on one thread.
+ */
+export async function prestartSolverThreads(stiffnessPath: string): Promise<void> {
+  try {
+    prestartHelpers((await readMatrixHeader(stiffnessPath, { role: 'stiffness' })).size.rows);
+  } catch {
+    // reported by the read itself
+  }
+}
+
 export async function readModelInput(job: ModelJob): Promise<ModelInput> {
+  await prestartSolverThreads(job.stiffnessPath);
   const pair = await readStiffnessAndMass(job.stiffnessPath, job.massPath, { screening: 'record' });
   const input: ModelInput = {
     stiffness: pair.stiffness.matrix,
