@@ -161,8 +161,14 @@ function permutedLower(a: Pattern, pinv: Int32Array): { lower: Pattern; from: In
  * The pair (K, M) permuted symmetrically (perm[k] = original DOF of pivot k): per column the
  * sorted row lists of P K Pᵀ and P M Pᵀ merged, each entry pointing at its source in K and M.
  * FE mass patterns usually lie inside the stiffness pattern, so the union is about K's size.
+ * `allocate` makes the pair's index arrays (e.g. in shared memory, for helper threads).
  */
-export function permutedPair(stiffness: SymmetricCsc, mass: SymmetricCsc, perm: Int32Array): PermutedPair {
+export function permutedPair(
+  stiffness: SymmetricCsc,
+  mass: SymmetricCsc,
+  perm: Int32Array,
+  allocate: (length: number) => Int32Array = (length) => new Int32Array(length),
+): PermutedPair {
   const n = stiffness.n;
   const pinv = inversePermutation(perm);
   const k = permutedLower(stiffness, pinv);
@@ -171,7 +177,7 @@ export function permutedPair(stiffness: SymmetricCsc, mass: SymmetricCsc, perm: 
   const kr = k.lower.rowIdx;
   const mp = m.lower.colPtr;
   const mr = m.lower.rowIdx;
-  const colPtr = new Int32Array(n + 1);
+  const colPtr = allocate(n + 1);
   // size of the union of the two sorted row lists of each column
   for (let j = 0; j < n; j++) {
     let p = kp[j];
@@ -189,9 +195,9 @@ export function permutedPair(stiffness: SymmetricCsc, mass: SymmetricCsc, perm: 
     colPtr[j + 1] = colPtr[j] + c;
   }
   const nnz = colPtr[n];
-  const rowIdx = new Int32Array(nnz);
-  const stiffnessAt = new Int32Array(nnz);
-  const massAt = new Int32Array(nnz);
+  const rowIdx = allocate(nnz);
+  const stiffnessAt = allocate(nnz);
+  const massAt = allocate(nnz);
   // merge them, recording each entry's source in K and in M (−1: none)
   for (let j = 0; j < n; j++) {
     let p = kp[j];

@@ -10,7 +10,7 @@ import { supernodalLdlt, type RecycledValues, type SupernodalFactor } from './nu
 import { PivotMonitor } from './pivot-monitor.js';
 import { analyzeShiftedPair, type SupernodalStructure } from './symbolic.js';
 import { supernodalSolveInPlace } from './triangular-solve.js';
-import { availableThreads, sharedScratch } from './helper-thread.js';
+import { availableThreads, sharedInt32, sharedScratch } from './helper-thread.js';
 import { parallelSupernodalLdlt, shareStructure } from './split-factor.js';
 import { prepareSplitSolve, splitSolveInPlace, type SplitSolve } from './split-solve.js';
 import { splitSubtrees, type SubtreeSplit } from './subtree-split.js';
@@ -90,7 +90,8 @@ export function createShiftedSolver(
   const threads = Math.min(options.threads ?? Infinity, availableThreads());
   const order = chooseOrdering(stiffness, mass, { ordering: options.ordering ?? 'auto', coordinates: options.coordinates, threads });
   const t1 = performance.now();
-  const analyzed = analyzeShiftedPair(stiffness, mass, order.perm, order.tree);
+  // with helper threads at hand the pair is made in shared memory: a split factorization then needs no copy of it
+  const analyzed = analyzeShiftedPair(stiffness, mass, order.perm, order.tree, threads >= 2 ? sharedInt32 : undefined);
   const split = analyzed.flops >= PARALLEL_MIN_FLOPS ? chooseSplit(analyzed, threads) : null;
   if (options.memoryLimitBytes !== undefined) {
     // scratch for the threads that will factor: as many as the tree was split into

@@ -93,10 +93,10 @@ export function shareStructure(s: SupernodalStructure): SupernodalStructure {
     perm: sharedCopy(s.perm),
     pair: {
       n: pair.n,
-      colPtr: sharedCopy(pair.colPtr),
-      rowIdx: sharedCopy(pair.rowIdx),
-      stiffnessAt: sharedCopy(pair.stiffnessAt),
-      massAt: sharedCopy(pair.massAt),
+      colPtr: inShared(pair.colPtr),
+      rowIdx: inShared(pair.rowIdx),
+      stiffnessAt: inShared(pair.stiffnessAt),
+      massAt: inShared(pair.massAt),
       // K's and M's values: copied only when the caller has no shared copy of them (shifted-solver.ts)
       stiffnessValues: inShared(pair.stiffnessValues),
       massValues: inShared(pair.massValues),

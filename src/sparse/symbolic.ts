@@ -47,9 +47,16 @@ export interface SupernodalStructure {
 /**
  * `tree`: the elimination tree, its postorder and the column counts of the union pattern under
  * `order` when the caller has them already (the ordering counts them, ordering/fill-count.ts);
- * otherwise they are computed here.
+ * otherwise they are computed here. `allocatePair` makes the pair's index arrays (shared
+ * memory when helper threads may factor, so they need no second copy).
  */
-export function analyzeShiftedPair(stiffness: SymmetricCsc, mass: SymmetricCsc, order: Int32Array, tree?: FactorStructureCounts): SupernodalStructure {
+export function analyzeShiftedPair(
+  stiffness: SymmetricCsc,
+  mass: SymmetricCsc,
+  order: Int32Array,
+  tree?: FactorStructureCounts,
+  allocatePair?: (length: number) => Int32Array,
+): SupernodalStructure {
   const n = stiffness.n;
   // the tree and counts of the first order need the union pattern only
   const first = tree ?? factorStructureCounts(unionPattern(stiffness, mass), order);
@@ -63,7 +70,7 @@ export function analyzeShiftedPair(stiffness: SymmetricCsc, mass: SymmetricCsc, 
     nnzL += counts[k];
   }
   const parent = relabelTree(first.parent, first.post);
-  const pair = permutedPair(stiffness, mass, perm);
+  const pair = permutedPair(stiffness, mass, perm, allocatePair);
   const fundamental = fundamentalSupernodes(parent, counts);
   const fundamentalRows = supernodeRows(pair, fundamental, superOfColumns(fundamental, n), parent);
   const superStart = relaxSupernodes(fundamental, parent, fundamentalRows.rowPtr, fundamentalRows.rows);
