@@ -33,6 +33,7 @@ import { formatBytes, memoryBudgetBytes, readingBytes, solvingBytes } from './ma
 import { scan, scanUnsigned, skipBlanks } from './number-scan.js';
 import { assembleSymmetricInPlace } from '../sparse/assemble.js';
 import type { SymmetricCsc } from '../sparse/csc.js';
+import { availableThreads } from '../sparse/helper-thread.js';
 import { summarizeMatrix } from './matrix-checks.js';
 import type { MatrixSummary } from './matrix-summary.js';
 
@@ -49,6 +50,11 @@ export interface MatrixReadOptions {
   role?: 'stiffness' | 'mass';
   /** Memory the model may take (default: the machine's, see matrix-market-memory.ts). */
   memoryBudgetBytes?: number;
+  /**
+   * Keep the matrix's arrays in shared memory where reading allows it without a copy (see
+   * MatrixLinesOptions.sharedArrays); readStiffnessAndMass sets it when helper threads will solve.
+   */
+  sharedArrays?: boolean;
 }
 
 export interface MatrixFile {
@@ -127,8 +133,10 @@ export async function readStiffnessAndMass(
       { line: m.size.line },
     );
   }
-  const stiffness = await readMatrixMarket(stiffnessPath, { ...options, role: 'stiffness' });
-  const mass = await readMatrixMarket(massPath, { ...options, role: 'mass' });
+  // with helper threads the solver shares K and M with them: read them into shared memory
+  const shared = { sharedArrays: options.sharedArrays ?? availableThreads() >= 2 };
+  const stiffness = await readMatrixMarket(stiffnessPath, { ...options, ...shared, role: 'stiffness' });
+  const mass = await readMatrixMarket(massPath, { ...options, ...shared, role: 'mass' });
   return { stiffness, mass };
 }
 
@@ -163,7 +171,7 @@ export async function readMatrixHeader(
 }
 
 function linesOptions(options: MatrixReadOptions): MatrixLinesOptions {
-  return { screening: options.screening, role: options.role, memoryBudgetBytes: options.memoryBudgetBytes };
+  return { screening: options.screening, role: options.role, memoryBudgetBytes: options.memoryBudgetBytes, sharedArrays: options.sharedArrays };
 }
 
 export interface DenseArray {
