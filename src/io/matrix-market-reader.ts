@@ -33,7 +33,6 @@ import { formatBytes, memoryBudgetBytes, readingBytes, solvingBytes } from './ma
 import { scan, scanUnsigned, skipBlanks } from './number-scan.js';
 import { assembleSymmetricInPlace } from '../sparse/assemble.js';
 import type { SymmetricCsc } from '../sparse/csc.js';
-import { availableThreads } from '../sparse/helper-thread.js';
 import { summarizeMatrix } from './matrix-checks.js';
 import type { MatrixSummary } from './matrix-summary.js';
 
@@ -52,7 +51,9 @@ export interface MatrixReadOptions {
   memoryBudgetBytes?: number;
   /**
    * Keep the matrix's arrays in shared memory where reading allows it without a copy (see
-   * MatrixLinesOptions.sharedArrays); readStiffnessAndMass sets it when helper threads will solve.
+   * MatrixLinesOptions.sharedArrays). Off by default: it saves memory only once the helper
+   * threads' products take such a matrix as it is instead of copying it (block-product-jobs.ts,
+   * sharedMatrix); until then it only moves K and M out of the collector's external-memory count.
    */
   sharedArrays?: boolean;
 }
@@ -133,10 +134,8 @@ export async function readStiffnessAndMass(
       { line: m.size.line },
     );
   }
-  // with helper threads the solver shares K and M with them: read them into shared memory
-  const shared = { sharedArrays: options.sharedArrays ?? availableThreads() >= 2 };
-  const stiffness = await readMatrixMarket(stiffnessPath, { ...options, ...shared, role: 'stiffness' });
-  const mass = await readMatrixMarket(massPath, { ...options, ...shared, role: 'mass' });
+  const stiffness = await readMatrixMarket(stiffnessPath, { ...options, role: 'stiffness' });
+  const mass = await readMatrixMarket(massPath, { ...options, role: 'mass' });
   return { stiffness, mass };
 }
 

@@ -1,6 +1,5 @@
 /**
- * Reading K and M into shared memory (MatrixReadOptions.sharedArrays, what readStiffnessAndMass
- * does when helper threads will solve): the same matrix as a plain read, its rowIdx and values
+ * Reading K and M into shared memory (MatrixReadOptions.sharedArrays): the same matrix as a plain read, its rowIdx and values
  * in shared memory when the file is plain and nothing was merged; a gzip file or one with
  * duplicates still reads, with ordinary arrays where a copy was needed anyway.
  */
