@@ -20,6 +20,7 @@ import { inPlaceUpdate, scaledRowsKMajor, scaledRowsPanels, stripUpdate, updateL
 import { stripKernels, type StripKernels } from './wasm-tile-kernel.js';
 import type { PivotMonitor } from './pivot-monitor.js';
 import type { SupernodalStructure } from './symbolic.js';
+import { shiftedEntry } from './permute.js';
 
 /** Panel width of the in-supernode blocking (columns factored together). */
 const PANEL = 48;
@@ -76,7 +77,7 @@ function shiftedDiagonal(s: SupernodalStructure, shift: number): Float64Array {
   // the diagonal is the first stored entry of its column
   for (let j = 0; j < s.n; j++) {
     const p = pair.colPtr[j];
-    if (p < pair.colPtr[j + 1] && pair.rowIdx[p] === j) diag[j] = pair.stiffness[p] - shift * pair.mass[p];
+    if (p < pair.colPtr[j + 1] && pair.rowIdx[p] === j) diag[j] = shiftedEntry(pair, p, shift);
   }
   return diag;
 }
@@ -138,6 +139,7 @@ export function factorSupernodes(
   region = 0,
 ): void {
   const { n, supernodes: ns, superStart, superOf, rowPtr, rows, valuePtr, pair } = s;
+  const { stiffnessAt, massAt, stiffnessValues, massValues } = pair;
   const { values, d, nextRow } = out;
   const diag = shiftedDiagonal(s, shift);
   const map = new Int32Array(n);
@@ -174,7 +176,9 @@ export function factorSupernodes(
       for (let j = f; j < l; j++) {
         const base = v0 + (j - f) * nr;
         for (let p = pair.colPtr[j]; p < pair.colPtr[j + 1]; p++) {
-          values[base + map[pair.rowIdx[p]]] = pair.stiffness[p] - shift * pair.mass[p];
+          const k = stiffnessAt[p];
+          const m = massAt[p];
+          values[base + map[pair.rowIdx[p]]] = (k >= 0 ? stiffnessValues[k] : 0) - shift * (m >= 0 ? massValues[m] : 0);
         }
       }
       const shared = cooperation?.wants(sn) === true;

@@ -94,77 +94,126 @@ export function permuteSymmetric(a: SymmetricCsc, perm: Int32Array): SymmetricCs
 }
 
 /**
- * The permuted pair on the union pattern of K and M: lower triangle of P(K + M)Pᵀ with rows
- * sorted, and the values of K and of M on that pattern (zero where one of them has no entry).
- * A = K − σM is then formed entry by entry at factor time without a new structure.
+ * The shifted pair's pattern in pivot order: the lower triangle of P(K + M)Pᵀ (the union of the
+ * two patterns), rows sorted, and per entry where its values come from — the stored index in
+ * K's values and in M's values, −1 where that matrix has no entry. The values themselves are
+ * not copied: A = K − σM is formed entry by entry at factor time (shiftedEntry) from K's and
+ * M's own arrays, so the pattern work is done once per model and no second copy of K and M is
+ * held. `stiffnessValues` / `massValues` are the arrays the indices point into (K's and M's
+ * values, or copies of them in shared memory that helper threads can read).
  */
 export interface PermutedPair {
   n: number;
   colPtr: Int32Array;
   rowIdx: Int32Array;
-  stiffness: Float64Array;
-  mass: Float64Array;
+  stiffnessAt: Int32Array;
+  massAt: Int32Array;
+  stiffnessValues: Float64Array;
+  massValues: Float64Array;
+}
+
+/** Entry p of A = K − σM on the pair's pattern (a matrix without the entry contributes 0). */
+export function shiftedEntry(pair: PermutedPair, p: number, shift: number): number {
+  const k = pair.stiffnessAt[p];
+  const m = pair.massAt[p];
+  return (k >= 0 ? pair.stiffnessValues[k] : 0) - shift * (m >= 0 ? pair.massValues[m] : 0);
+}
+
+/** The union of the patterns of a and b (both lower storage, rows sorted), rows sorted. */
+export function unionPattern(a: Pattern, b: Pattern): Pattern {
+  const n = a.n;
+  const colPtr = new Int32Array(n + 1);
+  let rowIdx = new Int32Array(a.colPtr[n] + b.colPtr[n]);
+  let o = 0;
+  // merge the two sorted row lists of each column
+  for (let j = 0; j < n; j++) {
+    let p = a.colPtr[j];
+    let q = b.colPtr[j];
+    const pe = a.colPtr[j + 1];
+    const qe = b.colPtr[j + 1];
+    while (p < pe || q < qe) {
+      const ra = p < pe ? a.rowIdx[p] : n;
+      const rb = q < qe ? b.rowIdx[q] : n;
+      if (ra <= rb) p++;
+      if (rb <= ra) q++;
+      rowIdx[o++] = ra < rb ? ra : rb;
+    }
+    colPtr[j + 1] = o;
+  }
+  if (o < rowIdx.length) rowIdx = rowIdx.slice(0, o);
+  return { n, colPtr, rowIdx };
 }
 
 /**
- * K and M on the union of their patterns in their own numbering: per column, the two sorted row
- * lists merged, each matrix's value carried (zero where it has no entry). FE mass patterns
- * usually lie inside the stiffness pattern, so the union is about K's size.
+ * Lower triangle of P A Pᵀ by columns, rows sorted, with `from[q]` the stored index in `a` of
+ * the entry in slot q (permutedUpper, then its counting transpose; the two index maps composed
+ * in place).
  */
-export function unionPair(stiffness: SymmetricCsc, mass: SymmetricCsc): PermutedPair {
+function permutedLower(a: Pattern, pinv: Int32Array): { lower: Pattern; from: Int32Array } {
+  const { upper, src } = permutedUpper(a, pinv);
+  const { lower, map } = transposePattern(upper);
+  // slot q of the lower part came from upper slot map[q], which came from a's entry src[map[q]]
+  for (let q = 0; q < map.length; q++) map[q] = src[map[q]];
+  return { lower, from: map };
+}
+
+/**
+ * The pair (K, M) permuted symmetrically (perm[k] = original DOF of pivot k): per column the
+ * sorted row lists of P K Pᵀ and P M Pᵀ merged, each entry pointing at its source in K and M.
+ * FE mass patterns usually lie inside the stiffness pattern, so the union is about K's size.
+ * `allocate` makes the pair's index arrays (e.g. in shared memory, for helper threads).
+ */
+export function permutedPair(
+  stiffness: SymmetricCsc,
+  mass: SymmetricCsc,
+  perm: Int32Array,
+  allocate: (length: number) => Int32Array = (length) => new Int32Array(length),
+): PermutedPair {
   const n = stiffness.n;
-  const colPtr = new Int32Array(n + 1);
+  const pinv = inversePermutation(perm);
+  const k = permutedLower(stiffness, pinv);
+  const m = permutedLower(mass, pinv);
+  const kp = k.lower.colPtr;
+  const kr = k.lower.rowIdx;
+  const mp = m.lower.colPtr;
+  const mr = m.lower.rowIdx;
+  const colPtr = allocate(n + 1);
   // size of the union of the two sorted row lists of each column
   for (let j = 0; j < n; j++) {
-    let p = stiffness.colPtr[j];
-    let q = mass.colPtr[j];
-    const pe = stiffness.colPtr[j + 1];
-    const qe = mass.colPtr[j + 1];
-    let c = 0;
-    while (p < pe || q < qe) {
-      const rk = p < pe ? stiffness.rowIdx[p] : n;
-      const rm = q < qe ? mass.rowIdx[q] : n;
+    let p = kp[j];
+    let q = mp[j];
+    const pe = kp[j + 1];
+    const qe = mp[j + 1];
+    let c = pe - p + qe - q;
+    while (p < pe && q < qe) {
+      const rk = kr[p];
+      const rm = mr[q];
       if (rk <= rm) p++;
       if (rm <= rk) q++;
-      c++;
+      if (rk === rm) c--;
     }
     colPtr[j + 1] = colPtr[j] + c;
   }
   const nnz = colPtr[n];
-  const rowIdx = new Int32Array(nnz);
-  const kv = new Float64Array(nnz);
-  const mv = new Float64Array(nnz);
-  // merge the two sorted row lists of each column, carrying each matrix's value
+  const rowIdx = allocate(nnz);
+  const stiffnessAt = allocate(nnz);
+  const massAt = allocate(nnz);
+  // merge them, recording each entry's source in K and in M (−1: none)
   for (let j = 0; j < n; j++) {
-    let p = stiffness.colPtr[j];
-    let q = mass.colPtr[j];
-    const pe = stiffness.colPtr[j + 1];
-    const qe = mass.colPtr[j + 1];
+    let p = kp[j];
+    let q = mp[j];
+    const pe = kp[j + 1];
+    const qe = mp[j + 1];
     let o = colPtr[j];
     while (p < pe || q < qe) {
-      const rk = p < pe ? stiffness.rowIdx[p] : n;
-      const rm = q < qe ? mass.rowIdx[q] : n;
-      if (rk <= rm) kv[o] = stiffness.values[p++];
-      if (rm <= rk) mv[o] = mass.values[q++];
+      const rk = p < pe ? kr[p] : n;
+      const rm = q < qe ? mr[q] : n;
+      stiffnessAt[o] = rk <= rm ? k.from[p++] : -1;
+      massAt[o] = rm <= rk ? m.from[q++] : -1;
       rowIdx[o++] = rk < rm ? rk : rm;
     }
   }
-  return { n, colPtr, rowIdx, stiffness: kv, mass: mv };
-}
-
-/** The union pair (unionPair) permuted symmetrically, rows sorted, both value arrays carried along. */
-export function permuteUnion(u: PermutedPair, perm: Int32Array): PermutedPair {
-  const { upper, src } = permutedUpper(u, inversePermutation(perm));
-  const { lower, map } = transposePattern(upper);
-  const kv = new Float64Array(map.length);
-  const mv = new Float64Array(map.length);
-  // values follow their entries through both passes
-  for (let q = 0; q < map.length; q++) {
-    const from = src[map[q]];
-    kv[q] = u.stiffness[from];
-    mv[q] = u.mass[from];
-  }
-  return { n: u.n, colPtr: lower.colPtr, rowIdx: lower.rowIdx, stiffness: kv, mass: mv };
+  return { n, colPtr, rowIdx, stiffnessAt, massAt, stiffnessValues: stiffness.values, massValues: mass.values };
 }
 
 /**

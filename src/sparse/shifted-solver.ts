@@ -10,13 +10,15 @@ import { supernodalLdlt, type RecycledValues, type SupernodalFactor } from './nu
 import { PivotMonitor } from './pivot-monitor.js';
 import { analyzeShiftedPair, type SupernodalStructure } from './symbolic.js';
 import { supernodalSolveInPlace } from './triangular-solve.js';
-import { availableThreads, sharedScratch } from './helper-thread.js';
+import { availableThreads, sharedInt32, sharedScratch } from './helper-thread.js';
 import { parallelSupernodalLdlt, shareStructure } from './split-factor.js';
 import { prepareSplitSolve, splitSolveInPlace, type SplitSolve } from './split-solve.js';
 import { splitSubtrees, type SubtreeSplit } from './subtree-split.js';
 import { MemoryLimitError, predictedFactorBytes } from './memory-limit.js';
 import { simdTileKernelInUse } from './dense-block-kernels.js';
 import { tileKernelsAvailable } from './wasm-tile-kernel.js';
+import { shiftedEntry } from './permute.js';
+import { sharedMatrix } from './block-product-jobs.js';
 
 /**
  * Factorizations of fewer flops stay on one thread (our choice: about a tenth of a second of
@@ -42,9 +44,25 @@ function maxShiftedDiagonal(s: SupernodalStructure, shift: number): number {
   // the diagonal is the first stored entry of its column
   for (let j = 0; j < s.n; j++) {
     const p = pair.colPtr[j];
-    if (p < pair.colPtr[j + 1] && pair.rowIdx[p] === j) m = Math.max(m, Math.abs(pair.stiffness[p] - shift * pair.mass[p]));
+    if (p < pair.colPtr[j + 1] && pair.rowIdx[p] === j) m = Math.max(m, Math.abs(shiftedEntry(pair, p, shift)));
   }
   return m;
+}
+
+/**
+ * The structure with its pair reading K's and M's values from their shared copies
+ * (block-product-jobs.ts, sharedMatrix: made once per matrix and used by the products too),
+ * when those are at hand with the same entries; else unchanged (shareStructure copies them).
+ */
+function withSharedValues(s: SupernodalStructure, stiffness: SymmetricCsc, mass: SymmetricCsc): SupernodalStructure {
+  const shared = (a: SymmetricCsc): Float64Array | null => {
+    const c = sharedMatrix(a);
+    return c && c.values.buffer instanceof SharedArrayBuffer && c.values.length === a.values.length ? c.values : null;
+  };
+  const k = shared(stiffness);
+  const m = shared(mass);
+  if (!k || !m) return s;
+  return { ...s, pair: { ...s.pair, stiffnessValues: k, massValues: m } };
 }
 
 /**
@@ -72,15 +90,17 @@ export function createShiftedSolver(
   const threads = Math.min(options.threads ?? Infinity, availableThreads());
   const order = chooseOrdering(stiffness, mass, { ordering: options.ordering ?? 'auto', coordinates: options.coordinates, threads });
   const t1 = performance.now();
-  const analyzed = analyzeShiftedPair(stiffness, mass, order.perm);
+  // with helper threads at hand the pair is made in shared memory: a split factorization then needs no copy of it
+  const analyzed = analyzeShiftedPair(stiffness, mass, order.perm, order.tree, threads >= 2 ? sharedInt32 : undefined);
   const split = analyzed.flops >= PARALLEL_MIN_FLOPS ? chooseSplit(analyzed, threads) : null;
   if (options.memoryLimitBytes !== undefined) {
     // scratch for the threads that will factor: as many as the tree was split into
     const predicted = predictedFactorBytes(analyzed, split ? split.parts.length : 1) + (options.extraBytes ?? 0);
     if (predicted > options.memoryLimitBytes) throw new MemoryLimitError(predicted, options.memoryLimitBytes, analyzed.nnzL);
   }
-  // shared memory lets the helper threads read the structure without a copy
-  const structure = split ? shareStructure(analyzed) : analyzed;
+  // shared memory lets the helper threads read the structure without a copy; K's and M's values
+  // are read from the shared copies the block products use (one copy per matrix, not two)
+  const structure = split ? shareStructure(withSharedValues(analyzed, stiffness, mass)) : analyzed;
   const solvePlan = split ? prepareSplitSolve(structure, split) : null;
   const t2 = performance.now();
   const { perm } = structure;

@@ -80,13 +80,27 @@ interface Factored extends Answer {
   monitor: MonitorState;
 }
 
+/** `a` itself when it is in shared memory, else a shared copy. */
+function inShared<T extends Float64Array | Int32Array>(a: T): T {
+  return a.buffer instanceof SharedArrayBuffer ? a : sharedCopy(a);
+}
+
 /** The structure with every array moved to shared memory (the helper reads it without a copy). */
 export function shareStructure(s: SupernodalStructure): SupernodalStructure {
   const { pair } = s;
   return {
     ...s,
     perm: sharedCopy(s.perm),
-    pair: { n: pair.n, colPtr: sharedCopy(pair.colPtr), rowIdx: sharedCopy(pair.rowIdx), stiffness: sharedCopy(pair.stiffness), mass: sharedCopy(pair.mass) },
+    pair: {
+      n: pair.n,
+      colPtr: inShared(pair.colPtr),
+      rowIdx: inShared(pair.rowIdx),
+      stiffnessAt: inShared(pair.stiffnessAt),
+      massAt: inShared(pair.massAt),
+      // K's and M's values: copied only when the caller has no shared copy of them (shifted-solver.ts)
+      stiffnessValues: inShared(pair.stiffnessValues),
+      massValues: inShared(pair.massValues),
+    },
     superStart: sharedCopy(s.superStart),
     superOf: sharedCopy(s.superOf),
     rowPtr: sharedCopy(s.rowPtr),

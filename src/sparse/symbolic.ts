@@ -10,8 +10,8 @@
  * 5. value offsets of the dense blocks and the workspace sizes the numeric phase needs.
  */
 import type { SymmetricCsc } from './csc.js';
-import { factorStructureCounts } from './column-counts.js';
-import { permuteUnion, unionPair, type PermutedPair } from './permute.js';
+import { factorStructureCounts, type FactorStructureCounts } from './column-counts.js';
+import { permutedPair, unionPattern, type PermutedPair } from './permute.js';
 import { relabelTree } from './postorder.js';
 import { fundamentalSupernodes, relaxSupernodes } from './supernodes.js';
 
@@ -19,7 +19,7 @@ export interface SupernodalStructure {
   n: number;
   /** perm[k] = original DOF of pivot k (fill-reducing order followed by the tree postorder). */
   perm: Int32Array;
-  /** K and M in pivot order on the union pattern. */
+  /** The union pattern of K and M in pivot order, each entry pointing at its values in K and M. */
   pair: PermutedPair;
   /** Exact nnz(L) incl. diagonal (no amalgamation zeros). */
   nnzL: number;
@@ -44,11 +44,22 @@ export interface SupernodalStructure {
   maxColumns: number;
 }
 
-export function analyzeShiftedPair(stiffness: SymmetricCsc, mass: SymmetricCsc, order: Int32Array): SupernodalStructure {
+/**
+ * `tree`: the elimination tree, its postorder and the column counts of the union pattern under
+ * `order` when the caller has them already (the ordering counts them, ordering/fill-count.ts);
+ * otherwise they are computed here. `allocatePair` makes the pair's index arrays (shared
+ * memory when helper threads may factor, so they need no second copy).
+ */
+export function analyzeShiftedPair(
+  stiffness: SymmetricCsc,
+  mass: SymmetricCsc,
+  order: Int32Array,
+  tree?: FactorStructureCounts,
+  allocatePair?: (length: number) => Int32Array,
+): SupernodalStructure {
   const n = stiffness.n;
-  // K and M merged once; the tree and counts of the first order need its pattern only
-  const union = unionPair(stiffness, mass);
-  const first = factorStructureCounts(union, order);
+  // the tree and counts of the first order need the union pattern only
+  const first = tree ?? factorStructureCounts(unionPattern(stiffness, mass), order);
   const perm = new Int32Array(n);
   const counts = new Int32Array(n);
   let nnzL = 0;
@@ -59,7 +70,7 @@ export function analyzeShiftedPair(stiffness: SymmetricCsc, mass: SymmetricCsc, 
     nnzL += counts[k];
   }
   const parent = relabelTree(first.parent, first.post);
-  const pair = permuteUnion(union, perm);
+  const pair = permutedPair(stiffness, mass, perm, allocatePair);
   const fundamental = fundamentalSupernodes(parent, counts);
   const fundamentalRows = supernodeRows(pair, fundamental, superOfColumns(fundamental, n), parent);
   const superStart = relaxSupernodes(fundamental, parent, fundamentalRows.rowPtr, fundamentalRows.rows);

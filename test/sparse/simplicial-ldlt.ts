@@ -5,7 +5,7 @@
  * supernodal factorization (no blocking, no amalgamation), small enough to read at once.
  */
 import type { PermutedPair } from '../../src/sparse/permute.js';
-import { transposePattern } from '../../src/sparse/permute.js';
+import { shiftedEntry, transposePattern } from '../../src/sparse/permute.js';
 import type { PivotMonitor } from '../../src/sparse/pivot-monitor.js';
 
 export interface SimplicialFactor {
@@ -46,7 +46,7 @@ export function simplicialLdlt(
     for (let p = up.colPtr[k]; p < up.colPtr[k + 1]; p++) {
       let i = up.rowIdx[p];
       const q = map[p];
-      const v = pair.stiffness[q] - shift * pair.mass[q];
+      const v = shiftedEntry(pair, q, shift);
       if (i === k) {
         akk = v;
         continue;

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { factorStructureCounts } from '../../src/sparse/column-counts.js';
 import { supernodalLdlt } from '../../src/sparse/numeric-ldlt.js';
 import { chooseOrdering } from '../../src/sparse/ordering/choose-ordering.js';
-import { permuteSymmetric } from '../../src/sparse/permute.js';
+import { permuteSymmetric, shiftedEntry } from '../../src/sparse/permute.js';
 import { PivotMonitor } from '../../src/sparse/pivot-monitor.js';
 import { simplicialLdlt } from './simplicial-ldlt.js';
 import { analyzeShiftedPair } from '../../src/sparse/symbolic.js';
@@ -58,7 +58,7 @@ describe('supernodal structure and numeric factor', () => {
     const shift = 1.7;
     const sup = supernodalLdlt(s, shift, new PivotMonitor(1e-13, 1));
     const identity = Int32Array.from({ length: s.n }, (_, i) => i);
-    const pattern = { n: s.n, colPtr: s.pair.colPtr, rowIdx: s.pair.rowIdx, values: s.pair.stiffness };
+    const pattern = { n: s.n, colPtr: s.pair.colPtr, rowIdx: s.pair.rowIdx };
     const t = factorStructureCounts(pattern, identity);
     const ref = simplicialLdlt(s.pair, shift, t.parent, t.counts, new PivotMonitor(1e-13, 1));
     expect(t.nnzL).toBe(s.nnzL);
@@ -71,7 +71,7 @@ describe('supernodal structure and numeric factor', () => {
     // the permuted pair's lower storage, both triangles filled
     for (let j = 0; j < s.n; j++) {
       for (let p = s.pair.colPtr[j]; p < s.pair.colPtr[j + 1]; p++) {
-        const v = s.pair.stiffness[p] + s.pair.mass[p];
+        const v = shiftedEntry(s.pair, p, -1);
         dense.set(s.pair.rowIdx[p], j, v);
         dense.set(j, s.pair.rowIdx[p], v);
       }

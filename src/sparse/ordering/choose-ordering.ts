@@ -31,6 +31,7 @@ import { multilevelNestedDissection } from './multilevel-bisection.js';
 import { graphNestedDissection } from './nested-dissection.js';
 import { coordinateBisection } from './coordinate-bisection.js';
 import { factorCountsOfGraph } from './fill-count.js';
+import type { FactorStructureCounts } from '../column-counts.js';
 
 export interface ChooseOrderingOptions {
   ordering?: 'auto' | OrderingName;
@@ -71,6 +72,8 @@ export interface OrderingChoice {
   graphMs: number;
   /** Why 'auto' left the graph nested dissection out, when it did. */
   skipped?: string;
+  /** Elimination tree, postorder and column counts of the union pattern under `perm` (absent with a caller's predictNnzL). */
+  tree?: FactorStructureCounts;
 }
 
 /** The union pattern of K and M as a lower-storage SymmetricCsc with unit values (for counting). */
@@ -163,9 +166,9 @@ export function chooseOrdering(
   const sv = findSupervariables(graph, { nodeOfVertex: options.nodeOfDof, coordinates: options.coordinates });
   const graphMs = performance.now() - t0;
   // exact count straight off the DOF graph (fill-count.ts): no permuted copy of the pattern
-  const counted = new Map<Int32Array, { nnzL: number; flops: number }>();
+  const counted = new Map<Int32Array, { nnzL: number; flops: number; tree?: FactorStructureCounts }>();
   // each permutation is counted once, however often it is compared (flops unknown with a caller's predictor)
-  const counts = (perm: Int32Array): { nnzL: number; flops: number } => {
+  const counts = (perm: Int32Array): { nnzL: number; flops: number; tree?: FactorStructureCounts } => {
     if (!counted.has(perm)) counted.set(perm, options.predictNnzL ? { nnzL: options.predictNnzL(perm), flops: Infinity } : factorCountsOfGraph(graph, perm));
     return counted.get(perm)!;
   };
@@ -191,6 +194,7 @@ export function chooseOrdering(
     if (flops >= minFlops) tryOrdering('nested-dissection');
     else skipped = `nested dissection not computed: ${best!.name} needs ${flops.toExponential(2)} flops, below ${minFlops.toExponential(0)}`;
   }
+  const tree = counts(best!.perm).tree;
   return {
     perm: best!.perm,
     name: best!.name,
@@ -199,5 +203,6 @@ export function chooseOrdering(
     supervariables: sv.count,
     graphMs,
     ...(skipped ? { skipped } : {}),
+    ...(tree ? { tree } : {}),
   };
 }

@@ -29,6 +29,7 @@
 import type { AdjacencyGraph } from './adjacency-graph.js';
 import { postorderTree } from '../postorder.js';
 import { columnFlops } from '../symbolic.js';
+import type { FactorStructureCounts } from '../column-counts.js';
 
 /** Exact nnz(L), unit diagonal included, of P A Pᵀ with A of the graph's pattern (perm[k] = k-th pivot). */
 export function factorNonzerosOfGraph(graph: AdjacencyGraph, perm: Int32Array): number {
@@ -43,6 +44,11 @@ export interface FactorCounts {
    * r(r+1)/2 multiply-adds): the count symbolic.ts makes per supernode, here per column.
    */
   flops: number;
+  /**
+   * The elimination tree of P A Pᵀ, its postorder and the column counts (diagonal included) the
+   * figures were summed from: what symbolic.ts would otherwise compute again for the winner.
+   */
+  tree: FactorStructureCounts;
 }
 
 /** nnz(L) and factorization flops of P A Pᵀ (see factorNonzerosOfGraph). */
@@ -120,5 +126,5 @@ export function factorCountsOfGraph(graph: AdjacencyGraph, perm: Int32Array): Fa
     nnz += delta[j];
     flops += columnFlops(delta[j] - 1);
   }
-  return { nnzL: nnz, flops };
+  return { nnzL: nnz, flops, tree: { parent, post, counts: delta, nnzL: nnz } };
 }
