@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import wabt from 'wabt';
 import { sweepModuleBytes } from '../../src/sparse/simd-sweep-kernels.js';
 import { tileModuleBytes } from '../../src/sparse/wasm-tile-kernel.js';
+import { symProductModuleBytes } from '../../src/sparse/sym-product-kernel.js';
 
 /** wabt (npm `wabt`, the WebAssembly Binary Toolkit built for npm; a devDependency). */
 /** wabt's text form of `bytes` (validated on reading: SIMD and shared memory enabled). */
@@ -27,5 +28,9 @@ describe('hand-assembled WebAssembly modules', () => {
 
   it('the sweep kernel module disassembles to the committed text', async () => {
     await expect(await disassemble(sweepModuleBytes())).toMatchFileSnapshot('./wasm/sweep-kernels.wat');
+  });
+
+  it('the symmetric product kernel module disassembles to the committed text', async () => {
+    await expect(await disassemble(symProductModuleBytes())).toMatchFileSnapshot('./wasm/sym-product-kernel.wat');
   });
 });

@@ -1,0 +1,116 @@
+/**
+ * The SIMD product kernel Y = A X (src/sparse/sym-product-kernel.ts) against the plain loops of
+ * src/sparse/csc.ts (which test/sparse/csc-products.test.ts checks against ml-matrix's dense
+ * product): the same operations in the same order per entry, so the products agree bit for bit
+ * (−0 and 0 alike), for every column count 1 … 7 and wider blocks, row counts of either parity,
+ * columns without a stored diagonal or without any entry, and the product split over column
+ * ranges into separate regions and added in region order as the helper threads do.
+ */
+import { afterEach, describe, expect, it } from 'vitest';
+import { symMultiplyColumns, type SymmetricCsc } from '../../src/sparse/csc.js';
+import { gatherRegion, KERNEL_COLUMNS, kernelMatrix, regionProduct, stageColumns, useSimdProductKernels, type KernelMatrix } from '../../src/sparse/sym-product-kernel.js';
+import { buildTetBox } from '../../fixtures/generator/tet-bracket.js';
+import { hexGridPair, seededRandom } from './fe-like-matrices.js';
+
+/** A random symmetric pattern (lower storage) of n rows: some diagonals and some whole columns missing. */
+function randomLower(n: number, seed: number): SymmetricCsc {
+  const rnd = seededRandom(seed);
+  const colPtr = new Int32Array(n + 1);
+  const rows: number[] = [];
+  const values: number[] = [];
+  for (let j = 0; j < n; j++) {
+    if (rnd() < 0.1) {
+      colPtr[j + 1] = rows.length;
+      continue;
+    }
+    if (rnd() < 0.8) {
+      rows.push(j);
+      values.push(rnd() + 1);
+    }
+    for (let i = j + 1; i < n; i++) {
+      if (rnd() < 0.2) {
+        rows.push(i);
+        values.push(rnd() - 0.5);
+      }
+    }
+    colPtr[j + 1] = rows.length;
+  }
+  return { n, colPtr, rowIdx: Int32Array.from(rows), values: Float64Array.from(values) };
+}
+
+/** Y = A X through the kernel, the stored columns cut at `cuts` into one region each, regions added in order. */
+function kernelProduct(home: KernelMatrix, x: Float64Array, k: number, cuts: number[]): Float64Array {
+  const n = home.n;
+  const y = new Float64Array(n * k);
+  const bounds = [0, ...cuts, n];
+  for (let c0 = 0; c0 < k; c0 += KERNEL_COLUMNS) {
+    const w = Math.min(KERNEL_COLUMNS, k - c0);
+    stageColumns(home, x, c0, w);
+    for (let t = 0; t + 1 < bounds.length; t++) regionProduct(home, w, bounds[t], bounds[t + 1], t);
+    for (let t = 0; t + 1 < bounds.length; t++) gatherRegion(home, t, w, y, c0, bounds[t], t > 0);
+  }
+  return y;
+}
+
+/** The plain product split the same way (csc.ts symMultiplyColumns into separate outputs, added in order). */
+function plainProduct(a: SymmetricCsc, x: Float64Array, k: number, cuts: number[]): Float64Array {
+  const n = a.n;
+  const bounds = [0, ...cuts, n];
+  const y = new Float64Array(n * k);
+  for (let t = 0; t + 1 < bounds.length; t++) {
+    const part = new Float64Array(n * k);
+    symMultiplyColumns(a, x, k, part, bounds[t], bounds[t + 1]);
+    for (let i = 0; i < n * k; i++) y[i] += part[i];
+  }
+  return y;
+}
+
+/** The first index where x and y differ as numbers (−0 equals 0), or −1. */
+function firstDifference(x: Float64Array, y: Float64Array): number {
+  if (x.length !== y.length) return Math.min(x.length, y.length);
+  for (let i = 0; i < x.length; i++) if (x[i] !== y[i]) return i;
+  return -1;
+}
+
+const matrices: { name: string; a: () => SymmetricCsc }[] = [
+  { name: 'hex grid stiffness (3×3×2 cells, 144 rows)', a: () => hexGridPair(3, 3, 2, 9).stiffness },
+  { name: 'hex grid lumped mass (diagonal only)', a: () => hexGridPair(3, 3, 2, 9).mass },
+  { name: 'quadratic-tet box stiffness, shuffled numbering', a: () => buildTetBox({ sizeM: [0.03, 0.02, 0.02], cells: [3, 2, 2], order: 2, seed: 4 }).stiffness },
+  { name: 'random pattern, 37 rows, diagonals and columns missing', a: () => randomLower(37, 5) },
+];
+
+describe('SIMD symmetric product kernel', () => {
+  afterEach(() => {
+    useSimdProductKernels(true);
+  });
+
+  it('is available on Node 20 and can be switched off', () => {
+    const a = randomLower(10, 1);
+    expect(useSimdProductKernels(true)).toBe(true);
+    expect(kernelMatrix(a, 1)).not.toBeNull();
+    useSimdProductKernels(false);
+    expect(kernelMatrix(a, 1)).toBeNull();
+  });
+
+  it.each(matrices)('places the matrix once, as views of its memory: $name', ({ a }) => {
+    const m = a();
+    const placed = kernelMatrix(m, 2)!;
+    expect(placed.matrix.values.buffer).toBe(placed.matrix.colPtr.buffer);
+    expect(placed.matrix.values.buffer).toBe(placed.matrix.rowIdx.buffer);
+    expect(Array.from(placed.matrix.colPtr)).toEqual(Array.from(m.colPtr));
+    expect(Array.from(placed.matrix.rowIdx)).toEqual(Array.from(m.rowIdx));
+    expect(firstDifference(placed.matrix.values, m.values)).toBe(-1);
+  });
+
+  it.each(matrices)('equals the plain product bit for bit for 1 … 7, 9 and 13 columns, whole and split three ways: $name', ({ a }) => {
+    const m = a();
+    const n = m.n;
+    const { home } = kernelMatrix(m, 3)!;
+    const cuts = [Math.floor(n / 5), Math.floor((2 * n) / 3)];
+    for (const k of [1, 2, 3, 4, 5, 6, 7, 9, 13]) {
+      const x = Float64Array.from({ length: n * k }, (_, i) => Math.sin(0.37 * i + k) - 0.1);
+      expect(firstDifference(kernelProduct(home, x, k, []), plainProduct(m, x, k, []))).toBe(-1);
+      expect(firstDifference(kernelProduct(home, x, k, cuts), plainProduct(m, x, k, cuts))).toBe(-1);
+    }
+  });
+});
