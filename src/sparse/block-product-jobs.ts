@@ -4,15 +4,25 @@
  * (src/eigen/shared-block-products.ts) and the split product with a shared matrix.
  */
 import { addTimesSmall, timesSmallInPlace, transposeTimes } from '../dense/block-ops.js';
+import { adoptHome, type BlockHome } from '../dense/simd-block-kernels.js';
 import { symMultiplyColumns, type SymmetricCsc } from './csc.js';
 import { alongsideAll, availableThreads, inSharedMemory, sharedCopy, sharedScratch, startHelpers, type Answer } from './helper-thread.js';
 import { gatherRegion, KERNEL_COLUMNS, kernelMatrix, regionProduct, stageColumns, type KernelMatrix } from './sym-product-kernel.js';
 
+/**
+ * Where a basis product's block A lives when it is a SIMD kernel block (its memory, so the helper
+ * can run the kernels there, and the helper's staging region in it), else undefined.
+ */
+export interface KernelPlace {
+  home?: BlockHome;
+  region: number;
+}
+
 /** Block products on shared arrays that a helper runs on a share of the rows or columns. */
 export type BlockProductJob =
-  | { kind: 'transposeTimes'; a: Float64Array; b: Float64Array; rows: number; p: number; q: number; out: Float64Array; rowFrom: number; rowTo: number }
-  | { kind: 'addTimesSmall'; c: Float64Array; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; alpha: number; rowFrom: number; rowTo: number }
-  | { kind: 'timesSmallInPlace'; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; rowFrom: number; rowTo: number }
+  | ({ kind: 'transposeTimes'; a: Float64Array; b: Float64Array; rows: number; p: number; q: number; out: Float64Array; rowFrom: number; rowTo: number } & KernelPlace)
+  | ({ kind: 'addTimesSmall'; c: Float64Array; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; alpha: number; rowFrom: number; rowTo: number } & KernelPlace)
+  | ({ kind: 'timesSmallInPlace'; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; rowFrom: number; rowTo: number } & KernelPlace)
   | { kind: 'symMultiply'; a: SymmetricCsc; x: Float64Array; k: number; y: Float64Array; colFrom: number; colTo: number }
   | { kind: 'symMultiplyKernel'; home: KernelMatrix; w: number; colFrom: number; colTo: number; region: number };
 
@@ -168,11 +178,13 @@ const DONE: Answer = { kind: 'done' };
 /** The helper's handlers of these jobs (helper-worker.ts). */
 export const blockProductHandlers = {
   transposeTimes(job: Extract<BlockProductJob, { kind: 'transposeTimes' }>): Answer {
-    transposeTimes(job.a, job.b, job.rows, job.p, job.q, job.out, job.rowFrom, job.rowTo);
+    if (job.home) adoptHome(job.a, job.home);
+    transposeTimes(job.a, job.b, job.rows, job.p, job.q, job.out, job.rowFrom, job.rowTo, job.region);
     return DONE;
   },
   addTimesSmall(job: Extract<BlockProductJob, { kind: 'addTimesSmall' }>): Answer {
-    addTimesSmall(job.c, job.a, job.rows, job.p, job.s, job.q, job.alpha, job.rowFrom, job.rowTo);
+    if (job.home) adoptHome(job.a, job.home);
+    addTimesSmall(job.c, job.a, job.rows, job.p, job.s, job.q, job.alpha, job.rowFrom, job.rowTo, job.region);
     return DONE;
   },
   symMultiply(job: Extract<BlockProductJob, { kind: 'symMultiply' }>): Answer {
@@ -184,7 +196,8 @@ export const blockProductHandlers = {
     return DONE;
   },
   timesSmallInPlace(job: Extract<BlockProductJob, { kind: 'timesSmallInPlace' }>): Answer {
-    timesSmallInPlace(job.a, job.rows, job.p, job.s, job.q, job.rowFrom, job.rowTo);
+    if (job.home) adoptHome(job.a, job.home);
+    timesSmallInPlace(job.a, job.rows, job.p, job.s, job.q, job.rowFrom, job.rowTo, job.region);
     return DONE;
   },
 };

@@ -152,6 +152,7 @@ describe('basis and K/M products split N ways, from the compiled modules', () =>
   it('equal the one-thread kernels (src/dense/block-ops.ts, csc.ts) to rounding, bit for bit at a fixed N', async () => {
     const shared = await load<typeof import('../../src/eigen/shared-block-products.js')>('eigen/shared-block-products.js');
     const jobs = await load<typeof import('../../src/sparse/block-product-jobs.js')>('sparse/block-product-jobs.js');
+    const blockKernels = await load<typeof import('../../src/dense/simd-block-kernels.js')>('dense/simd-block-kernels.js');
     const { setThreadCount } = await threadsModule();
     const { addTimesSmall, timesSmallInPlace, transposeTimes } = await import('../../src/dense/block-ops.js');
     // 20 011 × 40 × 12 multiply-adds: four shares of at least SPLIT_MIN_WORK
@@ -173,7 +174,9 @@ describe('basis and K/M products split N ways, from the compiled modules', () =>
     for (const threads of THREAD_COUNTS) {
       setThreadCount(threads);
       const basis = shared.basisBlock(rows * p);
-      expect(basis.buffer instanceof SharedArrayBuffer).toBe(threads >= 2);
+      // in a SIMD kernel block (shared WebAssembly memory) on any N; its products are bit-identical to the plain loops
+      expect(blockKernels.homeOf(basis)).toBeDefined();
+      expect(basis.buffer instanceof SharedArrayBuffer).toBe(true);
       basis.set(values);
       // P = VᵀX: partial sums added in share order
       const p1 = shared.basisTransposeTimes(basis, x, rows, p, q);

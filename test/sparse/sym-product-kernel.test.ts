@@ -88,6 +88,13 @@ describe('SIMD symmetric product kernel', () => {
     const a = randomLower(10, 1);
     expect(useSimdProductKernels(true)).toBe(true);
     expect(kernelMatrix(a, 1)).not.toBeNull();
+    // the product runs in the kernel: its row-major output region is written
+    const placed = kernelMatrix(a, 1)!;
+    const x = new Float64Array(10 * 3).fill(1);
+    stageColumns(placed.home, x, 0, 3);
+    regionProduct(placed.home, 3, 0, 10, 0);
+    const memory = new Float64Array(placed.home.memory.buffer);
+    expect(memory.subarray(placed.home.yAt / 8, placed.home.yAt / 8 + 40).some((v) => v !== 0)).toBe(true);
     useSimdProductKernels(false);
     expect(kernelMatrix(a, 1)).toBeNull();
   });

@@ -9,6 +9,7 @@ import wabt from 'wabt';
 import { sweepModuleBytes } from '../../src/sparse/simd-sweep-kernels.js';
 import { tileModuleBytes } from '../../src/sparse/wasm-tile-kernel.js';
 import { symProductModuleBytes } from '../../src/sparse/sym-product-kernel.js';
+import { blockModuleBytes } from '../../src/dense/simd-block-kernels.js';
 
 /** wabt (npm `wabt`, the WebAssembly Binary Toolkit built for npm; a devDependency). */
 /** wabt's text form of `bytes` (validated on reading: SIMD and shared memory enabled). */
@@ -32,5 +33,9 @@ describe('hand-assembled WebAssembly modules', () => {
 
   it('the symmetric product kernel module disassembles to the committed text', async () => {
     await expect(await disassemble(symProductModuleBytes())).toMatchFileSnapshot('./wasm/sym-product-kernel.wat');
+  });
+
+  it('the basis-product kernel module (src/dense) disassembles to the committed text', async () => {
+    await expect(await disassemble(blockModuleBytes())).toMatchFileSnapshot('./wasm/block-kernels.wat');
   });
 });

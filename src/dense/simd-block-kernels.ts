@@ -1,0 +1,198 @@
+/**
+ * The thin-block products of block-ops.ts with a large block A (the Krylov basis, rows × p,
+ * column-major, p up to a few hundred) as WebAssembly SIMD kernels (two doubles per vector),
+ * over a shared memory that holds A itself (`kernelBlock` allocates the basis there).
+ *
+ * Two products, each with the operations of block-ops.ts's plain loops in the same order for
+ * every entry, so the results are bit-identical to them (and thread shares by rows change
+ * nothing but where the rows are computed):
+ *
+ *   dots     out(h, j) += Σ_{r ∈ chunk} A(r, h) B(r, j)   (transposeTimes)
+ *            The chunk of B (at most ROW_CHUNK rows, the chunks of block-ops.ts) is staged
+ *            row-major with its columns paired, so B(r, j), B(r, j+1) is one vector; each lane
+ *            sums one (h, j) over the chunk's rows in order from zero, as dots3x3's scalar sums
+ *            do, and the sums are added to out after the chunk. Tiles of u ≤ 4 columns of A and
+ *            v ≤ 2 column pairs of B: per row, u broadcasts of A(r, h), v loads of B, u·v
+ *            multiply-adds into u·v accumulators (≤ 8 + 2 + 2 live vector values).
+ *   combine  C(r, j) += Σ_{v<6} T(v, j) A(r, l_v)           (addTimesSmall, timesSmallInPlace)
+ *            One panel of six columns of A (block-ops.ts panelCoefficients: the columns l_v are
+ *            passed one by one, so the last panel's overlap and a repeated column need nothing
+ *            here) against every column j of the staged chunk of C (column-major, rows in pairs):
+ *            the six coefficients of column j broadcast into locals, then per row pair the
+ *            six-term sum (((T0 A0 + T1 A1) + T2 A2) + …) + C, as the panel6x6 expression.
+ *            An odd last row of a chunk is left to the caller.
+ *
+ * Memory (`kernelBlock`, byte offsets): the block (its `length` doubles) from 0, then one staging
+ * region of STAGE_DOUBLES per thread that may take a row share (region 0: the thread that owns
+ * the block; region t: helper t − 1): the staged chunk of B or C, the coefficients T and the
+ * sums out. Untouched pages of a region cost no resident memory. The registry maps a block's
+ * buffer to its memory, so block-ops.ts finds the kernels from the array alone; a helper thread
+ * registers the buffer its job brought (`adoptHome`).
+ *
+ * kernelBlock returns null where WebAssembly, its SIMD or shared memory is missing, when the
+ * kernels are switched off (useSimdBlockKernels), or past 4 GiB; the plain loops then run.
+ */
+import { addTo, assembleModule, countdown, Locals, loopUntil, mulAddTo, op } from '../wasm/wasm-bytes.js';
+import { compileOnce, instantiate, MAX_PAGES, PAGE_BYTES, sharedMemory, type WasmMemory } from '../wasm/wasm-runtime.js';
+
+/** Doubles of one thread's staging region (2 MiB; only what a product uses is touched). */
+export const STAGE_DOUBLES = 1 << 18;
+
+/** A block in a shared WebAssembly memory, with its staging regions. */
+export interface BlockHome {
+  memory: WasmMemory;
+  /** Tells memories apart in a helper thread, where each job brings a fresh copy of this object. */
+  id: number;
+  /** First double of staging region 0 (after the block). */
+  stageAt: number;
+  regions: number;
+}
+
+type Dots = (pA: number, ldA: number, groups: number, pB: number, ldB: number, rows: number, pOut: number, ldOut: number) => void;
+type Combine = (a0: number, a1: number, a2: number, a3: number, a4: number, a5: number, pairs: number, pT: number, q: number, pC: number, ldC: number) => void;
+
+/** This thread's kernels over one block's memory. */
+export interface BoundKernels {
+  heap: Float64Array;
+  /** dots[u][v]: u = 1 … 4 columns of A, v = 1 … 2 column pairs of B. */
+  dots: Dots[][];
+  combine: Combine;
+}
+
+const { localGet: get, localSet: set, i32Const: i32, i32Add: ADD, i32Mul: MUL } = op;
+const { v128Load: vload, v128Splat64: vsplat, v128Zero: vzero, v128Store: vstore, f64x2Add: vadd, f64x2Mul: vmul, f64x2ExtractLane: lane } = op;
+
+/** dots(pA, ldA, groups, pB, ldB, rows, pOut, ldOut), addresses and strides in bytes. */
+function dotsBody(u: number, v: number): number[] {
+  const locals = new Locals(8);
+  const [pA, ldA, groups, pB, ldB, rows, pOut, ldOut] = locals.params;
+  const pa = locals.i32(u); // A(r, h) of the current row
+  const pb = locals.i32();
+  const left = locals.i32();
+  const addr = locals.i32();
+  const acc = locals.v128(u * v); // acc[h·v + e]: lanes (h, 2e), (h, 2e + 1)
+  const b = locals.v128(v);
+  const s = locals.v128();
+  const group: number[] = [];
+  for (let q = 0; q < u * v; q++) group.push(...vzero, ...set(acc + q));
+  for (let h = 0; h < u; h++) group.push(...get(pA), ...(h > 0 ? [...get(ldA), ...i32(h), ...MUL, ...ADD] : []), ...set(pa + h));
+  group.push(...get(pB), ...set(pb), ...get(rows), ...set(left));
+  // one row: B(r, 2e … 2e+1) for each pair, then each A(r, h) against them
+  const row: number[] = [];
+  for (let e = 0; e < v; e++) row.push(...get(pb), ...vload(16 * e), ...set(b + e));
+  for (let h = 0; h < u; h++) {
+    row.push(...get(pa + h), ...vsplat(0), ...set(s));
+    for (let e = 0; e < v; e++) row.push(...mulAddTo(acc + h * v + e, s, b + e));
+    row.push(...addTo(pa + h, i32(8)));
+  }
+  row.push(...addTo(pb, get(ldB)));
+  group.push(...countdown(left, row));
+  // out(h, 2e + l) += lane l of acc[h][e]
+  for (let e = 0; e < v; e++) {
+    for (let l = 0; l < 2; l++) {
+      group.push(...get(pOut), ...get(ldOut), ...i32(2 * e + l), ...MUL, ...ADD, ...set(addr));
+      for (let h = 0; h < u; h++) group.push(...get(addr), ...get(addr), ...op.f64Load(8 * h), ...get(acc + h * v + e), ...lane(l), ...op.f64Add, ...op.f64Store(8 * h));
+    }
+  }
+  // the next group of u columns of A and rows of out
+  group.push(...addTo(pA, [...get(ldA), ...i32(u), ...MUL]), ...addTo(pOut, i32(8 * u)));
+  return locals.body(countdown(groups, group));
+}
+
+/** combine(a0 … a5, pairs, pT, q, pC, ldC), addresses and strides in bytes. */
+function combineBody(): number[] {
+  const locals = new Locals(11);
+  const params = locals.params;
+  const pa = params.slice(0, 6);
+  const [pairs, pT, q, pC, ldC] = params.slice(6);
+  const o = locals.i32(); // byte offset of the row pair
+  const end = locals.i32();
+  const c = locals.i32();
+  const t = locals.v128(6);
+  const acc = locals.v128();
+  const x = locals.v128();
+  const column: number[] = [];
+  // T(0 … 5, j) broadcast
+  for (let w = 0; w < 6; w++) column.push(...get(pT), ...vsplat(8 * w), ...set(t + w));
+  column.push(...i32(0), ...set(o));
+  // C(r, j) += (((T0 A(r, l0) + T1 A(r, l1)) + …) + T5 A(r, l5)), two rows at a time
+  const pair: number[] = [...get(pa[0]), ...get(o), ...ADD, ...vload(0), ...get(t), ...vmul, ...set(acc)];
+  for (let w = 1; w < 6; w++) pair.push(...get(pa[w]), ...get(o), ...ADD, ...vload(0), ...set(x), ...mulAddTo(acc, x, t + w));
+  pair.push(...get(pC), ...get(o), ...ADD, ...set(c), ...get(c), ...get(c), ...vload(0), ...get(acc), ...vadd, ...vstore(0));
+  pair.push(...addTo(o, i32(16)));
+  column.push(...loopUntil([...get(o), ...get(end), ...op.i32GeU], pair));
+  column.push(...addTo(pT, i32(48)), ...addTo(pC, get(ldC)));
+  return locals.body([...get(pairs), ...i32(16), ...MUL, ...set(end), ...countdown(q, column)]);
+}
+
+/** The module's bytes (compiled once below; exported for the disassembly snapshot test). */
+export function blockModuleBytes(): Uint8Array {
+  const functions = [{ params: 11, name: 'combine', body: combineBody() }];
+  for (let u = 1; u <= 4; u++) for (let v = 1; v <= 2; v++) functions.push({ params: 8, name: `d${u}${v}`, body: dotsBody(u, v) });
+  return assembleModule(MAX_PAGES, functions);
+}
+
+const compiledModule = compileOnce(blockModuleBytes);
+let enabled = true;
+let blockCount = 0;
+
+/**
+ * Turns the SIMD block kernels on or off for blocks allocated from now on (default on where
+ * available); the plain loops of block-ops.ts compute the same bits. Returns whether they are
+ * in use. For tests and benchmarks of the fallback.
+ */
+export function useSimdBlockKernels(on: boolean): boolean {
+  enabled = on;
+  return on && compiledModule() !== null;
+}
+
+/** Each kernel block's memory, by its buffer (this thread's registry). */
+const homes = new WeakMap<ArrayBufferLike, BlockHome>();
+
+/**
+ * `length` zeroed doubles in a shared WebAssembly memory with `regions` staging regions after
+ * them; null when the kernels are off or unavailable, or past 4 GiB.
+ */
+export function kernelBlock(length: number, regions: number): Float64Array | null {
+  if (!enabled || compiledModule() === null) return null;
+  const stageAt = Math.ceil(length / 2) * 2;
+  const pages = Math.ceil((8 * (stageAt + regions * STAGE_DOUBLES)) / PAGE_BYTES);
+  if (pages > MAX_PAGES - 1) return null;
+  let memory: WasmMemory;
+  try {
+    memory = sharedMemory(Math.max(1, pages));
+  } catch {
+    return null;
+  }
+  homes.set(memory.buffer, { memory, id: ++blockCount + Math.random(), stageAt, regions });
+  return new Float64Array(memory.buffer, 0, length);
+}
+
+/** The memory `a` lives in, when it is a kernel block (or a part of one) known to this thread. */
+export function homeOf(a: Float64Array): BlockHome | undefined {
+  return homes.get(a.buffer);
+}
+
+/** Makes `a`'s buffer known as a view of `home` (a helper thread, for the arrays its job brought). */
+export function adoptHome(a: Float64Array, home: BlockHome): void {
+  homes.set(a.buffer, home);
+}
+
+/**
+ * Instances by memory id, weakly held: a helper gets a fresh copy of the memory object with
+ * every job and must not keep a dead basis alive; an instance costs ~25 µs.
+ */
+const bound = new Map<number, WeakRef<BoundKernels>>();
+
+/** This thread's kernels over `home`'s memory. */
+export function kernelsOf(home: BlockHome): BoundKernels {
+  const known = bound.get(home.id)?.deref();
+  if (known !== undefined) return known;
+  const exports = instantiate(compiledModule()!, home.memory);
+  const dots = [[], ...[1, 2, 3, 4].map((u) => [() => {}, exports[`d${u}1`], exports[`d${u}2`]])] as Dots[][];
+  const kernels: BoundKernels = { heap: new Float64Array(home.memory.buffer), dots, combine: exports.combine as Combine };
+  // forget the ids whose instances were collected
+  if (bound.size > 16) for (const [id, ref] of bound) if (ref.deref() === undefined) bound.delete(id);
+  bound.set(home.id, new WeakRef(kernels));
+  return kernels;
+}
