@@ -26,25 +26,16 @@
  * tiles and that 4-wide loop: transposeTimes about 1.5×, addTimesSmall, timesSmall and
  * timesSmallInPlace 2.5–2.9× faster.
  *
- * When A lives in a kernel block (simd-block-kernels.ts: the Krylov basis, allocated in a shared
- * WebAssembly memory) and the product is not tiny, transposeTimes, addTimesSmall, timesSmall and
- * timesSmallInPlace run as WebAssembly SIMD kernels instead, with the same operations in the
- * same order per entry: the results are bit-identical either way. `region` is the staging
- * region of the calling thread (0 here, t on helper t − 1).
+ * transposeTimes, addTimesSmall, timesSmall and timesSmallInPlace run as WebAssembly SIMD kernels
+ * (simd-block-kernels.ts) when the product is not tiny: in place when A lives in a kernel block
+ * (the Krylov basis, allocated in a shared WebAssembly memory), else with A's rows staged a chunk
+ * at a time when both p and q are wide enough to pay for the copy. The kernels do the same
+ * operations in the same order per entry, so the results are bit-identical either way.
+ * `region` is the calling thread's staging region in A's block (0 here, t on helper t − 1).
  */
-import { homeOf, kernelsOf, STAGE_DOUBLES, type BlockHome } from './simd-block-kernels.js';
+import { kernelPlace, simdAddPanels, simdTransposeTimes } from './simd-block-kernels.js';
 
 const ROW_CHUNK = 512;
-
-/** Fewest multiply-adds for which a product with a kernel block runs in the kernels (staging and calls cost more below; our choice). */
-const KERNEL_MIN_WORK = 20_000;
-
-/** The memory of A when the product goes to the SIMD kernels: A in a kernel block, region there, work enough, staging that fits. */
-function kernelHome(a: Float64Array, region: number, work: number, stageDoubles: number): BlockHome | null {
-  const home = homeOf(a);
-  if (home === undefined || region >= home.regions || work < KERNEL_MIN_WORK || stageDoubles > STAGE_DOUBLES) return null;
-  return home;
-}
 
 /** Columns of A combined per pass over a row chunk (and the widest tile of output columns). */
 const PANEL = 6;
@@ -62,10 +53,9 @@ export function transposeTimes(
   region = 0,
 ): Float64Array {
   out.fill(0, 0, p * q);
-  const pairs = (q + 1) >> 1;
-  const home = kernelHome(a, region, (rowTo - rowFrom) * p * q, 2 * pairs * (p + ROW_CHUNK));
-  if (home !== null) {
-    simdTransposeTimes(home, region, a, b, rows, p, q, out, rowFrom, rowTo);
+  const place = kernelPlace(a, region, rowTo - rowFrom, p, q, 'dots');
+  if (place !== null) {
+    simdTransposeTimes(place, a, b, rows, p, q, out, rowFrom, rowTo, ROW_CHUNK);
     return out;
   }
   for (let r0 = rowFrom; r0 < rowTo; r0 += ROW_CHUNK) {
@@ -76,40 +66,6 @@ export function transposeTimes(
     }
   }
   return out;
-}
-
-/**
- * transposeTimes through the dots kernels: per chunk of ROW_CHUNK rows (those of the plain loop),
- * B's rows staged row-major with its columns paired (a zero pad column when q is odd), the chunk's
- * sums added into the staged out (p × 2⌈q/2⌉, column-major), copied to `out` at the end.
- */
-function simdTransposeTimes(home: BlockHome, region: number, a: Float64Array, b: Float64Array, rows: number, p: number, q: number, out: Float64Array, rowFrom: number, rowTo: number): void {
-  const { heap, dots } = kernelsOf(home);
-  const pairs = (q + 1) >> 1;
-  const qs = 2 * pairs;
-  const outAt = home.stageAt + region * STAGE_DOUBLES;
-  const bAt = outAt + p * qs;
-  heap.fill(0, outAt, outAt + p * qs);
-  const full = p >> 2;
-  const rest = p & 3;
-  const ldA = 8 * rows;
-  for (let r0 = rowFrom; r0 < rowTo; r0 += ROW_CHUNK) {
-    const r1 = Math.min(rowTo, r0 + ROW_CHUNK);
-    const len = r1 - r0;
-    // staged B(r, j) at bAt + (r − r0) qs + j
-    for (let j = 0; j < q; j++) for (let r = r0, o = j * rows, t = bAt + j; r < r1; r++, t += qs) heap[t] = b[o + r];
-    if (q < qs) for (let r = r0, t = bAt + q; r < r1; r++, t += qs) heap[t] = 0;
-    const pA = a.byteOffset + 8 * r0;
-    // out(h, j) += Σ_r A(r, h) B(r, j): tiles of 4 columns of A (then the rest) × 2 column pairs of B (then one)
-    for (let e = 0; e < pairs; e += 2) {
-      const v = Math.min(2, pairs - e);
-      const pB = 8 * bAt + 16 * e;
-      const pOut = 8 * (outAt + 2 * e * p);
-      if (full > 0) dots[4][v](pA, ldA, full, pB, 8 * qs, len, pOut, 8 * p);
-      if (rest > 0) dots[rest][v](pA + 4 * full * ldA, ldA, 1, pB, 8 * qs, len, pOut + 32 * full, 8 * p);
-    }
-  }
-  out.set(heap.subarray(outAt, outAt + p * q));
 }
 
 /** G = AᵀA (p×p symmetric, both triangles filled). */
@@ -225,9 +181,9 @@ export function addTimesSmall(
 ): void {
   if (p <= 0 || q <= 0) return;
   const t = panelCoefficients(s, p, q, alpha);
-  const home = kernelHome(a, region, (rowTo - rowFrom) * p * q, t.length + 2 * KERNEL_CHUNK_MIN * q);
-  if (home !== null) {
-    simdAddPanels(home, region, c, rows, a, rows, p, t, q, rowFrom, rowTo, false);
+  const place = kernelPlace(a, region, rowTo - rowFrom, p, q, 'combine');
+  if (place !== null) {
+    simdAddPanels(place, c, rows, a, rows, p, t, q, panelStarts(p), rowFrom, rowTo, false);
     return;
   }
   for (let r0 = rowFrom; r0 < rowTo; r0 += ROW_CHUNK) {
@@ -244,9 +200,9 @@ export function timesSmallInPlace(a: Float64Array, rows: number, p: number, s: F
   if (q > p) throw new RangeError(`timesSmallInPlace: ${q} result columns exceed the ${p} of A`);
   if (q <= 0) return;
   const t = panelCoefficients(s, p, q, 1);
-  const home = kernelHome(a, region, (rowTo - rowFrom) * p * q, t.length + 2 * KERNEL_CHUNK_MIN * q);
-  if (home !== null) {
-    simdAddPanels(home, region, a, rows, a, rows, p, t, q, rowFrom, rowTo, true);
+  const place = kernelPlace(a, region, rowTo - rowFrom, p, q, 'combine');
+  if (place !== null) {
+    simdAddPanels(place, a, rows, a, rows, p, t, q, panelStarts(p), rowFrom, rowTo, true);
     return;
   }
   const buf = new Float64Array(ROW_CHUNK * q);
@@ -258,54 +214,6 @@ export function timesSmallInPlace(a: Float64Array, rows: number, p: number, s: F
     // (a negative column offset into buf made V8 recompile the kernels slower for every caller)
     addPanels(buf, ROW_CHUNK, a.subarray(r0), rows, p, t, q, 0, len);
     for (let j = 0; j < q; j++) a.set(buf.subarray(j * ROW_CHUNK, j * ROW_CHUNK + len), j * rows + r0);
-  }
-}
-
-/** Fewest rows per staged chunk of C in the combine kernel (fewer fall back to the plain loops). */
-const KERNEL_CHUNK_MIN = 64;
-
-/**
- * C(rowFrom:rowTo, :) += A T through the combine kernel (addPanels' sums in its order): T staged
- * once, then per chunk of rows (even, as many as fit in the staging region, at most ROW_CHUNK)
- * C's rows staged column-major — zero instead when `inPlace` (C = A, timesSmallInPlace: the
- * chunk's result replaces A's first q columns only after every panel has read them) — the
- * panels of A one after another (an odd last row by the plain expression), and the chunk
- * copied back.
- */
-function simdAddPanels(home: BlockHome, region: number, c: Float64Array, ldc: number, a: Float64Array, rows: number, p: number, t: Float64Array, q: number, rowFrom: number, rowTo: number, inPlace: boolean): void {
-  const { heap, combine } = kernelsOf(home);
-  const tAt = home.stageAt + region * STAGE_DOUBLES;
-  const cAt = tAt + t.length + (t.length & 1);
-  const chunk = Math.min(ROW_CHUNK, 2 * Math.floor((STAGE_DOUBLES - (cAt - tAt)) / (2 * q)));
-  heap.set(t, tAt);
-  const panels = Math.ceil(p / PANEL);
-  const last = p - 1;
-  const aAt = a.byteOffset / 8;
-  const cols = new Int32Array(PANEL);
-  for (let r0 = rowFrom; r0 < rowTo; r0 += chunk) {
-    const r1 = Math.min(rowTo, r0 + chunk);
-    const len = r1 - r0;
-    // C(r0:r1, j) at cAt + j·chunk
-    for (let j = 0; j < q; j++) {
-      if (inPlace) heap.fill(0, cAt + j * chunk, cAt + j * chunk + len);
-      else heap.set(c.subarray(j * ldc + r0, j * ldc + r1), cAt + j * chunk);
-    }
-    for (let g = 0; g < panels; g++) {
-      const lg = panelStart(g, p);
-      for (let v = 0; v < PANEL; v++) cols[v] = Math.min(lg + v, last) * rows + r0;
-      const tg = tAt + g * q * PANEL;
-      const at = (v: number) => 8 * (aAt + cols[v]);
-      // C(r, :) += Σ_v T(v, :) A(r, l_v) over the row pairs, then the odd last row
-      if (len > 1) combine(at(0), at(1), at(2), at(3), at(4), at(5), len >> 1, 8 * tg, q, 8 * cAt, 8 * chunk);
-      if (len & 1) {
-        const r = len - 1;
-        const x0 = a[cols[0] + r], x1 = a[cols[1] + r], x2 = a[cols[2] + r], x3 = a[cols[3] + r], x4 = a[cols[4] + r], x5 = a[cols[5] + r];
-        for (let j = 0, o = tg - tAt; j < q; j++, o += PANEL) {
-          heap[cAt + j * chunk + r] += t[o] * x0 + t[o + 1] * x1 + t[o + 2] * x2 + t[o + 3] * x3 + t[o + 4] * x4 + t[o + 5] * x5;
-        }
-      }
-    }
-    for (let j = 0; j < q; j++) c.set(heap.subarray(cAt + j * chunk, cAt + j * chunk + len), j * ldc + r0);
   }
 }
 
@@ -335,6 +243,11 @@ function panelCoefficients(s: Float64Array, p: number, q: number, alpha: number)
 /** First column of A in panel g (see panelCoefficients). */
 function panelStart(g: number, p: number): number {
   return Math.max(0, Math.min(g * PANEL, p - PANEL));
+}
+
+/** The first column of every panel (for the combine kernel). */
+function panelStarts(p: number): Int32Array {
+  return Int32Array.from({ length: Math.ceil(p / PANEL) }, (_, g) => panelStart(g, p));
 }
 
 /**

@@ -27,7 +27,10 @@
  * the block; region t: helper t − 1): the staged chunk of B or C, the coefficients T and the
  * sums out. Untouched pages of a region cost no resident memory. The registry maps a block's
  * buffer to its memory, so block-ops.ts finds the kernels from the array alone; a helper thread
- * registers the buffer its job brought (`adoptHome`).
+ * registers the buffer its job brought (`adoptHome`). A product whose A is not in a kernel block
+ * (the M- and K-images of a Rayleigh–Ritz basis, a thin block against itself) runs in this
+ * thread's own scratch memory with A's rows staged too, when p and q are both at least
+ * STAGED_MIN_COLUMNS (copying a row of A costs about p multiply-adds' time; the product p·q).
  *
  * kernelBlock returns null where WebAssembly, its SIMD or shared memory is missing, when the
  * kernels are switched off (useSimdBlockKernels), or past 4 GiB; the plain loops then run.
@@ -149,11 +152,8 @@ export function useSimdBlockKernels(on: boolean): boolean {
 /** Each kernel block's memory, by its buffer (this thread's registry). */
 const homes = new WeakMap<ArrayBufferLike, BlockHome>();
 
-/**
- * `length` zeroed doubles in a shared WebAssembly memory with `regions` staging regions after
- * them; null when the kernels are off or unavailable, or past 4 GiB.
- */
-export function kernelBlock(length: number, regions: number): Float64Array | null {
+/** A memory of `length` doubles and `regions` staging regions, registered; null when unavailable. */
+function allocate(length: number, regions: number): BlockHome | null {
   if (!enabled || compiledModule() === null) return null;
   const stageAt = Math.ceil(length / 2) * 2;
   const pages = Math.ceil((8 * (stageAt + regions * STAGE_DOUBLES)) / PAGE_BYTES);
@@ -164,8 +164,25 @@ export function kernelBlock(length: number, regions: number): Float64Array | nul
   } catch {
     return null;
   }
-  homes.set(memory.buffer, { memory, id: ++blockCount + Math.random(), stageAt, regions });
-  return new Float64Array(memory.buffer, 0, length);
+  const home = { memory, id: ++blockCount + Math.random(), stageAt, regions };
+  homes.set(memory.buffer, home);
+  return home;
+}
+
+/**
+ * `length` zeroed doubles in a shared WebAssembly memory with `regions` staging regions after
+ * them; null when the kernels are off or unavailable, or past 4 GiB.
+ */
+export function kernelBlock(length: number, regions: number): Float64Array | null {
+  const home = allocate(length, regions);
+  return home === null ? null : new Float64Array(home.memory.buffer, 0, length);
+}
+
+/** This thread's own staging memory for products whose A is not in a kernel block (made on first use). */
+let scratch: BlockHome | null | undefined;
+function scratchHome(): BlockHome | null {
+  if (scratch === undefined) scratch = allocate(0, 1);
+  return scratch;
 }
 
 /** The memory `a` lives in, when it is a kernel block (or a part of one) known to this thread. */
@@ -195,4 +212,126 @@ export function kernelsOf(home: BlockHome): BoundKernels {
   if (bound.size > 16) for (const [id, ref] of bound) if (ref.deref() === undefined) bound.delete(id);
   bound.set(home.id, new WeakRef(kernels));
   return kernels;
+}
+
+/** Where a product runs in the kernels: A's block and the thread's region there, or this thread's scratch with A staged. */
+export interface KernelPlace {
+  home: BlockHome;
+  region: number;
+  /** A's rows are copied into the region a chunk at a time (A is not in a kernel block). */
+  staged: boolean;
+}
+
+/** Fewest multiply-adds for which a product runs in the kernels (staging and calls cost more below; our choice). */
+const KERNEL_MIN_WORK = 20_000;
+/** Fewest columns of A and of B or C for which A is staged: copying A's rows costs about p multiply-adds per row (our choice). */
+const STAGED_MIN_COLUMNS = 4;
+/** Fewest rows per staged chunk of the combine kernel. */
+const COMBINE_CHUNK_MIN = 64;
+/** Rows per chunk of the dots kernels: block-ops.ts ROW_CHUNK, whose chunks the sums follow. */
+const DOTS_CHUNK = 512;
+
+/**
+ * Where the product of A (rows × p) with q columns runs in the kernels (`dots`: AᵀB, `combine`:
+ * C + A T), or null for the plain loops: too little work, the kernels off or unavailable, A not
+ * in a kernel block and too narrow to stage, or the staging not fitting in a region.
+ */
+export function kernelPlace(a: Float64Array, region: number, rows: number, p: number, q: number, kind: 'dots' | 'combine'): KernelPlace | null {
+  if (rows * p * q < KERNEL_MIN_WORK || !enabled) return null;
+  const home = homeOf(a);
+  const inPlace = home !== undefined && region < home.regions;
+  if (!inPlace && (p < STAGED_MIN_COLUMNS || q < STAGED_MIN_COLUMNS)) return null;
+  // doubles of the region used: out, B's chunk (and A's) for dots; T, C's chunk (and A's) for combine
+  const staged = inPlace ? 0 : p;
+  const need = kind === 'dots' ? 2 * ((q + 1) >> 1) * (p + DOTS_CHUNK) + DOTS_CHUNK * staged : Math.ceil(p / 6) * q * 6 + 2 + COMBINE_CHUNK_MIN * (q + staged);
+  if (need > STAGE_DOUBLES) return null;
+  if (inPlace) return { home, region, staged: false };
+  const own = scratchHome();
+  return own === null ? null : { home: own, region: 0, staged: true };
+}
+
+/**
+ * out = AᵀB (p × q) through the dots kernels: per chunk of `chunkRows` rows (the plain loop's
+ * chunks, so the sums are the same), B's rows staged row-major with its columns paired (a zero
+ * pad column when q is odd) and, when A is not in the block, A's rows column-major; the chunk's
+ * sums added into the staged out (p × 2⌈q/2⌉, column-major), copied to `out` at the end.
+ */
+export function simdTransposeTimes(place: KernelPlace, a: Float64Array, b: Float64Array, rows: number, p: number, q: number, out: Float64Array, rowFrom: number, rowTo: number, chunkRows: number): void {
+  const { heap, dots } = kernelsOf(place.home);
+  const pairs = (q + 1) >> 1;
+  const qs = 2 * pairs;
+  const outAt = place.home.stageAt + place.region * STAGE_DOUBLES;
+  const bAt = outAt + p * qs;
+  const aAt = bAt + chunkRows * qs;
+  heap.fill(0, outAt, outAt + p * qs);
+  const full = p >> 2;
+  const rest = p & 3;
+  const ldA = 8 * (place.staged ? chunkRows : rows);
+  for (let r0 = rowFrom; r0 < rowTo; r0 += chunkRows) {
+    const r1 = Math.min(rowTo, r0 + chunkRows);
+    const len = r1 - r0;
+    // staged B(r, j) at bAt + (r − r0) qs + j; A(r, h) at aAt + h · chunkRows + (r − r0) when staged
+    for (let j = 0; j < q; j++) for (let r = r0, o = j * rows, t = bAt + j; r < r1; r++, t += qs) heap[t] = b[o + r];
+    if (q < qs) for (let r = r0, t = bAt + q; r < r1; r++, t += qs) heap[t] = 0;
+    if (place.staged) for (let h = 0; h < p; h++) heap.set(a.subarray(h * rows + r0, h * rows + r1), aAt + h * chunkRows);
+    const pA = place.staged ? 8 * aAt : a.byteOffset + 8 * r0;
+    // out(h, j) += Σ_r A(r, h) B(r, j): tiles of 4 columns of A (then the rest) × 2 column pairs of B (then one)
+    for (let e = 0; e < pairs; e += 2) {
+      const v = Math.min(2, pairs - e);
+      const pB = 8 * bAt + 16 * e;
+      const pOut = 8 * (outAt + 2 * e * p);
+      if (full > 0) dots[4][v](pA, ldA, full, pB, 8 * qs, len, pOut, 8 * p);
+      if (rest > 0) dots[rest][v](pA + 4 * full * ldA, ldA, 1, pB, 8 * qs, len, pOut + 32 * full, 8 * p);
+    }
+  }
+  out.set(heap.subarray(outAt, outAt + p * q));
+}
+
+/**
+ * C(rowFrom:rowTo, :) += A T through the combine kernel, T laid out as block-ops.ts
+ * panelCoefficients (panel g: columns starts[g] + v, v < 6, clamped to p − 1; six coefficients
+ * per column of C): T staged once, then per chunk of rows (even, as many as fit, at most 512)
+ * C's rows staged column-major — zero instead when `inPlace` (C = A, timesSmallInPlace: the
+ * chunk's result replaces A's first q columns only after every panel has read them) — and A's
+ * rows when it is not in the block, the panels one after another (an odd last row by the plain
+ * expression of block-ops.ts panel6x6), and the chunk copied back.
+ */
+export function simdAddPanels(place: KernelPlace, c: Float64Array, ldc: number, a: Float64Array, rows: number, p: number, t: Float64Array, q: number, starts: Int32Array, rowFrom: number, rowTo: number, inPlace: boolean): void {
+  const { heap, combine } = kernelsOf(place.home);
+  const tAt = place.home.stageAt + place.region * STAGE_DOUBLES;
+  const cAt = tAt + t.length + (t.length & 1);
+  const staged = place.staged ? p : 0;
+  const chunk = Math.min(512, 2 * Math.floor((STAGE_DOUBLES - (cAt - tAt)) / (2 * (q + staged))));
+  const aAt = cAt + chunk * q;
+  heap.set(t, tAt);
+  const last = p - 1;
+  const cols = new Int32Array(6);
+  for (let r0 = rowFrom; r0 < rowTo; r0 += chunk) {
+    const r1 = Math.min(rowTo, r0 + chunk);
+    const len = r1 - r0;
+    // C(r0:r1, j) at cAt + j·chunk; A(r0:r1, h) at aAt + h·chunk when staged
+    for (let j = 0; j < q; j++) {
+      if (inPlace) heap.fill(0, cAt + j * chunk, cAt + j * chunk + len);
+      else heap.set(c.subarray(j * ldc + r0, j * ldc + r1), cAt + j * chunk);
+    }
+    if (place.staged) for (let h = 0; h < p; h++) heap.set(a.subarray(h * rows + r0, h * rows + r1), aAt + h * chunk);
+    for (let g = 0; g < starts.length; g++) {
+      // heap index of A(r0, l_v) for the panel's six columns
+      for (let v = 0; v < 6; v++) {
+        const l = Math.min(starts[g] + v, last);
+        cols[v] = place.staged ? aAt + l * chunk : a.byteOffset / 8 + l * rows + r0;
+      }
+      const tg = g * q * 6;
+      // C(r, :) += Σ_v T(v, :) A(r, l_v) over the row pairs, then the odd last row
+      if (len > 1) combine(8 * cols[0], 8 * cols[1], 8 * cols[2], 8 * cols[3], 8 * cols[4], 8 * cols[5], len >> 1, 8 * (tAt + tg), q, 8 * cAt, 8 * chunk);
+      if (len & 1) {
+        const r = len - 1;
+        const x0 = heap[cols[0] + r], x1 = heap[cols[1] + r], x2 = heap[cols[2] + r], x3 = heap[cols[3] + r], x4 = heap[cols[4] + r], x5 = heap[cols[5] + r];
+        for (let j = 0, o = tg; j < q; j++, o += 6) {
+          heap[cAt + j * chunk + r] += t[o] * x0 + t[o + 1] * x1 + t[o + 2] * x2 + t[o + 3] * x3 + t[o + 4] * x4 + t[o + 5] * x5;
+        }
+      }
+    }
+    for (let j = 0; j < q; j++) c.set(heap.subarray(cAt + j * chunk, cAt + j * chunk + len), j * ldc + r0);
+  }
 }

@@ -26,28 +26,44 @@ function inKernelBlock(values: Float64Array, regions = 3): Float64Array {
   return a;
 }
 
-/** Every product of A (rows×p) with B (rows×q) and S (p×q), plain against kernel, whole and on a row range in region 2. */
+/**
+ * Every product of A (rows×p) with B (rows×q) and S (p×q), plain (kernels off) against the
+ * kernels, whole and on a row range in region 2; A in a kernel block, and A a plain array (staged).
+ */
 function checkAll(values: Float64Array, rows: number, p: number, b: Float64Array, q: number, s: Float64Array): void {
-  const a = inKernelBlock(values);
+  checkOn(inKernelBlock(values), values, rows, p, b, q, s);
+  checkOn(values.slice(), values, rows, p, b, q, s);
+}
+
+/** The products of `a` (kernels on) against those of `values` (kernels off): bit for bit. */
+function checkOn(a: Float64Array, values: Float64Array, rows: number, p: number, b: Float64Array, q: number, s: Float64Array): void {
+  const plain = <T>(f: () => T): T => {
+    useSimdBlockKernels(false);
+    try {
+      return f();
+    } finally {
+      useSimdBlockKernels(true);
+    }
+  };
   const ranges: [number, number, number][] = [[0, rows, 0], [Math.floor(rows / 3), rows, 2]];
   for (const [from, to, region] of ranges) {
     const where = `rows ${rows} (${from}…${to}), p ${p}, q ${q}`;
-    const plainP = transposeTimes(values, b, rows, p, q, undefined, from, to);
+    const plainP = plain(() => transposeTimes(values, b, rows, p, q, undefined, from, to));
     expect(firstDifference(transposeTimes(a, b, rows, p, q, undefined, from, to, region), plainP), `VᵀX ${where}`).toBe(-1);
     const c0 = b.slice();
     const c1 = b.slice();
-    addTimesSmall(c0, values, rows, p, s, q, -0.75, from, to);
+    plain(() => addTimesSmall(c0, values, rows, p, s, q, -0.75, from, to));
     addTimesSmall(c1, a, rows, p, s, q, -0.75, from, to, region);
     expect(firstDifference(c1, c0), `X − V S ${where}`).toBe(-1);
     if (q <= p) {
       const v0 = values.slice();
-      const v1 = inKernelBlock(values);
-      timesSmallInPlace(v0, rows, p, s, q, from, to);
+      const v1 = homeOf(a) ? inKernelBlock(values) : values.slice();
+      plain(() => timesSmallInPlace(v0, rows, p, s, q, from, to));
       timesSmallInPlace(v1, rows, p, s, q, from, to, region);
       expect(firstDifference(v1, v0), `V ← V S ${where}`).toBe(-1);
     }
   }
-  expect(firstDifference(timesSmall(a, rows, p, s, q), timesSmall(values, rows, p, s, q)), `V S rows ${rows}, p ${p}, q ${q}`).toBe(-1);
+  expect(firstDifference(timesSmall(a, rows, p, s, q), plain(() => timesSmall(values, rows, p, s, q))), `V S rows ${rows}, p ${p}, q ${q}`).toBe(-1);
 }
 
 describe('SIMD basis-product kernels', () => {
