@@ -271,8 +271,21 @@ export function simdTransposeTimes(place: KernelPlace, a: Float64Array, b: Float
     const r1 = Math.min(rowTo, r0 + chunkRows);
     const len = r1 - r0;
     // staged B(r, j) at bAt + (r − r0) qs + j; A(r, h) at aAt + h · chunkRows + (r − r0) when staged
-    for (let j = 0; j < q; j++) for (let r = r0, o = j * rows, t = bAt + j; r < r1; r++, t += qs) heap[t] = b[o + r];
-    if (q < qs) for (let r = r0, t = bAt + q; r < r1; r++, t += qs) heap[t] = 0;
+    if (q === 6) {
+      // the block size: row by row, a contiguous run per row (5× faster here than column by column)
+      const b1 = rows, b2 = 2 * rows, b3 = 3 * rows, b4 = 4 * rows, b5 = 5 * rows;
+      for (let r = r0, t = bAt; r < r1; r++, t += 6) {
+        heap[t] = b[r];
+        heap[t + 1] = b[b1 + r];
+        heap[t + 2] = b[b2 + r];
+        heap[t + 3] = b[b3 + r];
+        heap[t + 4] = b[b4 + r];
+        heap[t + 5] = b[b5 + r];
+      }
+    } else {
+      for (let j = 0; j < q; j++) for (let r = r0, o = j * rows, t = bAt + j; r < r1; r++, t += qs) heap[t] = b[o + r];
+      if (q < qs) for (let r = r0, t = bAt + q; r < r1; r++, t += qs) heap[t] = 0;
+    }
     if (place.staged) for (let h = 0; h < p; h++) heap.set(a.subarray(h * rows + r0, h * rows + r1), aAt + h * chunkRows);
     const pA = place.staged ? 8 * aAt : a.byteOffset + 8 * r0;
     // out(h, j) += Σ_r A(r, h) B(r, j): tiles of 4 columns of A (then the rest) × 2 column pairs of B (then one)
