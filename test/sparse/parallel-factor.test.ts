@@ -193,6 +193,8 @@ describe('basis and K/M products split N ways, from the compiled modules', () =>
       const a = jobs.sharedMatrix(stiffness);
       expect(a === null).toBe(threads < 2);
       if (a === null) continue;
+      // placed once in one shared WebAssembly memory for the SIMD product kernel (src/sparse/sym-product-kernel.ts)
+      expect(a.values.buffer).toBe(a.colPtr.buffer);
       const y1 = new Float64Array(stiffness.n * k);
       expect(jobs.splitSymMultiplyBlock(a, xk, k, y1)).toBe(true);
       const y2 = new Float64Array(stiffness.n * k);
