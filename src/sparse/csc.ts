@@ -153,40 +153,24 @@ function threeColumns(a: SymmetricCsc, xr: Float64Array, yr: Float64Array, k: nu
   }
 }
 
-/**
- * Columns from..k−1 (one or two) of the row-major product, in one pass over A, with the same
- * operations in the same order per entry as threeColumns (y_j's sum kept apart and added at the
- * end of its column), so every column of the product rounds alike whatever k is, and as the SIMD
- * kernel of sym-product-kernel.ts.
- */
+/** Columns from..k−1 (one or two) of the row-major product, in one pass over A. */
 function leftoverColumns(a: SymmetricCsc, xr: Float64Array, yr: Float64Array, k: number, shift: number, from: number, colFrom: number, colTo: number): void {
   const { colPtr, rowIdx, values } = a;
-  const two = k - from > 1;
   for (let j = colFrom; j < colTo; j++) {
-    const jo = j * k - shift + from;
-    const x0 = xr[jo];
-    const x1 = two ? xr[jo + 1] : 0;
-    let s0 = 0;
-    let s1 = 0;
+    const jo = j * k - shift;
     for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
       const i = rowIdx[p];
       const v = values[p];
       if (i === j) {
-        s0 += v * x0;
-        s1 += v * x1;
+        for (let c = from; c < k; c++) yr[jo + c] += v * xr[jo + c];
       } else {
-        // y_i += a_ij x_j and the mirrored y_j += a_ij x_i
-        const io = i * k - shift + from;
-        yr[io] += v * x0;
-        s0 += v * xr[io];
-        if (two) {
-          yr[io + 1] += v * x1;
-          s1 += v * xr[io + 1];
+        const io = i * k - shift;
+        for (let c = from; c < k; c++) {
+          yr[io + c] += v * xr[jo + c];
+          yr[jo + c] += v * xr[io + c];
         }
       }
     }
-    yr[jo] += s0;
-    if (two) yr[jo + 1] += s1;
   }
 }
 

@@ -13,9 +13,10 @@
  * and adds into y_i; y_j += s_j at the end. Per entry: one index load, one broadcast of a_ij,
  * w loads of x_i, w loads and stores of y_i, 2w multiply-adds, with w = ⌈k/2⌉ ≤ 3 vectors per
  * row (at most 3 + 3 + 3 live vector values: no spilling, see DEVELOPERS.md "SIMD"). The
- * operations and their order per entry are those of csc.ts threeColumns, so for k = 3 and 6
- * the products are bit-identical to the plain kernel (other k differ by rounding: the plain
- * leftover loop adds the diagonal straight into y_j).
+ * operations and their order per entry are those of csc.ts threeColumns, so when k is a
+ * multiple of three the products are bit-identical to the plain loops; the plain loop of the
+ * one or two columns left over adds into y_j entry by entry instead, so those columns agree
+ * to rounding.
  *
  * Layout of a matrix's memory (`kernelMatrix`, byte offsets, each part 16-byte aligned):
  *
