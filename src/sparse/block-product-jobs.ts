@@ -7,7 +7,7 @@ import { addTimesSmall, timesSmallInPlace, transposeTimes } from '../dense/block
 import { adoptHome, type BlockHome } from '../dense/simd-block-kernels.js';
 import { symMultiplyColumns, type SymmetricCsc } from './csc.js';
 import { alongsideAll, availableThreads, inSharedMemory, sharedCopy, sharedScratch, startHelpers, type Answer } from './helper-thread.js';
-import { gatherRegion, KERNEL_COLUMNS, kernelMatrix, regionProduct, stageColumns, type KernelMatrix } from './sym-product-kernel.js';
+import { gatherRegions, KERNEL_COLUMNS, kernelMatrix, regionProduct, stageColumns, type KernelMatrix } from './sym-product-kernel.js';
 
 /**
  * Where a basis product's block A lives when it is a SIMD kernel block (its memory, so the helper
@@ -157,8 +157,7 @@ function kernelSymMultiplyBlock(a: SymmetricCsc, home: KernelMatrix, x: Float64A
     const ran = shares > 1 && runShares(jobs, () => regionProduct(home, w, 0, bounds[1], 0));
     // no helpers after all (runShares ran nothing): every column here
     if (!ran) regionProduct(home, w, 0, n, 0);
-    gatherRegion(home, 0, w, y, c0, 0, false);
-    if (ran) for (let t = 1; t < shares; t++) gatherRegion(home, t, w, y, c0, bounds[t], true);
+    gatherRegions(home, w, y, c0, ran ? bounds.slice(0, shares) : [0]);
   }
 }
 

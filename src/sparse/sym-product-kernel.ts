@@ -241,18 +241,28 @@ export function regionProduct(home: KernelMatrix, w: number, colFrom: number, co
 }
 
 /**
- * Columns c0 … c0 + w − 1 of the column-major block y: ← Y_0 (add false) or += Y_region, rows
- * from `fromRow` on (the rows a region's product touches).
+ * Columns c0 … c0 + w − 1 of the column-major block y ← Y_0 + Y_1 + … + Y_{regions−1}, added in
+ * region order, where region t holds the columns from starts[t] on and so touches only the rows
+ * from starts[t] on (starts[0] = 0, ascending): rows in [starts[s], starts[s + 1]) sum regions
+ * 0 … s, in one pass over y.
  */
-export function gatherRegion(home: KernelMatrix, region: number, w: number, y: Float64Array, c0: number, fromRow: number, add: boolean): void {
+export function gatherRegions(home: KernelMatrix, w: number, y: Float64Array, c0: number, starts: number[]): void {
   const { heap } = bind(home);
   const n = home.n;
   const stride = rowStride(w);
-  const base = (home.yAt + region * home.regionBytes) / 8;
-  // y(i, c0 + c) (+)= Y(i, c)
+  const regionDoubles = home.regionBytes / 8;
+  const base = home.yAt / 8;
+  const regions = starts.length;
   for (let c = 0; c < w; c++) {
     const col = (c0 + c) * n;
-    if (add) for (let i = fromRow, q = base + fromRow * stride + c; i < n; i++, q += stride) y[col + i] += heap[q];
-    else for (let i = fromRow, q = base + fromRow * stride + c; i < n; i++, q += stride) y[col + i] = heap[q];
+    for (let s = 0; s < regions; s++) {
+      const to = s + 1 < regions ? starts[s + 1] : n;
+      // y(i, c0 + c) = Y_0(i, c) + … + Y_s(i, c)
+      for (let i = starts[s], q = base + starts[s] * stride + c; i < to; i++, q += stride) {
+        let v = heap[q];
+        for (let t = 1, o = q + regionDoubles; t <= s; t++, o += regionDoubles) v += heap[o];
+        y[col + i] = v;
+      }
+    }
   }
 }

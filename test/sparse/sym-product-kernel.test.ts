@@ -10,7 +10,7 @@
  */
 import { afterEach, describe, expect, it } from 'vitest';
 import { symMultiplyColumns, type SymmetricCsc } from '../../src/sparse/csc.js';
-import { gatherRegion, KERNEL_COLUMNS, kernelMatrix, regionProduct, stageColumns, useSimdProductKernels, type KernelMatrix } from '../../src/sparse/sym-product-kernel.js';
+import { gatherRegions, KERNEL_COLUMNS, kernelMatrix, regionProduct, stageColumns, useSimdProductKernels, type KernelMatrix } from '../../src/sparse/sym-product-kernel.js';
 import { buildTetBox } from '../../fixtures/generator/tet-bracket.js';
 import { hexGridPair, seededRandom } from './fe-like-matrices.js';
 
@@ -49,7 +49,7 @@ function kernelProduct(home: KernelMatrix, x: Float64Array, k: number, cuts: num
     const w = Math.min(KERNEL_COLUMNS, k - c0);
     stageColumns(home, x, c0, w);
     for (let t = 0; t + 1 < bounds.length; t++) regionProduct(home, w, bounds[t], bounds[t + 1], t);
-    for (let t = 0; t + 1 < bounds.length; t++) gatherRegion(home, t, w, y, c0, bounds[t], t > 0);
+    gatherRegions(home, w, y, c0, bounds.slice(0, -1));
   }
   return y;
 }
