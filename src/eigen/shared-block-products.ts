@@ -9,11 +9,12 @@
  * share order (so a given N gives the same bits on every run), the helpers' rows of X are copied
  * back. Otherwise the plain kernels of src/dense/block-ops.ts run here.
  *
- * The basis is allocated in a shared WebAssembly memory where the SIMD kernels are available
- * (src/dense/simd-block-kernels.ts: the basis, then one staging region per thread), on any number
- * of threads: block-ops.ts then runs these products as WebAssembly SIMD kernels, bit-identical
- * to its plain loops, each thread in its own staging region (the jobs carry the memory and the
- * region).
+ * With helper threads the basis is allocated in a shared WebAssembly memory where the SIMD
+ * kernels are available (src/dense/simd-block-kernels.ts: the basis, then one staging region per
+ * thread): block-ops.ts then runs these products as WebAssembly SIMD kernels over it,
+ * bit-identical to its plain loops, each thread in its own staging region (the jobs carry the
+ * memory and the region). On one thread the basis is an ordinary array whose rows block-ops.ts
+ * stages for the kernels.
  */
 import { addTimesSmall, timesSmallInPlace, transposeTimes } from '../dense/block-ops.js';
 import { homeOf, kernelBlock } from '../dense/simd-block-kernels.js';
@@ -27,13 +28,15 @@ const stageOut = sharedScratch();
 const operand = sharedScratch();
 
 /**
- * An n×m basis block: in a SIMD kernel block (shared memory, with a staging region for each of
- * the N threads) where the kernels are available, else in shared memory when helper threads may
- * work on it.
+ * An n×m basis block: when helper threads may work on it, in shared memory — a SIMD kernel block
+ * (with a staging region for each of the N threads) where the kernels are available. On one
+ * thread an ordinary array: shared memory is no pressure for the collector, so dead bases would
+ * outlive their use (tet26k, one thread: peak RSS 336–347 MB with kernel blocks against 311 MB);
+ * block-ops.ts then stages the basis's rows into its scratch memory for the kernels.
  */
 export function basisBlock(length: number): Float64Array {
-  const threads = availableThreads();
-  return kernelBlock(length, threads) ?? (threads >= 2 ? sharedBlock(length) : new Float64Array(length));
+  if (availableThreads() < 2) return new Float64Array(length);
+  return kernelBlock(length, availableThreads()) ?? sharedBlock(length);
 }
 
 /**
