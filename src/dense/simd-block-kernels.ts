@@ -29,8 +29,8 @@
  * buffer to its memory, so block-ops.ts finds the kernels from the array alone; a helper thread
  * registers the buffer its job brought (`adoptHome`). A product whose A is not in a kernel block
  * (the M- and K-images of a Rayleigh–Ritz basis, a thin block against itself) runs in this
- * thread's own scratch memory with A's rows staged too, when p and q are both at least
- * STAGED_MIN_COLUMNS (copying a row of A costs about p multiply-adds' time; the product p·q).
+ * thread's own scratch memory with A's rows staged too, when p and q are wide enough
+ * (STAGED_MIN_COLUMNS; copying a row of A costs about p multiply-adds' time, the product p·q).
  *
  * kernelBlock returns null where WebAssembly, its SIMD or shared memory is missing, when the
  * kernels are switched off (useSimdBlockKernels), or past 4 GiB; the plain loops then run.
@@ -224,8 +224,15 @@ export interface KernelPlace {
 
 /** Fewest multiply-adds for which a product runs in the kernels (staging and calls cost more below; our choice). */
 const KERNEL_MIN_WORK = 20_000;
-/** Fewest columns of A and of B or C for which A is staged: copying A's rows costs about p multiply-adds per row (our choice). */
+/**
+ * Fewest columns of A and of B for which A is staged for the dots kernels, and of C for the
+ * combine kernel: copying A's rows costs about p multiply-adds' time per row (our choice; on
+ * tet26k's 26,265 rows with p = 100, q = 6 the staged VᵀX ran at 0.5–1.4× the plain loop's
+ * time and the staged X − V S at 0.95–2.3×, on a loaded machine, so combinations of six columns
+ * stay plain).
+ */
 const STAGED_MIN_COLUMNS = 4;
+const STAGED_COMBINE_MIN_COLUMNS = 12;
 /** Fewest rows per staged chunk of the combine kernel. */
 const COMBINE_CHUNK_MIN = 64;
 /** Rows per chunk of the dots kernels: block-ops.ts ROW_CHUNK, whose chunks the sums follow. */
@@ -240,7 +247,7 @@ export function kernelPlace(a: Float64Array, region: number, rows: number, p: nu
   if (rows * p * q < KERNEL_MIN_WORK || !enabled) return null;
   const home = homeOf(a);
   const inPlace = home !== undefined && region < home.regions;
-  if (!inPlace && (p < STAGED_MIN_COLUMNS || q < STAGED_MIN_COLUMNS)) return null;
+  if (!inPlace && (p < STAGED_MIN_COLUMNS || q < (kind === 'dots' ? STAGED_MIN_COLUMNS : STAGED_COMBINE_MIN_COLUMNS))) return null;
   // doubles of the region used: out, B's chunk (and A's) for dots; T, C's chunk (and A's) for combine
   const staged = inPlace ? 0 : p;
   const need = kind === 'dots' ? 2 * ((q + 1) >> 1) * (p + DOTS_CHUNK) + DOTS_CHUNK * staged : Math.ceil(p / 6) * q * 6 + 2 + COMBINE_CHUNK_MIN * (q + staged);

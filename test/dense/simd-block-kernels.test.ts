@@ -93,7 +93,7 @@ describe('SIMD basis-product kernels', () => {
     const rnd = seededRandom(17);
     const random = (length: number) => Float64Array.from({ length }, () => rnd() - 0.5);
     for (const rows of [1, 2, 3, 511, 512, 513, 1025, 2047]) {
-      for (const [p, q] of [[1, 1], [2, 3], [3, 2], [4, 4], [5, 5], [6, 6], [7, 7], [7, 3], [13, 6], [40, 7], [40, 12], [9, 1]]) {
+      for (const [p, q] of [[1, 1], [2, 3], [3, 2], [4, 4], [5, 5], [6, 6], [7, 7], [7, 3], [13, 6], [40, 7], [40, 12], [13, 13], [5, 14], [9, 1]]) {
         // enough work for the kernels: below KERNEL_MIN_WORK the plain loops run anyway
         if (rows * p * q < 20_000 && rows !== 3) continue;
         checkAll(random(rows * p), rows, p, random(rows * q), q, random(p * q));
