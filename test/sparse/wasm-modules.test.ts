@@ -1,5 +1,5 @@
 /**
- * The hand-assembled WebAssembly modules as text: each module's bytes are disassembled with
+ * The hand-assembled WebAssembly modules (src/sparse, src/dense) as text: each module's bytes are disassembled with
  * wabt (the WebAssembly Binary Toolkit's own reader and printer, built for npm) and compared
  * with the committed `.wat` files under test/sparse/wasm/, so a change to the assembler shows
  * in review as a text diff. After an intended change: `npx vitest run test/sparse/wasm-modules -u`.
