@@ -141,9 +141,13 @@ export function splitSymMultiplyBlock(a: SymmetricCsc, x: Float64Array, k: numbe
 }
 
 /**
- * Y = A X through the SIMD kernel, KERNEL_COLUMNS columns of X at a time: X's columns are staged
- * row-major in A's memory, thread t computes the stored columns of its share into its region Y_t,
- * and Y is Y_0 + Y_1 + … added here in thread order (the same split for a given N on every run).
+ * Y = A X through the SIMD kernel, KERNEL_COLUMNS columns of X at a time as csc.ts slices them:
+ * the slice's columns in threes are staged row-major in A's memory, thread t computes the stored
+ * columns of its share into its region Y_t, and Y is Y_0 + Y_1 + … added here in thread order
+ * (the same split for a given N on every run); the one or two columns a slice has left over go
+ * through csc.ts's own loop here, whose order of summation the kernel does not follow. So with
+ * one share the product is bit-identical to csc.ts symMultiplyBlock (small models give the same
+ * bits on any N, as before the kernel).
  */
 function kernelSymMultiplyBlock(a: SymmetricCsc, home: KernelMatrix, x: Float64Array, k: number, y: Float64Array): void {
   const n = a.n;
@@ -151,13 +155,22 @@ function kernelSymMultiplyBlock(a: SymmetricCsc, home: KernelMatrix, x: Float64A
   const bounds = columnBounds(a, shares);
   for (let c0 = 0; c0 < k; c0 += KERNEL_COLUMNS) {
     const w = Math.min(KERNEL_COLUMNS, k - c0);
-    stageColumns(home, x, c0, w);
-    const jobs: BlockProductJob[] = [];
-    for (let t = 1; t < shares; t++) jobs.push({ kind: 'symMultiplyKernel', home, w, colFrom: bounds[t], colTo: bounds[t + 1], region: t });
-    const ran = shares > 1 && runShares(jobs, () => regionProduct(home, w, 0, bounds[1], 0));
-    // no helpers after all (runShares ran nothing): every column here
-    if (!ran) regionProduct(home, w, 0, n, 0);
-    gatherRegions(home, w, y, c0, ran ? bounds.slice(0, shares) : [0]);
+    // (a single column is csc.ts symMultiply, which sums as the kernel does)
+    const threes = k === 1 ? 1 : w - (w % 3);
+    if (threes > 0) {
+      stageColumns(home, x, c0, threes);
+      const jobs: BlockProductJob[] = [];
+      for (let t = 1; t < shares; t++) jobs.push({ kind: 'symMultiplyKernel', home, w: threes, colFrom: bounds[t], colTo: bounds[t + 1], region: t });
+      const ran = shares > 1 && runShares(jobs, () => regionProduct(home, threes, 0, bounds[1], 0));
+      // no helpers after all (runShares ran nothing): every column here
+      if (!ran) regionProduct(home, threes, 0, n, 0);
+      gatherRegions(home, threes, y, c0, ran ? bounds.slice(0, shares) : [0]);
+    }
+    if (threes < w) {
+      // the columns left over, by the plain loop on this thread
+      const left = y.subarray((c0 + threes) * n, (c0 + w) * n).fill(0);
+      symMultiplyColumns(a, x.subarray((c0 + threes) * n, (c0 + w) * n), w - threes, left, 0, n);
+    }
   }
 }
 

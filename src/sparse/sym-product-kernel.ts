@@ -16,7 +16,7 @@
  * operations and their order per entry are those of csc.ts threeColumns, so when k is a
  * multiple of three the products are bit-identical to the plain loops; the plain loop of the
  * one or two columns left over adds into y_j entry by entry instead, so those columns agree
- * to rounding.
+ * to rounding (block-product-jobs.ts gives such columns to that plain loop).
  *
  * Layout of a matrix's memory (`kernelMatrix`, byte offsets, each part 16-byte aligned):
  *

@@ -168,6 +168,7 @@ describe('basis and K/M products split N ways, from the compiled modules', () =>
     timesSmallInPlace(v0, rows, p, s, q);
     // about 3·10⁵ stored entries × 30 columns: the most shares (four) of at least SPLIT_MIN_WORK
     const { stiffness } = hexGridPair(14, 13, 12, 3);
+    const smallPair = hexGridPair(3, 4, 2, 5);
     const k = 30;
     const xk = Float64Array.from({ length: stiffness.n * k }, (_, i) => Math.sin(0.011 * i));
     const y0 = symMultiplyBlock(stiffness, xk, k, new Float64Array(stiffness.n * k));
@@ -195,6 +196,14 @@ describe('basis and K/M products split N ways, from the compiled modules', () =>
       if (a === null) continue;
       // placed once in one shared WebAssembly memory for the SIMD product kernel (src/sparse/sym-product-kernel.ts)
       expect(a.values.buffer).toBe(a.colPtr.buffer);
+      // a product too small to split: bit-identical to the plain one-thread loops, for every column count
+      const small = jobs.sharedMatrix(smallPair.stiffness)!;
+      for (let kk = 1; kk <= 13; kk++) {
+        const xs = Float64Array.from({ length: smallPair.stiffness.n * kk }, (_, i) => Math.cos(0.3 * i));
+        const ys = new Float64Array(xs.length);
+        expect(jobs.splitSymMultiplyBlock(small, xs, kk, ys)).toBe(true);
+        expect(firstDifference(ys, symMultiplyBlock(smallPair.stiffness, xs, kk, new Float64Array(xs.length)))).toBe(-1);
+      }
       const y1 = new Float64Array(stiffness.n * k);
       expect(jobs.splitSymMultiplyBlock(a, xk, k, y1)).toBe(true);
       const y2 = new Float64Array(stiffness.n * k);
