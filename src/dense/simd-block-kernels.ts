@@ -290,7 +290,18 @@ export function simdTransposeTimes(place: KernelPlace, a: Float64Array, b: Float
         heap[t + 5] = b[b5 + r];
       }
     } else {
-      for (let j = 0; j < q; j++) for (let r = r0, o = j * rows, t = bAt + j; r < r1; r++, t += qs) heap[t] = b[o + r];
+      // four columns at a time (a 32-byte run per row), then the rest one by one
+      let j = 0;
+      for (; j + 4 <= q; j += 4) {
+        const o0 = j * rows, o1 = o0 + rows, o2 = o1 + rows, o3 = o2 + rows;
+        for (let r = r0, t = bAt + j; r < r1; r++, t += qs) {
+          heap[t] = b[o0 + r];
+          heap[t + 1] = b[o1 + r];
+          heap[t + 2] = b[o2 + r];
+          heap[t + 3] = b[o3 + r];
+        }
+      }
+      for (; j < q; j++) for (let r = r0, o = j * rows, t = bAt + j; r < r1; r++, t += qs) heap[t] = b[o + r];
       if (q < qs) for (let r = r0, t = bAt + q; r < r1; r++, t += qs) heap[t] = 0;
     }
     if (place.staged) for (let h = 0; h < p; h++) heap.set(a.subarray(h * rows + r0, h * rows + r1), aAt + h * chunkRows);
