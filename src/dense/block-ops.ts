@@ -25,7 +25,15 @@
  * Measured on one thread (Zen 4, 127,776 rows, p = 6…140, q = 6 or 30, Node 20), against 2×2
  * tiles and that 4-wide loop: transposeTimes about 1.5×, addTimesSmall, timesSmall and
  * timesSmallInPlace 2.5–2.9× faster.
+ *
+ * transposeTimes, addTimesSmall, timesSmall and timesSmallInPlace run as WebAssembly SIMD kernels
+ * (simd-block-kernels.ts) when the product is not tiny: in place when A lives in a kernel block
+ * (the Krylov basis, allocated in a shared WebAssembly memory), else with A's rows staged a chunk
+ * at a time when both p and q are wide enough to pay for the copy. The kernels do the same
+ * operations in the same order per entry, so the results are bit-identical either way.
+ * `region` is the calling thread's staging region in A's block (0 here, t on helper t − 1).
  */
+import { kernelPlace, simdAddPanels, simdTransposeTimes } from './simd-block-kernels.js';
 
 const ROW_CHUNK = 512;
 
@@ -42,8 +50,14 @@ export function transposeTimes(
   out: Float64Array = new Float64Array(p * q),
   rowFrom = 0,
   rowTo = rows,
+  region = 0,
 ): Float64Array {
   out.fill(0, 0, p * q);
+  const place = kernelPlace(a, region, rowTo - rowFrom, p, q, 'dots');
+  if (place !== null) {
+    simdTransposeTimes(place, a, b, rows, p, q, out, rowFrom, rowTo, ROW_CHUNK);
+    return out;
+  }
   for (let r0 = rowFrom; r0 < rowTo; r0 += ROW_CHUNK) {
     const r1 = Math.min(rowTo, r0 + ROW_CHUNK);
     // C(i, j) += A(r0:r1, i)ᵀ B(r0:r1, j) for all i, j; three columns of A stay in L1 while B's chunk passes
@@ -163,9 +177,15 @@ export function addTimesSmall(
   alpha = 1,
   rowFrom = 0,
   rowTo = rows,
+  region = 0,
 ): void {
   if (p <= 0 || q <= 0) return;
   const t = panelCoefficients(s, p, q, alpha);
+  const place = kernelPlace(a, region, rowTo - rowFrom, p, q, 'combine');
+  if (place !== null) {
+    simdAddPanels(place, c, rows, a, rows, p, t, q, panelStarts(p), rowFrom, rowTo, false);
+    return;
+  }
   for (let r0 = rowFrom; r0 < rowTo; r0 += ROW_CHUNK) {
     addPanels(c, rows, a, rows, p, t, q, r0, Math.min(rowTo, r0 + ROW_CHUNK));
   }
@@ -176,11 +196,16 @@ export function addTimesSmall(
  * result depends only on the same row of A, so the rows are done a chunk at a time through a
  * small buffer and written back over the first q columns.
  */
-export function timesSmallInPlace(a: Float64Array, rows: number, p: number, s: Float64Array, q: number, rowFrom = 0, rowTo = rows): void {
+export function timesSmallInPlace(a: Float64Array, rows: number, p: number, s: Float64Array, q: number, rowFrom = 0, rowTo = rows, region = 0): void {
   if (q > p) throw new RangeError(`timesSmallInPlace: ${q} result columns exceed the ${p} of A`);
   if (q <= 0) return;
-  const buf = new Float64Array(ROW_CHUNK * q);
   const t = panelCoefficients(s, p, q, 1);
+  const place = kernelPlace(a, region, rowTo - rowFrom, p, q, 'combine');
+  if (place !== null) {
+    simdAddPanels(place, a, rows, a, rows, p, t, q, panelStarts(p), rowFrom, rowTo, true);
+    return;
+  }
+  const buf = new Float64Array(ROW_CHUNK * q);
   for (let r0 = rowFrom; r0 < rowTo; r0 += ROW_CHUNK) {
     const r1 = Math.min(rowTo, r0 + ROW_CHUNK);
     const len = r1 - r0;
@@ -218,6 +243,11 @@ function panelCoefficients(s: Float64Array, p: number, q: number, alpha: number)
 /** First column of A in panel g (see panelCoefficients). */
 function panelStart(g: number, p: number): number {
   return Math.max(0, Math.min(g * PANEL, p - PANEL));
+}
+
+/** The first column of every panel (for the combine kernel). */
+function panelStarts(p: number): Int32Array {
+  return Int32Array.from({ length: Math.ceil(p / PANEL) }, (_, g) => panelStart(g, p));
 }
 
 /**

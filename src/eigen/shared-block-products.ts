@@ -8,8 +8,16 @@
  * already, as basisOperand's blocks are); each thread sums its rows, the partial P are added in
  * share order (so a given N gives the same bits on every run), the helpers' rows of X are copied
  * back. Otherwise the plain kernels of src/dense/block-ops.ts run here.
+ *
+ * With helper threads the basis is allocated in a shared WebAssembly memory where the SIMD
+ * kernels are available (src/dense/simd-block-kernels.ts: the basis, then one staging region per
+ * thread): block-ops.ts then runs these products as WebAssembly SIMD kernels over it,
+ * bit-identical to its plain loops, each thread in its own staging region (the jobs carry the
+ * memory and the region). On one thread the basis is an ordinary array whose rows block-ops.ts
+ * stages for the kernels.
  */
 import { addTimesSmall, timesSmallInPlace, transposeTimes } from '../dense/block-ops.js';
+import { homeOf, kernelBlock } from '../dense/simd-block-kernels.js';
 import { availableThreads, inSharedMemory, sharedBlock, sharedScratch } from '../sparse/helper-thread.js';
 import { addPartials, productShares, runShares, shareBounds, type BlockProductJob } from '../sparse/block-product-jobs.js';
 
@@ -19,9 +27,16 @@ const stageOut = sharedScratch();
 /** The block behind basisOperand. */
 const operand = sharedScratch();
 
-/** An n×m basis block, in shared memory when helper threads may work on it. */
+/**
+ * An n×m basis block: when helper threads may work on it, in shared memory — a SIMD kernel block
+ * (with a staging region for each of the N threads) where the kernels are available. On one
+ * thread an ordinary array: shared memory is no pressure for the collector, so dead bases would
+ * outlive their use (tet26k, one thread: peak RSS 336–347 MB with kernel blocks against 311 MB);
+ * block-ops.ts then stages the basis's rows into its scratch memory for the kernels.
+ */
 export function basisBlock(length: number): Float64Array {
-  return availableThreads() >= 2 ? sharedBlock(length) : new Float64Array(length);
+  if (availableThreads() < 2) return new Float64Array(length);
+  return kernelBlock(length, availableThreads()) ?? sharedBlock(length);
 }
 
 /**
@@ -46,12 +61,13 @@ export function basisTransposeTimes(a: Float64Array, b: Float64Array, rows: numb
   const shares = sharesFor(a, rows * p * q);
   if (shares < 2) return transposeTimes(a, b, rows, p, q);
   const bs = inSharedMemory(b, rows * q, stage);
+  const home = homeOf(a);
   const theirs = stageOut((shares - 1) * p * q);
   const bounds = shareBounds(rows, shares);
   const mine = new Float64Array(p * q);
   const jobs: BlockProductJob[] = [];
   for (let t = 1; t < shares; t++) {
-    jobs.push({ kind: 'transposeTimes', a, b: bs, rows, p, q, out: theirs.subarray((t - 1) * p * q, t * p * q), rowFrom: bounds[t], rowTo: bounds[t + 1] });
+    jobs.push({ kind: 'transposeTimes', a, b: bs, rows, p, q, out: theirs.subarray((t - 1) * p * q, t * p * q), rowFrom: bounds[t], rowTo: bounds[t + 1], home, region: t });
   }
   const ran = runShares(jobs, () => {
     transposeTimes(a, bs, rows, p, q, mine, 0, bounds[1]);
@@ -75,8 +91,9 @@ export function basisAddTimesSmall(c: Float64Array, a: Float64Array, rows: numbe
   // the helpers' rows of C, staged when C is not shared
   if (!shared) for (let j = 0; j < q; j++) cs.set(c.subarray(j * rows + mid, (j + 1) * rows), j * rows + mid);
   const ss = inSharedMemory(s, p * q, stage);
+  const home = homeOf(a);
   const jobs: BlockProductJob[] = [];
-  for (let t = 1; t < shares; t++) jobs.push({ kind: 'addTimesSmall', c: cs, a, rows, p, s: ss, q, alpha, rowFrom: bounds[t], rowTo: bounds[t + 1] });
+  for (let t = 1; t < shares; t++) jobs.push({ kind: 'addTimesSmall', c: cs, a, rows, p, s: ss, q, alpha, rowFrom: bounds[t], rowTo: bounds[t + 1], home, region: t });
   const ran = runShares(jobs, () => {
     addTimesSmall(c, a, rows, p, s, q, alpha, 0, mid);
   });
@@ -98,7 +115,8 @@ export function basisTimesSmallInPlace(a: Float64Array, rows: number, p: number,
   const ss = inSharedMemory(s, p * q, stage);
   const bounds = shareBounds(rows, shares);
   const jobs: BlockProductJob[] = [];
-  for (let t = 1; t < shares; t++) jobs.push({ kind: 'timesSmallInPlace', a, rows, p, s: ss, q, rowFrom: bounds[t], rowTo: bounds[t + 1] });
+  const home = homeOf(a);
+  for (let t = 1; t < shares; t++) jobs.push({ kind: 'timesSmallInPlace', a, rows, p, s: ss, q, rowFrom: bounds[t], rowTo: bounds[t + 1], home, region: t });
   const ran = runShares(jobs, () => timesSmallInPlace(a, rows, p, s, q, 0, bounds[1]));
   // no helpers after all (runShares ran nothing): every row here
   if (!ran) timesSmallInPlace(a, rows, p, s, q);

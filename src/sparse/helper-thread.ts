@@ -7,7 +7,7 @@
  *   split-solve.ts         the N-thread block solve (forward, backward)
  *   separator-jobs.ts      multilevel separator runs of the ordering (separatorRuns)
  *   block-product-jobs.ts  the eigen layer's basis products (transposeTimes, addTimesSmall,
- *                          timesSmallInPlace, symMultiply)
+ *                          timesSmallInPlace, symMultiply, symMultiplyKernel)
  *
  * and helper-worker.ts, the helper itself, hands each job to its kind's handler.
  *

@@ -24,8 +24,8 @@
  * not fit in 4 GiB; the sweeps then use the plain TypeScript loops.
  */
 
-import { addTo, assembleModule, countdown, Locals, mulAddTo, op } from './wasm-bytes.js';
-import { compileOnce, instantiate, MAX_PAGES, PAGE_BYTES, sharedMemory, type WasmMemory } from './wasm-runtime.js';
+import { addTo, assembleModule, countdown, Locals, mulAddTo, op } from '../wasm/wasm-bytes.js';
+import { compileOnce, instantiate, MAX_PAGES, PAGE_BYTES, sharedMemory, type WasmMemory } from '../wasm/wasm-runtime.js';
 
 /** Most right-hand sides a sweep step gathers (the scratch regions hold KERNEL_RHS columns). */
 export const KERNEL_RHS = 6;

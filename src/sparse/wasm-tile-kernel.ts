@@ -23,8 +23,8 @@
  * the plain TypeScript kernels.
  */
 
-import { addTo, assembleModule, countdown, Locals, loopUntil, mulAddTo, op } from './wasm-bytes.js';
-import { compileOnce, instantiate as instantiateModule, MAX_PAGES, sharedMemory, type WasmMemory } from './wasm-runtime.js';
+import { addTo, assembleModule, countdown, Locals, loopUntil, mulAddTo, op } from '../wasm/wasm-bytes.js';
+import { compileOnce, instantiate as instantiateModule, MAX_PAGES, sharedMemory, type WasmMemory } from '../wasm/wasm-runtime.js';
 
 export interface TileKernel {
   /** Float64 view of the kernel's private memory. */

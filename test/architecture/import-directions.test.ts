@@ -9,8 +9,8 @@ import { dirname, join, relative, resolve, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 
-/** Top to bottom: cli uses everything, dense and sparse use nothing above them. */
-const LAYERS = ['cli', 'report', 'pipeline', 'rules', 'model', 'eigen', 'io', 'sparse', 'dense'] as const;
+/** Top to bottom: cli uses everything, dense and sparse use nothing above them, wasm (the WebAssembly encoder) nothing at all. */
+const LAYERS = ['cli', 'report', 'pipeline', 'rules', 'model', 'eigen', 'io', 'sparse', 'dense', 'wasm'] as const;
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const src = join(root, 'src');
@@ -80,7 +80,7 @@ describe('import directions between the folders of src/', () => {
     expect(folders.filter((f) => rank(f) < 0)).toEqual([]);
   });
 
-  it('imports only downward (cli → report → pipeline → rules → model → eigen → io → sparse → dense)', () => {
+  it('imports only downward (cli → report → pipeline → rules → model → eigen → io → sparse → dense → wasm)', () => {
     const wrong = edges.filter((e) => rank(e.to) < rank(e.from)).map((e) => `${e.file}:${e.line} (${e.from}) imports ${e.specifier} (${e.to})`);
     expect(wrong).toEqual([]);
   });

@@ -152,6 +152,7 @@ describe('basis and K/M products split N ways, from the compiled modules', () =>
   it('equal the one-thread kernels (src/dense/block-ops.ts, csc.ts) to rounding, bit for bit at a fixed N', async () => {
     const shared = await load<typeof import('../../src/eigen/shared-block-products.js')>('eigen/shared-block-products.js');
     const jobs = await load<typeof import('../../src/sparse/block-product-jobs.js')>('sparse/block-product-jobs.js');
+    const blockKernels = await load<typeof import('../../src/dense/simd-block-kernels.js')>('dense/simd-block-kernels.js');
     const { setThreadCount } = await threadsModule();
     const { addTimesSmall, timesSmallInPlace, transposeTimes } = await import('../../src/dense/block-ops.js');
     // 20 011 × 40 × 12 multiply-adds: four shares of at least SPLIT_MIN_WORK
@@ -167,12 +168,15 @@ describe('basis and K/M products split N ways, from the compiled modules', () =>
     timesSmallInPlace(v0, rows, p, s, q);
     // about 3·10⁵ stored entries × 30 columns: the most shares (four) of at least SPLIT_MIN_WORK
     const { stiffness } = hexGridPair(14, 13, 12, 3);
+    const smallPair = hexGridPair(3, 4, 2, 5);
     const k = 30;
     const xk = Float64Array.from({ length: stiffness.n * k }, (_, i) => Math.sin(0.011 * i));
     const y0 = symMultiplyBlock(stiffness, xk, k, new Float64Array(stiffness.n * k));
     for (const threads of THREAD_COUNTS) {
       setThreadCount(threads);
       const basis = shared.basisBlock(rows * p);
+      // with helpers in a SIMD kernel block (shared WebAssembly memory); its products are bit-identical to the plain loops
+      expect(blockKernels.homeOf(basis) !== undefined).toBe(threads >= 2);
       expect(basis.buffer instanceof SharedArrayBuffer).toBe(threads >= 2);
       basis.set(values);
       // P = VᵀX: partial sums added in share order
@@ -190,6 +194,16 @@ describe('basis and K/M products split N ways, from the compiled modules', () =>
       const a = jobs.sharedMatrix(stiffness);
       expect(a === null).toBe(threads < 2);
       if (a === null) continue;
+      // placed once in one shared WebAssembly memory for the SIMD product kernel (src/sparse/sym-product-kernel.ts)
+      expect(a.values.buffer).toBe(a.colPtr.buffer);
+      // a product too small to split: bit-identical to the plain one-thread loops, for every column count
+      const small = jobs.sharedMatrix(smallPair.stiffness)!;
+      for (let kk = 1; kk <= 13; kk++) {
+        const xs = Float64Array.from({ length: smallPair.stiffness.n * kk }, (_, i) => Math.cos(0.3 * i));
+        const ys = new Float64Array(xs.length);
+        expect(jobs.splitSymMultiplyBlock(small, xs, kk, ys)).toBe(true);
+        expect(firstDifference(ys, symMultiplyBlock(smallPair.stiffness, xs, kk, new Float64Array(xs.length)))).toBe(-1);
+      }
       const y1 = new Float64Array(stiffness.n * k);
       expect(jobs.splitSymMultiplyBlock(a, xk, k, y1)).toBe(true);
       const y2 = new Float64Array(stiffness.n * k);

@@ -1,10 +1,11 @@
 /**
  * The binary encoding of the WebAssembly modules this project assembles by hand
- * (wasm-tile-kernel.ts, simd-sweep-kernels.ts): LEB128 integers, names, sections, the module
- * layout, a named encoding for every instruction the kernels use, and a locals allocator
- * (WebAssembly Core Specification, §5 "Binary Format"; SIMD instructions after the 0xfd prefix,
- * §5.4.8). No other file writes an opcode byte. test/sparse/wasm/*.wat holds both modules as
- * text (test/sparse/wasm-modules.test.ts).
+ * (src/sparse/wasm-tile-kernel.ts, simd-sweep-kernels.ts, sym-product-kernel.ts;
+ * src/dense/simd-block-kernels.ts): LEB128 integers, names, sections, the module layout, a named
+ * encoding for every instruction the kernels use, and a locals allocator (WebAssembly Core
+ * Specification, §5 "Binary Format"; SIMD instructions after the 0xfd prefix, §5.4.8). No other
+ * file writes an opcode byte. test/sparse/wasm/*.wat holds every module as text
+ * (test/sparse/wasm-modules.test.ts).
  */
 
 /** Unsigned LEB128. */
@@ -48,8 +49,9 @@ function name(s: string): number[] {
 /** Value types. */
 const I32 = 0x7f;
 const V128 = 0x7b;
-/** Memory access immediates: log2 of the alignment (8 bytes), then the constant offset. */
+/** Memory access immediates: log2 of the alignment (8 or 4 bytes), then the constant offset. */
 const ALIGN_8 = 3;
+const ALIGN_4 = 2;
 const simd = (code: number, ...immediates: number[]) => [0xfd, ...leb(code), ...immediates];
 
 /** The instructions the kernels use (Core Specification §5.4), each as its bytes. */
@@ -67,11 +69,14 @@ export const op = {
   // i32
   i32Const: (v: number) => [0x41, ...sleb(v)],
   i32Eqz: [0x45],
+  i32Ne: [0x47],
   i32GeU: [0x4f],
   i32Add: [0x6a],
   i32Sub: [0x6b],
   i32Mul: [0x6c],
   i32Shl: [0x74],
+  /** i32.load (4-byte aligned, at a constant offset). */
+  i32Load: (off: number) => [0x28, ALIGN_4, ...leb(off)],
   // f64 (8-byte aligned, at a constant offset)
   f64Load: (off: number) => [0x2b, ALIGN_8, ...leb(off)],
   f64Store: (off: number) => [0x39, ALIGN_8, ...leb(off)],
