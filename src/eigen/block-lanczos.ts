@@ -42,8 +42,8 @@ const BASIS_PER_WANTED = 5;
 /**
  * A thick restart keeps the unconverged wanted Ritz vectors plus this many blocks more (the
  * Ritz vectors next nearest σ; our choice). 4 rather than 2 (2026-12-05, 20 modes): 6 fewer
- * solves on the hex bars of 10k and 31k DOFs free and clamped and the clamped 24k tet, the
- * same on the free tet (DEVELOPERS.md, Known limits).
+ * solves on the bench's hex10k free and clamped, hex31k free and tet26k clamped, the same on
+ * tet26k free; 6 and 8 saved nothing more (DEVELOPERS.md, Known limits).
  */
 const KEPT_EXTRA_BLOCKS = 4;
 /**
