@@ -11,7 +11,7 @@
  * stores the projections as the new block column of T. A Ritz pair (θ, V s) of T has the
  * residual estimate ‖C y − θ y‖_M = ‖R_j s_last‖ (Templates §5.5), and λ = σ + 1/θ.
  *
- * At the end of a cycle (basis full, or all wanted pairs' estimates small) the Ritz vectors
+ * At the end of a cycle (basis full, or all wanted pairs' estimates small enough to lock) the Ritz vectors
  * nearest σ get a Rayleigh–Ritz pass with K itself (rayleigh-ritz.ts) — true residuals, and
  * eigenvalues free of the 1/θ conditioning — and those that meet the tolerance are locked.
  * The rest are kept: V ← V S_keep, T ← S_keepᵀ T S_keep, coupling R_j (S_keep)_last, and the
@@ -39,8 +39,13 @@ export const DEFAULT_BLOCK_SIZE = 6;
  * (test/eigen/near-mechanism.test.ts) then stalls at 5 of 6 modes.
  */
 const BASIS_PER_WANTED = 5;
-/** A thick restart keeps the unconverged wanted Ritz vectors plus this many blocks more. */
-const KEPT_EXTRA_BLOCKS = 2;
+/**
+ * A thick restart keeps the unconverged wanted Ritz vectors plus this many blocks more (the
+ * Ritz vectors next nearest σ; our choice). 4 rather than 2 (2026-12-05, 20 modes): 6 fewer
+ * solves on the bench's hex10k free and clamped, hex31k free and tet26k clamped, the same on
+ * tet26k free; 6 and 8 saved nothing more (DEVELOPERS.md, Known limits).
+ */
+const KEPT_EXTRA_BLOCKS = 4;
 /**
  * A pair whose Krylov estimate ‖Cy − θy‖_M/|θ| is at rounding level (≤ 1e-13) no longer improves
  * with more vectors; it is locked if its true residual is at most 1e-9 (ill-conditioned pencils
@@ -346,14 +351,22 @@ function residualEstimates(cycle: Cycle, last: LastBlock, s: Float64Array, k: nu
   return out;
 }
 
+/**
+ * Whether the cycle can stop: every wanted pair's ‖Cy − θy‖_M / |θ| at tolerance·1e-2, or at
+ * STALLED_ESTIMATE if that is larger — the level at which the lock test takes a pair whose true
+ * residual is within STALLED_RESIDUAL. With the default tolerance (1e-12) the bar would be 1e-14,
+ * below the estimates' rounding floor of 1e-14–2e-14 on the hex bars, so a cycle whose pairs had
+ * all reached 1e-13 still ran until its basis was full: 3–4 blocks (18–24 solves) for nothing.
+ */
 function estimatesSmall(cycle: Cycle, last: LastBlock, wanted: number, tolerance: number): boolean {
   if (cycle.size < wanted) return false;
   const { theta, s } = ritzOfT(cycle);
   const order = orderByMagnitude(theta).slice(0, wanted);
   const sw = pickColumns(s, cycle.size, order);
   const est = residualEstimates(cycle, last, sw, order.length);
-  // every wanted pair's ‖Cy − θy‖_M / |θ| at tolerance
-  return order.every((i, t) => est[t] <= tolerance * 1e-2 * Math.abs(theta[i]));
+  const bar = Math.max(tolerance * 1e-2, STALLED_ESTIMATE);
+  // every wanted pair's ‖Cy − θy‖_M / |θ| at the bar
+  return order.every((i, t) => est[t] <= bar * Math.abs(theta[i]));
 }
 
 function pickColumns(s: Float64Array, m: number, which: number[]): Float64Array {
