@@ -489,13 +489,15 @@ export function stripUpdate(
 
 /**
  * C −= A Wᵀ with C inside a factor block (nothing past its m rows and n columns may be
- * written): the whole strips and panels by the kernels, the last m mod 4 rows and n mod 4
- * columns here. A, W, C as for stripUpdate, but given as doubles of `heap` (the kernels' whole
- * memory) at aOff, wOff, cOff with strides lda, ldc in doubles.
+ * written): the whole strips and panels by stripUpdate, the last m mod 4 rows and n mod 4
+ * columns by the edge kernel (which writes only C's own rows and columns, each sum over the
+ * whole depth at once). A, W, C as for stripUpdate, but given as doubles of the kernels' memory
+ * at aOff, wOff, cOff with strides lda, ldc in doubles. With `lower`, the edge columns are
+ * written from their 4-row strip through the diagonal down (a few entries above the diagonal
+ * too, as stripUpdate's diagonal tiles).
  */
 export function inPlaceUpdate(
   kern: StripKernels,
-  heap: Float64Array,
   lower: boolean,
   m: number,
   n: number,
@@ -509,14 +511,14 @@ export function inPlaceUpdate(
   const m4 = m & ~3;
   const n4 = n & ~3;
   if (m4 > 0 && n4 > 0) stripUpdate(kern, lower, false, m4, n4, k, 8 * aOff, 8 * lda, 8 * wOff, 8 * cOff, 8 * ldc);
-  // the edge: rows m4… for every column (from its diagonal when lower), and columns n4… for rows above m4
-  for (let j = 0; j < n; j++) {
-    const from = j < n4 ? m4 : lower ? j : 0;
-    const pw = wOff + 4 * (j >> 2) * k + (j & 3);
-    for (let i = from; i < m; i++) {
-      let sum = 0;
-      for (let t = 0, pa = aOff + i, q = pw; t < k; t++, pa += lda, q += 4) sum += heap[pa] * heap[q];
-      heap[cOff + i + j * ldc] -= sum;
-    }
+  // rows m4 … m−1 of the whole panels: one partial strip per panel
+  if (m > m4) {
+    for (let j = 0; j < n4; j += 4) kern.edgeStrips(8 * (aOff + m4), 8 * lda, k, 8 * (wOff + j * k), 8 * (cOff + m4 + j * ldc), 8 * ldc, 1, m - m4, 4);
+  }
+  // columns n4 … n−1 (the last, zero-padded panel of W): rows from its diagonal strip (lower) or from 0
+  if (n > n4) {
+    const r0 = lower ? n4 : 0;
+    const strips = (m - r0 + 3) >> 2;
+    if (strips > 0) kern.edgeStrips(8 * (aOff + r0), 8 * lda, k, 8 * (wOff + n4 * k), 8 * (cOff + r0 + n4 * ldc), 8 * ldc, strips, m - r0 - 4 * (strips - 1), n - n4);
   }
 }

@@ -52,10 +52,12 @@ const SCRATCH_COLUMNS = Math.ceil(Math.max(CHUNK, PANEL) / 4) * 4;
 
 /**
  * One thread's scratch for the in-place products: W panels (SCRATCH_COLUMNS × a supernode's
- * columns) and C (SCRATCH_COLUMNS columns of the largest row count rounded up to 4).
+ * columns), C (SCRATCH_COLUMNS columns of the largest row count rounded up to 4), then
+ * applyDescendant's tables for the scatter kernel (two i32 per run, at most maxRows + 1, and
+ * one i32 per target column of a chunk).
  */
 function inPlaceScratchDoubles(s: SupernodalStructure): number {
-  return SCRATCH_COLUMNS * (s.maxColumns + s.maxRows + 4);
+  return SCRATCH_COLUMNS * (s.maxColumns + s.maxRows + 4) + s.maxRows + 1 + SCRATCH_COLUMNS / 2;
 }
 
 /**
@@ -266,7 +268,16 @@ export function applyDescendant(
     if (i === from || rel[i] !== rel[i - 1] + 1) runAt[runs++] = i;
   }
   runAt[runs] = m2;
-  let run = 0;
+  if (inPlace) {
+    // the kernel's run table: start of run r and the byte shift of its rows into S (8·(rel − position)), then the end
+    const { heap32, runsAt } = inPlace;
+    for (let r = 0; r < runs; r++) {
+      const a = runAt[r];
+      heap32[runsAt + 2 * r] = a;
+      heap32[runsAt + 2 * r + 1] = 8 * (rel[a] - a);
+    }
+    heap32[runsAt + 2 * runs] = m2;
+  }
   // target columns in chunks: W = L_1(chunk) D (k-major), C = L_D(chunk:) Wᵀ, scatter −C
   for (let j0 = from; j0 < to; j0 += CHUNK) {
     const bw = Math.min(CHUNK, to - j0);
@@ -277,19 +288,10 @@ export function applyDescendant(
       const ldc = (mr + 3) & ~3;
       scaledRowsPanels(bw, ncd, values, vd + j0, nrd, d, fd, heap, wOff);
       stripUpdate(kernels, true, true, mr, bw, ncd, values.byteOffset + 8 * (vd + j0), 8 * nrd, 8 * wOff, 8 * cOff, 8 * ldc);
-      // column by column, from its diagonal down, one contiguous add per run of rows
-      for (let j = 0; j < bw; j++) {
-        const g = j0 + j;
-        while (runAt[run + 1] <= g) run++;
-        const base = vS + (rows[rd + start + g] - f) * nrS;
-        const cj = cOff + j * ldc - j0;
-        for (let r = run; r < runs; r++) {
-          const a = runAt[r];
-          const b = runAt[r + 1];
-          const off = base + rel[a] - a;
-          for (let i = r === run ? g : a; i < b; i++) values[off + i] += heap[cj + i];
-        }
-      }
+      // column by column, from its diagonal down, one contiguous add per run of rows (in the kernel)
+      const { heap32, runsAt, columnsAt } = inPlace;
+      for (let j = 0; j < bw; j++) heap32[columnsAt + j] = values.byteOffset + 8 * (vS + (rows[rd + start + j0 + j] - f) * nrS);
+      kernels.scatterAdd(8 * (cOff - j0), 8 * ldc, bw, j0, 4 * runsAt, runs, 4 * columnsAt);
       continue;
     }
     scaledRowsKMajor(bw, ncd, values, vd + j0, nrd, d, fd, w);
@@ -315,7 +317,16 @@ export interface UpdateWorkspace {
    * With the factor in a WebAssembly memory: this thread's strip kernels over it, the memory
    * as doubles, and where W and C sit in this thread's scratch region (w and c are then unused).
    */
-  inPlace?: { kernels: StripKernels; heap: Float64Array; wOff: number; cOff: number };
+  inPlace?: {
+    kernels: StripKernels;
+    heap: Float64Array;
+    wOff: number;
+    cOff: number;
+    /** The memory as i32, and where (in i32) applyDescendant's run table and target-column table sit in the scratch region. */
+    heap32: Int32Array;
+    runsAt: number;
+    columnsAt: number;
+  };
 }
 
 /** Scratch for one thread; with `storage`, in scratch region `region` of the factor's memory (when it has that region). */
@@ -326,7 +337,10 @@ export function updateWorkspace(s: SupernodalStructure, storage?: FactorStorage,
   if (storage && kernels) {
     const wOff = region * storage.scratchDoubles;
     const none = new Float64Array(0);
-    return { rel, runAt, w: none, c: none, inPlace: { kernels, heap: new Float64Array(storage.memory.buffer), wOff, cOff: wOff + SCRATCH_COLUMNS * s.maxColumns } };
+    const cOff = wOff + SCRATCH_COLUMNS * s.maxColumns;
+    const tables = cOff + SCRATCH_COLUMNS * (s.maxRows + 4);
+    const inPlace = { kernels, heap: new Float64Array(storage.memory.buffer), wOff, cOff, heap32: new Int32Array(storage.memory.buffer), runsAt: 2 * tables, columnsAt: 2 * tables + 2 * (s.maxRows + 1) };
+    return { rel, runAt, w: none, c: none, inPlace };
   }
   return {
     rel,
@@ -356,7 +370,7 @@ export function panelUpdateRows(
     // in place: W panels in scratch, C is the block itself
     const base = values.byteOffset / 8;
     scaledRowsPanels(bw, c0, values, v0 + c0, nr, d, f, ip.heap, ip.wOff);
-    inPlaceUpdate(ip.kernels, ip.heap, from === 0, to - from, bw, c0, base + v0 + r0, nr, ip.wOff, base + v0 + r0 + c0 * nr, nr);
+    inPlaceUpdate(ip.kernels, from === 0, to - from, bw, c0, base + v0 + r0, nr, ip.wOff, base + v0 + r0 + c0 * nr, nr);
     return;
   }
   const w = work.w;
@@ -433,7 +447,7 @@ function factorPanel(
     if (ip && g0 > c0) {
       const base = values.byteOffset / 8;
       scaledRowsPanels(g1 - g0, g0 - c0, values, v0 + g0 + c0 * nr, nr, d, f + c0, ip.heap, ip.wOff);
-      inPlaceUpdate(ip.kernels, ip.heap, true, nr - g0, g1 - g0, g0 - c0, base + v0 + g0 + c0 * nr, nr, ip.wOff, base + v0 + g0 + g0 * nr, nr);
+      inPlaceUpdate(ip.kernels, true, nr - g0, g1 - g0, g0 - c0, base + v0 + g0 + c0 * nr, nr, ip.wOff, base + v0 + g0 + g0 * nr, nr);
     }
     // each column j of the group: apply the group's earlier columns, take the pivot, scale
     for (let j = g0; j < g1; j++) {

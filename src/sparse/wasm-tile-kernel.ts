@@ -17,6 +17,16 @@
  *                                   pA + t·lda; `count` strips 4 rows (32 bytes) apart;
  *                                   C(4 rows × 4 columns at pC, column stride ldc) −= the sums
  *   putStrips(…)                    the same, but C ← −(the sums)
+ *   edgeStrips(pA, lda, kb, pW, pC, ldc, count, rows, cols)
+ *                                   as subStrips, but only the first `cols` columns of C are
+ *                                   written, and of the last strip only its first `rows` rows
+ *                                   (A's rows past them are read, their sums dropped): the edge
+ *                                   of a product whose C lies inside a factor block
+ *   scatterAdd(pC, ldc, cols, g, pRuns, runs, pCols)
+ *                                   column j < cols of C, rows g + j … on, added to a factor
+ *                                   block by runs of consecutive target rows: run r starts at
+ *                                   row i = runs[2r] (i32, one past the last at runs[2·runs]) and
+ *                                   row i goes to pCols[j] (i32) + runs[2r + 1] + 8i
  * W is always a packed panel (step t at pW + 32t). All addresses and strides are in bytes.
  *
  * Returns null where WebAssembly, its SIMD or shared memory is unavailable; callers then use
@@ -39,12 +49,15 @@ type Strips = (pA: number, lda: number, kb: number, pW: number, pC: number, ldc:
 export interface StripKernels {
   subStrips: Strips;
   putStrips: Strips;
+  edgeStrips: (pA: number, lda: number, kb: number, pW: number, pC: number, ldc: number, count: number, rows: number, cols: number) => void;
+  scatterAdd: (pC: number, ldc: number, cols: number, g: number, pRuns: number, runs: number, pCols: number) => void;
 }
 
 /** Pages of the private memory (2 MiB: packed A block, W panels and sums, see dense-block-kernels). */
 const PAGES = 32;
 
 const { localGet: get, localSet: set, i32Const: i32, v128Load: load, v128Splat64: splat, v128Store: store, v128Zero: zero, f64x2Sub: sub, f64x2Neg: neg } = op;
+const { i32Load: iload, i32GeU: GEU, i32Sub: ISUB, i32Add: IADD, i32Shl: SHL, f64Load: fload, f64Store: fstore, f64Sub: FSUB, f64Add: FADD, f64x2Add: vadd, f64x2ExtractLane: lane } = op;
 
 /** The 4×4 step: accumulators acc … acc+7 += (a0, a1) ⊗ W(·, t) with W's step at local pw. */
 function tileStep(pw: number, acc: number, a0: number, a1: number, b: number): number[] {
@@ -112,12 +125,84 @@ function stripsBody(put: boolean): number[] {
   return locals.body(countdown(count, strip));
 }
 
+/** edgeStrips(pA, lda, kb, pW, pC, ldc, count, rows, cols) */
+function edgeStripsBody(): number[] {
+  const locals = new Locals(9);
+  const [pA, lda, kb, pW, pC, ldc, count, rows, cols] = locals.params;
+  const a = locals.i32();
+  const w = locals.i32();
+  const left = locals.i32();
+  const c = locals.i32();
+  const live = locals.i32();
+  const acc = locals.v128(8);
+  const a0 = locals.v128();
+  const a1 = locals.v128();
+  const b = locals.v128();
+  const step = [...get(a), ...load(0), ...set(a0), ...get(a), ...load(16), ...set(a1), ...tileStep(w, acc, a0, a1, b), ...addTo(a, get(lda)), ...addTo(w, i32(32))];
+  const strip: number[] = [];
+  for (let q = 0; q < 8; q++) strip.push(...zero, ...set(acc + q));
+  strip.push(...get(pA), ...set(a), ...get(pW), ...set(w), ...get(kb), ...set(left), ...countdown(left, step));
+  // rows written: 4, or `rows` in the last strip
+  strip.push(...i32(4), ...set(live), ...op.block, ...get(count), ...i32(1), ...op.i32Ne, ...op.brIf(0), ...get(rows), ...set(live), ...op.end);
+  // C(ii, jj) −= sum for jj < cols, ii < live, one double at a time
+  strip.push(...get(pC), ...set(c), ...op.block);
+  for (let jj = 0; jj < 4; jj++) {
+    strip.push(...i32(jj), ...get(cols), ...GEU, ...op.brIf(0), ...op.block);
+    for (let ii = 0; ii < 4; ii++) {
+      const sum = acc + 2 * jj + (ii >> 1);
+      strip.push(...i32(ii), ...get(live), ...GEU, ...op.brIf(0));
+      strip.push(...get(c), ...get(c), ...fload(8 * ii), ...get(sum), ...lane(ii & 1), ...FSUB, ...fstore(8 * ii));
+    }
+    strip.push(...op.end, ...addTo(c, get(ldc)));
+  }
+  strip.push(...op.end, ...addTo(pA, i32(32)), ...addTo(pC, i32(32)));
+  return locals.body(countdown(count, strip));
+}
+
+/** scatterAdd(pC, ldc, cols, g, pRuns, runs, pCols) */
+function scatterAddBody(): number[] {
+  const locals = new Locals(7);
+  const [pC, ldc, cols, g, pRuns, runs, pCols] = locals.params;
+  const run = locals.i32();
+  const r = locals.i32();
+  const start = locals.i32();
+  const end = locals.i32();
+  const dst = locals.i32();
+  const src = locals.i32();
+  const len = locals.i32();
+  const base = locals.i32();
+  /** byte address of run q's entry (pRuns + 8q) */
+  const entry = (q: number) => [...get(pRuns), ...get(q), ...i32(3), ...SHL, ...IADD];
+  // one run of len rows: dst += src, two rows at a time, then an odd last row
+  const pair = [...get(dst), ...get(dst), ...load(0), ...get(src), ...load(0), ...vadd, ...store(0), ...addTo(dst, i32(16)), ...addTo(src, i32(16)), ...get(len), ...i32(2), ...ISUB, ...set(len)];
+  const oneRun: number[] = [
+    ...entry(r), ...iload(8), ...set(end),
+    ...get(base), ...entry(r), ...iload(4), ...IADD, ...get(start), ...i32(3), ...SHL, ...IADD, ...set(dst),
+    ...get(pC), ...get(start), ...i32(3), ...SHL, ...IADD, ...set(src),
+    ...get(end), ...get(start), ...ISUB, ...set(len),
+    ...loopUntil([...i32(1), ...get(len), ...GEU], pair),
+    ...op.block, ...get(len), ...op.i32Eqz, ...op.brIf(0),
+    ...get(dst), ...get(dst), ...fload(0), ...get(src), ...fload(0), ...FADD, ...fstore(0), ...op.end,
+    ...get(end), ...set(start), ...addTo(r, i32(1)),
+  ];
+  const column: number[] = [
+    // the run holding row g: advance while the next run starts at or before g
+    ...loopUntil([...get(g), ...entry(run), ...iload(8), ...GEU, ...op.i32Eqz], addTo(run, i32(1))),
+    ...get(pCols), ...iload(0), ...set(base), ...get(run), ...set(r), ...get(g), ...set(start),
+    ...loopUntil([...get(r), ...get(runs), ...GEU], oneRun),
+    ...addTo(pCols, i32(4)), ...addTo(pC, get(ldc)), ...addTo(g, i32(1)),
+  ];
+  return locals.body(countdown(cols, column));
+}
+
 /** The module's bytes (compiled once below; exported for the disassembly snapshot test). */
 export function tileModuleBytes(): Uint8Array {
   return assembleModule(MAX_PAGES, [
     { params: 5, name: 'tiles', body: tilesBody() },
     { params: 7, name: 'sub', body: stripsBody(false) },
     { params: 7, name: 'put', body: stripsBody(true) },
+    { params: 9, name: 'edge', body: edgeStripsBody() },
+    { params: 7, name: 'scatter', body: scatterAddBody() },
   ]);
 }
 
@@ -149,7 +234,12 @@ export function createTileKernel(): TileKernel | null {
 export function stripKernels(memory: WasmMemory): StripKernels | null {
   const exports = instantiate(memory);
   if (exports === null) return null;
-  return { subStrips: exports.sub as Strips, putStrips: exports.put as Strips };
+  return {
+    subStrips: exports.sub as Strips,
+    putStrips: exports.put as Strips,
+    edgeStrips: exports.edge as StripKernels['edgeStrips'],
+    scatterAdd: exports.scatter as StripKernels['scatterAdd'],
+  };
 }
 
 /** Whether the tile and strip kernels compile here (WebAssembly with SIMD and shared memory). */

@@ -84,7 +84,7 @@ describe('in-place strip products over a WebAssembly memory', () => {
     expect(k4).not.toBeNull();
     const heap = new Float64Array(memory.buffer);
     const rnd = seededRandom(11);
-    for (const [m, n, k, lower] of [[301, 47, 263, true], [130, 12, 5, false], [9, 7, 3, true], [6, 4, 300, false]] as [number, number, number, boolean][]) {
+    for (const [m, n, k, lower] of [[301, 47, 263, true], [130, 12, 5, false], [9, 7, 3, true], [6, 4, 300, false], [10, 6, 4, true], [3, 3, 5, true], [7, 2, 9, false], [13, 5, 40, false]] as [number, number, number, boolean][]) {
       const lda = m + n + 5; // A's column j holds the rows of W first (as in a supernode block), then C's rows
       const aOff = 16;
       const wOff = aOff + lda * k + 8;
@@ -97,7 +97,7 @@ describe('in-place strip products over a WebAssembly memory', () => {
       for (let i = 0; i < ldc * n; i++) heap[cOff + i] = rnd();
       const c0 = heap.slice(cOff, cOff + ldc * n);
       const guard = heap[cOff + ldc * n];
-      inPlaceUpdate(k4, heap, lower, m, n, k, aOff + n, lda, wOff, cOff, ldc);
+      inPlaceUpdate(k4, lower, m, n, k, aOff + n, lda, wOff, cOff, ldc);
       // reference: ml-matrix dense product A(n:n+m, :) · diag(d) · A(0:n, :)ᵀ
       const am = new Matrix(m, k);
       for (let i = 0; i < m; i++) for (let t = 0; t < k; t++) am.set(i, t, heap[aOff + n + i + t * lda]);
