@@ -54,10 +54,10 @@ const SCRATCH_COLUMNS = Math.ceil(Math.max(CHUNK, PANEL) / 4) * 4;
  * One thread's scratch for the in-place products: W panels (SCRATCH_COLUMNS × a supernode's
  * columns), C (SCRATCH_COLUMNS columns of the largest row count rounded up to 4), then
  * applyDescendant's tables for the scatter kernel (two i32 per run, at most maxRows + 1, and
- * one i32 per target column of a chunk).
+ * one i32 per target column of a chunk), then one double for factorPanel's column kernels.
  */
 function inPlaceScratchDoubles(s: SupernodalStructure): number {
-  return SCRATCH_COLUMNS * (s.maxColumns + s.maxRows + 4) + s.maxRows + 1 + SCRATCH_COLUMNS / 2;
+  return SCRATCH_COLUMNS * (s.maxColumns + s.maxRows + 4) + s.maxRows + 1 + SCRATCH_COLUMNS / 2 + 1;
 }
 
 /**
@@ -326,6 +326,8 @@ export interface UpdateWorkspace {
     heap32: Int32Array;
     runsAt: number;
     columnsAt: number;
+    /** Double of the scratch region holding the column kernels' coefficient. */
+    coefficientAt: number;
   };
 }
 
@@ -339,7 +341,7 @@ export function updateWorkspace(s: SupernodalStructure, storage?: FactorStorage,
     const none = new Float64Array(0);
     const cOff = wOff + SCRATCH_COLUMNS * s.maxColumns;
     const tables = cOff + SCRATCH_COLUMNS * (s.maxRows + 4);
-    const inPlace = { kernels, heap: new Float64Array(storage.memory.buffer), wOff, cOff, heap32: new Int32Array(storage.memory.buffer), runsAt: 2 * tables, columnsAt: 2 * tables + 2 * (s.maxRows + 1) };
+    const inPlace = { kernels, heap: new Float64Array(storage.memory.buffer), wOff, cOff, heap32: new Int32Array(storage.memory.buffer), runsAt: 2 * tables, columnsAt: 2 * tables + 2 * (s.maxRows + 1), coefficientAt: tables + s.maxRows + 1 + SCRATCH_COLUMNS / 2 };
     return { rel, runAt, w: none, c: none, inPlace };
   }
   return {
@@ -452,6 +454,23 @@ function factorPanel(
     // each column j of the group: apply the group's earlier columns, take the pivot, scale
     for (let j = g0; j < g1; j++) {
       const cj = v0 + j * nr;
+      if (ip) {
+        // L(j:, j) −= L(j:, t) d_t L(j, t) for each earlier column t of the group, in the kernel
+        const at = ip.coefficientAt;
+        const bytes = values.byteOffset + 8 * j;
+        for (let t = g0; t < j; t++) {
+          const q0 = v0 + t * nr;
+          ip.heap[at] = values[q0 + j] * d[f + t];
+          ip.kernels.subScaled(bytes + 8 * cj, bytes + 8 * q0, nr - j, 8 * at);
+        }
+        const pivot = monitor.accept(f + j, values[cj + j], diag[f + j]);
+        d[f + j] = pivot;
+        values[cj + j] = 1;
+        ip.heap[at] = 1 / pivot;
+        // L(j+1:, j) = B(j+1:, j) / d_j
+        ip.kernels.scale(bytes + 8 * (cj + 1), nr - j - 1, 8 * at);
+        continue;
+      }
       let t = g0;
       // L(j:, j) −= Σ_t L(j:, t) d_t L(j, t), four columns t at a time
       for (; t + 4 <= j; t += 4) {

@@ -27,6 +27,9 @@
  *                                   block by runs of consecutive target rows: run r starts at
  *                                   row i = runs[2r] (i32, one past the last at runs[2·runs]) and
  *                                   row i goes to pCols[j] (i32) + runs[2r + 1] + 8i
+ *   subScaled(pY, pX, rows, pC)     y(i) −= c · x(i) for i < rows, c the double at pC
+ *   scale(pY, rows, pC)             y(i) ← y(i) · c
+ *                                   (a supernode's column loop inside a 4-column group)
  * W is always a packed panel (step t at pW + 32t). All addresses and strides are in bytes.
  *
  * Returns null where WebAssembly, its SIMD or shared memory is unavailable; callers then use
@@ -51,6 +54,8 @@ export interface StripKernels {
   putStrips: Strips;
   edgeStrips: (pA: number, lda: number, kb: number, pW: number, pC: number, ldc: number, count: number, rows: number, cols: number) => void;
   scatterAdd: (pC: number, ldc: number, cols: number, g: number, pRuns: number, runs: number, pCols: number) => void;
+  subScaled: (pY: number, pX: number, rows: number, pC: number) => void;
+  scale: (pY: number, rows: number, pC: number) => void;
 }
 
 /** Pages of the private memory (2 MiB: packed A block, W panels and sums, see dense-block-kernels). */
@@ -195,6 +200,27 @@ function scatterAddBody(): number[] {
   return locals.body(countdown(cols, column));
 }
 
+/**
+ * subScaled(pY, pX, rows, pC) (with x) or scale(pY, rows, pC): two rows per step, then an odd
+ * last row (its product taken in lane 0), each entry rounded as the plain loop rounds it.
+ */
+function columnBody(withX: boolean): number[] {
+  const locals = new Locals(withX ? 4 : 3);
+  const [pY, pX, rows, pC] = withX ? locals.params : [locals.params[0], -1, locals.params[1], locals.params[2]];
+  const c = locals.v128();
+  const term = (vload: number[]) => (withX ? [...get(pX), ...vload, ...get(c), ...op.f64x2Mul] : []);
+  const pairStep = withX
+    ? [...get(pY), ...get(pY), ...load(0), ...term(load(0)), ...sub, ...store(0), ...addTo(pX, i32(16))]
+    : [...get(pY), ...get(pY), ...load(0), ...get(c), ...op.f64x2Mul, ...store(0)];
+  pairStep.push(...addTo(pY, i32(16)), ...get(rows), ...i32(2), ...ISUB, ...set(rows));
+  const last = withX
+    ? [...get(pY), ...get(pY), ...fload(0), ...term(splat(0)), ...lane(0), ...FSUB, ...fstore(0)]
+    : [...get(pY), ...get(pY), ...splat(0), ...get(c), ...op.f64x2Mul, ...lane(0), ...fstore(0)];
+  const code = [...get(pC), ...splat(0), ...set(c), ...loopUntil([...i32(1), ...get(rows), ...GEU], pairStep)];
+  code.push(...op.block, ...get(rows), ...op.i32Eqz, ...op.brIf(0), ...last, ...op.end);
+  return locals.body(code);
+}
+
 /** The module's bytes (compiled once below; exported for the disassembly snapshot test). */
 export function tileModuleBytes(): Uint8Array {
   return assembleModule(MAX_PAGES, [
@@ -203,6 +229,8 @@ export function tileModuleBytes(): Uint8Array {
     { params: 7, name: 'put', body: stripsBody(true) },
     { params: 9, name: 'edge', body: edgeStripsBody() },
     { params: 7, name: 'scatter', body: scatterAddBody() },
+    { params: 4, name: 'subScaled', body: columnBody(true) },
+    { params: 3, name: 'scale', body: columnBody(false) },
   ]);
 }
 
@@ -239,6 +267,8 @@ export function stripKernels(memory: WasmMemory): StripKernels | null {
     putStrips: exports.put as Strips,
     edgeStrips: exports.edge as StripKernels['edgeStrips'],
     scatterAdd: exports.scatter as StripKernels['scatterAdd'],
+    subScaled: exports.subScaled as StripKernels['subScaled'],
+    scale: exports.scale as StripKernels['scale'],
   };
 }
 

@@ -2,6 +2,8 @@
   (type (;0;) (func (param i32 i32 i32 i32 i32)))
   (type (;1;) (func (param i32 i32 i32 i32 i32 i32 i32)))
   (type (;2;) (func (param i32 i32 i32 i32 i32 i32 i32 i32 i32)))
+  (type (;3;) (func (param i32 i32 i32 i32)))
+  (type (;4;) (func (param i32 i32 i32)))
   (import "k" "memory" (memory (;0;) 1 65536 shared))
   (func (;0;) (type 0) (param i32 i32 i32 i32 i32)
     (local i32 i32 v128 v128 v128 v128 v128 v128 v128 v128 v128 v128 v128)
@@ -1019,8 +1021,100 @@
         br 0 (;@2;)
       end
     end)
+  (func (;5;) (type 3) (param i32 i32 i32 i32)
+    (local v128)
+    local.get 3
+    v128.load64_splat
+    local.set 4
+    block  ;; label = @1
+      loop  ;; label = @2
+        i32.const 1
+        local.get 2
+        i32.ge_u
+        br_if 1 (;@1;)
+        local.get 0
+        local.get 0
+        v128.load align=8
+        local.get 1
+        v128.load align=8
+        local.get 4
+        f64x2.mul
+        f64x2.sub
+        v128.store align=8
+        local.get 1
+        i32.const 16
+        i32.add
+        local.set 1
+        local.get 0
+        i32.const 16
+        i32.add
+        local.set 0
+        local.get 2
+        i32.const 2
+        i32.sub
+        local.set 2
+        br 0 (;@2;)
+      end
+    end
+    block  ;; label = @1
+      local.get 2
+      i32.eqz
+      br_if 0 (;@1;)
+      local.get 0
+      local.get 0
+      f64.load
+      local.get 1
+      v128.load64_splat
+      local.get 4
+      f64x2.mul
+      f64x2.extract_lane 0
+      f64.sub
+      f64.store
+    end)
+  (func (;6;) (type 4) (param i32 i32 i32)
+    (local v128)
+    local.get 2
+    v128.load64_splat
+    local.set 3
+    block  ;; label = @1
+      loop  ;; label = @2
+        i32.const 1
+        local.get 1
+        i32.ge_u
+        br_if 1 (;@1;)
+        local.get 0
+        local.get 0
+        v128.load align=8
+        local.get 3
+        f64x2.mul
+        v128.store align=8
+        local.get 0
+        i32.const 16
+        i32.add
+        local.set 0
+        local.get 1
+        i32.const 2
+        i32.sub
+        local.set 1
+        br 0 (;@2;)
+      end
+    end
+    block  ;; label = @1
+      local.get 1
+      i32.eqz
+      br_if 0 (;@1;)
+      local.get 0
+      local.get 0
+      v128.load64_splat
+      local.get 3
+      f64x2.mul
+      f64x2.extract_lane 0
+      f64.store
+    end)
   (export "tiles" (func 0))
   (export "sub" (func 1))
   (export "put" (func 2))
   (export "edge" (func 3))
-  (export "scatter" (func 4)))
+  (export "scatter" (func 4))
+  (export "subScaled" (func 5))
+  (export "scale" (func 6)))
