@@ -136,4 +136,59 @@ describe('in-place strip products over a WebAssembly memory', () => {
     const p = am.mmul(wm.transpose());
     for (let j = 0; j < n; j++) for (let i = j; i < m; i++) expect(Math.abs(heap[cOff + i + j * ldc] + p.get(i, j))).toBeLessThan(1e-11);
   });
+
+  it('scatterAdd adds C by runs of consecutive target rows, and subScaled / scale round as the plain loops', () => {
+    const memory = new WebAssembly.Memory({ initial: 4, maximum: 4, shared: true });
+    const k4 = stripKernels(memory)!;
+    const heap = new Float64Array(memory.buffer);
+    const heap32 = new Int32Array(memory.buffer);
+    const rnd = seededRandom(13);
+    // C: m rows × cols columns at cOff (ld ldc); the rows' target positions rel (increasing, runs of 1–4), target columns of ld ldt at tOff
+    const m = 23;
+    const cols = 5;
+    const g0 = 2; // C's column j starts at row g0 + j
+    const ldc = 24;
+    const cOff = 64;
+    const rel: number[] = [];
+    for (let i = 0, r = 1; i < m; i++) rel.push((r += rnd() < 0.4 ? 2 : 1));
+    const ldt = rel[m - 1] + 3;
+    const tOff = cOff + ldc * cols + 8;
+    const colAt = [0, 2, 3, 6, 7];
+    for (let i = 0; i < ldc * cols; i++) heap[cOff + i] = rnd() - 0.5;
+    for (let i = 0; i < ldt * 8; i++) heap[tOff + i] = rnd();
+    const before = heap.slice(tOff, tOff + ldt * 8);
+    // run table (start, byte shift) and column table in i32, after the target
+    const runsAt = 2 * (tOff + ldt * 8 + 2);
+    let runs = 0;
+    for (let i = 0; i < m; i++) {
+      if (i > 0 && rel[i] === rel[i - 1] + 1) continue;
+      heap32[runsAt + 2 * runs] = i;
+      heap32[runsAt + 2 * runs + 1] = 8 * (rel[i] - i);
+      runs++;
+    }
+    heap32[runsAt + 2 * runs] = m;
+    const columnsAt = runsAt + 2 * runs + 2;
+    for (let j = 0; j < cols; j++) heap32[columnsAt + j] = 8 * (tOff + colAt[j] * ldt);
+    k4.scatterAdd(8 * (cOff - g0), 8 * ldc, cols, g0, 4 * runsAt, runs, 4 * columnsAt);
+    // expected: target(rel[i], colAt[j]) += C(i − g0, j) for i ≥ g0 + j, nothing else touched
+    const expected = before.slice();
+    for (let j = 0; j < cols; j++) for (let i = g0 + j; i < m; i++) expected[colAt[j] * ldt + rel[i]] += heap[cOff + j * ldc + i - g0];
+    for (let q = 0; q < ldt * 8; q++) expect(heap[tOff + q]).toBe(expected[q]);
+    // y −= c·x and y ·= c over odd and even lengths, bit for bit against the same TypeScript loops
+    for (const rows of [0, 1, 6, 7]) {
+      const y0 = Array.from({ length: rows + 1 }, () => rnd() - 0.5);
+      const x = Array.from({ length: rows }, () => rnd() - 0.5);
+      const c = rnd() + 0.1;
+      heap.set(y0, 8);
+      heap.set(x, 32);
+      heap[0] = c;
+      k4.subScaled(64, 256, rows, 0);
+      for (let i = 0; i < rows; i++) expect(heap[8 + i]).toBe(y0[i] - c * x[i]);
+      expect(heap[8 + rows]).toBe(y0[rows]);
+      heap.set(y0, 8);
+      k4.scale(64, rows, 0);
+      for (let i = 0; i < rows; i++) expect(heap[8 + i]).toBe(y0[i] * c);
+      expect(heap[8 + rows]).toBe(y0[rows]);
+    }
+  });
 });
