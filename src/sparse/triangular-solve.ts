@@ -291,7 +291,7 @@ function backwardColumns(values: Float64Array, v0: number, nr: number, nc: numbe
   }
 }
 
-/** Columns of L11 per panel in the SIMD sweeps: a scalar triangle, then a kernel call for the rows below it. */
+/** Columns of L11 per panel in the SIMD sweeps: a triangle kernel call, then a product kernel call for the rows below it. */
 const SIMD_PANEL = 8;
 /** Columns of L per call of the columns kernel (its strips walk across them; our choice by measurement). */
 const SIMD_COLUMN_BLOCK = 8;
@@ -312,11 +312,11 @@ function rhsGroups(g: number): readonly number[] {
 /**
  * Forward sweep with the SIMD kernels, g ≤ KERNEL_RHS right-hand sides at a time. Per supernode,
  * Y = [X(f..l−1, ·); 0] (nr × g, in this thread's scratch region); for each panel of L11,
- * the unit triangle in scalar code and  Y(rows below in L11) −= L(·, panel) Y(panel);  then
+ * the unit triangle (scalar, in WebAssembly) and  Y(rows below in L11) −= L(·, panel) Y(panel);  then
  * Y(below) −= L21 Y(own) in one call, and Y(below) is added into X (or its redirect).
  */
 function forwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern: SweepKernels, yb: number, from: number, to: number, redirect?: RowRedirect): void {
-  const { structure: s, values } = f;
+  const { structure: s } = f;
   const { n, superStart, rowPtr, rows, valuePtr } = s;
   const heap = kern.heap;
   const lBase = kern.storage.valuesOffset;
@@ -341,15 +341,8 @@ function forwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern:
       // L11 panel by panel
       for (let j = 0; j < nc; j += SIMD_PANEL) {
         const pw = Math.min(SIMD_PANEL, nc - j);
-        // unit triangle of the panel, column by column
-        for (let jj = 0; jj < pw; jj++) {
-          const q = v0 + (j + jj) * nr + j;
-          for (let c = 0; c < g; c++) {
-            const yo = yb + c * nr + j;
-            const yv = heap[yo + jj];
-            if (yv !== 0) for (let i = jj + 1; i < pw; i++) heap[yo + i] -= values[q + i] * yv;
-          }
-        }
+        // unit triangle of the panel, column by column, every right-hand side in one call
+        if (pw > 1) kern.triangleForward(8 * (lBase + v0 + j * nr + j), 8 * nr, pw, g, 8 * (yb + j), 8 * nr);
         if (nc - j - pw > 0) columnsProduct(kern, g, nc - j - pw, pw, lBase + v0 + j * nr + j + pw, nr, yb + j, yb + j + pw);
       }
       if (nb > 0) columnsProduct(kern, g, nb, nc, lBase + v0 + nc, nr, yb, yb + nc);
@@ -360,7 +353,15 @@ function forwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern:
         const xo = col * n;
         for (let i = 0; i < nc; i++) x[xo + f0 + i] = heap[yo + i];
         if (index) {
-          scatterRedirected(x.subarray(xo), n, 1, heap.subarray(yo + nc, yo + nr), nb, rows, r0 + nc, redirect!, col);
+          // rows marked in the redirect go to its accumulator (as scatterRedirected, without views)
+          const { acc, count } = redirect!;
+          const ao = col * count;
+          for (let i = 0; i < nb; i++) {
+            const r = rows[r0 + nc + i];
+            const t = index[r];
+            if (t >= 0) acc[ao + t] += heap[yo + nc + i];
+            else x[xo + r] += heap[yo + nc + i];
+          }
         } else {
           for (let i = 0; i < nb; i++) x[xo + rows[r0 + nc + i]] += heap[yo + nc + i];
         }
@@ -372,10 +373,10 @@ function forwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern:
 /**
  * Backward sweep with the SIMD kernels: Y = X(R, ·) gathered; Y(own) −= L21ᵀ Y(below); then the
  * panels of L11 last first: Y(panel) −= L(rows below in L11, panel)ᵀ Y(those rows) and the
- * transposed unit triangle in scalar code; Y(own) back into X.
+ * transposed unit triangle (scalar, in WebAssembly); Y(own) back into X.
  */
 function backwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern: SweepKernels, yb: number, from: number, to: number): void {
-  const { structure: s, values } = f;
+  const { structure: s } = f;
   const { n, superStart, rowPtr, rows, valuePtr } = s;
   const heap = kern.heap;
   const lBase = kern.storage.valuesOffset;
@@ -401,16 +402,8 @@ function backwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern
       for (let j = Math.floor((nc - 1) / SIMD_PANEL) * SIMD_PANEL; j >= 0; j -= SIMD_PANEL) {
         const pw = Math.min(SIMD_PANEL, nc - j);
         if (nc - j - pw > 0) dotsProduct(kern, g, nc - j - pw, pw, lBase + v0 + j * nr + j + pw, nr, yb + j + pw, yb + j);
-        // transposed unit triangle, last column first
-        for (let jj = pw - 1; jj >= 0; jj--) {
-          const q = v0 + (j + jj) * nr + j;
-          for (let c = 0; c < g; c++) {
-            const yo = yb + c * nr + j;
-            let sum = 0;
-            for (let i = jj + 1; i < pw; i++) sum += values[q + i] * heap[yo + i];
-            heap[yo + jj] -= sum;
-          }
-        }
+        // transposed unit triangle, last column first, every right-hand side in one call
+        if (pw > 1) kern.triangleBackward(8 * (lBase + v0 + j * nr + j), 8 * nr, pw, g, 8 * (yb + j), 8 * nr);
       }
       // own rows back into X
       for (let c = 0; c < g; c++) {
