@@ -346,24 +346,26 @@ function forwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern:
         if (nc - j - pw > 0) columnsProduct(kern, g, nc - j - pw, pw, lBase + v0 + j * nr + j + pw, nr, yb + j, yb + j + pw);
       }
       if (nb > 0) columnsProduct(kern, g, nb, nc, lBase + v0 + nc, nr, yb, yb + nc);
-      // own rows back into X, rows below accumulate
+      // own rows back into X
       for (let c = 0; c < g; c++) {
         const yo = yb + c * nr;
-        const col = c0 + c;
-        const xo = col * n;
-        for (let i = 0; i < nc; i++) x[xo + f0 + i] = heap[yo + i];
-        if (index) {
-          // rows marked in the redirect go to its accumulator (as scatterRedirected, without views)
-          const { acc, count } = redirect!;
-          const ao = col * count;
-          for (let i = 0; i < nb; i++) {
-            const r = rows[r0 + nc + i];
-            const t = index[r];
-            if (t >= 0) acc[ao + t] += heap[yo + nc + i];
-            else x[xo + r] += heap[yo + nc + i];
-          }
-        } else {
-          for (let i = 0; i < nb; i++) x[xo + rows[r0 + nc + i]] += heap[yo + nc + i];
+        const xo = (c0 + c) * n + f0;
+        for (let i = 0; i < nc; i++) x[xo + i] = heap[yo + i];
+      }
+      // rows below accumulate, row by row (each row's index read once for the group)
+      if (index) {
+        // rows marked in the redirect go to its accumulator (as scatterRedirected)
+        const { acc, count } = redirect!;
+        for (let i = nc; i < nr; i++) {
+          const r = rows[r0 + i];
+          const t = index[r];
+          if (t >= 0) for (let c = 0, yo = yb + i, ao = c0 * count + t; c < g; c++, yo += nr, ao += count) acc[ao] += heap[yo];
+          else for (let c = 0, yo = yb + i, xo = c0 * n + r; c < g; c++, yo += nr, xo += n) x[xo] += heap[yo];
+        }
+      } else {
+        for (let i = nc; i < nr; i++) {
+          const r = rows[r0 + i];
+          for (let c = 0, yo = yb + i, xo = c0 * n + r; c < g; c++, yo += nr, xo += n) x[xo] += heap[yo];
         }
       }
     }
@@ -390,12 +392,15 @@ function backwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern
     const nb = nr - nc;
     for (let c0 = 0; c0 < k; c0 += KERNEL_RHS) {
       const g = Math.min(KERNEL_RHS, k - c0);
-      // Y(:, c) = X(R, c0 + c)
+      // Y(:, c) = X(R, c0 + c): own rows column by column, rows below row by row
       for (let c = 0; c < g; c++) {
         const yo = yb + c * nr;
-        const xo = (c0 + c) * n;
-        for (let i = 0; i < nc; i++) heap[yo + i] = x[xo + f0 + i];
-        for (let i = nc; i < nr; i++) heap[yo + i] = x[xo + rows[r0 + i]];
+        const xo = (c0 + c) * n + f0;
+        for (let i = 0; i < nc; i++) heap[yo + i] = x[xo + i];
+      }
+      for (let i = nc; i < nr; i++) {
+        const r = rows[r0 + i];
+        for (let c = 0, yo = yb + i, xo = c0 * n + r; c < g; c++, yo += nr, xo += n) heap[yo] = x[xo];
       }
       if (nb > 0) dotsProduct(kern, g, nb, nc, lBase + v0 + nc, nr, yb + nc, yb);
       // L11 panels, last first
