@@ -61,6 +61,10 @@ export interface SweepKernels {
   /** The unit triangle of one panel of L11, forward and transposed, for g ≤ KERNEL_RHS right-hand sides. */
   triangleForward: Triangle;
   triangleBackward: Triangle;
+  /** The rows after the last strip of `columns`, for g ≤ KERNEL_RHS right-hand sides (the extra last parameter). */
+  columnsTail: (pL: number, ld: number, rows: number, cols: number, pX: number, ldx: number, pY: number, ldy: number, g: number) => void;
+  /** An odd last row of `dots`, for g ≤ KERNEL_RHS right-hand sides (count = columns, cols = g). */
+  dotsTail: Kernel;
 }
 
 type Triangle = (pL: number, ld: number, width: number, g: number, pY: number, ldy: number) => void;
@@ -204,13 +208,55 @@ function dotsBody(g: number, width: 1 | 2): number[] {
   return locals.body(code);
 }
 
-/** The module's bytes (compiled once below; exported for the disassembly snapshot test): columns, dots2, dots1 for each g, then the two panel triangles. */
+/**
+ * columnsTail(pL, ldL, rows, cols, pX, ldX, pY, ldY, g): the rows after the last strip of
+ * `columns` (rows < 4), scalar: Y(i, c) −= Σ_{t<cols} L(i, t) X(t, c), the sum from 0 in
+ * ascending t, for c < g.
+ */
+function columnsTailBody(): number[] {
+  const locals = new Locals(9);
+  const [pL, ldL, rows, cols, pX, ldX, pY, ldY, g] = locals.params;
+  const pl = locals.i32();
+  const py = locals.i32();
+  const r = locals.i32();
+  const t = locals.i32();
+  const pa = locals.i32();
+  const pb = locals.i32();
+  const sum = locals.f64();
+  // sum += L(i, t) · X(t, c)
+  const step = [...get(sum), ...get(pa), ...fload(0), ...get(pb), ...fload(0), ...F_MUL, ...F_ADD, ...set(sum), ...addTo(pa, get(ldL)), ...addTo(pb, i32(8))];
+  const row = [...F_ZERO, ...set(sum), ...get(pl), ...set(pa), ...get(pX), ...set(pb), ...get(cols), ...set(t), ...countdown(t, step)];
+  row.push(...get(py), ...get(py), ...fload(0), ...get(sum), ...F_SUB, ...fstore(0), ...addTo(pl, i32(8)), ...addTo(py, i32(8)));
+  const rhs = [...get(pL), ...set(pl), ...get(pY), ...set(py), ...get(rows), ...set(r), ...countdown(r, row), ...addTo(pX, get(ldX)), ...addTo(pY, get(ldY))];
+  return locals.body(countdown(g, rhs));
+}
+
+/**
+ * dotsTail(pL, ldL, cols, g, pG, ldG, pY, ldY): one row's share of `dots` (an odd last row),
+ * scalar: Y(t, c) −= L(i, t) G(i, c) for t < cols, c < g (pL, pG at row i).
+ */
+function dotsTailBody(): number[] {
+  const locals = new Locals(8);
+  const [pL, ldL, cols, g, pG, ldG, pY, ldY] = locals.params;
+  const pa = locals.i32();
+  const py = locals.i32();
+  const t = locals.i32();
+  const gv = locals.f64();
+  // Y(t) −= L(i, t) · G(i)
+  const step = [...get(py), ...get(py), ...fload(0), ...get(pa), ...fload(0), ...get(gv), ...F_MUL, ...F_SUB, ...fstore(0), ...addTo(pa, get(ldL)), ...addTo(py, i32(8))];
+  const rhs = [...get(pG), ...fload(0), ...set(gv), ...get(pL), ...set(pa), ...get(pY), ...set(py), ...get(cols), ...set(t), ...countdown(t, step)];
+  rhs.push(...addTo(pG, get(ldG)), ...addTo(pY, get(ldY)));
+  return locals.body(countdown(g, rhs));
+}
+
+/** The module's bytes (compiled once below; exported for the disassembly snapshot test): columns, dots2, dots1 for each g, then the two panel triangles and the two row tails. */
 export function sweepModuleBytes(): Uint8Array {
   const functions = [];
   for (let g = 1; g <= KERNEL_GROUP; g++) {
     functions.push({ params: 8, name: `c${g}`, body: columnsBody(g) }, { params: 8, name: `d${g}`, body: dotsBody(g, 2) }, { params: 8, name: `e${g}`, body: dotsBody(g, 1) });
   }
   functions.push({ params: 6, name: 'tf', body: triangleForwardBody() }, { params: 6, name: 'tb', body: triangleBackwardBody() });
+  functions.push({ params: 9, name: 'ct', body: columnsTailBody() }, { params: 8, name: 'dt', body: dotsTailBody() });
   return assembleModule(MAX_PAGES, functions);
 }
 
@@ -254,5 +300,5 @@ export function sweepKernels(storage: FactorStorage): SweepKernels | null {
   if (mod === null) return null;
   const exports = instantiate(mod, storage.memory);
   const pick = (kind: string) => [() => {}, ...Array.from({ length: KERNEL_GROUP }, (_, i) => exports[`${kind}${i + 1}`])] as Kernel[];
-  return { heap: new Float64Array(storage.memory.buffer), storage, columns: pick('c'), dots2: pick('d'), dots1: pick('e'), triangleForward: exports.tf as Triangle, triangleBackward: exports.tb as Triangle };
+  return { heap: new Float64Array(storage.memory.buffer), storage, columns: pick('c'), dots2: pick('d'), dots1: pick('e'), triangleForward: exports.tf as Triangle, triangleBackward: exports.tb as Triangle, columnsTail: exports.ct as SweepKernels['columnsTail'], dotsTail: exports.dt as Kernel };
 }

@@ -331,12 +331,12 @@ function forwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern:
     const nb = nr - nc;
     for (let c0 = 0; c0 < k; c0 += KERNEL_RHS) {
       const g = Math.min(KERNEL_RHS, k - c0);
-      // Y(:, c) = [X(f..l−1, c0 + c); 0]
+      // Y(:, c) = [X(f..l−1, c0 + c); 0] (one fill for the whole block, then the own rows)
+      heap.fill(0, yb, yb + g * nr);
       for (let c = 0; c < g; c++) {
         const yo = yb + c * nr;
         const xo = (c0 + c) * n + f0;
         for (let i = 0; i < nc; i++) heap[yo + i] = x[xo + i];
-        heap.fill(0, yo + nc, yo + nr);
       }
       // L11 panel by panel
       for (let j = 0; j < nc; j += SIMD_PANEL) {
@@ -422,11 +422,10 @@ function backwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern
 
 /**
  * heap[y + i + c·ld] −= Σ_{t<cols} heap[l + i + t·ld] · heap[xo + t + c·ld] for i < rows, c < g:
- * strips of four rows in the kernel, the last rows here.
+ * strips of four rows in the kernel, the last rows in the scalar tail kernel.
  */
 function columnsProduct(kern: SweepKernels, g: number, rows: number, cols: number, l: number, ld: number, xo: number, y: number): void {
   const strips = rows >> 2;
-  const heap = kern.heap;
   // a few columns of L per call, so one strip's loads touch few pages and every column streams
   if (strips > 0) {
     const groups = rhsGroups(g);
@@ -438,23 +437,16 @@ function columnsProduct(kern: SweepKernels, g: number, rows: number, cols: numbe
       }
     }
   }
-  // the rows after the last strip
-  for (let i = 4 * strips; i < rows; i++) {
-    for (let c = 0; c < g; c++) {
-      let sum = 0;
-      for (let t = 0; t < cols; t++) sum += heap[l + i + t * ld] * heap[xo + c * ld + t];
-      heap[y + c * ld + i] -= sum;
-    }
-  }
+  // the rows after the last strip, every right-hand side in one call
+  if (rows > 4 * strips) kern.columnsTail(8 * (l + 4 * strips), 8 * ld, rows - 4 * strips, cols, 8 * xo, 8 * ld, 8 * (y + 4 * strips), 8 * ld, g);
 }
 
 /**
  * heap[y + t + c·ld] −= Σ_{i<rows} heap[l + i + t·ld] · heap[gOff + i + c·ld] for t < cols, c < g:
- * pairs of columns (and a last single one) in the kernels over row pairs, an odd last row here.
+ * pairs of columns (and a last single one) in the kernels over row pairs, an odd last row in the tail kernel.
  */
 function dotsProduct(kern: SweepKernels, g: number, rows: number, cols: number, l: number, ld: number, gOff: number, y: number): void {
   const pairs = rows >> 1;
-  const heap = kern.heap;
   const colPairs = cols >> 1;
   const groups = rhsGroups(g);
   // one group: every column pair in one call; two groups: blocks of pairs, each group over the block
@@ -470,12 +462,6 @@ function dotsProduct(kern: SweepKernels, g: number, rows: number, cols: number, 
       kern.dots1[groups[q]](8 * (l + (cols - 1) * ld), 8 * ld, pairs, 1, 8 * (gOff + c * ld), 8 * ld, 8 * (y + cols - 1 + c * ld), 8 * ld);
     }
   }
-  if (rows & 1) {
-    const i = rows - 1;
-    // the last row's share of every dot product
-    for (let t = 0; t < cols; t++) {
-      const lv = heap[l + i + t * ld];
-      for (let c = 0; c < g; c++) heap[y + c * ld + t] -= lv * heap[gOff + c * ld + i];
-    }
-  }
+  // the last row's share of every dot product
+  if (rows & 1) kern.dotsTail(8 * (l + rows - 1), 8 * ld, cols, g, 8 * (gOff + rows - 1), 8 * ld, 8 * y, 8 * ld);
 }
