@@ -18,8 +18,11 @@
  *            g loads of G, g or 2g multiply-adds; lanes summed at the end.
  *
  * All addresses are byte offsets into the memory; every matrix is column-major with its own
- * leading dimension in bytes. Row tails (under 4 rows for `columns`, an odd row for `dots`)
- * are left to the caller. The module is assembled here byte by byte (as wasm-tile-kernel.ts).
+ * leading dimension in bytes. Row tails (under 4 rows for `columns`, an odd row for `dots`) go
+ * through two scalar tail functions, and the unit triangle of each panel of L11 (forward and
+ * transposed) through two more, each for up to KERNEL_RHS right-hand sides per call and in the
+ * order of the TypeScript loops they replaced (same bits). The module is assembled here byte by
+ * byte (as wasm-tile-kernel.ts).
  * Returns null where WebAssembly, its SIMD or shared memory is unavailable, or the factor does
  * not fit in 4 GiB; the sweeps then use the plain TypeScript loops.
  */
