@@ -18,8 +18,11 @@
  *            g loads of G, g or 2g multiply-adds; lanes summed at the end.
  *
  * All addresses are byte offsets into the memory; every matrix is column-major with its own
- * leading dimension in bytes. Row tails (under 4 rows for `columns`, an odd row for `dots`)
- * are left to the caller. The module is assembled here byte by byte (as wasm-tile-kernel.ts).
+ * leading dimension in bytes. Row tails (under 4 rows for `columns`, an odd row for `dots`) go
+ * through two scalar tail functions, and the unit triangle of each panel of L11 (forward and
+ * transposed) through two more, each for up to KERNEL_RHS right-hand sides per call and in the
+ * order of the TypeScript loops they replaced (same bits). The module is assembled here byte by
+ * byte (as wasm-tile-kernel.ts).
  * Returns null where WebAssembly, its SIMD or shared memory is unavailable, or the factor does
  * not fit in 4 GiB; the sweeps then use the plain TypeScript loops.
  */
@@ -58,11 +61,72 @@ export interface SweepKernels {
   columns: Kernel[];
   dots2: Kernel[];
   dots1: Kernel[];
+  /** The unit triangle of one panel of L11, forward and transposed, for g ≤ KERNEL_RHS right-hand sides. */
+  triangleForward: Triangle;
+  triangleBackward: Triangle;
+  /** The rows after the last strip of `columns`, for g ≤ KERNEL_RHS right-hand sides (the extra last parameter). */
+  columnsTail: (pL: number, ld: number, rows: number, cols: number, pX: number, ldx: number, pY: number, ldy: number, g: number) => void;
+  /** An odd last row of `dots`, for g ≤ KERNEL_RHS right-hand sides (count = columns, cols = g). */
+  dotsTail: Kernel;
 }
+
+type Triangle = (pL: number, ld: number, width: number, g: number, pY: number, ldy: number) => void;
 
 const { localGet: get, localSet: set, i32Const: i32, i32Add: ADD, i32Mul: MUL } = op;
 const { v128Load: vload, v128Splat64: vsplat, v128Store: vstore, v128Zero: vzero, f64x2Sub: vsub, f64x2ExtractLane: lane } = op;
-const { f64Load: fload, f64Store: fstore, f64Add: F_ADD, f64Sub: F_SUB } = op;
+const { f64Load: fload, f64Store: fstore, f64Add: F_ADD, f64Sub: F_SUB, f64Mul: F_MUL, f64Zero: F_ZERO, i32Sub: SUB } = op;
+
+/**
+ * triangleForward(pL, ldL, width, g, pY, ldY): for each of g right-hand sides,
+ * Y(i, c) −= L(i, j) Y(j, c) for j < width, j < i < width (the unit lower triangle of one panel
+ * of L11, column by column; scalar, in the order of the plain loop it replaces).
+ */
+function triangleForwardBody(): number[] {
+  const locals = new Locals(6);
+  const [pL, ldL, width, g, pY, ldY] = locals.params;
+  const pl = locals.i32();
+  const py = locals.i32();
+  const j = locals.i32();
+  const i = locals.i32();
+  const pa = locals.i32();
+  const pb = locals.i32();
+  const yv = locals.f64();
+  // rows below the diagonal of column j: Y(i) −= L(i, j) · Y(j)
+  const below = [...addTo(pa, i32(8)), ...addTo(pb, i32(8)), ...get(pb), ...get(pb), ...fload(0), ...get(pa), ...fload(0), ...get(yv), ...F_MUL, ...F_SUB, ...fstore(0)];
+  // column j (j counts down from width: width − j is the column, j − 1 the rows below its diagonal)
+  const column = [...get(py), ...fload(0), ...set(yv), ...get(j), ...i32(1), ...SUB, ...set(i), ...get(pl), ...set(pa), ...get(py), ...set(pb), ...countdown(i, below)];
+  column.push(...addTo(pl, [...get(ldL), ...i32(8), ...ADD]), ...addTo(py, i32(8)));
+  const rhs = [...get(pL), ...set(pl), ...get(pY), ...set(py), ...get(width), ...set(j), ...countdown(j, column), ...addTo(pY, get(ldY))];
+  return locals.body(countdown(g, rhs));
+}
+
+/**
+ * triangleBackward(pL, ldL, width, g, pY, ldY): for each of g right-hand sides, last column first,
+ * Y(j, c) −= Σ_{j<i<width} L(i, j) Y(i, c) (the transposed unit triangle of one panel; the sum
+ * from 0 in ascending i, as the plain loop it replaces).
+ */
+function triangleBackwardBody(): number[] {
+  const locals = new Locals(6);
+  const [pL, ldL, width, g, pY, ldY] = locals.params;
+  const pl = locals.i32();
+  const py = locals.i32();
+  const j = locals.i32();
+  const i = locals.i32();
+  const pa = locals.i32();
+  const pb = locals.i32();
+  const sum = locals.f64();
+  // sum += L(i, j) · Y(i)
+  const below = [...addTo(pa, i32(8)), ...addTo(pb, i32(8)), ...get(sum), ...get(pa), ...fload(0), ...get(pb), ...fload(0), ...F_MUL, ...F_ADD, ...set(sum)];
+  // column j = j' − 1 (j' counts down from width), width − j' rows below its diagonal
+  const column = [...F_ZERO, ...set(sum), ...get(width), ...get(j), ...SUB, ...set(i), ...get(pl), ...set(pa), ...get(py), ...set(pb), ...countdown(i, below)];
+  column.push(...get(py), ...get(py), ...fload(0), ...get(sum), ...F_SUB, ...fstore(0));
+  column.push(...get(pl), ...get(ldL), ...i32(8), ...ADD, ...SUB, ...set(pl), ...get(py), ...i32(8), ...SUB, ...set(py));
+  // the last column's diagonal: pL + (width − 1)(ldL + 8), pY + 8 (width − 1)
+  const last = [...get(width), ...i32(1), ...SUB];
+  const rhs = [...get(pL), ...last, ...get(ldL), ...i32(8), ...ADD, ...MUL, ...ADD, ...set(pl), ...get(pY), ...last, ...i32(8), ...MUL, ...ADD, ...set(py)];
+  rhs.push(...get(width), ...set(j), ...countdown(j, column), ...addTo(pY, get(ldY)));
+  return locals.body(countdown(g, rhs));
+}
 
 /** columns(pL, ldL, strips, cols, pX, ldX, pY, ldY), strides and addresses in bytes. */
 function columnsBody(g: number): number[] {
@@ -147,12 +211,55 @@ function dotsBody(g: number, width: 1 | 2): number[] {
   return locals.body(code);
 }
 
-/** The module's bytes (compiled once below; exported for the disassembly snapshot test): columns, dots2, dots1 for each g. */
+/**
+ * columnsTail(pL, ldL, rows, cols, pX, ldX, pY, ldY, g): the rows after the last strip of
+ * `columns` (rows < 4), scalar: Y(i, c) −= Σ_{t<cols} L(i, t) X(t, c), the sum from 0 in
+ * ascending t, for c < g.
+ */
+function columnsTailBody(): number[] {
+  const locals = new Locals(9);
+  const [pL, ldL, rows, cols, pX, ldX, pY, ldY, g] = locals.params;
+  const pl = locals.i32();
+  const py = locals.i32();
+  const r = locals.i32();
+  const t = locals.i32();
+  const pa = locals.i32();
+  const pb = locals.i32();
+  const sum = locals.f64();
+  // sum += L(i, t) · X(t, c)
+  const step = [...get(sum), ...get(pa), ...fload(0), ...get(pb), ...fload(0), ...F_MUL, ...F_ADD, ...set(sum), ...addTo(pa, get(ldL)), ...addTo(pb, i32(8))];
+  const row = [...F_ZERO, ...set(sum), ...get(pl), ...set(pa), ...get(pX), ...set(pb), ...get(cols), ...set(t), ...countdown(t, step)];
+  row.push(...get(py), ...get(py), ...fload(0), ...get(sum), ...F_SUB, ...fstore(0), ...addTo(pl, i32(8)), ...addTo(py, i32(8)));
+  const rhs = [...get(pL), ...set(pl), ...get(pY), ...set(py), ...get(rows), ...set(r), ...countdown(r, row), ...addTo(pX, get(ldX)), ...addTo(pY, get(ldY))];
+  return locals.body(countdown(g, rhs));
+}
+
+/**
+ * dotsTail(pL, ldL, cols, g, pG, ldG, pY, ldY): one row's share of `dots` (an odd last row),
+ * scalar: Y(t, c) −= L(i, t) G(i, c) for t < cols, c < g (pL, pG at row i).
+ */
+function dotsTailBody(): number[] {
+  const locals = new Locals(8);
+  const [pL, ldL, cols, g, pG, ldG, pY, ldY] = locals.params;
+  const pa = locals.i32();
+  const py = locals.i32();
+  const t = locals.i32();
+  const gv = locals.f64();
+  // Y(t) −= L(i, t) · G(i)
+  const step = [...get(py), ...get(py), ...fload(0), ...get(pa), ...fload(0), ...get(gv), ...F_MUL, ...F_SUB, ...fstore(0), ...addTo(pa, get(ldL)), ...addTo(py, i32(8))];
+  const rhs = [...get(pG), ...fload(0), ...set(gv), ...get(pL), ...set(pa), ...get(pY), ...set(py), ...get(cols), ...set(t), ...countdown(t, step)];
+  rhs.push(...addTo(pG, get(ldG)), ...addTo(pY, get(ldY)));
+  return locals.body(countdown(g, rhs));
+}
+
+/** The module's bytes (compiled once below; exported for the disassembly snapshot test): columns, dots2, dots1 for each g, then the two panel triangles and the two row tails. */
 export function sweepModuleBytes(): Uint8Array {
   const functions = [];
   for (let g = 1; g <= KERNEL_GROUP; g++) {
     functions.push({ params: 8, name: `c${g}`, body: columnsBody(g) }, { params: 8, name: `d${g}`, body: dotsBody(g, 2) }, { params: 8, name: `e${g}`, body: dotsBody(g, 1) });
   }
+  functions.push({ params: 6, name: 'tf', body: triangleForwardBody() }, { params: 6, name: 'tb', body: triangleBackwardBody() });
+  functions.push({ params: 9, name: 'ct', body: columnsTailBody() }, { params: 8, name: 'dt', body: dotsTailBody() });
   return assembleModule(MAX_PAGES, functions);
 }
 
@@ -196,5 +303,5 @@ export function sweepKernels(storage: FactorStorage): SweepKernels | null {
   if (mod === null) return null;
   const exports = instantiate(mod, storage.memory);
   const pick = (kind: string) => [() => {}, ...Array.from({ length: KERNEL_GROUP }, (_, i) => exports[`${kind}${i + 1}`])] as Kernel[];
-  return { heap: new Float64Array(storage.memory.buffer), storage, columns: pick('c'), dots2: pick('d'), dots1: pick('e') };
+  return { heap: new Float64Array(storage.memory.buffer), storage, columns: pick('c'), dots2: pick('d'), dots1: pick('e'), triangleForward: exports.tf as Triangle, triangleBackward: exports.tb as Triangle, columnsTail: exports.ct as SweepKernels['columnsTail'], dotsTail: exports.dt as Kernel };
 }

@@ -291,7 +291,7 @@ function backwardColumns(values: Float64Array, v0: number, nr: number, nc: numbe
   }
 }
 
-/** Columns of L11 per panel in the SIMD sweeps: a scalar triangle, then a kernel call for the rows below it. */
+/** Columns of L11 per panel in the SIMD sweeps: a triangle kernel call, then a product kernel call for the rows below it. */
 const SIMD_PANEL = 8;
 /** Columns of L per call of the columns kernel (its strips walk across them; our choice by measurement). */
 const SIMD_COLUMN_BLOCK = 8;
@@ -312,11 +312,11 @@ function rhsGroups(g: number): readonly number[] {
 /**
  * Forward sweep with the SIMD kernels, g ≤ KERNEL_RHS right-hand sides at a time. Per supernode,
  * Y = [X(f..l−1, ·); 0] (nr × g, in this thread's scratch region); for each panel of L11,
- * the unit triangle in scalar code and  Y(rows below in L11) −= L(·, panel) Y(panel);  then
+ * the unit triangle (scalar, in WebAssembly) and  Y(rows below in L11) −= L(·, panel) Y(panel);  then
  * Y(below) −= L21 Y(own) in one call, and Y(below) is added into X (or its redirect).
  */
 function forwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern: SweepKernels, yb: number, from: number, to: number, redirect?: RowRedirect): void {
-  const { structure: s, values } = f;
+  const { structure: s } = f;
   const { n, superStart, rowPtr, rows, valuePtr } = s;
   const heap = kern.heap;
   const lBase = kern.storage.valuesOffset;
@@ -331,38 +331,41 @@ function forwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern:
     const nb = nr - nc;
     for (let c0 = 0; c0 < k; c0 += KERNEL_RHS) {
       const g = Math.min(KERNEL_RHS, k - c0);
-      // Y(:, c) = [X(f..l−1, c0 + c); 0]
+      // Y(:, c) = [X(f..l−1, c0 + c); 0] (one fill for the whole block, then the own rows)
+      heap.fill(0, yb, yb + g * nr);
       for (let c = 0; c < g; c++) {
         const yo = yb + c * nr;
         const xo = (c0 + c) * n + f0;
         for (let i = 0; i < nc; i++) heap[yo + i] = x[xo + i];
-        heap.fill(0, yo + nc, yo + nr);
       }
       // L11 panel by panel
       for (let j = 0; j < nc; j += SIMD_PANEL) {
         const pw = Math.min(SIMD_PANEL, nc - j);
-        // unit triangle of the panel, column by column
-        for (let jj = 0; jj < pw; jj++) {
-          const q = v0 + (j + jj) * nr + j;
-          for (let c = 0; c < g; c++) {
-            const yo = yb + c * nr + j;
-            const yv = heap[yo + jj];
-            if (yv !== 0) for (let i = jj + 1; i < pw; i++) heap[yo + i] -= values[q + i] * yv;
-          }
-        }
+        // unit triangle of the panel, column by column, every right-hand side in one call
+        if (pw > 1) kern.triangleForward(8 * (lBase + v0 + j * nr + j), 8 * nr, pw, g, 8 * (yb + j), 8 * nr);
         if (nc - j - pw > 0) columnsProduct(kern, g, nc - j - pw, pw, lBase + v0 + j * nr + j + pw, nr, yb + j, yb + j + pw);
       }
       if (nb > 0) columnsProduct(kern, g, nb, nc, lBase + v0 + nc, nr, yb, yb + nc);
-      // own rows back into X, rows below accumulate
+      // own rows back into X
       for (let c = 0; c < g; c++) {
         const yo = yb + c * nr;
-        const col = c0 + c;
-        const xo = col * n;
-        for (let i = 0; i < nc; i++) x[xo + f0 + i] = heap[yo + i];
-        if (index) {
-          scatterRedirected(x.subarray(xo), n, 1, heap.subarray(yo + nc, yo + nr), nb, rows, r0 + nc, redirect!, col);
-        } else {
-          for (let i = 0; i < nb; i++) x[xo + rows[r0 + nc + i]] += heap[yo + nc + i];
+        const xo = (c0 + c) * n + f0;
+        for (let i = 0; i < nc; i++) x[xo + i] = heap[yo + i];
+      }
+      // rows below accumulate, row by row (each row's index read once for the group)
+      if (index) {
+        // rows marked in the redirect go to its accumulator (as scatterRedirected)
+        const { acc, count } = redirect!;
+        for (let i = nc; i < nr; i++) {
+          const r = rows[r0 + i];
+          const t = index[r];
+          if (t >= 0) for (let c = 0, yo = yb + i, ao = c0 * count + t; c < g; c++, yo += nr, ao += count) acc[ao] += heap[yo];
+          else for (let c = 0, yo = yb + i, xo = c0 * n + r; c < g; c++, yo += nr, xo += n) x[xo] += heap[yo];
+        }
+      } else {
+        for (let i = nc; i < nr; i++) {
+          const r = rows[r0 + i];
+          for (let c = 0, yo = yb + i, xo = c0 * n + r; c < g; c++, yo += nr, xo += n) x[xo] += heap[yo];
         }
       }
     }
@@ -372,10 +375,10 @@ function forwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern:
 /**
  * Backward sweep with the SIMD kernels: Y = X(R, ·) gathered; Y(own) −= L21ᵀ Y(below); then the
  * panels of L11 last first: Y(panel) −= L(rows below in L11, panel)ᵀ Y(those rows) and the
- * transposed unit triangle in scalar code; Y(own) back into X.
+ * transposed unit triangle (scalar, in WebAssembly); Y(own) back into X.
  */
 function backwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern: SweepKernels, yb: number, from: number, to: number): void {
-  const { structure: s, values } = f;
+  const { structure: s } = f;
   const { n, superStart, rowPtr, rows, valuePtr } = s;
   const heap = kern.heap;
   const lBase = kern.storage.valuesOffset;
@@ -389,28 +392,23 @@ function backwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern
     const nb = nr - nc;
     for (let c0 = 0; c0 < k; c0 += KERNEL_RHS) {
       const g = Math.min(KERNEL_RHS, k - c0);
-      // Y(:, c) = X(R, c0 + c)
+      // Y(:, c) = X(R, c0 + c): own rows column by column, rows below row by row
       for (let c = 0; c < g; c++) {
         const yo = yb + c * nr;
-        const xo = (c0 + c) * n;
-        for (let i = 0; i < nc; i++) heap[yo + i] = x[xo + f0 + i];
-        for (let i = nc; i < nr; i++) heap[yo + i] = x[xo + rows[r0 + i]];
+        const xo = (c0 + c) * n + f0;
+        for (let i = 0; i < nc; i++) heap[yo + i] = x[xo + i];
+      }
+      for (let i = nc; i < nr; i++) {
+        const r = rows[r0 + i];
+        for (let c = 0, yo = yb + i, xo = c0 * n + r; c < g; c++, yo += nr, xo += n) heap[yo] = x[xo];
       }
       if (nb > 0) dotsProduct(kern, g, nb, nc, lBase + v0 + nc, nr, yb + nc, yb);
       // L11 panels, last first
       for (let j = Math.floor((nc - 1) / SIMD_PANEL) * SIMD_PANEL; j >= 0; j -= SIMD_PANEL) {
         const pw = Math.min(SIMD_PANEL, nc - j);
         if (nc - j - pw > 0) dotsProduct(kern, g, nc - j - pw, pw, lBase + v0 + j * nr + j + pw, nr, yb + j + pw, yb + j);
-        // transposed unit triangle, last column first
-        for (let jj = pw - 1; jj >= 0; jj--) {
-          const q = v0 + (j + jj) * nr + j;
-          for (let c = 0; c < g; c++) {
-            const yo = yb + c * nr + j;
-            let sum = 0;
-            for (let i = jj + 1; i < pw; i++) sum += values[q + i] * heap[yo + i];
-            heap[yo + jj] -= sum;
-          }
-        }
+        // transposed unit triangle, last column first, every right-hand side in one call
+        if (pw > 1) kern.triangleBackward(8 * (lBase + v0 + j * nr + j), 8 * nr, pw, g, 8 * (yb + j), 8 * nr);
       }
       // own rows back into X
       for (let c = 0; c < g; c++) {
@@ -424,11 +422,10 @@ function backwardSweepSimd(f: SupernodalFactor, x: Float64Array, k: number, kern
 
 /**
  * heap[y + i + c·ld] −= Σ_{t<cols} heap[l + i + t·ld] · heap[xo + t + c·ld] for i < rows, c < g:
- * strips of four rows in the kernel, the last rows here.
+ * strips of four rows in the kernel, the last rows in the scalar tail kernel.
  */
 function columnsProduct(kern: SweepKernels, g: number, rows: number, cols: number, l: number, ld: number, xo: number, y: number): void {
   const strips = rows >> 2;
-  const heap = kern.heap;
   // a few columns of L per call, so one strip's loads touch few pages and every column streams
   if (strips > 0) {
     const groups = rhsGroups(g);
@@ -440,23 +437,16 @@ function columnsProduct(kern: SweepKernels, g: number, rows: number, cols: numbe
       }
     }
   }
-  // the rows after the last strip
-  for (let i = 4 * strips; i < rows; i++) {
-    for (let c = 0; c < g; c++) {
-      let sum = 0;
-      for (let t = 0; t < cols; t++) sum += heap[l + i + t * ld] * heap[xo + c * ld + t];
-      heap[y + c * ld + i] -= sum;
-    }
-  }
+  // the rows after the last strip, every right-hand side in one call
+  if (rows > 4 * strips) kern.columnsTail(8 * (l + 4 * strips), 8 * ld, rows - 4 * strips, cols, 8 * xo, 8 * ld, 8 * (y + 4 * strips), 8 * ld, g);
 }
 
 /**
  * heap[y + t + c·ld] −= Σ_{i<rows} heap[l + i + t·ld] · heap[gOff + i + c·ld] for t < cols, c < g:
- * pairs of columns (and a last single one) in the kernels over row pairs, an odd last row here.
+ * pairs of columns (and a last single one) in the kernels over row pairs, an odd last row in the tail kernel.
  */
 function dotsProduct(kern: SweepKernels, g: number, rows: number, cols: number, l: number, ld: number, gOff: number, y: number): void {
   const pairs = rows >> 1;
-  const heap = kern.heap;
   const colPairs = cols >> 1;
   const groups = rhsGroups(g);
   // one group: every column pair in one call; two groups: blocks of pairs, each group over the block
@@ -472,12 +462,6 @@ function dotsProduct(kern: SweepKernels, g: number, rows: number, cols: number, 
       kern.dots1[groups[q]](8 * (l + (cols - 1) * ld), 8 * ld, pairs, 1, 8 * (gOff + c * ld), 8 * ld, 8 * (y + cols - 1 + c * ld), 8 * ld);
     }
   }
-  if (rows & 1) {
-    const i = rows - 1;
-    // the last row's share of every dot product
-    for (let t = 0; t < cols; t++) {
-      const lv = heap[l + i + t * ld];
-      for (let c = 0; c < g; c++) heap[y + c * ld + t] -= lv * heap[gOff + c * ld + i];
-    }
-  }
+  // the last row's share of every dot product
+  if (rows & 1) kern.dotsTail(8 * (l + rows - 1), 8 * ld, cols, g, 8 * (gOff + rows - 1), 8 * ld, 8 * y, 8 * ld);
 }

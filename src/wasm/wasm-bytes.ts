@@ -49,6 +49,7 @@ function name(s: string): number[] {
 /** Value types. */
 const I32 = 0x7f;
 const V128 = 0x7b;
+const F64 = 0x7c;
 /** Memory access immediates: log2 of the alignment (8 or 4 bytes), then the constant offset. */
 const ALIGN_8 = 3;
 const ALIGN_4 = 2;
@@ -82,6 +83,9 @@ export const op = {
   f64Store: (off: number) => [0x39, ALIGN_8, ...leb(off)],
   f64Add: [0xa0],
   f64Sub: [0xa1],
+  f64Mul: [0xa2],
+  /** f64.const 0. */
+  f64Zero: [0x44, 0, 0, 0, 0, 0, 0, 0, 0],
   // 128-bit SIMD: v128.load / v128.load64_splat / v128.store (8-byte aligned, at a constant offset)
   v128Load: (off: number) => simd(0, ALIGN_8, ...leb(off)),
   v128Splat64: (off: number) => simd(10, ALIGN_8, ...leb(off)),
@@ -135,6 +139,11 @@ export class Locals {
   /** `count` consecutive i32 locals; the first one's index. */
   i32(count = 1): number {
     return this.take(count, I32);
+  }
+
+  /** `count` consecutive f64 locals; the first one's index. */
+  f64(count = 1): number {
+    return this.take(count, F64);
   }
 
   /** `count` consecutive v128 locals; the first one's index. */

@@ -6,7 +6,7 @@
  */
 import { afterEach, describe, expect, it } from 'vitest';
 import { createShiftedSolver } from '../../src/sparse/shifted-solver.js';
-import { factorStorage, KERNEL_RHS, useSimdSweepKernels } from '../../src/sparse/simd-sweep-kernels.js';
+import { factorStorage, KERNEL_RHS, sweepKernels, useSimdSweepKernels } from '../../src/sparse/simd-sweep-kernels.js';
 import { hexGridPair, seededRandom } from './fe-like-matrices.js';
 import { shiftedResidual } from './residual.js';
 
@@ -51,6 +51,65 @@ describe('SIMD triangular sweeps', () => {
           expect(shiftedResidual(pair.stiffness, pair.mass, shift, col(xs), col(b))).toBeLessThan(1e-12);
         }
       }
+    }
+  });
+
+  it('panel triangles and row tails match the scalar loops they replace, bit for bit', () => {
+    // the loops are the definitions (unit lower triangle, its transpose, products over a few rows)
+    const made = factorStorage(4096, 1024, 1)!;
+    const kern = sweepKernels(made.storage)!;
+    const heap = kern.heap;
+    const rnd = seededRandom(7);
+    const ld = 23; // leading dimension of L and of Y in the scratch region (rows of a supernode)
+    const lAt = made.storage.valuesOffset;
+    made.values.set(Array.from({ length: 40 * ld }, () => rnd() - 0.5));
+    const fresh = () => Float64Array.from({ length: KERNEL_RHS * ld }, () => rnd() - 0.5);
+    const L = (i: number, t: number) => heap[lAt + i + t * ld];
+    for (let g = 1; g <= KERNEL_RHS; g++) {
+      for (let w = 1; w <= 8; w++) {
+        // forward: Y(i, c) −= L(i, j) Y(j, c), j < i < w
+        const y0 = fresh();
+        const want = y0.slice();
+        for (let c = 0; c < g; c++) for (let j = 0; j < w; j++) for (let i = j + 1; i < w; i++) want[c * ld + i] -= L(i, j) * want[c * ld + j];
+        heap.set(y0, 0);
+        kern.triangleForward(8 * lAt, 8 * ld, w, g, 0, 8 * ld);
+        expect(heap.slice(0, y0.length)).toEqual(want);
+        // backward: Y(j, c) −= Σ_{j<i<w} L(i, j) Y(i, c), last column first
+        const wantB = y0.slice();
+        for (let c = 0; c < g; c++) {
+          for (let j = w - 1; j >= 0; j--) {
+            let sum = 0;
+            for (let i = j + 1; i < w; i++) sum += L(i, j) * wantB[c * ld + i];
+            wantB[c * ld + j] -= sum;
+          }
+        }
+        heap.set(y0, 0);
+        kern.triangleBackward(8 * lAt, 8 * ld, w, g, 0, 8 * ld);
+        expect(heap.slice(0, y0.length)).toEqual(wantB);
+      }
+      for (let rows = 1; rows <= 3; rows++) {
+        // columns tail: Y(i, c) −= Σ_t L(i, t) X(t, c); X at rows 10.. of the same block
+        const cols = 5 + rows;
+        const y0 = fresh();
+        const want = y0.slice();
+        for (let c = 0; c < g; c++) {
+          for (let i = 0; i < rows; i++) {
+            let sum = 0;
+            for (let t = 0; t < cols; t++) sum += L(i, t) * want[c * ld + 10 + t];
+            want[c * ld + i] -= sum;
+          }
+        }
+        heap.set(y0, 0);
+        kern.columnsTail(8 * lAt, 8 * ld, rows, cols, 8 * 10, 8 * ld, 0, 8 * ld, g);
+        expect(heap.slice(0, y0.length)).toEqual(want);
+      }
+      // dots tail: Y(t, c) −= L(i, t) G(i, c) for the row i = 4, G at rows 12.. of the block
+      const y0 = fresh();
+      const want = y0.slice();
+      for (let t = 0; t < 7; t++) for (let c = 0; c < g; c++) want[c * ld + t] -= L(4, t) * want[c * ld + 12 + 4];
+      heap.set(y0, 0);
+      kern.dotsTail(8 * (lAt + 4), 8 * ld, 7, g, 8 * (12 + 4), 8 * ld, 0, 8 * ld);
+      expect(heap.slice(0, y0.length)).toEqual(want);
     }
   });
 });

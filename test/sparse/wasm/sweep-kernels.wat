@@ -1,5 +1,7 @@
 (module
   (type (;0;) (func (param i32 i32 i32 i32 i32 i32 i32 i32)))
+  (type (;1;) (func (param i32 i32 i32 i32 i32 i32)))
+  (type (;2;) (func (param i32 i32 i32 i32 i32 i32 i32 i32 i32)))
   (import "k" "memory" (memory (;0;) 1 65536 shared))
   (func (;0;) (type 0) (param i32 i32 i32 i32 i32 i32 i32 i32)
     (local i32 i32 i32 i32 i32 i32 v128 v128 v128 v128 v128)
@@ -1903,6 +1905,346 @@
         br 0 (;@2;)
       end
     end)
+  (func (;12;) (type 1) (param i32 i32 i32 i32 i32 i32)
+    (local i32 i32 i32 i32 i32 i32 f64)
+    block  ;; label = @1
+      loop  ;; label = @2
+        local.get 3
+        i32.eqz
+        br_if 1 (;@1;)
+        local.get 0
+        local.set 6
+        local.get 4
+        local.set 7
+        local.get 2
+        local.set 8
+        block  ;; label = @3
+          loop  ;; label = @4
+            local.get 8
+            i32.eqz
+            br_if 1 (;@3;)
+            local.get 7
+            f64.load
+            local.set 12
+            local.get 8
+            i32.const 1
+            i32.sub
+            local.set 9
+            local.get 6
+            local.set 10
+            local.get 7
+            local.set 11
+            block  ;; label = @5
+              loop  ;; label = @6
+                local.get 9
+                i32.eqz
+                br_if 1 (;@5;)
+                local.get 10
+                i32.const 8
+                i32.add
+                local.set 10
+                local.get 11
+                i32.const 8
+                i32.add
+                local.set 11
+                local.get 11
+                local.get 11
+                f64.load
+                local.get 10
+                f64.load
+                local.get 12
+                f64.mul
+                f64.sub
+                f64.store
+                local.get 9
+                i32.const 1
+                i32.sub
+                local.set 9
+                br 0 (;@6;)
+              end
+            end
+            local.get 6
+            local.get 1
+            i32.const 8
+            i32.add
+            i32.add
+            local.set 6
+            local.get 7
+            i32.const 8
+            i32.add
+            local.set 7
+            local.get 8
+            i32.const 1
+            i32.sub
+            local.set 8
+            br 0 (;@4;)
+          end
+        end
+        local.get 4
+        local.get 5
+        i32.add
+        local.set 4
+        local.get 3
+        i32.const 1
+        i32.sub
+        local.set 3
+        br 0 (;@2;)
+      end
+    end)
+  (func (;13;) (type 1) (param i32 i32 i32 i32 i32 i32)
+    (local i32 i32 i32 i32 i32 i32 f64)
+    block  ;; label = @1
+      loop  ;; label = @2
+        local.get 3
+        i32.eqz
+        br_if 1 (;@1;)
+        local.get 0
+        local.get 2
+        i32.const 1
+        i32.sub
+        local.get 1
+        i32.const 8
+        i32.add
+        i32.mul
+        i32.add
+        local.set 6
+        local.get 4
+        local.get 2
+        i32.const 1
+        i32.sub
+        i32.const 8
+        i32.mul
+        i32.add
+        local.set 7
+        local.get 2
+        local.set 8
+        block  ;; label = @3
+          loop  ;; label = @4
+            local.get 8
+            i32.eqz
+            br_if 1 (;@3;)
+            f64.const 0x0p+0 (;=0;)
+            local.set 12
+            local.get 2
+            local.get 8
+            i32.sub
+            local.set 9
+            local.get 6
+            local.set 10
+            local.get 7
+            local.set 11
+            block  ;; label = @5
+              loop  ;; label = @6
+                local.get 9
+                i32.eqz
+                br_if 1 (;@5;)
+                local.get 10
+                i32.const 8
+                i32.add
+                local.set 10
+                local.get 11
+                i32.const 8
+                i32.add
+                local.set 11
+                local.get 12
+                local.get 10
+                f64.load
+                local.get 11
+                f64.load
+                f64.mul
+                f64.add
+                local.set 12
+                local.get 9
+                i32.const 1
+                i32.sub
+                local.set 9
+                br 0 (;@6;)
+              end
+            end
+            local.get 7
+            local.get 7
+            f64.load
+            local.get 12
+            f64.sub
+            f64.store
+            local.get 6
+            local.get 1
+            i32.const 8
+            i32.add
+            i32.sub
+            local.set 6
+            local.get 7
+            i32.const 8
+            i32.sub
+            local.set 7
+            local.get 8
+            i32.const 1
+            i32.sub
+            local.set 8
+            br 0 (;@4;)
+          end
+        end
+        local.get 4
+        local.get 5
+        i32.add
+        local.set 4
+        local.get 3
+        i32.const 1
+        i32.sub
+        local.set 3
+        br 0 (;@2;)
+      end
+    end)
+  (func (;14;) (type 2) (param i32 i32 i32 i32 i32 i32 i32 i32 i32)
+    (local i32 i32 i32 i32 i32 i32 f64)
+    block  ;; label = @1
+      loop  ;; label = @2
+        local.get 8
+        i32.eqz
+        br_if 1 (;@1;)
+        local.get 0
+        local.set 9
+        local.get 6
+        local.set 10
+        local.get 2
+        local.set 11
+        block  ;; label = @3
+          loop  ;; label = @4
+            local.get 11
+            i32.eqz
+            br_if 1 (;@3;)
+            f64.const 0x0p+0 (;=0;)
+            local.set 15
+            local.get 9
+            local.set 13
+            local.get 4
+            local.set 14
+            local.get 3
+            local.set 12
+            block  ;; label = @5
+              loop  ;; label = @6
+                local.get 12
+                i32.eqz
+                br_if 1 (;@5;)
+                local.get 15
+                local.get 13
+                f64.load
+                local.get 14
+                f64.load
+                f64.mul
+                f64.add
+                local.set 15
+                local.get 13
+                local.get 1
+                i32.add
+                local.set 13
+                local.get 14
+                i32.const 8
+                i32.add
+                local.set 14
+                local.get 12
+                i32.const 1
+                i32.sub
+                local.set 12
+                br 0 (;@6;)
+              end
+            end
+            local.get 10
+            local.get 10
+            f64.load
+            local.get 15
+            f64.sub
+            f64.store
+            local.get 9
+            i32.const 8
+            i32.add
+            local.set 9
+            local.get 10
+            i32.const 8
+            i32.add
+            local.set 10
+            local.get 11
+            i32.const 1
+            i32.sub
+            local.set 11
+            br 0 (;@4;)
+          end
+        end
+        local.get 4
+        local.get 5
+        i32.add
+        local.set 4
+        local.get 6
+        local.get 7
+        i32.add
+        local.set 6
+        local.get 8
+        i32.const 1
+        i32.sub
+        local.set 8
+        br 0 (;@2;)
+      end
+    end)
+  (func (;15;) (type 0) (param i32 i32 i32 i32 i32 i32 i32 i32)
+    (local i32 i32 i32 f64)
+    block  ;; label = @1
+      loop  ;; label = @2
+        local.get 3
+        i32.eqz
+        br_if 1 (;@1;)
+        local.get 4
+        f64.load
+        local.set 11
+        local.get 0
+        local.set 8
+        local.get 6
+        local.set 9
+        local.get 2
+        local.set 10
+        block  ;; label = @3
+          loop  ;; label = @4
+            local.get 10
+            i32.eqz
+            br_if 1 (;@3;)
+            local.get 9
+            local.get 9
+            f64.load
+            local.get 8
+            f64.load
+            local.get 11
+            f64.mul
+            f64.sub
+            f64.store
+            local.get 8
+            local.get 1
+            i32.add
+            local.set 8
+            local.get 9
+            i32.const 8
+            i32.add
+            local.set 9
+            local.get 10
+            i32.const 1
+            i32.sub
+            local.set 10
+            br 0 (;@4;)
+          end
+        end
+        local.get 4
+        local.get 5
+        i32.add
+        local.set 4
+        local.get 6
+        local.get 7
+        i32.add
+        local.set 6
+        local.get 3
+        i32.const 1
+        i32.sub
+        local.set 3
+        br 0 (;@2;)
+      end
+    end)
   (export "c1" (func 0))
   (export "d1" (func 1))
   (export "e1" (func 2))
@@ -1914,4 +2256,8 @@
   (export "e3" (func 8))
   (export "c4" (func 9))
   (export "d4" (func 10))
-  (export "e4" (func 11)))
+  (export "e4" (func 11))
+  (export "tf" (func 12))
+  (export "tb" (func 13))
+  (export "ct" (func 14))
+  (export "dt" (func 15)))
