@@ -3,14 +3,14 @@
  *  - the diagonal ratios K_jj/M_jj are Rayleigh quotients of unit vectors, so
  *    λ₁ ≤ min_j K_jj/M_jj and max_j K_jj/M_jj ≤ λ_n (Rayleigh quotient bounds; Parlett, The
  *    Symmetric Eigenvalue Problem, ch. 1 — from memory), checked against ml-matrix eigenvalues;
- *  - the first guess σ₁ = −1e-6 · min ratio lies below every eigenvalue of a positive
+ *  - the first guess σ₁ = −FIRST_SHIFT_FRACTION · min ratio lies below every eigenvalue of a positive
  *    semi-definite pencil;
  *  - judgeShift's window (header): |σ| ≤ 0.1 λ_N, and with rigid-body modes |σ| ≥ 1e-3 λ_e;
  *    the better shift −0.01 λ_e (or −0.01 λ₁ without rigid-body modes). The window is common
  *    practice as the header says; the numbers here are the header's own.
  */
 import { describe, expect, it } from 'vitest';
-import { diagonalScale, firstShiftGuess, judgeShift, RIGID_BODY_FRACTION } from '../../../src/eigen/shift-placement.js';
+import { diagonalScale, FIRST_SHIFT_FRACTION, firstShiftGuess, judgeShift, RIGID_BODY_FRACTION } from '../../../src/eigen/shift-placement.js';
 import { chain, denseGeneralized, diagonalMatrix, fixedFreeEigenvalues, freeFreeEigenvalues, sparseOf } from './pencils.js';
 import { hexGridPair } from '../../sparse/fe-like-matrices.js';
 
@@ -21,7 +21,8 @@ describe('diagonalScale and the first shift', () => {
     const s = diagonalScale(p.stiffness, p.mass);
     expect(ref[0]).toBeLessThanOrEqual(s.minRatio);
     expect(s.maxRatio).toBeLessThanOrEqual(ref[ref.length - 1]);
-    expect(firstShiftGuess(s)).toBeCloseTo(-1e-6 * s.minRatio, 20);
+    expect(FIRST_SHIFT_FRACTION).toBe(1e-5);
+    expect(firstShiftGuess(s)).toBeCloseTo(-FIRST_SHIFT_FRACTION * s.minRatio, 20);
     expect(firstShiftGuess(s)).toBeLessThan(ref[0]);
   });
 
