@@ -3,14 +3,15 @@
  *  - the diagonal ratios K_jj/M_jj are Rayleigh quotients of unit vectors, so
  *    λ₁ ≤ min_j K_jj/M_jj and max_j K_jj/M_jj ≤ λ_n (Rayleigh quotient bounds; Parlett, The
  *    Symmetric Eigenvalue Problem, ch. 1 — from memory), checked against ml-matrix eigenvalues;
- *  - the first guess σ₁ = −1e-6 · min ratio lies below every eigenvalue of a positive
+ *  - the first guess σ₁ = −FIRST_SHIFT_FRACTION · min ratio lies below every eigenvalue of a positive
  *    semi-definite pencil;
- *  - judgeShift's window (header): |σ| ≤ 0.1 λ_N, and with rigid-body modes |σ| ≥ 1e-3 λ_e;
+ *  - judgeShift's window (header): |σ| ≤ 0.1 λ_N (λ₆ when fewer are wanted), and with rigid-body
+ *    modes |σ| ≥ 1e-3 λ_e;
  *    the better shift −0.01 λ_e (or −0.01 λ₁ without rigid-body modes). The window is common
  *    practice as the header says; the numbers here are the header's own.
  */
 import { describe, expect, it } from 'vitest';
-import { diagonalScale, firstShiftGuess, judgeShift, RIGID_BODY_FRACTION } from '../../../src/eigen/shift-placement.js';
+import { diagonalScale, FIRST_SHIFT_FRACTION, firstShiftGuess, judgeShift, RIGID_BODY_FRACTION } from '../../../src/eigen/shift-placement.js';
 import { chain, denseGeneralized, diagonalMatrix, fixedFreeEigenvalues, freeFreeEigenvalues, sparseOf } from './pencils.js';
 import { hexGridPair } from '../../sparse/fe-like-matrices.js';
 
@@ -21,7 +22,8 @@ describe('diagonalScale and the first shift', () => {
     const s = diagonalScale(p.stiffness, p.mass);
     expect(ref[0]).toBeLessThanOrEqual(s.minRatio);
     expect(s.maxRatio).toBeLessThanOrEqual(ref[ref.length - 1]);
-    expect(firstShiftGuess(s)).toBeCloseTo(-1e-6 * s.minRatio, 20);
+    expect(FIRST_SHIFT_FRACTION).toBe(1e-5);
+    expect(firstShiftGuess(s)).toBeCloseTo(-FIRST_SHIFT_FRACTION * s.minRatio, 20);
     expect(firstShiftGuess(s)).toBeLessThan(ref[0]);
   });
 
@@ -54,12 +56,19 @@ describe('judgeShift', () => {
   });
 
   it('refuses a shift further than 0.1 λ_N below and proposes −0.01 λ₁', () => {
-    const lambdaN = fixedFree[4];
-    const v = judgeShift(-0.11 * lambdaN, fixedFree, 5, scale);
+    const lambdaN = fixedFree[7];
+    const v = judgeShift(-0.11 * lambdaN, fixedFree, 8, scale);
     expect(v.acceptable).toBe(false);
     // base = max(λ₁, 1e-3 λ_e) = λ₁; better = min(−0.01 λ₁, λ₁ − 0.01 λ₁)
     expect(v.better).toBeCloseTo(-0.01 * fixedFree[0], 15);
-    expect(judgeShift(-0.09 * lambdaN, fixedFree, 5, scale).acceptable).toBe(true);
+    expect(judgeShift(-0.09 * lambdaN, fixedFree, 8, scale).acceptable).toBe(true);
+  });
+
+  it('for fewer than six wanted modes judges "too far" against λ₆ (the header, SHIFT_REACH)', () => {
+    const lambda6 = fixedFree[5];
+    expect(judgeShift(-0.5 * fixedFree[1], fixedFree, 2, scale).acceptable).toBe(true);
+    expect(judgeShift(-0.09 * lambda6, fixedFree, 2, scale).acceptable).toBe(true);
+    expect(judgeShift(-0.11 * lambda6, fixedFree, 2, scale).acceptable).toBe(false);
   });
 
   it('refuses a shift closer to 0 than 1e-3 λ_e when a rigid-body mode is wanted, and proposes −0.01 λ_e', () => {
