@@ -75,6 +75,19 @@ function tileStep(pw: number, acc: number, a0: number, a1: number, b: number): n
   return code;
 }
 
+/**
+ * One strip's sums: acc … acc+7 ← 0, then kb steps of (a0, a1) = A's four rows at a (from pA,
+ * a += lda) against W's panel at w (from pW, w += 32); the strips of strips and edgeStrips.
+ */
+function stripSums(l: { pA: number; lda: number; kb: number; pW: number; a: number; w: number; left: number; acc: number; a0: number; a1: number; b: number }): number[] {
+  const { pA, lda, kb, pW, a, w, left, acc, a0, a1, b } = l;
+  const step = [...get(a), ...load(0), ...set(a0), ...get(a), ...load(16), ...set(a1), ...tileStep(w, acc, a0, a1, b), ...addTo(a, get(lda)), ...addTo(w, i32(32))];
+  const code: number[] = [];
+  for (let q = 0; q < 8; q++) code.push(...zero, ...set(acc + q));
+  code.push(...get(pA), ...set(a), ...get(pW), ...set(w), ...get(kb), ...set(left), ...countdown(left, step));
+  return code;
+}
+
 /** tiles(pa, pw, kb, out, count) */
 function tilesBody(): number[] {
   const locals = new Locals(5);
@@ -112,10 +125,7 @@ function stripsBody(put: boolean): number[] {
   const a0 = locals.v128();
   const a1 = locals.v128();
   const b = locals.v128();
-  const step = [...get(a), ...load(0), ...set(a0), ...get(a), ...load(16), ...set(a1), ...tileStep(w, acc, a0, a1, b), ...addTo(a, get(lda)), ...addTo(w, i32(32))];
-  const strip: number[] = [];
-  for (let q = 0; q < 8; q++) strip.push(...zero, ...set(acc + q));
-  strip.push(...get(pA), ...set(a), ...get(pW), ...set(w), ...get(kb), ...set(left), ...countdown(left, step));
+  const strip = stripSums({ pA, lda, kb, pW, a, w, left, acc, a0, a1, b });
   // C's four columns of this strip: −= sums, or ← −sums
   strip.push(...get(pC), ...set(c));
   for (let jj = 0; jj < 4; jj++) {
@@ -143,10 +153,7 @@ function edgeStripsBody(): number[] {
   const a0 = locals.v128();
   const a1 = locals.v128();
   const b = locals.v128();
-  const step = [...get(a), ...load(0), ...set(a0), ...get(a), ...load(16), ...set(a1), ...tileStep(w, acc, a0, a1, b), ...addTo(a, get(lda)), ...addTo(w, i32(32))];
-  const strip: number[] = [];
-  for (let q = 0; q < 8; q++) strip.push(...zero, ...set(acc + q));
-  strip.push(...get(pA), ...set(a), ...get(pW), ...set(w), ...get(kb), ...set(left), ...countdown(left, step));
+  const strip = stripSums({ pA, lda, kb, pW, a, w, left, acc, a0, a1, b });
   // rows written: 4, or `rows` in the last strip
   strip.push(...i32(4), ...set(live), ...op.block, ...get(count), ...i32(1), ...op.i32Ne, ...op.brIf(0), ...get(rows), ...set(live), ...op.end);
   // C(ii, jj) −= sum for jj < cols, ii < live, one double at a time
