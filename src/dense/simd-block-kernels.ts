@@ -36,7 +36,7 @@
  * kernels are switched off (useSimdBlockKernels), or past 4 GiB; the plain loops then run.
  */
 import { addTo, assembleModule, countdown, Locals, loopUntil, mulAddTo, op } from '../wasm/wasm-bytes.js';
-import { compileOnce, instantiate, MAX_PAGES, PAGE_BYTES, sharedMemory, type WasmMemory } from '../wasm/wasm-runtime.js';
+import { switchableModule, instantiate, MAX_PAGES, PAGE_BYTES, sharedMemory, type WasmMemory } from '../wasm/wasm-runtime.js';
 
 /** Doubles of one thread's staging region (2 MiB; only what a product uses is touched). */
 export const STAGE_DOUBLES = 1 << 18;
@@ -135,8 +135,7 @@ export function blockModuleBytes(): Uint8Array {
   return assembleModule(MAX_PAGES, functions);
 }
 
-const compiledModule = compileOnce(blockModuleBytes);
-let enabled = true;
+const kernelModule = switchableModule(blockModuleBytes);
 let blockCount = 0;
 
 /**
@@ -145,8 +144,7 @@ let blockCount = 0;
  * in use. For tests and benchmarks of the fallback.
  */
 export function useSimdBlockKernels(on: boolean): boolean {
-  enabled = on;
-  return on && compiledModule() !== null;
+  return kernelModule.use(on);
 }
 
 /** Each kernel block's memory, by its buffer (this thread's registry). */
@@ -154,7 +152,7 @@ const homes = new WeakMap<ArrayBufferLike, BlockHome>();
 
 /** A memory of `length` doubles and `regions` staging regions, registered; null when unavailable. */
 function allocate(length: number, regions: number): BlockHome | null {
-  if (!enabled || compiledModule() === null) return null;
+  if (!kernelModule.inUse()) return null;
   const stageAt = Math.ceil(length / 2) * 2;
   const pages = Math.ceil((8 * (stageAt + regions * STAGE_DOUBLES)) / PAGE_BYTES);
   if (pages > MAX_PAGES - 1) return null;
@@ -205,7 +203,7 @@ const bound = new Map<number, WeakRef<BoundKernels>>();
 export function kernelsOf(home: BlockHome): BoundKernels {
   const known = bound.get(home.id)?.deref();
   if (known !== undefined) return known;
-  const exports = instantiate(compiledModule()!, home.memory);
+  const exports = instantiate(kernelModule.compiled()!, home.memory);
   const dots = [[], ...[1, 2, 3, 4].map((u) => [() => {}, exports[`d${u}1`], exports[`d${u}2`]])] as Dots[][];
   const kernels: BoundKernels = { heap: new Float64Array(home.memory.buffer), dots, combine: exports.combine as Combine };
   // forget the ids whose instances were collected
@@ -244,7 +242,7 @@ const DOTS_CHUNK = 512;
  * in a kernel block and too narrow to stage, or the staging not fitting in a region.
  */
 export function kernelPlace(a: Float64Array, region: number, rows: number, p: number, q: number, kind: 'dots' | 'combine'): KernelPlace | null {
-  if (rows * p * q < KERNEL_MIN_WORK || !enabled) return null;
+  if (rows * p * q < KERNEL_MIN_WORK || !kernelModule.inUse()) return null;
   const home = homeOf(a);
   const inPlace = home !== undefined && region < home.regions;
   if (!inPlace && (p < STAGED_MIN_COLUMNS || q < (kind === 'dots' ? STAGED_MIN_COLUMNS : STAGED_COMBINE_MIN_COLUMNS))) return null;

@@ -28,7 +28,7 @@
  */
 
 import { addTo, assembleModule, countdown, Locals, mulAddTo, op } from '../wasm/wasm-bytes.js';
-import { compileOnce, instantiate, MAX_PAGES, PAGE_BYTES, sharedMemory, type WasmMemory } from '../wasm/wasm-runtime.js';
+import { switchableModule, instantiate, MAX_PAGES, PAGE_BYTES, sharedMemory, type WasmMemory } from '../wasm/wasm-runtime.js';
 
 /** Most right-hand sides a sweep step gathers (the scratch regions hold KERNEL_RHS columns). */
 export const KERNEL_RHS = 6;
@@ -263,9 +263,8 @@ export function sweepModuleBytes(): Uint8Array {
   return assembleModule(MAX_PAGES, functions);
 }
 
-const compiledModule = compileOnce(sweepModuleBytes);
+const kernelModule = switchableModule(sweepModuleBytes);
 let storageCount = 0;
-let enabled = true;
 
 /**
  * Turns the SIMD sweep kernels on or off for factors allocated from now on (default on where
@@ -273,8 +272,7 @@ let enabled = true;
  * use. For tests and benchmarks of the fallback.
  */
 export function useSimdSweepKernels(on: boolean): boolean {
-  enabled = on;
-  return on && compiledModule() !== null;
+  return kernelModule.use(on);
 }
 
 /**
@@ -283,7 +281,7 @@ export function useSimdSweepKernels(on: boolean): boolean {
  * unavailable, or the whole does not fit in 4 GiB.
  */
 export function factorStorage(length: number, scratchDoubles: number, regions: number): { values: Float64Array; storage: FactorStorage } | null {
-  if (!enabled || compiledModule() === null) return null;
+  if (!kernelModule.inUse()) return null;
   const scratch = Math.ceil(scratchDoubles / 8) * 8;
   // a few doubles past the values: the factor's strip kernels may read a whole strip of 4 rows at the end
   const pages = Math.ceil((8 * (regions * scratch + length + 4)) / PAGE_BYTES);
@@ -299,7 +297,7 @@ export function factorStorage(length: number, scratchDoubles: number, regions: n
 
 /** This thread's kernels over a factor's memory (an instance per call; cache the result). */
 export function sweepKernels(storage: FactorStorage): SweepKernels | null {
-  const mod = compiledModule();
+  const mod = kernelModule.compiled();
   if (mod === null) return null;
   const exports = instantiate(mod, storage.memory);
   const pick = (kind: string) => [() => {}, ...Array.from({ length: KERNEL_GROUP }, (_, i) => exports[`${kind}${i + 1}`])] as Kernel[];

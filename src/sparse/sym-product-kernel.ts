@@ -36,7 +36,7 @@
  */
 import type { SymmetricCsc } from './csc.js';
 import { addTo, assembleModule, countdown, Locals, loopUntil, mulAddTo, op } from '../wasm/wasm-bytes.js';
-import { compileOnce, instantiate, MAX_PAGES, PAGE_BYTES, sharedMemory, type WasmMemory } from '../wasm/wasm-runtime.js';
+import { switchableModule, instantiate, MAX_PAGES, PAGE_BYTES, sharedMemory, type WasmMemory } from '../wasm/wasm-runtime.js';
 
 /** Most columns of X per kernel pass (three vectors per row). */
 export const KERNEL_COLUMNS = 6;
@@ -120,8 +120,7 @@ export function symProductModuleBytes(): Uint8Array {
   return assembleModule(MAX_PAGES, functions);
 }
 
-const compiledModule = compileOnce(symProductModuleBytes);
-let enabled = true;
+const kernelModule = switchableModule(symProductModuleBytes);
 let matrixCount = 0;
 
 /**
@@ -130,8 +129,7 @@ let matrixCount = 0;
  * use. For tests and benchmarks of the fallback.
  */
 export function useSimdProductKernels(on: boolean): boolean {
-  enabled = on;
-  return on && compiledModule() !== null;
+  return kernelModule.use(on);
 }
 
 const align16 = (bytes: number) => Math.ceil(bytes / 16) * 16;
@@ -142,7 +140,7 @@ const align16 = (bytes: number) => Math.ceil(bytes / 16) * 16;
  * unavailable, or the memory would pass 4 GiB.
  */
 export function kernelMatrix(a: SymmetricCsc, regions: number): { matrix: SymmetricCsc; home: KernelMatrix } | null {
-  if (!enabled || compiledModule() === null) return null;
+  if (!kernelModule.inUse()) return null;
   const n = a.n;
   const nnz = a.colPtr[n];
   const colPtrAt = 0;
@@ -189,7 +187,7 @@ const bound = new Map<number, WeakRef<Bound>>();
 function bind(home: KernelMatrix): Bound {
   const known = bound.get(home.id)?.deref();
   if (known !== undefined) return known;
-  const exports = instantiate(compiledModule()!, home.memory);
+  const exports = instantiate(kernelModule.compiled()!, home.memory);
   const b: Bound = { heap: new Float64Array(home.memory.buffer), columns: [() => {}, exports.s1 as Columns, exports.s2 as Columns, exports.s3 as Columns] };
   // forget the ids whose instances were collected
   if (bound.size > 16) for (const [id, ref] of bound) if (ref.deref() === undefined) bound.delete(id);

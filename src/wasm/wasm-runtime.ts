@@ -38,6 +38,31 @@ export function compileOnce(bytes: () => Uint8Array): () => object | null {
   };
 }
 
+/**
+ * A kernel module that tests and benchmarks can switch off (the plain loops then run): `compiled`
+ * as compileOnce, `inUse` when switched on and compiled, `use(on)` switches it for what is made
+ * from now on and returns whether the kernels are in use.
+ */
+export interface SwitchableModule {
+  compiled: () => object | null;
+  inUse: () => boolean;
+  use: (on: boolean) => boolean;
+}
+
+export function switchableModule(bytes: () => Uint8Array): SwitchableModule {
+  const compiled = compileOnce(bytes);
+  let enabled = true;
+  const inUse = () => enabled && compiled() !== null;
+  return {
+    compiled,
+    inUse,
+    use: (on) => {
+      enabled = on;
+      return inUse();
+    },
+  };
+}
+
 /** The exports of an instance of `module` over `memory` (imported as k.memory); throws where it cannot be made. */
 export function instantiate(module: object, memory: WasmMemory): Record<string, unknown> {
   return new WebAssembly.Instance(module, { k: { memory } }).exports;
