@@ -52,12 +52,13 @@ export function transposeTimes(
   rowTo = rows,
   region = 0,
 ): Float64Array {
-  out.fill(0, 0, p * q);
   const place = kernelPlace(a, region, rowTo - rowFrom, p, q, 'dots');
   if (place !== null) {
-    simdTransposeTimes(place, a, b, rows, p, q, out, rowFrom, rowTo, ROW_CHUNK);
+    // writes all of out
+    simdTransposeTimes(place, a, b, rows, p, q, out, rowFrom, rowTo);
     return out;
   }
+  out.fill(0, 0, p * q);
   for (let r0 = rowFrom; r0 < rowTo; r0 += ROW_CHUNK) {
     const r1 = Math.min(rowTo, r0 + ROW_CHUNK);
     // C(i, j) += A(r0:r1, i)ᵀ B(r0:r1, j) for all i, j; three columns of A stay in L1 while B's chunk passes

@@ -39,7 +39,7 @@ import { addTo, assembleModule, countdown, Locals, loopUntil, mulAddTo, op } fro
 import { switchableModule, instantiate, MAX_PAGES, PAGE_BYTES, sharedMemory, type WasmMemory } from '../wasm/wasm-runtime.js';
 
 /** Doubles of one thread's staging region (2 MiB; only what a product uses is touched). */
-export const STAGE_DOUBLES = 1 << 18;
+const STAGE_DOUBLES = 1 << 18;
 
 /** A block in a shared WebAssembly memory, with its staging regions. */
 export interface BlockHome {
@@ -55,7 +55,7 @@ type Dots = (pA: number, ldA: number, groups: number, pB: number, ldB: number, r
 type Combine = (a0: number, a1: number, a2: number, a3: number, a4: number, a5: number, pairs: number, pT: number, q: number, pC: number, ldC: number) => void;
 
 /** This thread's kernels over one block's memory. */
-export interface BoundKernels {
+interface BoundKernels {
   heap: Float64Array;
   /** dots[u][v]: u = 1 … 4 columns of A, v = 1 … 2 column pairs of B. */
   dots: Dots[][];
@@ -200,7 +200,7 @@ export function adoptHome(a: Float64Array, home: BlockHome): void {
 const bound = new Map<number, WeakRef<BoundKernels>>();
 
 /** This thread's kernels over `home`'s memory. */
-export function kernelsOf(home: BlockHome): BoundKernels {
+function kernelsOf(home: BlockHome): BoundKernels {
   const known = bound.get(home.id)?.deref();
   if (known !== undefined) return known;
   const exports = instantiate(kernelModule.compiled()!, home.memory);
@@ -213,7 +213,7 @@ export function kernelsOf(home: BlockHome): BoundKernels {
 }
 
 /** Where a product runs in the kernels: A's block and the thread's region there, or this thread's scratch with A staged. */
-export interface KernelPlace {
+interface KernelPlace {
   home: BlockHome;
   region: number;
   /** A's rows are copied into the region a chunk at a time (A is not in a kernel block). */
@@ -231,8 +231,9 @@ const KERNEL_MIN_WORK = 20_000;
  */
 const STAGED_MIN_COLUMNS = 4;
 const STAGED_COMBINE_MIN_COLUMNS = 12;
-/** Fewest rows per staged chunk of the combine kernel. */
+/** Fewest and most rows per staged chunk of the combine kernel. */
 const COMBINE_CHUNK_MIN = 64;
+const COMBINE_CHUNK_MAX = 512;
 /** Rows per chunk of the dots kernels: block-ops.ts ROW_CHUNK, whose chunks the sums follow. */
 const DOTS_CHUNK = 512;
 
@@ -256,12 +257,13 @@ export function kernelPlace(a: Float64Array, region: number, rows: number, p: nu
 }
 
 /**
- * out = AᵀB (p × q) through the dots kernels: per chunk of `chunkRows` rows (the plain loop's
- * chunks, so the sums are the same), B's rows staged row-major with its columns paired (a zero
+ * out = AᵀB (p × q) through the dots kernels: per chunk of DOTS_CHUNK rows (the plain loop's
+ * chunks, block-ops.ts ROW_CHUNK, so the sums are the same: the bit-for-bit tests fail if they part), B's rows staged row-major with its columns paired (a zero
  * pad column when q is odd) and, when A is not in the block, A's rows column-major; the chunk's
  * sums added into the staged out (p × 2⌈q/2⌉, column-major), copied to `out` at the end.
  */
-export function simdTransposeTimes(place: KernelPlace, a: Float64Array, b: Float64Array, rows: number, p: number, q: number, out: Float64Array, rowFrom: number, rowTo: number, chunkRows: number): void {
+export function simdTransposeTimes(place: KernelPlace, a: Float64Array, b: Float64Array, rows: number, p: number, q: number, out: Float64Array, rowFrom: number, rowTo: number): void {
+  const chunkRows = DOTS_CHUNK;
   const { heap, dots } = kernelsOf(place.home);
   const pairs = (q + 1) >> 1;
   const qs = 2 * pairs;
@@ -330,7 +332,7 @@ export function simdAddPanels(place: KernelPlace, c: Float64Array, ldc: number, 
   const tAt = place.home.stageAt + place.region * STAGE_DOUBLES;
   const cAt = tAt + t.length + (t.length & 1);
   const staged = place.staged ? p : 0;
-  const chunk = Math.min(512, 2 * Math.floor((STAGE_DOUBLES - (cAt - tAt)) / (2 * (q + staged))));
+  const chunk = Math.min(COMBINE_CHUNK_MAX, 2 * Math.floor((STAGE_DOUBLES - (cAt - tAt)) / (2 * (q + staged))));
   const aAt = cAt + chunk * q;
   heap.set(t, tAt);
   const last = p - 1;

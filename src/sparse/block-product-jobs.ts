@@ -13,16 +13,16 @@ import { gatherRegions, KERNEL_COLUMNS, kernelMatrix, regionProduct, stageColumn
  * Where a basis product's block A lives when it is a SIMD kernel block (its memory, so the helper
  * can run the kernels there, and the helper's staging region in it), else undefined.
  */
-export interface KernelPlace {
+interface JobPlace {
   home?: BlockHome;
   region: number;
 }
 
 /** Block products on shared arrays that a helper runs on a share of the rows or columns. */
 export type BlockProductJob =
-  | ({ kind: 'transposeTimes'; a: Float64Array; b: Float64Array; rows: number; p: number; q: number; out: Float64Array; rowFrom: number; rowTo: number } & KernelPlace)
-  | ({ kind: 'addTimesSmall'; c: Float64Array; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; alpha: number; rowFrom: number; rowTo: number } & KernelPlace)
-  | ({ kind: 'timesSmallInPlace'; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; rowFrom: number; rowTo: number } & KernelPlace)
+  | ({ kind: 'transposeTimes'; a: Float64Array; b: Float64Array; rows: number; p: number; q: number; out: Float64Array; rowFrom: number; rowTo: number } & JobPlace)
+  | ({ kind: 'addTimesSmall'; c: Float64Array; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; alpha: number; rowFrom: number; rowTo: number } & JobPlace)
+  | ({ kind: 'timesSmallInPlace'; a: Float64Array; rows: number; p: number; s: Float64Array; q: number; rowFrom: number; rowTo: number } & JobPlace)
   | { kind: 'symMultiply'; a: SymmetricCsc; x: Float64Array; k: number; y: Float64Array; colFrom: number; colTo: number }
   | { kind: 'symMultiplyKernel'; home: KernelMatrix; w: number; colFrom: number; colTo: number; region: number };
 

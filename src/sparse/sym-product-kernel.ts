@@ -196,7 +196,7 @@ function bind(home: KernelMatrix): Bound {
 }
 
 /** Doubles per row of X and Y for `w` columns (an even count: the vectors are two wide). */
-export function rowStride(w: number): number {
+function rowStride(w: number): number {
   return 2 * Math.ceil(w / 2);
 }
 

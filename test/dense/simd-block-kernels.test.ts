@@ -6,9 +6,9 @@
  * around the 512-row chunks, row ranges (the helper threads' shares) and staging regions, on
  * random blocks and on a block of a real small matrix's products.
  */
-import { afterEach, describe, expect, it } from 'vitest';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { addTimesSmall, timesSmall, timesSmallInPlace, transposeTimes } from '../../src/dense/block-ops.js';
-import { homeOf, kernelBlock, useSimdBlockKernels } from '../../src/dense/simd-block-kernels.js';
+import { homeOf, kernelBlock, kernelPlace, useSimdBlockKernels } from '../../src/dense/simd-block-kernels.js';
 import { symMultiplyBlock } from '../../src/sparse/csc.js';
 import { hexGridPair, seededRandom } from '../sparse/fe-like-matrices.js';
 
@@ -35,6 +35,9 @@ function checkAll(values: Float64Array, rows: number, p: number, b: Float64Array
   checkOn(values.slice(), values, rows, p, b, q, s);
 }
 
+/** Products that ran in the kernels (kernelPlace found them a place), so a test can show it compared the kernels at all. */
+let kernelRuns = 0;
+
 /** The products of `a` (kernels on) against those of `values` (kernels off): bit for bit. */
 function checkOn(a: Float64Array, values: Float64Array, rows: number, p: number, b: Float64Array, q: number, s: Float64Array): void {
   const plain = <T>(f: () => T): T => {
@@ -48,6 +51,8 @@ function checkOn(a: Float64Array, values: Float64Array, rows: number, p: number,
   const ranges: [number, number, number][] = [[0, rows, 0], [Math.floor(rows / 3), rows, 2]];
   for (const [from, to, region] of ranges) {
     const where = `rows ${rows} (${from}…${to}), p ${p}, q ${q}`;
+    if (kernelPlace(a, region, to - from, p, q, 'dots') !== null) kernelRuns++;
+    if (kernelPlace(a, region, to - from, p, q, 'combine') !== null) kernelRuns++;
     const plainP = plain(() => transposeTimes(values, b, rows, p, q, undefined, from, to));
     expect(firstDifference(transposeTimes(a, b, rows, p, q, undefined, from, to, region), plainP), `VᵀX ${where}`).toBe(-1);
     const c0 = b.slice();
@@ -69,6 +74,9 @@ function checkOn(a: Float64Array, values: Float64Array, rows: number, p: number,
 describe('SIMD basis-product kernels', () => {
   afterEach(() => {
     useSimdBlockKernels(true);
+  });
+  beforeEach(() => {
+    kernelRuns = 0;
   });
 
   it('are available on Node 20, find a block and its parts by their buffer, and can be switched off', () => {
@@ -94,11 +102,13 @@ describe('SIMD basis-product kernels', () => {
     const random = (length: number) => Float64Array.from({ length }, () => rnd() - 0.5);
     for (const rows of [1, 2, 3, 511, 512, 513, 1025, 2047]) {
       for (const [p, q] of [[1, 1], [2, 3], [3, 2], [4, 4], [5, 5], [6, 6], [7, 7], [7, 3], [13, 6], [40, 7], [40, 12], [13, 13], [5, 14], [9, 1]]) {
-        // enough work for the kernels: below KERNEL_MIN_WORK the plain loops run anyway
+        // enough work for the kernels: below KERNEL_MIN_WORK the plain loops run on both sides
+        // (rows = 3 is kept as such a case: the switch must not change the small products either)
         if (rows * p * q < 20_000 && rows !== 3) continue;
         checkAll(random(rows * p), rows, p, random(rows * q), q, random(p * q));
       }
     }
+    expect(kernelRuns).toBeGreaterThan(100);
   });
 
   it('equal the plain loops bit for bit on a block of a real matrix (hex grid: X, K X, K² X …)', () => {
@@ -118,5 +128,6 @@ describe('SIMD basis-product kernels', () => {
     // an odd row count (the last row in the plain expression)
     const odd = n - 1;
     checkAll(values.subarray(0, odd * p), odd, p, values.slice(0, odd * 5), 5, Float64Array.from({ length: p * 5 }, (_, i) => Math.sin(i)));
+    expect(kernelRuns).toBeGreaterThan(0);
   });
 });
