@@ -73,12 +73,6 @@ export interface MatrixLinesOptions {
   compactFrom?: number;
   /** Check the banner and the size line, allocate nothing (see readMatrixHeader). */
   headerOnly?: boolean;
-  /**
-   * Triplet arrays of a plain (not gzip) coordinate file in shared memory: when no duplicate is
-   * merged they become the matrix's own rowIdx and values, which helper threads then read
-   * without a copy.
-   */
-  sharedArrays?: boolean;
 }
 
 /** A non-finite entry: 1-based row, column and line. */
@@ -99,9 +93,9 @@ export class MatrixMarketLines {
   /** Data lines read (coordinate entries or array values). */
   count = 0;
   /** Triplets (mode `triplets`), 0-based. */
-  rows: Int32Array<ArrayBufferLike> = new Int32Array(0);
+  rows = new Int32Array(0);
   cols = new Int32Array(0);
-  vals: Float64Array<ArrayBufferLike> = new Float64Array(0);
+  vals = new Float64Array(0);
   /** Triplets stored (array zeros are not stored). */
   stored = 0;
   /** Dense values, column-major (mode `dense`). */
@@ -349,11 +343,9 @@ export class MatrixMarketLines {
     const most = Math.min(size.entries, Math.max(MIN_TRIPLETS, distinctEntryBound(size.rows, this.symmetric)));
     // plain files: exactly that; gzip: a generous guess, grown when needed
     const cap = this.source.gzip ? Math.min(most, Math.max(1 << 16, this.source.fileBytes)) : most;
-    // exact size: the arrays are kept as the matrix's when nothing is merged (assembleSymmetricInPlace)
-    const shared = this.options.sharedArrays === true && !this.source.gzip;
-    this.rows = shared ? new Int32Array(new SharedArrayBuffer(4 * cap)) : new Int32Array(cap);
+    this.rows = new Int32Array(cap);
     this.cols = new Int32Array(cap);
-    this.vals = shared ? new Float64Array(new SharedArrayBuffer(8 * cap)) : new Float64Array(cap);
+    this.vals = new Float64Array(cap);
   }
 
   /**

@@ -49,13 +49,6 @@ export interface MatrixReadOptions {
   role?: 'stiffness' | 'mass';
   /** Memory the model may take (default: the machine's, see matrix-market-memory.ts). */
   memoryBudgetBytes?: number;
-  /**
-   * Keep the matrix's arrays in shared memory where reading allows it without a copy (see
-   * MatrixLinesOptions.sharedArrays). Off by default: it saves memory only once the helper
-   * threads' products take such a matrix as it is instead of copying it (block-product-jobs.ts,
-   * sharedMatrix); until then it only moves K and M out of the collector's external-memory count.
-   */
-  sharedArrays?: boolean;
 }
 
 export interface MatrixFile {
@@ -170,7 +163,7 @@ export async function readMatrixHeader(
 }
 
 function linesOptions(options: MatrixReadOptions): MatrixLinesOptions {
-  return { screening: options.screening, role: options.role, memoryBudgetBytes: options.memoryBudgetBytes, sharedArrays: options.sharedArrays };
+  return { screening: options.screening, role: options.role, memoryBudgetBytes: options.memoryBudgetBytes };
 }
 
 export interface DenseArray {

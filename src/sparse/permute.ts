@@ -84,12 +84,10 @@ export function transposePattern(u: Pattern): { lower: Pattern; map: Int32Array 
 
 /** Lower triangle of P A Pᵀ with sorted rows, values carried along. */
 export function permuteSymmetric(a: SymmetricCsc, perm: Int32Array): SymmetricCsc {
-  const pinv = inversePermutation(perm);
-  const { upper, src } = permutedUpper(a, pinv);
-  const { lower, map } = transposePattern(upper);
-  const values = new Float64Array(map.length);
+  const { lower, from } = permutedLower(a, inversePermutation(perm));
   // values follow their entries through both passes
-  for (let q = 0; q < map.length; q++) values[q] = a.values[src[map[q]]];
+  const values = new Float64Array(from.length);
+  for (let q = 0; q < from.length; q++) values[q] = a.values[from[q]];
   return { n: a.n, colPtr: lower.colPtr, rowIdx: lower.rowIdx, values };
 }
 

@@ -52,13 +52,11 @@ function maxShiftedDiagonal(s: SupernodalStructure, shift: number): number {
 /**
  * The structure with its pair reading K's and M's values from their shared copies
  * (block-product-jobs.ts, sharedMatrix: made once per matrix and used by the products too),
- * when those are at hand with the same entries; else unchanged (shareStructure copies them).
+ * when there are helper threads; else unchanged.
  */
 function withSharedValues(s: SupernodalStructure, stiffness: SymmetricCsc, mass: SymmetricCsc): SupernodalStructure {
-  const shared = (a: SymmetricCsc): Float64Array | null => {
-    const c = sharedMatrix(a);
-    return c && c.values.buffer instanceof SharedArrayBuffer && c.values.length === a.values.length ? c.values : null;
-  };
+  // sharedMatrix's copy holds the same entries in the same order, in shared memory
+  const shared = (a: SymmetricCsc): Float64Array | null => sharedMatrix(a)?.values ?? null;
   const k = shared(stiffness);
   const m = shared(mass);
   if (!k || !m) return s;
