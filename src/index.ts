@@ -9,19 +9,8 @@ export type { MatrixSummary } from './io/matrix-summary.js';
 export { readDofMap } from './io/dof-map-reader.js';
 export type { DofMap, Component } from './io/dof-map.js';
 export type { SymmetricCsc } from './sparse/csc.js';
-import { solveModes as solveModesHere } from './eigen/solve-modes.js';
-import type { ModesRequest, ModesResult } from './eigen/modes-types.js';
-import type { SymmetricCsc } from './sparse/csc.js';
-import { withThreadsForDofs } from './sparse/helper-thread.js';
+export { solveModes } from './eigen/solve-modes.js';
 export type { ModesRequest, ModesResult, SturmCheck } from './eigen/modes-types.js';
-
-/**
- * The lowest modes of K φ = λ M φ, verified (src/eigen/solve-modes.ts), on this thread alone for
- * a model below 5 000 DOFs as in every command (sparse/helper-thread.ts withThreadsForDofs).
- */
-export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request: ModesRequest): ModesResult {
-  return withThreadsForDofs(stiffness.n, () => solveModesHere(stiffness, mass, request));
-}
 export { checkModels, type CheckModelsOptions } from './pipeline/check-models.js';
 export type { PhaseTimes } from './pipeline/analyze-model.js';
 export type { RawConfig, RawModelConfig, RawRuleEntry, RawSeverity, RawBaselineConfig } from './io/config-types.js';

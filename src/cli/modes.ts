@@ -24,7 +24,6 @@ import { EIGENPAIR_RESIDUAL_LIMIT, EIGENPAIR_RESIDUAL_NAME } from '../eigen/resi
 import { screenPencil } from '../model/screen-pencil.js';
 import { EXIT_PASS, EXIT_RULE_FAILED, runAction } from './run-action.js';
 import { MemoryLimitError } from '../sparse/memory-limit.js';
-import { withThreadsForDofs } from '../sparse/helper-thread.js';
 import { DEFAULT_MEMORY_SHARE, defaultMemoryLimitBytes, parseMemorySize } from './limits.js';
 import { prestartSolverThreads } from '../pipeline/read-step.js';
 
@@ -119,7 +118,7 @@ async function modes(opts: ModesOptions): Promise<number> {
 /** The solve; an M found indefinite on the way is bad input in the mass file. */
 function solveOrRefuse(stiffness: Parameters<typeof solveModes>[0], mass: Parameters<typeof solveModes>[1], request: ModesRequest, stiffnessFile: string, massFile: string): ModesResult {
   try {
-    return withThreadsForDofs(stiffness.n, () => solveModes(stiffness, mass, request));
+    return solveModes(stiffness, mass, request);
   } catch (e) {
     if (e instanceof IndefiniteMassError) throw new InputError(massFile, e.message);
     // a model too large for the limit: the stiffness file names the model

@@ -98,12 +98,10 @@ export function rigidBodyZero(scale: DiagonalScale): number {
  */
 export function judgeShift(sigma: number, estimates: Float64Array, wanted: number, scale: DiagonalScale): ShiftVerdict {
   const zero = rigidBodyZero(scale);
-  const lowest = Array.from(estimates).slice(0, Math.max(wanted, 1));
+  const lowest = Array.from(estimates.subarray(0, Math.max(wanted, 1)));
   const rigidBodyCount = lowest.filter((v) => Math.abs(v) <= zero).length;
-  const elastic = Array.from(estimates).find((v) => v > zero);
-  // judged against λ_max(N, 6): block Lanczos converges the six nearest σ in its first block together
-  const reach = Array.from(estimates).slice(0, Math.max(wanted, SHIFT_REACH));
-  const top = reach[reach.length - 1];
+  const elastic = estimates.find((v) => v > zero);
+  const top: number | undefined = estimates[Math.min(estimates.length, Math.max(wanted, SHIFT_REACH)) - 1];
   if (elastic === undefined || top === undefined) return { acceptable: true, better: sigma, rigidBodyCount };
   const tooFar = Math.abs(sigma) > 0.1 * Math.max(Math.abs(top), elastic);
   const tooClose = rigidBodyCount > 0 && Math.abs(sigma) < 1e-3 * elastic;

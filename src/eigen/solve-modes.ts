@@ -20,6 +20,7 @@
  * moved and a warning says so.
  */
 import { createShiftedSolver } from '../sparse/shifted-solver.js';
+import { withThreadsForDofs } from '../sparse/helper-thread.js';
 import { symOneNorm, type SymmetricCsc } from '../sparse/csc.js';
 import type { FactorDiagnostics, ShiftedFactor, ShiftedSolver } from '../sparse/factor-types.js';
 import {
@@ -79,6 +80,11 @@ interface SolveState {
 }
 
 export function solveModes(stiffness: SymmetricCsc, mass: SymmetricCsc, request: ModesRequest): ModesResult {
+  // a model below ONE_THREAD_BELOW_DOFS on this thread alone, whoever asks (commands, pipeline, library)
+  return withThreadsForDofs(stiffness.n, () => solveWithThreads(stiffness, mass, request));
+}
+
+function solveWithThreads(stiffness: SymmetricCsc, mass: SymmetricCsc, request: ModesRequest): ModesResult {
   const start = performance.now();
   const n = stiffness.n;
   if (mass.n !== n) throw new RangeError(`stiffness is ${n}×${n} but mass is ${mass.n}×${mass.n}`);

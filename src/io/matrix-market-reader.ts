@@ -162,6 +162,15 @@ export async function readMatrixHeader(
   return { banner: parser.banner!, size: parser.size! };
 }
 
+/** The DOFs of a stiffness file by its size line, undefined when that cannot be read (reading the file will say why). */
+export async function stiffnessDofs(path: string): Promise<number | undefined> {
+  try {
+    return (await readMatrixHeader(path, { role: 'stiffness' })).size.rows;
+  } catch {
+    return undefined;
+  }
+}
+
 function linesOptions(options: MatrixReadOptions): MatrixLinesOptions {
   return { screening: options.screening, role: options.role, memoryBudgetBytes: options.memoryBudgetBytes };
 }

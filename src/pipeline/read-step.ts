@@ -5,7 +5,7 @@
  */
 import type { DofMap } from '../io/dof-map.js';
 import { readDofMap } from '../io/dof-map-reader.js';
-import { readMatrixHeader, readStiffnessAndMass } from '../io/matrix-market-reader.js';
+import { readStiffnessAndMass, stiffnessDofs } from '../io/matrix-market-reader.js';
 import { prestartHelpers } from '../sparse/helper-thread.js';
 import type { MatrixSummary } from '../io/matrix-summary.js';
 import { fullNonzeros, type SymmetricCsc } from '../sparse/csc.js';
@@ -23,14 +23,13 @@ export interface ModelInput {
 /**
  * Starts the solver's helper threads for the model in `stiffnessPath` (by the DOFs of its size
  * line) so they load while the matrices are read; nothing when the line cannot be read (reading
- * the file will say why) or the model is solved on one thread.
+ * the file will say why) or the model is solved on one thread. Judged on the file's DOFs: a model
+ * that constraint sets bring below ONE_THREAD_BELOW_DOFS, or that is refused before its solve,
+ * has started helpers it does not use (about 0.1 s of CPU each).
  */
 export async function prestartSolverThreads(stiffnessPath: string): Promise<void> {
-  try {
-    prestartHelpers((await readMatrixHeader(stiffnessPath, { role: 'stiffness' })).size.rows);
-  } catch {
-    // reported by the read itself
-  }
+  const dofs = await stiffnessDofs(stiffnessPath);
+  if (dofs !== undefined) prestartHelpers(dofs);
 }
 
 export async function readModelInput(job: ModelJob): Promise<ModelInput> {

@@ -6,7 +6,7 @@
  * process's). `stopAll` stops every running model (its report says why) and starts no other.
  * A small model checked alone runs on this thread (runsHere).
  */
-import { readMatrixHeader } from '../io/matrix-market-reader.js';
+import { stiffnessDofs } from '../io/matrix-market-reader.js';
 import { availableParallelism } from 'node:os';
 import type { ModelJob } from './job-types.js';
 import { ONE_THREAD_BELOW_DOFS, solverThreads, threadsForModel, userThreadCap } from './job-threads.js';
@@ -48,7 +48,7 @@ export function runModels(jobs: ModelJob[], settings: RunModelsSettings): ModelB
     while (!stopping && next < jobs.length) {
       const i = next++;
       const job = withMemoryShare(jobs[i], atOnce);
-      const dofs = isolated ? await dofsOf(job) : undefined;
+      const dofs = isolated ? await stiffnessDofs(job.stiffnessPath) : undefined;
       if (stopping) break;
       const here = !isolated || runsHere(dofs, atOnce, settings.timeLimitMs);
       const run = runner.run(job, { timeLimitMs: settings.timeLimitMs, threads: here ? undefined : threadsForModel(share, dofs), here, ...settings.callbacks?.(job) });
@@ -78,18 +78,10 @@ export function runModels(jobs: ModelJob[], settings: RunModelsSettings): ModelB
  * a signal waits at most for one short step), or when its size line cannot be read (it will fail
  * on reading). It spares the worker's start and second copy of the modules.
  */
-function runsHere(dofs: number | undefined, atOnce: number, timeLimitMs: number | undefined): boolean {
+export function runsHere(dofs: number | undefined, atOnce: number, timeLimitMs: number | undefined): boolean {
   return atOnce === 1 && timeLimitMs === undefined && (dofs === undefined || dofs < ONE_THREAD_BELOW_DOFS);
 }
 
-/** DOFs from the stiffness file's size line (undefined when it cannot be read: the model will say why). */
-async function dofsOf(job: ModelJob): Promise<number | undefined> {
-  try {
-    return (await readMatrixHeader(job.stiffnessPath, { role: 'stiffness' })).size.rows;
-  } catch {
-    return undefined;
-  }
-}
 
 /** The job with 1/`share` of its memory limit (the limit holds for the whole process). */
 function withMemoryShare(job: ModelJob, share: number): ModelJob {

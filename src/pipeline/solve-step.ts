@@ -9,7 +9,6 @@ import type { DofMap } from '../io/dof-map.js';
 import { InputError, oneLineMessage } from '../io/errors.js';
 import type { SymmetricCsc } from '../sparse/csc.js';
 import { MemoryLimitError } from '../sparse/memory-limit.js';
-import { withThreadsForDofs } from '../sparse/helper-thread.js';
 import { solveModes } from '../eigen/solve-modes.js';
 import { IndefiniteMassError, type ModesRequest, type ModesResult } from '../eigen/modes-types.js';
 import type { ModelJob } from './job-types.js';
@@ -26,7 +25,7 @@ export function runSolveStep(
   const request: ModesRequest = { ...job.solve, onProgress: hooks.onProgress };
   if (model.dofMap) request.coordinates = interleavedCoordinates(model.dofMap);
   try {
-    return { modes: withThreadsForDofs(model.stiffness.n, () => solveModes(model.stiffness, model.mass, request)) };
+    return { modes: solveModes(model.stiffness, model.mass, request) };
   } catch (e) {
     if (e instanceof MemoryLimitError) throw e;
     hooks.onError?.(e);

@@ -101,8 +101,8 @@ export const ONE_THREAD_BELOW_DOFS = 5000;
 
 /**
  * Runs `solve` (synchronous: nothing else runs meanwhile) with N = 1 when the model has fewer
- * than ONE_THREAD_BELOW_DOFS DOFs, otherwise with N as it is. The front doors of a solve (the
- * modes command, the check pipeline, the library's solveModes) go through here.
+ * than ONE_THREAD_BELOW_DOFS DOFs, otherwise with N as it is. Every solve goes through here
+ * (eigen/solve-modes.ts solveModes, behind the commands, the pipeline and the library).
  */
 export function withThreadsForDofs<T>(dofs: number, solve: () => T): T {
   if (dofs >= ONE_THREAD_BELOW_DOFS) return solve();

@@ -8,6 +8,8 @@ import { describe, expect, it } from 'vitest';
 import { resolve } from 'node:path';
 import { loadConfig } from '../../src/pipeline/load-config.js';
 import { ModelRunner } from '../../src/pipeline/model-runner.js';
+import { runsHere } from '../../src/pipeline/run-models.js';
+import { ONE_THREAD_BELOW_DOFS } from '../../src/sparse/helper-thread.js';
 import type { PhaseTimes } from '../../src/pipeline/analyze-model.js';
 
 const demo = resolve(import.meta.dirname, '../../fixtures/demo');
@@ -37,4 +39,15 @@ describe('a model checked on this thread', () => {
     expect(report.rules.length).toBeGreaterThan(0);
     expect(report.modes?.length).toBeGreaterThan(0);
   }, 60_000);
+});
+
+describe('which models run on this thread (run-models.ts runsHere)', () => {
+  it('one small model at a time without a time limit, or one whose size line cannot be read; every other on a worker', () => {
+    const small = ONE_THREAD_BELOW_DOFS - 1;
+    expect(runsHere(small, 1, undefined)).toBe(true);
+    expect(runsHere(undefined, 1, undefined)).toBe(true);
+    expect(runsHere(small, 2, undefined)).toBe(false);
+    expect(runsHere(small, 1, 1000)).toBe(false);
+    expect(runsHere(ONE_THREAD_BELOW_DOFS, 1, undefined)).toBe(false);
+  });
 });
