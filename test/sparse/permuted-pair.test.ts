@@ -134,4 +134,17 @@ describe('permutedPair (pattern once, values by reference) equals the former cop
     expect(given.nnzL).toBe(counted.nnzL);
     expect(given.nnzL).toBe(order.predictedNnzL);
   });
+
+  it('the same when K and M each have entries the other lacks (the ordering\'s graph is their union)', () => {
+    const stiffness = randomSymmetric(40, 3, 11);
+    const mass = randomSymmetric(40, 2, 12);
+    const order = chooseOrdering(stiffness, mass, { ordering: 'amd' });
+    expect(order.tree).toBeDefined();
+    const given = analyzeShiftedPair(stiffness, mass, order.perm, order.tree);
+    const counted = analyzeShiftedPair(stiffness, mass, order.perm);
+    expect(Array.from(given.superStart)).toEqual(Array.from(counted.superStart));
+    expect(Array.from(given.rows)).toEqual(Array.from(counted.rows));
+    expect(given.nnzL).toBe(counted.nnzL);
+    expect(given.nnzL).toBe(order.predictedNnzL);
+  });
 });
